@@ -1,0 +1,71 @@
+import express, { type RequestHandler } from 'express';
+import helmet from 'helmet';
+import compression from 'compression';
+import { pinoHttp } from 'pino-http';
+import type { Db } from './db/client';
+import type { Mailer } from './mail/mailer';
+import type { Storage } from './storage/disk-storage';
+import type { Clock } from './lib/clock';
+import type { Config } from './config';
+import type { Logger } from './lib/logger';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { healthRouter } from './features/health/health.router';
+
+export type AppDeps = {
+  db: Db;
+  mailer: Mailer;
+  storage: Storage;
+  clock: Clock;
+  config: Config;
+  logger: Logger;
+  /** serves the client: Vite middleware in development, the built files in production; absent in API tests */
+  client?: RequestHandler[];
+};
+
+export function createApp(deps: AppDeps) {
+  const { config, logger } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') && !req.url?.startsWith('/auth') },
+      customProps: (req) => ({ userId: (req as express.Request).user?.id ?? null }),
+    }),
+  );
+  app.use(helmet({ contentSecurityPolicy: { directives: contentSecurityPolicy(config) } }));
+  app.use(compression());
+  app.use(express.json({ limit: '256kb' }));
+  app.use('/api', healthRouter());
+
+  // --- sessions, sign-in, CSRF ---
+
+  // --- feature routers ---
+
+
+  app.use('/api', apiNotFound);
+  if (deps.client) app.use(deps.client);
+  app.use(errorHandler(logger));
+  return app;
+}
+
+function contentSecurityPolicy(config: Config) {
+  const dev = config.env === 'development';
+  return {
+    defaultSrc: ["'self'"],
+    // Vite's dev server injects an inline module preamble and a websocket for hot reload
+    scriptSrc: dev ? ["'self'", "'unsafe-inline'"] : ["'self'"],
+    styleSrc: ["'self'", "'unsafe-inline'"],
+    imgSrc: ["'self'", 'data:', 'blob:'],
+    fontSrc: ["'self'", 'data:'],
+    connectSrc: dev ? ["'self'", 'ws:'] : ["'self'"],
+    workerSrc: ["'self'", 'blob:'],
+    objectSrc: ["'none'"],
+    baseUri: ["'none'"],
+    frameAncestors: ["'none'"],
+    formAction: ["'self'"],
+    upgradeInsecureRequests: config.appUrl.startsWith('https:') ? [] : null,
+  };
+}

@@ -1,0 +1,42 @@
+import express, { type RequestHandler } from 'express';
+import path from 'node:path';
+import fs from 'node:fs';
+
+const root = path.resolve(import.meta.dirname, '..');
+
+/** Production: the built files, long-cached when hashed, and index.html for every client route. */
+export function staticClient(): RequestHandler[] {
+  const dist = path.join(root, 'dist');
+  const indexFile = path.join(dist, 'index.html');
+  if (!fs.existsSync(indexFile)) throw new Error('No built client in dist/. Run `npm run build` first.');
+  const index = fs.readFileSync(indexFile, 'utf8');
+  const router = express.Router();
+  router.use(
+    '/assets',
+    express.static(path.join(dist, 'assets'), { immutable: true, maxAge: '1y', index: false, fallthrough: false }),
+  );
+  router.use(express.static(dist, { index: false, maxAge: '1h' }));
+  router.get('/{*splat}', (_req, res) => {
+    res.set('Cache-Control', 'no-cache').type('html').send(index);
+  });
+  return [router];
+}
+
+/** Development: Vite in middleware mode on the same port, with hot reload. */
+export async function viteClient(): Promise<{ handlers: RequestHandler[]; close: () => Promise<void> }> {
+  const { createServer } = await import('vite');
+  const vite = await createServer({ root, server: { middlewareMode: true }, appType: 'custom' });
+  const indexFile = path.join(root, 'index.html');
+  const router = express.Router();
+  router.use(vite.middlewares);
+  router.get('/{*splat}', async (req, res, next) => {
+    try {
+      const html = await vite.transformIndexHtml(req.originalUrl, fs.readFileSync(indexFile, 'utf8'));
+      res.type('html').send(html);
+    } catch (err) {
+      vite.ssrFixStacktrace(err as Error);
+      next(err);
+    }
+  });
+  return { handlers: [router], close: () => vite.close() };
+}

@@ -1,0 +1,97 @@
+import { z } from 'zod';
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('0.0.0.0'),
+  APP_URL: z.url().optional(),
+  DATABASE_URL: z.string().min(1).default('./data/swapyard.db'),
+  UPLOAD_DIR: z.string().min(1).default('./data/uploads'),
+  SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
+  GITHUB_CLIENT_ID: z.string().min(1).optional(),
+  GITHUB_CLIENT_SECRET: z.string().min(1).optional(),
+  AUTH_PROVIDER: z.enum(['github', 'fake']).optional(),
+  SMTP_URL: z.string().min(1).optional(),
+  MAIL_FROM: z.string().default('Swapyard <no-reply@swapyard.invalid>'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  SEED_DEMO: z.enum(['auto', 'never']).default('auto'),
+  /** vite: dev server with hot reload; dist: the built client (default in production) */
+  SERVE_CLIENT: z.enum(['vite', 'dist']).optional(),
+});
+
+export type Config = {
+  env: 'development' | 'production' | 'test';
+  port: number;
+  host: string;
+  appUrl: string;
+  databaseUrl: string;
+  uploadDir: string;
+  sessionSecret: string;
+  auth: { mode: 'github' | 'fake'; clientId: string; clientSecret: string };
+  smtpUrl?: string;
+  mailFrom: string;
+  logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
+  seedDemo: boolean;
+  serveClient: 'vite' | 'dist';
+};
+
+export class ConfigError extends Error {}
+
+/** Reads and checks the environment once at start. Throws ConfigError with every problem listed. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`);
+    throw new ConfigError(`Invalid configuration:\n  ${lines.join('\n  ')}`);
+  }
+  const e = parsed.data;
+  const production = e.NODE_ENV === 'production';
+  const hasRealIds = Boolean(e.GITHUB_CLIENT_ID && e.GITHUB_CLIENT_SECRET);
+  const mode = e.AUTH_PROVIDER ?? (hasRealIds ? 'github' : 'fake');
+  if (mode === 'github' && !hasRealIds) {
+    throw new ConfigError('AUTH_PROVIDER=github needs GITHUB_CLIENT_ID and GITHUB_CLIENT_SECRET.');
+  }
+  if (production && !hasRealIds && e.AUTH_PROVIDER !== 'fake') {
+    throw new ConfigError(
+      'No GITHUB_CLIENT_ID/GITHUB_CLIENT_SECRET in production. Set them, or set AUTH_PROVIDER=fake to run the local demo sign-in on purpose.',
+    );
+  }
+  if (production && !e.SESSION_SECRET) {
+    throw new ConfigError('SESSION_SECRET is required in production (at least 32 characters).');
+  }
+  return {
+    env: e.NODE_ENV,
+    port: e.PORT,
+    host: e.HOST,
+    appUrl: e.APP_URL ?? `http://localhost:${e.PORT}`,
+    databaseUrl: e.DATABASE_URL,
+    uploadDir: path.resolve(e.UPLOAD_DIR),
+    sessionSecret: e.SESSION_SECRET ?? developmentSecret(path.dirname(path.resolve(e.DATABASE_URL))),
+    auth: {
+      mode,
+      clientId: mode === 'github' ? e.GITHUB_CLIENT_ID! : 'swapyard-local-client',
+      clientSecret: mode === 'github' ? e.GITHUB_CLIENT_SECRET! : 'swapyard-local-secret',
+    },
+    smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
+    logLevel: e.LOG_LEVEL,
+    seedDemo: e.SEED_DEMO === 'auto',
+    serveClient: e.SERVE_CLIENT ?? (production ? 'dist' : 'vite'),
+  };
+}
+
+/** Outside production, a random secret is generated once and kept beside the database. */
+function developmentSecret(dataDir: string): string {
+  const file = path.join(dataDir, 'session-secret');
+  try {
+    return fs.readFileSync(file, 'utf8').trim();
+  } catch {
+    fs.mkdirSync(dataDir, { recursive: true });
+    const secret = crypto.randomBytes(32).toString('hex');
+    fs.writeFileSync(file, secret, { mode: 0o600 });
+    return secret;
+  }
+}

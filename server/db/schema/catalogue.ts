@@ -1,0 +1,54 @@
+import { sqliteTable, text, integer, real, index } from 'drizzle-orm/sqlite-core';
+import { timestamps } from './columns';
+import { partKinds } from '../../../shared/schemas/enums';
+
+export const chassis = sqliteTable('chassis', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  slug: text('slug').notNull().unique(),
+  make: text('make').notNull(),
+  model: text('model').notNull(),
+  code: text('code').notNull(),
+  yearFrom: integer('year_from').notNull(),
+  yearTo: integer('year_to'),
+  body: text('body').notNull().default(''),
+  lugCount: integer('lug_count').notNull(),
+  pcdMm: real('pcd_mm').notNull(),
+  centreBoreMm: real('centre_bore_mm').notNull(),
+  wheelBoltThread: text('wheel_bolt_thread').notNull(),
+  /** { diameterIn, widthIn, offsetMm, tyre } */
+  stockWheel: text('stock_wheel', { mode: 'json' }).$type<StockWheel>().notNull(),
+  /** { front: BrakeCorner & { rotorThicknessMm, kind }, rear: … } */
+  stockBrakes: text('stock_brakes', { mode: 'json' }).$type<StockBrakes>().notNull(),
+  notes: text('notes').notNull().default(''),
+  /** proposed with a submission and not yet approved */
+  proposed: integer('proposed', { mode: 'boolean' }).notNull().default(false),
+  ...timestamps,
+});
+
+export type StockWheel = { diameterIn: number; widthIn: number; offsetMm: number; tyre: string };
+export type StockBrakeCorner = {
+  kind: 'disc' | 'drum';
+  pistonsPerSideMm: number[];
+  rotorDiameterMm: number;
+  padHeightMm: number;
+  description: string;
+};
+export type StockBrakes = { front: StockBrakeCorner; rear: StockBrakeCorner };
+
+export const parts = sqliteTable(
+  'parts',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    slug: text('slug').notNull().unique(),
+    kind: text('kind', { enum: partKinds }).notNull(),
+    name: text('name').notNull(),
+    maker: text('maker').notNull().default(''),
+    partNumbers: text('part_numbers', { mode: 'json' }).$type<string[]>().notNull(),
+    /** specs by kind, e.g. caliper { pistonsPerSideMm, mounting, opposed }, rotor { diameterMm, thicknessMm, vented } */
+    specs: text('specs', { mode: 'json' }).$type<Record<string, unknown>>().notNull(),
+    cameOn: text('came_on', { mode: 'json' }).$type<string[]>().notNull(),
+    notes: text('notes').notNull().default(''),
+    ...timestamps,
+  },
+  (t) => [index('parts_kind_idx').on(t.kind)],
+);

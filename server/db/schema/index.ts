@@ -1,0 +1,4 @@
+export * from './users';
+export * from './catalogue';
+export * from './swaps';
+export * from './community';

@@ -1,0 +1,100 @@
+import { sqliteTable, text, integer, index, uniqueIndex, type AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
+import { timestamp, timestamps } from './columns';
+import { users } from './users';
+import { chassis } from './catalogue';
+import { axles, categories, revisionStatuses } from '../../../shared/schemas/enums';
+import type { SwapData } from '../../../shared/schemas/swap-data';
+
+export const swaps = sqliteTable(
+  'swaps',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    slug: text('slug').notNull().unique(),
+    chassisId: integer('chassis_id')
+      .notNull()
+      .references(() => chassis.id),
+    axle: text('axle', { enum: axles }).notNull(),
+    category: text('category', { enum: categories }).notNull(),
+    /** latest approved revision; null until the first approval */
+    currentRevisionId: integer('current_revision_id').references((): AnySQLiteColumn => revisions.id),
+    authorId: integer('author_id')
+      .notNull()
+      .references(() => users.id),
+    fittedCount: integer('fitted_count').notNull().default(0),
+    ...timestamps,
+  },
+  (t) => [index('swaps_chassis_idx').on(t.chassisId)],
+);
+
+export const revisions = sqliteTable(
+  'revisions',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    swapId: integer('swap_id')
+      .notNull()
+      .references((): AnySQLiteColumn => swaps.id, { onDelete: 'cascade' }),
+    number: integer('number').notNull(),
+    authorId: integer('author_id')
+      .notNull()
+      .references(() => users.id),
+    status: text('status', { enum: revisionStatuses }).notNull().default('draft'),
+    /** validated by swapDataSchema */
+    data: text('data', { mode: 'json' }).$type<SwapData>().notNull(),
+    /** markdown, raw HTML already stripped */
+    body: text('body').notNull().default(''),
+    submittedAt: timestamp('submitted_at'),
+    reviewedAt: timestamp('reviewed_at'),
+    reviewedById: integer('reviewed_by_id').references(() => users.id),
+    reviewNote: text('review_note'),
+    ...timestamps,
+  },
+  (t) => [
+    uniqueIndex('revisions_swap_number_uq').on(t.swapId, t.number),
+    index('revisions_status_idx').on(t.status),
+    index('revisions_author_idx').on(t.authorId),
+  ],
+);
+
+export const revisionPhotos = sqliteTable(
+  'revision_photos',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    revisionId: integer('revision_id')
+      .notNull()
+      .references(() => revisions.id, { onDelete: 'cascade' }),
+    /** random id of the stored file under UPLOAD_DIR */
+    fileId: text('file_id').notNull().unique(),
+    caption: text('caption').notNull().default(''),
+    position: integer('position').notNull().default(0),
+    width: integer('width').notNull(),
+    height: integer('height').notNull(),
+    bytes: integer('bytes').notNull(),
+    sha256: text('sha256').notNull(),
+    createdAt: timestamp('created_at').notNull(),
+  },
+  (t) => [index('revision_photos_revision_idx').on(t.revisionId)],
+);
+
+export const reviewEvents = sqliteTable(
+  'review_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    revisionId: integer('revision_id')
+      .notNull()
+      .references(() => revisions.id, { onDelete: 'cascade' }),
+    actorId: integer('actor_id')
+      .notNull()
+      .references(() => users.id),
+    action: text('action', { enum: ['submitted', 'approved', 'sent_back', 'declined', 'superseded'] }).notNull(),
+    note: text('note').notNull().default(''),
+    at: timestamp('at').notNull(),
+  },
+  (t) => [index('review_events_revision_idx').on(t.revisionId)],
+);
+
+export const reviewReasonTemplates = sqliteTable('review_reason_templates', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  label: text('label').notNull(),
+  text: text('text').notNull(),
+  ...timestamps,
+});

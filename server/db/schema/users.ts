@@ -1,0 +1,63 @@
+import { sqliteTable, text, integer, uniqueIndex, index } from 'drizzle-orm/sqlite-core';
+import { timestamp, timestamps } from './columns';
+import { roles } from '../../../shared/roles';
+import { unitSystems } from '../../../shared/schemas/enums';
+
+export const shops = sqliteTable('shops', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  slug: text('slug').notNull().unique(),
+  name: text('name').notNull(),
+  town: text('town').notNull().default(''),
+  website: text('website').notNull().default(''),
+  about: text('about').notNull().default(''),
+  ...timestamps,
+});
+
+export const users = sqliteTable(
+  'users',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    provider: text('provider').notNull(),
+    providerId: text('provider_id').notNull(),
+    login: text('login').notNull(),
+    name: text('name').notNull().default(''),
+    email: text('email'),
+    avatarUrl: text('avatar_url'),
+    role: text('role', { enum: roles }).notNull().default('member'),
+    shopId: integer('shop_id').references(() => shops.id, { onDelete: 'set null' }),
+    units: text('units', { enum: unitSystems }).notNull().default('metric'),
+    suspendedAt: timestamp('suspended_at'),
+    lastSignInAt: timestamp('last_sign_in_at'),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex('users_provider_id_uq').on(t.provider, t.providerId), uniqueIndex('users_login_uq').on(t.login)],
+);
+
+/** Audit trail of role, shop and suspension changes. */
+export const userChanges = sqliteTable(
+  'user_changes',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    userId: integer('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    actorId: integer('actor_id').references(() => users.id, { onDelete: 'set null' }),
+    field: text('field').notNull(),
+    fromValue: text('from_value'),
+    toValue: text('to_value'),
+    at: timestamp('at').notNull(),
+  },
+  (t) => [index('user_changes_user_idx').on(t.userId)],
+);
+
+export const sessions = sqliteTable(
+  'sessions',
+  {
+    sid: text('sid').primaryKey(),
+    userId: integer('user_id'),
+    data: text('data').notNull(),
+    expiresAt: integer('expires_at').notNull(),
+    createdAt: integer('created_at').notNull(),
+  },
+  (t) => [index('sessions_expires_idx').on(t.expiresAt), index('sessions_user_idx').on(t.userId)],
+);

@@ -1,0 +1,30 @@
+import { z } from 'zod';
+
+export const roles = ['member', 'shop', 'moderator', 'admin'] as const;
+export const roleSchema = z.enum(roles);
+export type Role = z.infer<typeof roleSchema>;
+
+export const permissions = ['submit', 'report_fitted', 'flag', 'review', 'manage_shop_links', 'manage_users'] as const;
+export type Permission = (typeof permissions)[number];
+
+const grants: Record<Role, readonly Permission[]> = {
+  member: ['submit', 'report_fitted', 'flag'],
+  shop: ['submit', 'report_fitted', 'flag', 'manage_shop_links'],
+  moderator: ['submit', 'report_fitted', 'flag', 'review'],
+  admin: ['submit', 'report_fitted', 'flag', 'review', 'manage_users'],
+};
+
+export const roleLabels: Record<Role, string> = {
+  member: 'Member',
+  shop: 'Shop',
+  moderator: 'Moderator',
+  admin: 'Admin',
+};
+
+export function can(role: Role | null | undefined, permission: Permission): boolean {
+  return role ? grants[role].includes(permission) : false;
+}
+
+export function permissionsOf(role: Role): readonly Permission[] {
+  return grants[role];
+}

@@ -1,0 +1,49 @@
+import { z } from 'zod';
+
+export const axles = ['front', 'rear'] as const;
+export const axleSchema = z.enum(axles);
+export type Axle = z.infer<typeof axleSchema>;
+
+export const categories = ['brakes', 'wheels_tyres', 'suspension', 'drivetrain', 'repair'] as const;
+export const categorySchema = z.enum(categories);
+export type Category = z.infer<typeof categorySchema>;
+export const categoryLabels: Record<Category, string> = {
+  brakes: 'Brakes',
+  wheels_tyres: 'Wheels & tyres',
+  suspension: 'Suspension',
+  drivetrain: 'Drivetrain',
+  repair: 'Repair',
+};
+
+export const partKinds = ['caliper', 'rotor', 'pad', 'adapter', 'shim', 'spacer', 'line', 'hardware'] as const;
+export const partKindSchema = z.enum(partKinds);
+export type PartKind = z.infer<typeof partKindSchema>;
+
+export const costRoutes = ['as_built', 'budget', 'new_kit'] as const;
+export const costRouteSchema = z.enum(costRoutes);
+export type CostRoute = z.infer<typeof costRouteSchema>;
+export const costRouteLabels: Record<CostRoute, string> = {
+  as_built: 'As built',
+  budget: 'Budget',
+  new_kit: 'New kit',
+};
+
+export const revisionStatuses = ['draft', 'in_review', 'approved', 'sent_back', 'declined', 'superseded'] as const;
+export const revisionStatusSchema = z.enum(revisionStatuses);
+export type RevisionStatus = z.infer<typeof revisionStatusSchema>;
+export const revisionStatusLabels: Record<RevisionStatus, string> = {
+  draft: 'Draft',
+  in_review: 'In review',
+  approved: 'Approved',
+  sent_back: 'Sent back',
+  declined: 'Declined',
+  superseded: 'Superseded',
+};
+
+export const machiningOperations = ['grind', 'machine', 'drill', 'trim'] as const;
+export const machiningLevels = ['none', 'minor', 'major'] as const;
+export type MachiningLevel = (typeof machiningLevels)[number];
+
+export const unitSystems = ['metric', 'imperial'] as const;
+export const unitSystemSchema = z.enum(unitSystems);
+export type UnitSystem = z.infer<typeof unitSystemSchema>;

@@ -1,0 +1,40 @@
+import type { ReactNode } from 'react';
+
+export type CautionTopic = 'brakes' | 'wheels' | 'fasteners';
+
+const lines: Record<CautionTopic, string[]> = {
+  brakes: [
+    'Brakes are safety critical. Bleed the system and confirm a firm pedal before the car moves.',
+    'Bed in new pads as their maker describes, and check front/rear brake balance after changing caliper or rotor sizes.',
+  ],
+  wheels: [
+    'Check clearance with the wheel you will actually run, turning lock to lock, before the first drive.',
+    'Spacers change scrub radius and load on the hub bearings; keep enough thread engagement on every wheel bolt.',
+  ],
+  fasteners: [
+    'Torque every fastener to the manufacturer’s value, wheel bolts in a star pattern, and re-check after the first drive.',
+  ],
+};
+
+/** The safety block shown wherever brakes, wheels or fasteners are concerned. */
+export function Caution({ topics = ['brakes', 'wheels', 'fasteners'], children }: { topics?: CautionTopic[]; children?: ReactNode }) {
+  return (
+    <aside
+      role="note"
+      aria-label="Safety caution"
+      className="print-break-avoid rounded-lg border-l-4 border-oxide bg-oxide-soft px-4 py-3 text-sm text-graphite"
+    >
+      <p className="font-bold text-oxide">Safety first</p>
+      <ul className="mt-1 list-disc space-y-1 pl-5">
+        {topics.flatMap((t) => lines[t]).map((line) => (
+          <li key={line}>{line}</li>
+        ))}
+        <li>
+          Have the work inspected by a qualified technician. Many places require an inspection or approval of brake and
+          wheel modifications before road use; local rules and the manufacturers’ specifications always come first.
+        </li>
+      </ul>
+      {children}
+    </aside>
+  );
+}

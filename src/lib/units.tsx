@@ -1,0 +1,53 @@
+import { createContext, useCallback, useContext, useMemo, useState, type ReactNode } from 'react';
+import type { UnitSystem } from '@shared/schemas/enums';
+import { mmToIn, nmToLbfFt, barToPsi } from '@shared/fitment/units';
+
+const storageKey = 'swapyard.units';
+
+type UnitsContextValue = {
+  system: UnitSystem;
+  setSystem: (s: UnitSystem) => void;
+};
+
+const UnitsContext = createContext<UnitsContextValue | null>(null);
+
+function readStored(): UnitSystem {
+  try {
+    return localStorage.getItem(storageKey) === 'imperial' ? 'imperial' : 'metric';
+  } catch {
+    return 'metric';
+  }
+}
+
+export function UnitsProvider({ children }: { children: ReactNode }) {
+  const [system, setState] = useState<UnitSystem>(readStored);
+  const setSystem = useCallback((s: UnitSystem) => {
+    setState(s);
+    try {
+      localStorage.setItem(storageKey, s);
+    } catch {
+      // private mode: the choice lasts for this visit only
+    }
+  }, []);
+  const value = useMemo(() => ({ system, setSystem }), [system, setSystem]);
+  return <UnitsContext.Provider value={value}>{children}</UnitsContext.Provider>;
+}
+
+export function useUnits() {
+  const ctx = useContext(UnitsContext);
+  if (!ctx) throw new Error('useUnits needs a UnitsProvider');
+  const { system } = ctx;
+  return {
+    ...ctx,
+    /** a length given in mm, shown in the chosen system */
+    length: (mm: number, digits = 1) =>
+      system === 'metric' ? `${round(mm, digits)} mm` : `${round(mmToIn(mm), digits + 2)} in`,
+    torque: (nm: number) => (system === 'metric' ? `${round(nm, 0)} N·m` : `${round(nmToLbfFt(nm), 0)} lbf·ft`),
+    pressure: (bar: number) => (system === 'metric' ? `${round(bar, 1)} bar` : `${round(barToPsi(bar), 0)} psi`),
+    lengthUnit: system === 'metric' ? 'mm' : 'in',
+  };
+}
+
+export function round(value: number, digits: number): string {
+  return value.toLocaleString('en-GB', { minimumFractionDigits: 0, maximumFractionDigits: digits });
+}
