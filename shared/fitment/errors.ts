@@ -9,7 +9,7 @@ export class FitmentInputError extends Error {
   }
 }
 
-function describe(value: unknown): string {
+function shown(value: unknown): string {
   if (typeof value === 'number') return String(value);
   if (value === null) return 'null';
   return typeof value;
@@ -17,7 +17,7 @@ function describe(value: unknown): string {
 
 export function requireFinite(value: unknown, field: string): number {
   if (typeof value !== 'number' || !Number.isFinite(value)) {
-    throw new FitmentInputError(field, `${field} must be a finite number (got ${describe(value)})`);
+    throw new FitmentInputError(field, `${field} must be a finite number (got ${shown(value)})`);
   }
   return value;
 }

@@ -68,7 +68,9 @@ export function tyreGeometry(codeOrParsed: string | TyreSize): TyreGeometry {
   const widthMm = requirePositive(size.widthMm, 'widthMm');
   const aspectRatio = requirePositive(size.aspectRatio, 'aspectRatio');
   const rimIn = requirePositive(size.rimIn, 'rimIn');
-  if (aspectRatio > 100) throw new FitmentInputError('aspectRatio', `aspectRatio must be at most 100 (got ${aspectRatio})`);
+  if (aspectRatio > 100) {
+    throw new FitmentInputError('aspectRatio', `aspectRatio must be at most 100 (got ${aspectRatio})`);
+  }
 
   const sidewallMm = (widthMm * aspectRatio) / 100;
   const diameterMm = rimIn * MM_PER_IN + 2 * sidewallMm;
