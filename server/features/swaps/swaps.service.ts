@@ -1,0 +1,71 @@
+import { and, desc, eq, inArray, isNotNull } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { chassis, revisions, swaps, users } from '../../db/schema/index';
+import { AppError } from '../../lib/app-error';
+import type { SwapSheetView, SwapCard, RevisionSummary } from '../../../shared/schemas/views';
+import { chassisView, iso, personRef, photosOf, swapCards } from './swap-views';
+
+/** Statuses a reader may open by revision number. */
+const publicStatuses = ['approved', 'superseded'] as const;
+
+/** The sheet of a swap at its current revision, or at revision `number` when given (approved or superseded only). */
+export function getSwapSheet(db: Db, slug: string, number?: number): SwapSheetView {
+  const found = db
+    .select({ swap: swaps, chassis, author: users })
+    .from(swaps)
+    .innerJoin(chassis, eq(chassis.id, swaps.chassisId))
+    .innerJoin(users, eq(users.id, swaps.authorId))
+    .where(eq(swaps.slug, slug))
+    .get();
+  if (!found || found.swap.currentRevisionId === null) throw AppError.notFound('That swap');
+  const { swap } = found;
+
+  const history = db
+    .select({ revision: revisions, author: users })
+    .from(revisions)
+    .innerJoin(users, eq(users.id, revisions.authorId))
+    .where(and(eq(revisions.swapId, swap.id), inArray(revisions.status, [...publicStatuses])))
+    .orderBy(desc(revisions.number))
+    .all();
+  const current = history.find((h) => h.revision.id === swap.currentRevisionId);
+  const shown = number === undefined ? current : history.find((h) => h.revision.number === number);
+  if (!shown) throw AppError.notFound(`Revision ${number} of that swap`);
+  const r = shown.revision;
+
+  return {
+    swap: {
+      id: swap.id,
+      slug: swap.slug,
+      axle: swap.axle,
+      category: swap.category,
+      fittedCount: swap.fittedCount,
+      author: personRef(found.author),
+      createdAt: swap.createdAt.toISOString(),
+    },
+    chassis: chassisView(found.chassis),
+    revision: {
+      id: r.id,
+      number: r.number,
+      status: r.status,
+      data: r.data,
+      body: r.body,
+      approvedAt: iso(r.reviewedAt),
+      submittedAt: iso(r.submittedAt),
+      author: personRef(shown.author),
+      photos: photosOf(db, [r.id]).get(r.id) ?? [],
+    },
+    currentNumber: current?.revision.number ?? null,
+    history: history.map(
+      (h): RevisionSummary => ({
+        number: h.revision.number,
+        status: h.revision.status,
+        approvedAt: iso(h.revision.reviewedAt),
+        author: personRef(h.author),
+      }),
+    ),
+  };
+}
+
+export function recentSwaps(db: Db, limit: number): SwapCard[] {
+  return swapCards(db, isNotNull(swaps.currentRevisionId), limit);
+}

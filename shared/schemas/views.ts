@@ -1,0 +1,105 @@
+import type { Axle, Category, RevisionStatus } from './enums';
+import type { SwapData } from './swap-data';
+import type { Role } from '../roles';
+
+// Shapes of what the read API returns. The server builds them; the client types its queries with them.
+
+export type PersonRef = { login: string; name: string; avatarUrl: string | null };
+
+export type StockBrakeCornerView = {
+  kind: 'disc' | 'drum';
+  pistonsPerSideMm: number[];
+  rotorDiameterMm: number;
+  padHeightMm: number;
+  description: string;
+};
+
+export type ChassisView = {
+  id: number;
+  slug: string;
+  make: string;
+  model: string;
+  code: string;
+  yearFrom: number;
+  yearTo: number | null;
+  body: string;
+  lugCount: number;
+  pcdMm: number;
+  centreBoreMm: number;
+  wheelBoltThread: string;
+  stockWheel: { diameterIn: number; widthIn: number; offsetMm: number; tyre: string };
+  stockBrakes: { front: StockBrakeCornerView; rear: StockBrakeCornerView };
+  notes: string;
+};
+
+export type PhotoView = { id: string; caption: string; width: number; height: number; url: string; thumbUrl: string };
+
+export type RevisionSummary = {
+  number: number;
+  status: RevisionStatus;
+  approvedAt: string | null;
+  author: PersonRef;
+};
+
+export type SwapSheetView = {
+  swap: {
+    id: number;
+    slug: string;
+    axle: Axle;
+    category: Category;
+    fittedCount: number;
+    author: PersonRef;
+    createdAt: string;
+  };
+  chassis: ChassisView;
+  revision: {
+    id: number;
+    number: number;
+    status: RevisionStatus;
+    data: SwapData;
+    body: string;
+    approvedAt: string | null;
+    submittedAt: string | null;
+    author: PersonRef;
+    photos: PhotoView[];
+  };
+  /** number of the swap's current (latest approved) revision */
+  currentNumber: number | null;
+  /** approved and superseded revisions, newest first */
+  history: RevisionSummary[];
+};
+
+export type SwapCard = {
+  slug: string;
+  title: string;
+  summary: string;
+  axle: Axle;
+  category: Category;
+  chassis: { slug: string; make: string; model: string; code: string; yearFrom: number; yearTo: number | null };
+  revisionNumber: number;
+  approvedAt: string | null;
+  fittedCount: number;
+  minWheelIn: number | null;
+  thumbUrl: string | null;
+};
+
+export type ChassisPageView = { chassis: ChassisView; swaps: SwapCard[] };
+
+export type PartView = {
+  id: number;
+  slug: string;
+  kind: string;
+  name: string;
+  maker: string;
+  partNumbers: string[];
+  specs: Record<string, unknown>;
+  cameOn: string[];
+  notes: string;
+};
+
+export type PartPageView = { part: PartView; swaps: SwapCard[] };
+
+export type MeView = {
+  user: { id: number; login: string; name: string; avatarUrl: string | null; role: Role; shop: { slug: string; name: string } | null } | null;
+  csrfToken: string;
+};

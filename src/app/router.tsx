@@ -1,0 +1,31 @@
+import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router';
+import { Shell } from './layout/shell';
+import { RouteError } from './routes/route-error';
+import HomePage from './routes/home';
+
+/** Route modules load on demand; each default-exports its page component. */
+const page = (load: () => Promise<{ default: React.ComponentType }>): Pick<RouteObject, 'lazy'> => ({
+  lazy: async () => ({ Component: (await load()).default }),
+});
+
+export const routes: RouteObject[] = [
+  {
+    element: <Shell />,
+    errorElement: <RouteError />,
+    children: [
+      { index: true, element: <HomePage /> },
+      { path: 'swaps/:slug', ...page(() => import('../features/swaps/components/swap-sheet-page')) },
+      { path: 'swaps/:slug/r/:n', ...page(() => import('../features/swaps/components/swap-sheet-page')) },
+      { path: 'swaps/:slug/compare', ...page(() => import('../features/swaps/components/swap-compare-page')) },
+      { path: 'chassis/:slug', ...page(() => import('../features/swaps/components/chassis-page')) },
+      { path: 'parts/:id', ...page(() => import('../features/swaps/components/part-page')) },
+      { path: '*', ...page(() => import('./routes/not-found')) },
+    ],
+  },
+];
+
+const router = createBrowserRouter(routes);
+
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,22 @@
+/** Every client route in one place; links are built with these, never typed inline. */
+export const paths = {
+  home: () => '/',
+  search: (query = '') => (query ? `/search?${query}` : '/search'),
+  swap: (slug: string) => `/swaps/${slug}`,
+  swapRevision: (slug: string, n: number) => `/swaps/${slug}/r/${n}`,
+  swapCompare: (slug: string, a: number, b: number) => `/swaps/${slug}/compare?a=${a}&b=${b}`,
+  chassis: (slug: string) => `/chassis/${slug}`,
+  part: (id: number) => `/parts/${id}`,
+  tools: () => '/tools',
+  submit: () => '/submit',
+  editSubmission: (id: number) => `/submissions/${id}/edit`,
+  mySubmissions: () => '/me/submissions',
+  myCars: () => '/me/cars',
+  review: () => '/review',
+  reviewRevision: (id: number) => `/review/${id}`,
+  shop: (slug: string) => `/shops/${slug}`,
+  shopLinks: () => '/shop/links',
+  outbox: () => '/outbox',
+  admin: () => '/admin',
+  signIn: (returnTo: string) => `/auth/github?returnTo=${encodeURIComponent(returnTo)}`,
+} as const;

@@ -1,0 +1,75 @@
+import { useParams } from 'react-router';
+import { axles, categories, categoryLabels } from '@shared/schemas/enums';
+import { useChassisPage } from '../api/get-catalogue';
+import { Page } from '../../../components/ui/page';
+import { Loading, ErrorNotice } from '../../../components/ui/query-state';
+import { SwapCard, chassisLabel } from '../../../components/swap-card';
+import { useUnits } from '../../../lib/units';
+import { paths } from '../../../config/paths';
+import { ButtonLink } from '../../../components/ui/button';
+
+export default function ChassisPage() {
+  const { slug = '' } = useParams();
+  const query = useChassisPage(slug);
+  const { length } = useUnits();
+  if (query.isPending) return <Page title="Chassis"><Loading /></Page>;
+  if (query.isError) return <Page title="Chassis not found"><ErrorNotice error={query.error} /></Page>;
+  const { chassis: c, swaps } = query.data;
+  const corner = (k: 'front' | 'rear') => c.stockBrakes[k];
+  return (
+    <Page title={chassisLabel(c)} heading={`${c.make} ${c.model} · ${c.code}`} lead={`${c.body} · ${c.yearFrom}–${c.yearTo ?? 'on'}${c.notes ? ` · ${c.notes}` : ''}`}
+      actions={<ButtonLink to={paths.search(`chassis=${c.slug}`)} variant="secondary">Search within this chassis</ButtonLink>}>
+      <section aria-labelledby="hub-h" className="grid gap-4 md:grid-cols-3">
+        <h2 id="hub-h" className="sr-only">Hub and stock specs</h2>
+        <SpecCard title="Hub" rows={[['Bolt pattern', `${c.lugCount}×${c.pcdMm}`], ['Centre bore', length(c.centreBoreMm)], ['Wheel bolts', c.wheelBoltThread]]} />
+        <SpecCard title="Stock wheel" rows={[['Size', `${c.stockWheel.diameterIn}×${c.stockWheel.widthIn} ET${c.stockWheel.offsetMm}`], ['Tyre', c.stockWheel.tyre]]} />
+        <SpecCard
+          title="Stock brakes"
+          rows={(['front', 'rear'] as const).map((k) => [k === 'front' ? 'Front' : 'Rear', `${corner(k).description}${corner(k).kind === 'disc' ? `, ${length(corner(k).rotorDiameterMm, 0)}` : ''}`])}
+        />
+      </section>
+      <div className="mt-10 space-y-10">
+        {swaps.length === 0 && <p className="text-graphite-soft">No approved swaps for this chassis yet.</p>}
+        {axles.map((axle) => {
+          const forAxle = swaps.filter((s) => s.axle === axle);
+          if (forAxle.length === 0) return null;
+          return (
+            <section key={axle} aria-labelledby={`axle-${axle}`}>
+              <h2 id={`axle-${axle}`} className="mb-4 text-xl font-extrabold text-ink">{axle === 'front' ? 'Front axle' : 'Rear axle'}</h2>
+              {categories.map((cat) => {
+                const group = forAxle.filter((s) => s.category === cat);
+                if (group.length === 0) return null;
+                return (
+                  <div key={cat} className="mb-6">
+                    <h3 className="mb-2 text-sm font-bold uppercase tracking-wide text-graphite-soft">{categoryLabels[cat]}</h3>
+                    <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+                      {group.map((s) => (
+                        <li key={s.slug} className="flex"><SwapCard swap={s} /></li>
+                      ))}
+                    </ul>
+                  </div>
+                );
+              })}
+            </section>
+          );
+        })}
+      </div>
+    </Page>
+  );
+}
+
+export function SpecCard({ title, rows }: { title: string; rows: [string, React.ReactNode][] }) {
+  return (
+    <div className="rounded-xl border border-ink/10 bg-paper-card p-4">
+      <h3 className="font-extrabold text-ink">{title}</h3>
+      <dl className="tabular mt-2 space-y-1 text-sm">
+        {rows.map(([k, v]) => (
+          <div key={k} className="flex justify-between gap-3">
+            <dt className="text-graphite-soft">{k}</dt>
+            <dd className="text-right font-bold">{v}</dd>
+          </div>
+        ))}
+      </dl>
+    </div>
+  );
+}

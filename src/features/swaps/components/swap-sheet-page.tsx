@@ -1,0 +1,166 @@
+import { Link, useParams } from 'react-router';
+import type { SwapSheetView } from '@shared/schemas/views';
+import { categoryLabels } from '@shared/schemas/enums';
+import { machiningLevel } from '@shared/schemas/swap-data';
+import { useSwap } from '../api/get-swap';
+import { Page } from '../../../components/ui/page';
+import { Loading, ErrorNotice } from '../../../components/ui/query-state';
+import { Badge } from '../../../components/ui/badge';
+import { Button } from '../../../components/ui/button';
+import { Caution } from '../../../components/caution';
+import { Markdown } from '../../../components/markdown';
+import { PhotoGrid } from '../../../components/photo-grid';
+import { chassisLabel } from '../../../components/swap-card';
+import { paths } from '../../../config/paths';
+import { useUnits } from '../../../lib/units';
+import { SheetSection } from './sheet-section';
+import { PartsSection, AdapterSection, ShimsSpacersSection, RotorsSection, MachiningSection, TorqueSection } from './sheet-parts';
+import { CostRoutesSection } from './cost-routes';
+import { BrakeBalanceSection } from './brake-balance';
+import { WheelCheckPanel } from './wheel-check-panel';
+import { RevisionHistory } from './revision-history';
+
+const date = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—');
+
+export default function SwapSheetPage() {
+  const { slug = '', n } = useParams();
+  const number = n === undefined ? undefined : Number(n);
+  const query = useSwap(slug, Number.isInteger(number) ? number : undefined);
+  if (query.isPending) return <Page title="Swap"><Loading label="Loading the swap sheet…" /></Page>;
+  if (query.isError) return <Page title="Swap not found"><ErrorNotice error={query.error} /></Page>;
+  return <SwapSheet view={query.data} />;
+}
+
+export function SwapSheet({ view, banner }: { view: SwapSheetView; banner?: React.ReactNode }) {
+  const { swap, chassis, revision, history, currentNumber } = view;
+  const { data } = revision;
+  const { length } = useUnits();
+  const isOld = currentNumber !== null && revision.number !== currentNumber;
+  const level = machiningLevel(data.machining);
+  const brakesWork = swap.category === 'brakes' || data.parts.some((p) => ['caliper', 'rotor', 'pad', 'line'].includes(p.kind));
+
+  return (
+    <Page title={data.title}>
+      {banner}
+      {isOld && (
+        <div role="status" className="no-print mb-4 rounded-lg border border-brass bg-brass-soft/50 p-3 text-sm">
+          You are reading revision {revision.number}. A newer approved revision ({currentNumber}) exists —{' '}
+          <Link to={paths.swap(swap.slug)} className="font-bold text-ink underline">
+            read the current one
+          </Link>{' '}
+          or{' '}
+          <Link to={paths.swapCompare(swap.slug, revision.number, currentNumber)} className="font-bold text-ink underline">
+            see what changed
+          </Link>
+          .
+        </div>
+      )}
+      <header className="mb-8">
+        <div className="flex flex-wrap gap-2">
+          <Badge tone="ink">{swap.axle === 'front' ? 'Front axle' : 'Rear axle'}</Badge>
+          <Badge>{categoryLabels[swap.category]}</Badge>
+          <Badge tone={level === 'major' ? 'oxide' : level === 'minor' ? 'brass' : 'plain'}>
+            {level === 'none' ? 'No machining' : level === 'minor' ? 'Minor machining' : 'Major machining'}
+          </Badge>
+          {data.parkingBrakeKept !== null && <Badge tone={data.parkingBrakeKept ? 'ink' : 'oxide'}>{data.parkingBrakeKept ? 'Parking brake kept' : 'Parking brake lost'}</Badge>}
+        </div>
+        <h1 className="mt-3 text-2xl font-extrabold leading-tight tracking-tight text-ink sm:text-4xl">{data.title}</h1>
+        <p className="mt-2 text-graphite">
+          For the{' '}
+          <Link to={paths.chassis(chassis.slug)} className="font-bold text-ink underline decoration-brass underline-offset-2">
+            {chassisLabel(chassis)}
+          </Link>
+          , {swap.axle} axle · {chassis.lugCount}×{chassis.pcdMm} PCD · centre bore {length(chassis.centreBoreMm)} · wheel bolts {chassis.wheelBoltThread}
+        </p>
+        {data.summary && <p className="mt-3 max-w-3xl text-lg text-graphite">{data.summary}</p>}
+        <dl className="tabular mt-4 grid grid-cols-2 gap-3 text-sm sm:grid-cols-5">
+          <Fact label="Revision" value={`${revision.number}${isOld ? '' : ' (current)'}`} />
+          <Fact label="Approved" value={date(revision.approvedAt)} />
+          <Fact label="Fitted by" value={`${swap.fittedCount} other ${swap.fittedCount === 1 ? 'member' : 'members'}`} />
+          <Fact label="Install time" value={data.installHours ? `${data.installHours} h` : '—'} />
+          <Fact label="Difficulty" value={data.difficulty ? `${data.difficulty} of 5` : '—'} />
+        </dl>
+        <p className="mt-3 text-sm text-graphite-soft">
+          Written by {revision.author.name}
+          {revision.author.login !== swap.author.login && ` (correction to ${swap.author.name}’s record)`} · reviewed by a moderator before publication.
+        </p>
+        <div className="no-print mt-4 flex flex-wrap gap-2">
+          <Button variant="secondary" onClick={() => window.print()}>
+            Print build sheet
+          </Button>
+          <a href="#check" className="inline-flex min-h-10 items-center rounded-md px-4 text-sm font-bold text-ink hover:bg-ink-faint">
+            Check my wheel ↓
+          </a>
+        </div>
+      </header>
+
+      <div className="grid gap-10">
+        <Caution topics={brakesWork ? ['brakes', 'wheels', 'fasteners'] : ['wheels', 'fasteners']} />
+        <PartsSection parts={data.parts} />
+        {data.adapter && <AdapterSection adapter={data.adapter} />}
+        {(data.shims.length > 0 || data.spacers.length > 0) && <ShimsSpacersSection data={data} />}
+        {data.rotors.length > 0 && <RotorsSection rotors={data.rotors} />}
+        <MachiningSection steps={data.machining} />
+        <TorqueSection torque={data.torque} />
+        {data.wheel && (
+          <SheetSection id="wheel" title="Wheel requirement">
+            <dl className="tabular grid grid-cols-2 gap-3 text-sm sm:grid-cols-4">
+              <Fact label="Minimum wheel" value={`${data.wheel.minDiameterIn}″`} />
+              {data.wheel.barrelInnerDiameterMm && <Fact label="Barrel inner Ø needed" value={length(data.wheel.barrelInnerDiameterMm)} />}
+              <Fact label="Caliper beyond rotor edge" value={length(data.wheel.caliperRadialProjectionMm)} />
+              <Fact label="Caliper face outboard of hub" value={length(data.wheel.caliperOutboardMm)} />
+            </dl>
+            {data.wheel.testedWheels.length > 0 && (
+              <ul className="tabular mt-3 space-y-1 text-sm">
+                {data.wheel.testedWheels.map((w, i) => (
+                  <li key={i}>
+                    Tested: <strong>{w.diameterIn}×{w.widthIn} ET{w.offsetMm}</strong>
+                    {w.spacerMm > 0 && ` + ${length(w.spacerMm)} spacer`}
+                    {w.radialClearanceMm !== undefined && ` · radial ${length(w.radialClearanceMm)}`}
+                    {w.spokeClearanceMm !== undefined && ` · spokes ${length(w.spokeClearanceMm)}`}
+                    {w.note && ` — ${w.note}`}
+                  </li>
+                ))}
+              </ul>
+            )}
+            {data.wheel.notes && <p className="mt-2 text-sm text-graphite">{data.wheel.notes}</p>}
+          </SheetSection>
+        )}
+        <WheelCheckPanel data={data} axle={swap.axle} wheelBoltThread={chassis.wheelBoltThread} />
+        <BrakeBalanceSection data={data} />
+        <CostRoutesSection data={data} />
+        {data.tools.length > 0 && (
+          <SheetSection id="tools" title="Tools needed">
+            <ul className="flex flex-wrap gap-2 text-sm">
+              {data.tools.map((t) => (
+                <li key={t} className="rounded-full border border-graphite/20 bg-paper-card px-3 py-1">
+                  {t}
+                </li>
+              ))}
+            </ul>
+          </SheetSection>
+        )}
+        {revision.body && (
+          <SheetSection id="write-up" title="Write-up">
+            <Markdown>{revision.body}</Markdown>
+          </SheetSection>
+        )}
+        {revision.photos.length > 0 && (
+          <SheetSection id="photos" title="Photos">
+            <PhotoGrid photos={revision.photos} />
+          </SheetSection>
+        )}
+        <RevisionHistory slug={swap.slug} history={history} shown={revision.number} />
+      </div>
+    </Page>
+  );
+}
+
+function Fact({ label, value }: { label: string; value: React.ReactNode }) {
+  return (
+    <div className="rounded-lg bg-paper-card px-3 py-2 shadow-sm">
+      <dt className="text-xs text-graphite-soft">{label}</dt>
+      <dd className="font-extrabold text-graphite">{value}</dd>
+    </div>
+  );
+}

@@ -1,0 +1,181 @@
+import { useMemo, useState } from 'react';
+import type { SwapData } from '@shared/schemas/swap-data';
+import type { Axle } from '@shared/schemas/enums';
+import { checkWheelForSwap, type WheelUnderTest } from '@shared/fitment/swap-checks';
+import { FitmentInputError } from '@shared/fitment/errors';
+import { inToMm } from '@shared/fitment/units';
+import { useUnits } from '../../../lib/units';
+import { TextInput } from '../../../components/ui/field';
+import { Figure, Verdict } from '../../../components/verdict';
+import { Button } from '../../../components/ui/button';
+import { SheetSection } from './sheet-section';
+
+export type WheelPreset = { label: string; wheel: { diameterIn: number; widthIn: number; offsetMm: number; spacerMm: number } };
+
+type Form = Record<'diameterIn' | 'widthIn' | 'offsetMm' | 'spacer' | 'barrel' | 'spokeInset' | 'boltLength' | 'seat', string>;
+
+const empty: Form = { diameterIn: '', widthIn: '', offsetMm: '', spacer: '0', barrel: '', spokeInset: '', boltLength: '', seat: '' };
+
+function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors: Partial<Record<keyof Form, string>> } {
+  const errors: Partial<Record<keyof Form, string>> = {};
+  const num = (key: keyof Form, { required = false, min = -Infinity, max = Infinity } = {}) => {
+    const raw = form[key].trim().replace(',', '.');
+    if (raw === '') {
+      if (required) errors[key] = 'Needed for the check';
+      return undefined;
+    }
+    const v = Number(raw);
+    if (!Number.isFinite(v)) errors[key] = 'Enter a number';
+    else if (v < min || v > max) errors[key] = `Between ${min} and ${max}`;
+    return Number.isFinite(v) ? v : undefined;
+  };
+  const len = (v: number | undefined) => (v === undefined ? undefined : imperial ? inToMm(v) : v);
+  const diameterIn = num('diameterIn', { required: true, min: 10, max: 24 });
+  const widthIn = num('widthIn', { required: true, min: 4, max: 13 });
+  const offsetMm = num('offsetMm', { required: true, min: -80, max: 80 });
+  const spacer = len(num('spacer', { min: 0, max: imperial ? 2.4 : 60 })) ?? 0;
+  const barrel = len(num('barrel', { min: 0, max: imperial ? 26 : 660 }));
+  const spokeInset = len(num('spokeInset', { min: -100, max: 200 }));
+  const boltLength = len(num('boltLength', { min: 0, max: imperial ? 4 : 100 }));
+  const seat = len(num('seat', { min: 0, max: imperial ? 2 : 50 }));
+  if (Object.keys(errors).length || diameterIn === undefined || widthIn === undefined || offsetMm === undefined) return { errors };
+  return {
+    errors,
+    wheel: { diameterIn, widthIn, offsetMm, spacerMm: spacer, barrelInnerDiameterMm: barrel, spokeInsetMm: spokeInset, boltLengthMm: boltLength, seatThicknessMm: seat },
+  };
+}
+
+/** "Check my wheel": the reader's wheel against this swap's measurements, each verdict with its margin and rule. */
+export function WheelCheckPanel({ data, axle, wheelBoltThread, presets = [] }: { data: SwapData; axle: Axle; wheelBoltThread: string; presets?: WheelPreset[] }) {
+  const units = useUnits();
+  const imperial = units.system === 'imperial';
+  const [form, setForm] = useState<Form>(empty);
+  const [showMeasured, setShowMeasured] = useState(false);
+  const { wheel, errors } = useMemo(() => parse(form, imperial), [form, imperial]);
+  const result = useMemo(() => {
+    if (!wheel) return null;
+    try {
+      return { check: checkWheelForSwap(data, axle, wheelBoltThread, wheel) };
+    } catch (err) {
+      if (err instanceof FitmentInputError) return { error: err.message };
+      throw err;
+    }
+  }, [data, axle, wheelBoltThread, wheel]);
+
+  const set = (key: keyof Form) => (e: React.ChangeEvent<HTMLInputElement>) => setForm((f) => ({ ...f, [key]: e.target.value }));
+  const u = units.lengthUnit;
+  const fill = (w: WheelPreset['wheel']) =>
+    setForm((f) => ({
+      ...f,
+      diameterIn: String(w.diameterIn),
+      widthIn: String(w.widthIn),
+      offsetMm: String(w.offsetMm),
+      spacer: imperial ? (w.spacerMm / 25.4).toFixed(2) : String(w.spacerMm),
+    }));
+  const margin = (mm: number) => `${mm >= 0 ? '+' : '−'}${units.length(Math.abs(mm))}`;
+
+  return (
+    <SheetSection id="check" title="Check my wheel">
+      <div className="rounded-xl border border-ink/15 bg-paper-card p-4 no-print">
+        {presets.length > 0 && (
+          <div className="mb-4 flex flex-wrap items-center gap-2 text-sm">
+            <span className="font-bold">Fill from:</span>
+            {presets.map((p) => (
+              <Button key={p.label} variant="secondary" onClick={() => fill(p.wheel)}>
+                {p.label}
+              </Button>
+            ))}
+          </div>
+        )}
+        <form className="grid grid-cols-2 gap-3 sm:grid-cols-4" onSubmit={(e) => e.preventDefault()} aria-label="Your wheel">
+          <TextInput label="Diameter (in)" inputMode="decimal" value={form.diameterIn} onChange={set('diameterIn')} error={errors.diameterIn} placeholder="16" />
+          <TextInput label="Width (in)" inputMode="decimal" value={form.widthIn} onChange={set('widthIn')} error={errors.widthIn} placeholder="7" />
+          <TextInput label="Offset ET (mm)" inputMode="decimal" value={form.offsetMm} onChange={set('offsetMm')} error={errors.offsetMm} placeholder="35" />
+          <TextInput label={`Spacer (${u})`} inputMode="decimal" value={form.spacer} onChange={set('spacer')} error={errors.spacer} />
+          {showMeasured && (
+            <>
+              <TextInput label={`Barrel inner Ø (${u})`} hint="At the caliper" inputMode="decimal" value={form.barrel} onChange={set('barrel')} error={errors.barrel} />
+              <TextInput label={`Spoke inset (${u})`} hint="Spoke back face outboard of the hub face" inputMode="decimal" value={form.spokeInset} onChange={set('spokeInset')} error={errors.spokeInset} />
+              <TextInput label={`Wheel-bolt length (${u})`} inputMode="decimal" value={form.boltLength} onChange={set('boltLength')} error={errors.boltLength} />
+              <TextInput label={`Wheel seat thickness (${u})`} hint="Mounting pad of the wheel" inputMode="decimal" value={form.seat} onChange={set('seat')} error={errors.seat} />
+            </>
+          )}
+        </form>
+        <button type="button" className="mt-3 text-sm font-bold text-ink underline" aria-expanded={showMeasured} onClick={() => setShowMeasured((s) => !s)}>
+          {showMeasured ? 'Hide my measurements' : 'I have measured my wheel and bolts'}
+        </button>
+      </div>
+
+      <div className="mt-4" aria-live="polite">
+        {!wheel ? (
+          <p className="text-sm text-graphite-soft">Enter your wheel’s diameter, width and offset to see whether it clears.</p>
+        ) : result && 'error' in result ? (
+          <p role="alert" className="text-sm font-bold text-oxide">
+            {result.error}
+          </p>
+        ) : result ? (
+          <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
+            {result.check.minDiameter && (
+              <Verdict
+                label="Wheel diameter"
+                ok={result.check.minDiameter.ok}
+                value={`${result.check.minDiameter.givenIn}″ (needs ≥ ${result.check.minDiameter.requiredIn}″)`}
+                rule={result.check.minDiameter.rule}
+              />
+            )}
+            {result.check.radial ? (
+              <Verdict
+                label="Caliper to barrel (radial)"
+                ok={result.check.radial.ok}
+                value={units.length(result.check.radial.clearanceMm)}
+                margin={margin(result.check.radial.marginMm)}
+                rule={result.check.radial.rule}
+                note={result.check.radial.basisNote}
+              />
+            ) : (
+              <Figure label="Caliper to barrel (radial)" value="Not checked" note="This record has no caliper measurements." />
+            )}
+            {result.check.spoke ? (
+              <Verdict
+                label="Caliper to spokes (face)"
+                ok={result.check.spoke.ok}
+                value={units.length(result.check.spoke.clearanceMm)}
+                margin={margin(result.check.spoke.marginMm)}
+                rule={result.check.spoke.rule}
+                note={result.check.spoke.basisNote}
+              />
+            ) : (
+              <Figure label="Caliper to spokes (face)" value="Measure it" note="No tested wheel to estimate from: enter your spoke inset under ‘I have measured’." />
+            )}
+            <Figure
+              label="New offset"
+              value={`ET${Math.round(result.check.offset.offsetMm * 10) / 10}`}
+              note={`Backspacing ${units.length(result.check.offset.backspacingMm)} · track +${units.length(result.check.offset.trackChangeMm)} per axle`}
+            />
+            {result.check.engagement ? (
+              <Verdict
+                label="Wheel-bolt thread engagement"
+                ok={result.check.engagement.ok}
+                value={`${units.length(result.check.engagement.engagementMm)} (${result.check.engagement.turns.toFixed(1)} turns)`}
+                margin={margin(result.check.engagement.marginMm)}
+                rule={result.check.engagement.rule}
+              />
+            ) : (
+              <Figure label="Wheel-bolt length" value={form.spacer && Number(form.spacer) > 0 ? `Stock + ${units.length(result.check.offset.outboardMm)}` : 'Stock length'} note={result.check.boltNote} />
+            )}
+            {result.check.maxRotor && (
+              <Verdict
+                label="Rotor size rule of thumb"
+                ok={null}
+                value={`${units.length(result.check.maxRotor.rotorMm, 0)} rotor, rule allows ≈ ${units.length(result.check.maxRotor.maxRotorMm, 0)}`}
+                note={result.check.maxRotor.withinRule ? 'Within the rule of thumb.' : 'Larger than the rule of thumb suggests; the measured clearance above governs.'}
+                rule={result.check.maxRotor.rule}
+              />
+            )}
+            {result.check.spacerNote && <Figure label="Spacer type" value="Consider bolt-on" note={result.check.spacerNote} />}
+          </div>
+        ) : null}
+      </div>
+    </SheetSection>
+  );
+}
