@@ -1,0 +1,151 @@
+import { z } from 'zod';
+import { axleSchema, categorySchema, type Axle, type Category, type RevisionStatus } from './enums';
+import { swapDataSchema, type SwapData } from './swap-data';
+import type { PersonRef, PhotoView, ChassisView } from './views';
+
+// API contract of the community loop: submissions, photos, review desk, flags, outbox.
+
+/** a chassis proposed with a submission, when it is not in the catalogue yet */
+export const newChassisSchema = z.object({
+  make: z.string().trim().min(1, 'Give the make').max(60),
+  model: z.string().trim().min(1, 'Give the model').max(60),
+  code: z.string().trim().min(1, 'Give the chassis code').max(20),
+  yearFrom: z.number().int().min(1900).max(2100),
+  yearTo: z.number().int().min(1900).max(2100).nullable().default(null),
+  body: z.string().trim().max(60).default(''),
+  lugCount: z.number().int().min(3).max(10),
+  pcdMm: z.number().positive().max(300),
+  centreBoreMm: z.number().positive().max(200),
+  wheelBoltThread: z.string().trim().regex(/^M\d{1,2}(?:[x×]\d(?:\.\d{1,2})?)$/i, 'A metric thread like M12x1.5'),
+});
+export type NewChassis = z.infer<typeof newChassisSchema>;
+
+const markdownBody = z.string().max(40_000, 'The write-up may be at most 40,000 characters').default('');
+
+/** POST /api/submissions — a new swap (chassis + axle + category) or, with `swapSlug`, a new revision of an approved swap */
+export const createSubmissionSchema = z
+  .object({
+    swapSlug: z.string().max(120).optional(),
+    chassisId: z.number().int().positive().optional(),
+    newChassis: newChassisSchema.optional(),
+    axle: axleSchema.optional(),
+    category: categorySchema.optional(),
+    data: swapDataSchema,
+    body: markdownBody,
+  })
+  .superRefine((v, ctx) => {
+    if (v.swapSlug) return;
+    if (!v.chassisId && !v.newChassis) ctx.addIssue({ code: 'custom', path: ['chassisId'], message: 'Pick a chassis or propose a new one' });
+    if (!v.axle) ctx.addIssue({ code: 'custom', path: ['axle'], message: 'Pick the axle' });
+    if (!v.category) ctx.addIssue({ code: 'custom', path: ['category'], message: 'Pick a category' });
+  });
+export type CreateSubmission = z.infer<typeof createSubmissionSchema>;
+
+/** PATCH /api/submissions/:id — autosave of a draft or a sent-back revision (whole data object each time) */
+export const updateSubmissionSchema = z.object({
+  chassisId: z.number().int().positive().optional(),
+  newChassis: newChassisSchema.optional(),
+  axle: axleSchema.optional(),
+  category: categorySchema.optional(),
+  data: swapDataSchema,
+  body: markdownBody,
+});
+export type UpdateSubmission = z.infer<typeof updateSubmissionSchema>;
+
+/** PATCH /api/submissions/:id/photos — captions and order */
+export const photoOrderSchema = z.object({
+  photos: z.array(z.object({ id: z.string().min(1).max(60), caption: z.string().trim().max(300) })).max(12),
+});
+
+export type CheckResult = { id: string; label: string; status: 'pass' | 'fail' | 'attention'; detail: string; link?: string };
+
+/** One revision as its author or a reviewer sees it (any status). */
+export type SubmissionView = {
+  id: number;
+  swapId: number;
+  swapSlug: string;
+  number: number;
+  status: RevisionStatus;
+  /** true when this revision would replace an approved one */
+  isCorrection: boolean;
+  axle: Axle;
+  category: Category;
+  chassis: ChassisView;
+  data: SwapData;
+  body: string;
+  photos: PhotoView[];
+  author: PersonRef;
+  reviewNote: string | null;
+  submittedAt: string | null;
+  reviewedAt: string | null;
+  updatedAt: string;
+  /** the author may edit it now (draft or sent back) */
+  editable: boolean;
+};
+
+/** GET /api/me/submissions */
+export type MySubmissionItem = {
+  id: number;
+  swapSlug: string;
+  number: number;
+  title: string;
+  status: RevisionStatus;
+  reviewNote: string | null;
+  updatedAt: string;
+  submittedAt: string | null;
+};
+
+/** GET /api/review/queue?status=&chassis=&olderThanDays= */
+export type ReviewQueueItem = {
+  revisionId: number;
+  swapSlug: string;
+  title: string;
+  author: PersonRef;
+  submittedAt: string | null;
+  status: RevisionStatus;
+  number: number;
+  isCorrection: boolean;
+  chassis: { slug: string; label: string };
+  axle: Axle;
+  failedChecks: number;
+};
+export type ReviewQueue = {
+  items: ReviewQueueItem[];
+  counts: { in_review: number; sent_back: number; flags: number };
+  flags: FlagItem[];
+};
+
+export type FlagItem = {
+  id: number;
+  swapSlug: string;
+  title: string;
+  reason: string;
+  reporter: PersonRef;
+  status: 'open' | 'resolved';
+  createdAt: string;
+  resolutionNote: string | null;
+};
+
+/** GET /api/review/:revisionId */
+export type ReviewDetail = {
+  revision: SubmissionView;
+  checks: CheckResult[];
+  /** for a new revision of an approved swap: the current approved one to diff against */
+  current: { number: number; data: SwapData; body: string } | null;
+  history: { action: string; actor: PersonRef; note: string; at: string }[];
+  canDecide: boolean;
+};
+
+export const decisionNoteSchema = z.object({ note: z.string().trim().max(4000).default('') });
+export const requiredReasonSchema = z.object({ note: z.string().trim().min(3, 'Give the reason the member will read').max(4000) });
+export const bulkDeclineSchema = z.object({
+  revisionIds: z.array(z.number().int().positive()).min(1).max(100),
+  note: z.string().trim().min(3, 'Give the reason').max(4000),
+});
+export const reasonTemplateSchema = z.object({ label: z.string().trim().min(2).max(60), text: z.string().trim().min(3).max(2000) });
+export type ReasonTemplate = { id: number; label: string; text: string };
+
+export const flagSchema = z.object({ reason: z.string().trim().min(5, 'Say what is wrong (at least 5 characters)').max(2000) });
+export const resolveFlagSchema = z.object({ note: z.string().trim().min(3, 'Say what was done').max(2000) });
+
+export type OutboxMessage = { id: number; to: string; subject: string; text: string; html: string; createdAt: string; sentAt: string | null };
