@@ -10,6 +10,13 @@ import type { Config } from './config';
 import type { Logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { healthRouter } from './features/health/health.router';
+import { SqliteSessionStore, sessionMiddleware } from './auth/session-store';
+import { createPassport } from './auth/passport';
+import { authRateLimit, authRouter } from './auth/auth.router';
+import { fakeAuthorizeRouter, startFakeProvider } from './auth/fake-provider';
+import { refuseCrossSite, requireCsrfToken } from './middleware/csrf';
+import { meRouter } from './features/me/me.router';
+import { adminRouter } from './features/admin/admin.router';
 
 export type AppDeps = {
   db: Db;
@@ -41,8 +48,26 @@ export function createApp(deps: AppDeps) {
   app.use('/api', healthRouter());
 
   // --- sessions, sign-in, CSRF ---
+  const sessionStore = new SqliteSessionStore(deps.db, deps.clock);
+  const withSession = sessionMiddleware({ store: sessionStore, secret: config.sessionSecret, appUrl: config.appUrl });
+  // hashed client assets need no session (and must not get a rolling Set-Cookie)
+  app.use((req, res, next) => (req.path.startsWith('/assets/') ? next() : withSession(req, res, next)));
+  const passport = createPassport({ db: deps.db, clock: deps.clock, config });
+  app.use(passport.initialize());
+  const restoreUser = passport.session();
+  app.use((req, res, next) => (req.path.startsWith('/assets/') ? next() : restoreUser(req, res, next)));
+  app.use(refuseCrossSite);
+  app.use('/api', requireCsrfToken);
+  app.use('/auth', authRateLimit(config.auth.rateLimit));
+  if (config.auth.mode === 'fake') {
+    startFakeProvider();
+    app.use('/auth/fake', fakeAuthorizeRouter({ db: deps.db, config }));
+  }
+  app.use('/auth', authRouter({ passport, appUrl: config.appUrl }));
 
   // --- feature routers ---
+  app.use('/api', meRouter(deps));
+  app.use('/api', adminRouter({ db: deps.db, clock: deps.clock, endSessions: (userId) => sessionStore.destroyAllFor(userId) }));
 
 
   app.use('/api', apiNotFound);
@@ -58,7 +83,8 @@ function contentSecurityPolicy(config: Config) {
     // Vite's dev server injects an inline module preamble and a websocket for hot reload
     scriptSrc: dev ? ["'self'", "'unsafe-inline'"] : ["'self'"],
     styleSrc: ["'self'", "'unsafe-inline'"],
-    imgSrc: ["'self'", 'data:', 'blob:'],
+    // members' avatars come from the sign-in provider
+    imgSrc: ["'self'", 'data:', 'blob:', 'https://avatars.githubusercontent.com'],
     fontSrc: ["'self'", 'data:'],
     connectSrc: dev ? ["'self'", 'ws:'] : ["'self'"],
     workerSrc: ["'self'", 'blob:'],

@@ -14,6 +14,8 @@ const envSchema = z.object({
   GITHUB_CLIENT_ID: z.string().min(1).optional(),
   GITHUB_CLIENT_SECRET: z.string().min(1).optional(),
   AUTH_PROVIDER: z.enum(['github', 'fake']).optional(),
+  /** requests to /auth/* per client address in 15 minutes */
+  AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(300),
   SMTP_URL: z.string().min(1).optional(),
   MAIL_FROM: z.string().default('Swapyard <no-reply@swapyard.invalid>'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
@@ -30,7 +32,7 @@ export type Config = {
   databaseUrl: string;
   uploadDir: string;
   sessionSecret: string;
-  auth: { mode: 'github' | 'fake'; clientId: string; clientSecret: string };
+  auth: { mode: 'github' | 'fake'; clientId: string; clientSecret: string; rateLimit: number };
   smtpUrl?: string;
   mailFrom: string;
   logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
@@ -74,6 +76,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       mode,
       clientId: mode === 'github' ? e.GITHUB_CLIENT_ID! : 'swapyard-local-client',
       clientSecret: mode === 'github' ? e.GITHUB_CLIENT_SECRET! : 'swapyard-local-secret',
+      rateLimit: e.AUTH_RATE_LIMIT,
     },
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,

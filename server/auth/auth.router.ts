@@ -1,0 +1,94 @@
+import { Router, type Request, type Response } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { AppError } from '../lib/app-error';
+import { dropCsrfToken, requireCsrfToken } from '../middleware/csrf';
+import type { AppPassport, SignInInfo } from './passport';
+import { sessionCookie } from './session-store';
+
+declare module 'express-session' {
+  interface SessionData {
+    returnTo?: string;
+  }
+}
+
+export const signInFailedPath = '/signin-failed';
+
+/** Only a path on this site, never `//host` or `/\host` (which browsers treat as another site), and never back into /auth. */
+export function safeReturnTo(value: unknown): string | null {
+  if (typeof value !== 'string' || value.length > 512) return null;
+  if (!value.startsWith('/') || value.startsWith('//') || value.startsWith('/\\')) return null;
+  // eslint-disable-next-line no-control-regex
+  if (/[\u0000-\u001f\u007f\\]/.test(value)) return null;
+  const url = new URL(value, 'http://swapyard.local');
+  if (url.host !== 'swapyard.local' || url.pathname.startsWith('/auth/')) return null;
+  return url.pathname + url.search + url.hash;
+}
+
+type FailReason = 'state' | 'provider' | 'suspended' | 'denied';
+
+function failed(req: Request, res: Response, reason: FailReason, detail?: string) {
+  req.log?.warn({ event: 'sign_in_failed', reason, detail }, 'sign-in failed');
+  res.redirect(302, `${signInFailedPath}?reason=${reason}`);
+}
+
+/** Mounted on all of /auth (the fake authorize page included). */
+export function authRateLimit(limit: number) {
+  return rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (req, _res, next, options) => {
+      req.log?.warn({ event: 'rate_limited', path: req.originalUrl }, 'sign-in rate limit reached');
+      const minutes = Math.ceil(options.windowMs / 60000);
+      next(new AppError('rate_limited', `Too many sign-in attempts from your address. Wait ${minutes} minutes and try again.`, 429));
+    },
+  });
+}
+
+export function authRouter({ passport, appUrl }: { passport: AppPassport; appUrl: string }) {
+  const router = Router();
+  const cookie = sessionCookie(appUrl);
+
+  router.get('/github', (req, res, next) => {
+    const returnTo = safeReturnTo(req.query.returnTo);
+    if (returnTo) req.session.returnTo = returnTo;
+    else delete req.session.returnTo;
+    passport.authenticate('github')(req, res, next);
+  });
+
+  router.get('/github/callback', (req, res, next) => {
+    passport.authenticate('github', (err: unknown, user: Express.User | false, info?: SignInInfo) => {
+      if (err) return failed(req, res, 'provider', err instanceof Error ? err.message : 'unknown error');
+      if (!user) {
+        if (info?.reason === 'suspended') {
+          req.log?.warn({ event: 'sign_in_refused', userId: info.userId, reason: 'suspended' }, 'suspended account refused');
+          return res.redirect(302, `${signInFailedPath}?reason=suspended`);
+        }
+        if (typeof req.query.error === 'string') return failed(req, res, 'denied', req.query.error);
+        return failed(req, res, 'state', info?.message);
+      }
+      // passport regenerates the session id here; keepSessionInfo carries returnTo across
+      req.logIn(user, { session: true, keepSessionInfo: true }, (loginErr) => {
+        if (loginErr) return next(loginErr);
+        const target = safeReturnTo(req.session.returnTo) ?? '/';
+        delete req.session.returnTo;
+        dropCsrfToken(req);
+        req.log?.info({ event: 'sign_in', userId: user.id, login: user.login, created: info?.created ?? false }, 'signed in');
+        res.redirect(302, target);
+      });
+    })(req, res, next);
+  });
+
+  router.post('/logout', requireCsrfToken, (req, res, next) => {
+    const userId = req.user?.id ?? null;
+    req.session.destroy((err) => {
+      if (err) return next(err);
+      req.log?.info({ event: 'sign_out', userId }, 'signed out');
+      res.clearCookie(cookie.name, cookie.options);
+      res.status(204).end();
+    });
+  });
+
+  return router;
+}

@@ -1,0 +1,173 @@
+import session from 'express-session';
+import { and, eq, lt, lte } from 'drizzle-orm';
+import type { Db } from '../db/client';
+import { sessions } from '../db/schema/users';
+import type { Clock } from '../lib/clock';
+
+export type SessionLifetimes = {
+  /** a session unused this long ends (every request pushes it further) */
+  idleMs: number;
+  /** a session ends this long after it began (sign-in regenerates it), however busy */
+  absoluteMs: number;
+};
+
+const day = 24 * 60 * 60 * 1000;
+export const defaultLifetimes: SessionLifetimes = { idleMs: 14 * day, absoluteMs: 30 * day };
+
+/** Rolling the expiry on every request would mean a write per request; a minute of slack is plenty. */
+const touchSlackMs = 60 * 1000;
+const sweepEveryMs = 60 * 60 * 1000;
+
+type Row = typeof sessions.$inferSelect;
+
+function userIdOf(sess: session.SessionData): number | null {
+  const user = (sess as { passport?: { user?: unknown } }).passport?.user;
+  return typeof user === 'number' ? user : null;
+}
+
+/**
+ * express-session store over the app's own `sessions` table. Expiry is the store's own
+ * (idle and absolute, by the app's clock), not the cookie's, so the server decides when a session ends.
+ */
+export class SqliteSessionStore extends session.Store {
+  private readonly timer: NodeJS.Timeout;
+
+  constructor(
+    private readonly db: Db,
+    private readonly clock: Clock,
+    readonly lifetimes: SessionLifetimes = defaultLifetimes,
+  ) {
+    super();
+    this.timer = setInterval(() => {
+      try {
+        this.sweep();
+      } catch {
+        // a closed database (tests, shutdown) is not worth a crash; the next start sweeps
+      }
+    }, sweepEveryMs);
+    this.timer.unref();
+  }
+
+  private now() {
+    return this.clock.now().getTime();
+  }
+
+  private alive(row: Row, now: number) {
+    return row.expiresAt > now && row.createdAt + this.lifetimes.absoluteMs > now;
+  }
+
+  /** Deletes every ended session; returns how many. */
+  sweep(): number {
+    const now = this.now();
+    const idle = this.db.delete(sessions).where(lte(sessions.expiresAt, now)).run().changes;
+    const old = this.db
+      .delete(sessions)
+      .where(lte(sessions.createdAt, now - this.lifetimes.absoluteMs))
+      .run().changes;
+    return idle + old;
+  }
+
+  override get(sid: string, cb: (err: unknown, session?: session.SessionData | null) => void) {
+    try {
+      const row = this.db.select().from(sessions).where(eq(sessions.sid, sid)).get();
+      if (!row) return cb(null, null);
+      if (!this.alive(row, this.now())) {
+        this.db.delete(sessions).where(eq(sessions.sid, sid)).run();
+        return cb(null, null);
+      }
+      cb(null, JSON.parse(row.data) as session.SessionData);
+    } catch (err) {
+      cb(err);
+    }
+  }
+
+  override set(sid: string, sess: session.SessionData, cb?: (err?: unknown) => void) {
+    try {
+      const now = this.now();
+      const values = { data: JSON.stringify(sess), userId: userIdOf(sess), expiresAt: now + this.lifetimes.idleMs };
+      this.db
+        .insert(sessions)
+        .values({ sid, ...values, createdAt: now })
+        .onConflictDoUpdate({ target: sessions.sid, set: values })
+        .run();
+      cb?.();
+    } catch (err) {
+      cb?.(err);
+    }
+  }
+
+  override touch(sid: string, _sess: session.SessionData, cb?: (err?: unknown) => void) {
+    try {
+      const expiresAt = this.now() + this.lifetimes.idleMs;
+      this.db
+        .update(sessions)
+        .set({ expiresAt })
+        .where(and(eq(sessions.sid, sid), lt(sessions.expiresAt, expiresAt - touchSlackMs)))
+        .run();
+      cb?.();
+    } catch (err) {
+      cb?.(err);
+    }
+  }
+
+  override destroy(sid: string, cb?: (err?: unknown) => void) {
+    try {
+      this.db.delete(sessions).where(eq(sessions.sid, sid)).run();
+      cb?.();
+    } catch (err) {
+      cb?.(err);
+    }
+  }
+
+  override clear(cb?: (err?: unknown) => void) {
+    try {
+      this.db.delete(sessions).run();
+      cb?.();
+    } catch (err) {
+      cb?.(err);
+    }
+  }
+
+  override length(cb: (err: unknown, length?: number) => void) {
+    try {
+      const now = this.now();
+      const rows = this.db.select().from(sessions).all();
+      cb(null, rows.filter((r) => this.alive(r, now)).length);
+    } catch (err) {
+      cb(err);
+    }
+  }
+
+  /** Ends every session of one user (suspension). Returns how many ended. */
+  destroyAllFor(userId: number): number {
+    return this.db.delete(sessions).where(eq(sessions.userId, userId)).run().changes;
+  }
+
+  close() {
+    clearInterval(this.timer);
+  }
+}
+
+/** Cookie settings: `__Host-` and Secure behind https (no Domain, Path=/), Lax so the provider's redirect back carries it. */
+export function sessionCookie(appUrl: string) {
+  const secure = appUrl.startsWith('https:');
+  return {
+    name: secure ? '__Host-swapyard.sid' : 'swapyard.sid',
+    options: { httpOnly: true, sameSite: 'lax' as const, secure, path: '/' },
+  };
+}
+
+export function sessionMiddleware({ store, secret, appUrl }: { store: SqliteSessionStore; secret: string; appUrl: string }) {
+  const cookie = sessionCookie(appUrl);
+  return session({
+    name: cookie.name,
+    secret,
+    store,
+    resave: false,
+    saveUninitialized: false,
+    // each answer pushes the cookie's expiry along with the store's idle lifetime
+    rolling: true,
+    unset: 'destroy',
+    cookie: { ...cookie.options, maxAge: store.lifetimes.idleMs },
+  });
+}

@@ -1,0 +1,7 @@
+export const adminKeys = {
+  all: ['admin'] as const,
+  users: () => ['admin', 'users'] as const,
+  userList: (q: string) => ['admin', 'users', 'list', q] as const,
+  changes: (userId: number) => ['admin', 'users', 'changes', userId] as const,
+  shops: () => ['admin', 'shops'] as const,
+};

@@ -1,0 +1,58 @@
+import type { Server } from 'node:http';
+import request from 'supertest';
+import { expect } from 'vitest';
+import type { Db } from '../../../server/db/client';
+import { shops, users } from '../../../server/db/schema/users';
+import type { Role } from '../../../shared/roles';
+
+export type Agent = ReturnType<typeof request.agent>;
+
+/** A user the fake provider knows by login (provider id `demo-<login>`), as the demo seed makes them. */
+export function addUser(db: Db, login: string, role: Role = 'member', extra: Partial<typeof users.$inferInsert> = {}) {
+  const now = new Date();
+  return db
+    .insert(users)
+    .values({ provider: 'github', providerId: `demo-${login}`, login, name: login.replace(/_/g, ' '), role, email: `${login}@members.swapyard.invalid`, createdAt: now, updatedAt: now, ...extra })
+    .returning()
+    .get();
+}
+
+export function addShop(db: Db, slug: string, name: string) {
+  const now = new Date();
+  return db.insert(shops).values({ slug, name, createdAt: now, updatedAt: now }).returning().get();
+}
+
+export const sessionCookieOf = (res: { headers: Record<string, unknown> }, name = 'swapyard.sid') => {
+  const raw = res.headers['set-cookie'];
+  const list = Array.isArray(raw) ? (raw as string[]) : [];
+  return list.find((c) => c.startsWith(`${name}=`)) ?? null;
+};
+
+/**
+ * The whole browser dance through the real strategy: /auth/github → the fake authorize page
+ * (picking `login`) → the callback. Returns every response on the way.
+ */
+export async function signIn(agent: Agent, login: string, returnTo?: string) {
+  const start = await agent.get(returnTo === undefined ? '/auth/github' : `/auth/github?returnTo=${encodeURIComponent(returnTo)}`);
+  expect(start.status).toBe(302);
+  const authorize = new URL(start.headers.location, 'http://placeholder');
+  expect(authorize.pathname).toBe('/auth/fake/authorize');
+  authorize.searchParams.set('login', login);
+  const pick = await agent.get(authorize.pathname + authorize.search);
+  expect(pick.status).toBe(302);
+  const back = new URL(pick.headers.location);
+  const callback = await agent.get(back.pathname + back.search);
+  return { start, authorize, pick, back, callback };
+}
+
+export async function csrfToken(agent: Agent): Promise<string> {
+  const res = await agent.get('/api/me');
+  expect(res.status).toBe(200);
+  expect(typeof res.body.csrfToken).toBe('string');
+  return res.body.csrfToken as string;
+}
+
+export function listen(app: { listen: (port: number) => Server }) {
+  const server = app.listen(0);
+  return { server, agent: () => request.agent(server) };
+}
