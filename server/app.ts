@@ -17,6 +17,9 @@ import { fakeAuthorizeRouter, startFakeProvider } from './auth/fake-provider';
 import { refuseCrossSite, requireCsrfToken } from './middleware/csrf';
 import { meRouter } from './features/me/me.router';
 import { adminRouter } from './features/admin/admin.router';
+import { fittedReportsRouter } from './features/fitted-reports/fitted-reports.router';
+import { carsRouter } from './features/cars/cars.router';
+import { shopLinkRedirectRouter, shopsRouter } from './features/shops/shops.router';
 
 export type AppDeps = {
   db: Db;
@@ -68,7 +71,12 @@ export function createApp(deps: AppDeps) {
   // --- feature routers ---
   app.use('/api', meRouter(deps));
   app.use('/api', adminRouter({ db: deps.db, clock: deps.clock, endSessions: (userId) => sessionStore.destroyAllFor(userId) }));
+  app.use('/api', fittedReportsRouter(deps));
+  app.use('/api', carsRouter(deps));
+  app.use('/api', shopsRouter(deps));
 
+
+  app.use(shopLinkRedirectRouter(deps));
 
   app.use('/api', apiNotFound);
   if (deps.client) app.use(deps.client);

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { revisionPhotos, revisions } from '../../db/schema/index';
+import { fittedReports, revisionPhotos, revisions } from '../../db/schema/index';
 import { can } from '../../../shared/roles';
 import type { SessionUser } from '../../middleware/require-role';
 import { AppError } from '../../lib/app-error';
@@ -18,8 +18,21 @@ export function resolveMedia(db: Db, fileId: string, viewer: SessionUser | undef
     .innerJoin(revisions, eq(revisions.id, revisionPhotos.revisionId))
     .where(eq(revisionPhotos.fileId, fileId))
     .get();
-  if (!row) throw AppError.notFound('That photo');
+  if (!row) return resolveFittedReportPhoto(db, fileId, viewer);
   const visible = publicStatuses.has(row.status) || (viewer && (viewer.id === row.authorId || can(viewer.role, 'review')));
   if (!visible) throw AppError.notFound('That photo');
   return { fileId: row.photo.fileId, public: publicStatuses.has(row.status) };
+}
+
+/** A fitted report's photo is public unless a moderator hid the report; then only its member and reviewers see it. */
+function resolveFittedReportPhoto(db: Db, fileId: string, viewer: SessionUser | undefined) {
+  const report = db
+    .select({ userId: fittedReports.userId, hiddenAt: fittedReports.hiddenAt })
+    .from(fittedReports)
+    .where(eq(fittedReports.photoFileId, fileId))
+    .get();
+  if (!report) throw AppError.notFound('That photo');
+  const shown = report.hiddenAt === null;
+  if (!shown && !(viewer && (viewer.id === report.userId || can(viewer.role, 'review')))) throw AppError.notFound('That photo');
+  return { fileId, public: shown };
 }

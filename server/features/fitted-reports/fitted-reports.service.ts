@@ -1,0 +1,223 @@
+import { and, count, desc, eq, inArray, isNull } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { fittedReports, revisions, swaps, users, type FittedWheel } from '../../db/schema/index';
+import type { Storage } from '../../storage/disk-storage';
+import { newFileId } from '../../storage/disk-storage';
+import type { Clock } from '../../lib/clock';
+import { AppError } from '../../lib/app-error';
+import { stripHtml } from '../../lib/sanitize';
+import type { SessionUser } from '../../middleware/require-role';
+import { can } from '../../../shared/roles';
+import type { CreateFittedReport, FittedReportView, FittedReportsView, UpdateFittedReport } from '../../../shared/schemas/fitted-reports';
+import { processPhoto } from '../photos/photo-processing';
+import { thumbId } from '../photos/photo-files';
+import { personRef } from '../swaps/swap-views';
+
+type Deps = { db: Db; storage: Storage; clock: Clock };
+export type ReportPhotoUpload = { buffer: Buffer } | undefined;
+
+const publicStatuses = ['approved', 'superseded'] as const;
+
+function approvedSwap(db: Db, slug: string) {
+  const swap = db.select().from(swaps).where(eq(swaps.slug, slug)).get();
+  if (!swap || swap.currentRevisionId === null) throw AppError.notFound('That swap');
+  return swap;
+}
+
+/** The revision a member says they followed: one a reader can open (approved or superseded); the current one by default. */
+function followedRevision(db: Db, swap: typeof swaps.$inferSelect, number: number | undefined) {
+  const row =
+    number === undefined
+      ? db.select().from(revisions).where(eq(revisions.id, swap.currentRevisionId!)).get()
+      : db
+          .select()
+          .from(revisions)
+          .where(and(eq(revisions.swapId, swap.id), eq(revisions.number, number), inArray(revisions.status, [...publicStatuses])))
+          .get();
+  if (!row) throw AppError.invalid('Pick a published revision of this swap.', { revisionNumber: `Revision ${number} is not a published revision of this swap` });
+  return row;
+}
+
+function refusalFor(viewer: SessionUser | undefined, swap: typeof swaps.$inferSelect): FittedReportsView['cannotReport'] {
+  if (!viewer) return 'signed_out';
+  if (viewer.id === swap.authorId) return 'author';
+  if (!can(viewer.role, 'report_fitted')) return 'not_allowed';
+  return null;
+}
+
+/** Keeps swaps.fitted_count equal to the number of visible reports, so search and its "most fitted" sort see it. */
+function recount(db: Db, swapId: number) {
+  const row = db
+    .select({ n: count() })
+    .from(fittedReports)
+    .where(and(eq(fittedReports.swapId, swapId), isNull(fittedReports.hiddenAt)))
+    .get();
+  db.update(swaps).set({ fittedCount: row?.n ?? 0 }).where(eq(swaps.id, swapId)).run();
+}
+
+function photoOf(fileId: string | null): FittedReportView['photo'] {
+  return fileId ? { url: `/media/${fileId}`, thumbUrl: `/media/${fileId}?size=thumb` } : null;
+}
+
+async function storePhoto(storage: Storage, upload: ReportPhotoUpload): Promise<string | null> {
+  if (!upload) return null;
+  const processed = await processPhoto(upload.buffer, 'photo');
+  const fileId = newFileId();
+  await storage.put(fileId, processed.full);
+  await storage.put(thumbId(fileId), processed.thumb);
+  return fileId;
+}
+
+async function removePhotoFiles(storage: Storage, fileId: string | null) {
+  if (!fileId) return;
+  await storage.remove(fileId);
+  await storage.remove(thumbId(fileId));
+}
+
+const cleanNote = (note: string) => stripHtml(note).trim();
+
+export function listFittedReports(db: Db, slug: string, viewer: SessionUser | undefined): FittedReportsView {
+  const swap = approvedSwap(db, slug);
+  const canModerate = can(viewer?.role, 'review');
+  const rows = db
+    .select({ report: fittedReports, member: users, revisionNumber: revisions.number })
+    .from(fittedReports)
+    .innerJoin(users, eq(users.id, fittedReports.userId))
+    .innerJoin(revisions, eq(revisions.id, fittedReports.revisionId))
+    .where(eq(fittedReports.swapId, swap.id))
+    .orderBy(desc(fittedReports.createdAt), desc(fittedReports.id))
+    .all();
+  const view = (r: (typeof rows)[number]): FittedReportView => ({
+    id: r.report.id,
+    member: personRef(r.member),
+    revisionNumber: r.revisionNumber,
+    wheel: r.report.wheel,
+    note: r.report.note,
+    photo: photoOf(r.report.photoFileId),
+    createdAt: r.report.createdAt.toISOString(),
+    updatedAt: r.report.updatedAt.toISOString(),
+    hidden: r.report.hiddenAt !== null,
+  });
+  const visible = rows.filter((r) => r.report.hiddenAt === null);
+  const wheels = new Map<string, { wheel: FittedWheel; members: number }>();
+  for (const r of visible) {
+    const w = r.report.wheel;
+    const key = `${w.diameterIn}|${w.widthIn}|${w.offsetMm}|${w.spacerMm}`;
+    const entry = wheels.get(key) ?? { wheel: w, members: 0 };
+    entry.members += 1;
+    wheels.set(key, entry);
+  }
+  const mine = viewer ? rows.find((r) => r.report.userId === viewer.id) : undefined;
+  return {
+    count: visible.length,
+    reports: (canModerate ? rows : visible).map(view),
+    wheels: [...wheels.values()].sort((a, b) => b.members - a.members || a.wheel.diameterIn - b.wheel.diameterIn),
+    verification: { reviewed: true, fittedBy: visible.length, withPhotos: visible.filter((r) => r.report.photoFileId).length },
+    mine: mine ? view(mine) : null,
+    cannotReport: refusalFor(viewer, swap),
+    canModerate,
+  };
+}
+
+export async function createFittedReport({ db, storage, clock }: Deps, slug: string, viewer: SessionUser, input: CreateFittedReport, upload: ReportPhotoUpload) {
+  const swap = approvedSwap(db, slug);
+  const refusal = refusalFor(viewer, swap);
+  if (refusal === 'author') throw AppError.forbidden('You wrote this swap; fitted reports come from other members.');
+  if (refusal) throw AppError.forbidden();
+  const revision = followedRevision(db, swap, input.revisionNumber);
+  const existing = db
+    .select({ id: fittedReports.id })
+    .from(fittedReports)
+    .where(and(eq(fittedReports.swapId, swap.id), eq(fittedReports.userId, viewer.id)))
+    .get();
+  if (existing) throw AppError.conflict('You have already reported fitting this swap. Edit your report instead.');
+
+  // the photo is checked and stored before the row, so a bad photo loses nothing and a row never points at a missing file
+  const photoFileId = await storePhoto(storage, upload);
+  const now = clock.now();
+  try {
+    db.transaction((tx) => {
+      tx.insert(fittedReports)
+        .values({
+          swapId: swap.id,
+          userId: viewer.id,
+          revisionId: revision.id,
+          wheel: { diameterIn: input.diameterIn, widthIn: input.widthIn, offsetMm: input.offsetMm, spacerMm: input.spacerMm },
+          note: cleanNote(input.note),
+          photoFileId,
+          createdAt: now,
+          updatedAt: now,
+        })
+        .run();
+      recount(tx as unknown as Db, swap.id);
+    });
+  } catch (err) {
+    await removePhotoFiles(storage, photoFileId);
+    // two requests at once: the unique index decides
+    if (err instanceof Error && /UNIQUE constraint failed: fitted_reports/.test(err.message)) {
+      throw AppError.conflict('You have already reported fitting this swap. Edit your report instead.');
+    }
+    throw err;
+  }
+  return listFittedReports(db, slug, viewer);
+}
+
+function myReport(db: Db, swapId: number, userId: number) {
+  const row = db
+    .select()
+    .from(fittedReports)
+    .where(and(eq(fittedReports.swapId, swapId), eq(fittedReports.userId, userId)))
+    .get();
+  if (!row) throw AppError.notFound('Your fitted report');
+  return row;
+}
+
+export async function updateFittedReport({ db, storage, clock }: Deps, slug: string, viewer: SessionUser, input: UpdateFittedReport, upload: ReportPhotoUpload) {
+  const swap = approvedSwap(db, slug);
+  const report = myReport(db, swap.id, viewer.id);
+  const revision = input.revisionNumber === undefined ? null : followedRevision(db, swap, input.revisionNumber);
+  const newPhoto = await storePhoto(storage, upload);
+  const wheel: FittedWheel = {
+    diameterIn: input.diameterIn ?? report.wheel.diameterIn,
+    widthIn: input.widthIn ?? report.wheel.widthIn,
+    offsetMm: input.offsetMm ?? report.wheel.offsetMm,
+    spacerMm: input.spacerMm ?? report.wheel.spacerMm,
+  };
+  const photoFileId = newPhoto ?? (input.removePhoto ? null : report.photoFileId);
+  db.update(fittedReports)
+    .set({
+      wheel,
+      ...(revision ? { revisionId: revision.id } : {}),
+      ...(input.note !== undefined ? { note: cleanNote(input.note) } : {}),
+      photoFileId,
+      updatedAt: clock.now(),
+    })
+    .where(eq(fittedReports.id, report.id))
+    .run();
+  if (report.photoFileId && report.photoFileId !== photoFileId) await removePhotoFiles(storage, report.photoFileId);
+  return listFittedReports(db, slug, viewer);
+}
+
+export async function deleteFittedReport({ db, storage }: Deps, slug: string, viewer: SessionUser) {
+  const swap = approvedSwap(db, slug);
+  const report = myReport(db, swap.id, viewer.id);
+  db.transaction((tx) => {
+    tx.delete(fittedReports).where(eq(fittedReports.id, report.id)).run();
+    recount(tx as unknown as Db, swap.id);
+  });
+  await removePhotoFiles(storage, report.photoFileId);
+}
+
+/** A moderator hides an abusive report (or shows it again); the count follows. */
+export function setFittedReportHidden({ db, clock }: Deps, id: number, moderator: SessionUser, hidden: boolean) {
+  const report = db.select().from(fittedReports).where(eq(fittedReports.id, id)).get();
+  if (!report) throw AppError.notFound('That fitted report');
+  db.transaction((tx) => {
+    tx.update(fittedReports)
+      .set(hidden ? { hiddenAt: clock.now(), hiddenById: moderator.id } : { hiddenAt: null, hiddenById: null })
+      .where(eq(fittedReports.id, id))
+      .run();
+    recount(tx as unknown as Db, report.swapId);
+  });
+  return { id, hidden };
+}

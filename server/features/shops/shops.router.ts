@@ -1,0 +1,128 @@
+import { Router } from 'express';
+import QRCode from 'qrcode';
+import { z } from 'zod';
+import type { AppDeps } from '../../app';
+import { validated } from '../../middleware/validate';
+import { requireUser } from '../../middleware/require-role';
+import { slugSchema } from '../../../shared/schemas/params';
+import { createShopLinkSchema, shopLinkCodeSchema, updateShopLinkSchema, updateShopSchema } from '../../../shared/schemas/shops';
+import {
+  createShopLink,
+  getPinnedSheet,
+  getShopPage,
+  listShopLinks,
+  retireShopLink,
+  shopLinkUrl,
+  updateShop,
+  updateShopLinkNote,
+  visitShopLink,
+} from './shops.service';
+import { retiredLinkPage, unknownLinkPage } from './link-pages';
+
+const codeParams = z.object({ code: shopLinkCodeSchema });
+const qrQuery = z.object({ download: z.enum(['0', '1']).default('0') });
+// the ink green on white keeps the contrast scanners need
+const qrColours = { dark: '#1d4d3a', light: '#ffffff' };
+
+/** Shop pages and shop links under /api. */
+export function shopsRouter({ db, clock, config }: AppDeps) {
+  const router = Router();
+  const appUrl = config.appUrl;
+
+  router.get(
+    '/shops/:slug',
+    validated({ params: z.object({ slug: slugSchema }) }, ({ params }, req, res) => {
+      res.set('Cache-Control', 'private, no-cache').json(getShopPage(db, params.slug, req.user));
+    }),
+  );
+
+  router.patch(
+    '/shops/:slug',
+    requireUser,
+    validated({ params: z.object({ slug: slugSchema }), body: updateShopSchema }, ({ params, body }, req, res) => {
+      res.json({ shop: updateShop(db, clock, params.slug, req.user!, body) });
+    }),
+  );
+
+  router.get(
+    '/shop-links',
+    requireUser,
+    validated({ query: z.object({ shop: slugSchema.optional() }) }, ({ query }, req, res) => {
+      res.set('Cache-Control', 'private, no-store').json(listShopLinks(db, appUrl, req.user!, query.shop));
+    }),
+  );
+
+  router.post(
+    '/shop-links',
+    requireUser,
+    validated({ body: createShopLinkSchema }, ({ body }, req, res) => {
+      const link = createShopLink(db, clock, appUrl, req.user!, body);
+      req.log?.info({ event: 'shop_link_created', code: link.code, userId: req.user!.id }, 'shop link created');
+      res.status(201).json({ link });
+    }),
+  );
+
+  router.patch(
+    '/shop-links/:code',
+    requireUser,
+    validated({ params: codeParams, body: updateShopLinkSchema }, ({ params, body }, req, res) => {
+      res.json({ link: updateShopLinkNote(db, clock, appUrl, req.user!, params.code, body.note) });
+    }),
+  );
+
+  router.post(
+    '/shop-links/:code/retire',
+    requireUser,
+    validated({ params: codeParams }, ({ params }, req, res) => {
+      res.json({ link: retireShopLink(db, clock, appUrl, req.user!, params.code) });
+    }),
+  );
+
+  router.get(
+    '/shop-links/:code/qr.png',
+    validated({ params: codeParams, query: qrQuery }, async ({ params, query }, _req, res) => {
+      const png = await QRCode.toBuffer(shopLinkUrl(db, appUrl, params.code), { type: 'png', width: 600, margin: 2, errorCorrectionLevel: 'M', color: qrColours });
+      res.set(qrHeaders('image/png', params.code, 'png', query.download === '1')).send(png);
+    }),
+  );
+
+  router.get(
+    '/shop-links/:code/qr.svg',
+    validated({ params: codeParams, query: qrQuery }, async ({ params, query }, _req, res) => {
+      const svg = await QRCode.toString(shopLinkUrl(db, appUrl, params.code), { type: 'svg', margin: 2, errorCorrectionLevel: 'M', color: qrColours });
+      res.set(qrHeaders('image/svg+xml', params.code, 'svg', query.download === '1')).send(svg);
+    }),
+  );
+
+  router.get(
+    '/l/:code',
+    validated({ params: codeParams }, ({ params }, _req, res) => {
+      res.set('Cache-Control', 'private, no-cache').json(getPinnedSheet(db, appUrl, params.code));
+    }),
+  );
+
+  return router;
+}
+
+function qrHeaders(type: string, code: string, ext: string, download: boolean) {
+  return {
+    'Content-Type': type,
+    'X-Content-Type-Options': 'nosniff',
+    'Content-Disposition': `${download ? 'attachment' : 'inline'}; filename="swapyard-link-${code}.${ext}"`,
+    'Cache-Control': 'public, max-age=3600',
+  };
+}
+
+/** GET /l/:code — the short address customers type or scan: counts the visit and redirects to the pinned revision. */
+export function shopLinkRedirectRouter({ db }: AppDeps) {
+  const router = Router();
+  router.get('/l/:code', (req, res) => {
+    const parsed = shopLinkCodeSchema.safeParse(req.params.code.toLowerCase());
+    const visit = parsed.success ? visitShopLink(db, parsed.data) : ({ kind: 'unknown' } as const);
+    res.set('Cache-Control', 'no-store');
+    if (visit.kind === 'redirect') return res.redirect(302, visit.location);
+    if (visit.kind === 'retired') return res.status(410).type('html').send(retiredLinkPage(visit.shopName, visit.swap));
+    res.status(404).type('html').send(unknownLinkPage(req.params.code.slice(0, 40)));
+  });
+  return router;
+}

@@ -1,0 +1,99 @@
+import type { Server } from 'node:http';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { eq } from 'drizzle-orm';
+import { makeTestApp, type TestApp } from './support/test-app';
+import { addUser, csrfToken, listen, signIn, type Agent } from './support/auth-helpers';
+import { addChassis } from './support/swap-rows';
+import { cars } from '../../server/db/schema/index';
+import type { CarView } from '../../shared/schemas/cars';
+
+let t: TestApp;
+let server: Server;
+let rosa: { a: Agent; token: string };
+let kai: { a: Agent; token: string };
+let h31: number;
+let h40: number;
+
+const greenCoupe = { nickname: 'Green coupe', wheelDiameterIn: 16, wheelWidthIn: 7, wheelOffsetMm: 38, tyre: '205/55R16', spacerMm: 10 };
+
+beforeAll(async () => {
+  t = await makeTestApp();
+  const l = listen(t.app);
+  server = l.server;
+  addUser(t.db, 'rivet_rosa');
+  addUser(t.db, 'camber_kai');
+  h31 = addChassis(t.db, 'halden-h31').id;
+  h40 = addChassis(t.db, 'halden-h40').id;
+  for (const [login, set] of [
+    ['rivet_rosa', (v: typeof rosa) => (rosa = v)],
+    ['camber_kai', (v: typeof kai) => (kai = v)],
+  ] as const) {
+    const a = l.agent();
+    await signIn(a, login);
+    set({ a, token: await csrfToken(a) });
+  }
+});
+afterAll(() => {
+  server.close();
+  t.close();
+});
+
+describe('/api/cars', () => {
+  it('when signed out, then listing cars is 401', async () => {
+    const res = await request(server).get('/api/cars');
+    expect(res.status).toBe(401);
+  });
+
+  it('when a member adds a car, then it is listed with its chassis, and only for them', async () => {
+    const res = await rosa.a.post('/api/cars').set('x-csrf-token', rosa.token).send({ ...greenCoupe, chassisId: h31 });
+    expect(res.status).toBe(201);
+    const car = res.body.car as CarView;
+    expect(car).toMatchObject({ ...greenCoupe, chassis: { slug: 'halden-h31', code: 'H31' } });
+
+    const mine = await rosa.a.get('/api/cars');
+    expect(mine.body.items.map((c: CarView) => c.nickname)).toEqual(['Green coupe']);
+    expect((await kai.a.get('/api/cars')).body.items).toEqual([]);
+  });
+
+  it('when the tyre size or wheel is wrong, then it is 400 with a reason per field and nothing is saved', async () => {
+    const before = t.db.select().from(cars).all().length;
+    const res = await rosa.a
+      .post('/api/cars')
+      .set('x-csrf-token', rosa.token)
+      .send({ chassisId: h31, nickname: '', wheelDiameterIn: 9, wheelWidthIn: 7, wheelOffsetMm: 38, tyre: '205/55-16' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.tyre).toMatch(/not a tyre size/);
+    expect(res.body.error.fields.wheelDiameterIn).toBe('Between 10 and 24 in');
+    expect(res.body.error.fields.nickname).toBeDefined();
+    const unknownChassis = await rosa.a.post('/api/cars').set('x-csrf-token', rosa.token).send({ ...greenCoupe, chassisId: 9999 });
+    expect(unknownChassis.status).toBe(400);
+    expect(unknownChassis.body.error.fields.chassisId).toMatch(/not in the catalogue/);
+    expect(t.db.select().from(cars).all()).toHaveLength(before);
+  });
+
+  it('when the owner edits a car, then only the fields sent change', async () => {
+    const [car] = (await rosa.a.get('/api/cars')).body.items as CarView[];
+    const res = await rosa.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', rosa.token).send({ chassisId: h40, wheelOffsetMm: 42 });
+    expect(res.status).toBe(200);
+    expect(res.body.car).toMatchObject({ chassis: { slug: 'halden-h40' }, wheelOffsetMm: 42, tyre: '205/55R16', spacerMm: 10, nickname: 'Green coupe' });
+    const bad = await rosa.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', rosa.token).send({ tyre: 'fat ones' });
+    expect(bad.status).toBe(400);
+    expect(t.db.select().from(cars).where(eq(cars.id, car!.id)).get()!.tyre).toBe('205/55R16');
+  });
+
+  it('when another member edits or deletes the car, then it is 404 and the car is untouched', async () => {
+    const [car] = (await rosa.a.get('/api/cars')).body.items as CarView[];
+    const edit = await kai.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', kai.token).send({ nickname: 'Mine now' });
+    expect(edit.status).toBe(404);
+    const del = await kai.a.delete(`/api/cars/${car!.id}`).set('x-csrf-token', kai.token);
+    expect(del.status).toBe(404);
+    expect(t.db.select().from(cars).where(eq(cars.id, car!.id)).get()!.nickname).toBe('Green coupe');
+  });
+
+  it('when the owner deletes the car, then it is gone from their list', async () => {
+    const [car] = (await rosa.a.get('/api/cars')).body.items as CarView[];
+    expect((await rosa.a.delete(`/api/cars/${car!.id}`).set('x-csrf-token', rosa.token)).status).toBe(204);
+    expect((await rosa.a.get('/api/cars')).body.items).toEqual([]);
+  });
+});

@@ -1,0 +1,104 @@
+import { eq } from 'drizzle-orm';
+import type { Db } from '../../../server/db/client';
+import { chassis, revisions, swaps } from '../../../server/db/schema/index';
+import { swapDataSchema, type SwapDataInput } from '../../../shared/schemas/swap-data';
+import type { RevisionStatus } from '../../../shared/schemas/enums';
+
+// Rows for tests that need approved swaps without going through the review desk.
+
+export function addChassis(db: Db, slug = 'halden-h31', extra: Partial<typeof chassis.$inferInsert> = {}) {
+  const now = new Date();
+  return db
+    .insert(chassis)
+    .values({
+      slug,
+      make: 'Halden',
+      model: slug.endsWith('h40') ? 'H40' : 'H31',
+      code: slug.endsWith('h40') ? 'H40' : 'H31',
+      yearFrom: 1991,
+      yearTo: 1999,
+      lugCount: 5,
+      pcdMm: 112,
+      centreBoreMm: 66.6,
+      wheelBoltThread: 'M12×1.5',
+      stockWheel: { diameterIn: 15, widthIn: 6, offsetMm: 38, tyre: '195/60R15' },
+      stockBrakes: {
+        front: { kind: 'disc', pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50, description: 'Single piston' },
+        rear: { kind: 'disc', pistonsPerSideMm: [36], rotorDiameterMm: 260, padHeightMm: 40, description: 'Single piston' },
+      },
+      createdAt: now,
+      updatedAt: now,
+      ...extra,
+    })
+    .returning()
+    .get();
+}
+
+export function swapData(title: string, extra: Partial<SwapDataInput> = {}) {
+  return swapDataSchema.parse({
+    title,
+    parts: [
+      {
+        role: 'Front caliper',
+        kind: 'caliper',
+        name: 'Vela four-piston fixed caliper',
+        maker: 'Orsino',
+        partNumbers: ['OV-355-104-L', 'OV-355-104-R'],
+        cameOn: ['Orsino Vela 2.0 (1996–2001)'],
+        quantity: 2,
+      },
+    ],
+    adapter: { name: 'H31 caliper bracket', maker: 'Northgate Fabrication', partNumber: 'NF-H31-VB' },
+    wheel: { minDiameterIn: 16, caliperRadialProjectionMm: 12, caliperOutboardMm: 30 },
+    ...extra,
+  });
+}
+
+export type RevisionSpec = { status: RevisionStatus; data?: ReturnType<typeof swapData>; body?: string };
+
+/** A swap by `authorId` with one revision per spec; its current revision is the last approved one, if any. */
+export function addSwap(db: Db, opts: { slug: string; chassisId: number; authorId: number; revisions: RevisionSpec[] }) {
+  const at = new Date('2026-03-01T10:00:00Z');
+  const swap = db
+    .insert(swaps)
+    .values({ slug: opts.slug, chassisId: opts.chassisId, axle: 'front', category: 'brakes', authorId: opts.authorId, createdAt: at, updatedAt: at })
+    .returning()
+    .get();
+  const ids = opts.revisions.map((r, i) =>
+    db
+      .insert(revisions)
+      .values({
+        swapId: swap.id,
+        number: i + 1,
+        authorId: opts.authorId,
+        status: r.status,
+        data: r.data ?? swapData(`${opts.slug} revision ${i + 1}`),
+        body: r.body ?? '',
+        submittedAt: r.status === 'draft' ? null : at,
+        reviewedAt: ['approved', 'superseded', 'declined', 'sent_back'].includes(r.status) ? at : null,
+        createdAt: at,
+        updatedAt: at,
+      })
+      .returning({ id: revisions.id })
+      .get().id,
+  );
+  const approved = opts.revisions.map((r) => r.status).lastIndexOf('approved');
+  if (approved >= 0) db.update(swaps).set({ currentRevisionId: ids[approved] }).where(eq(swaps.id, swap.id)).run();
+  return { swapId: swap.id, slug: opts.slug, revisionIds: ids };
+}
+
+/** What the review desk does on approval of a correction: the old current revision is superseded, the new one is current. */
+export function approveNewRevision(db: Db, swapId: number, data: ReturnType<typeof swapData>, authorId: number, body = '') {
+  const swap = db.select().from(swaps).where(eq(swaps.id, swapId)).get()!;
+  const last = db.select({ number: revisions.number }).from(revisions).where(eq(revisions.swapId, swapId)).all();
+  const number = Math.max(...last.map((r) => r.number)) + 1;
+  const now = new Date();
+  const id = db
+    .insert(revisions)
+    .values({ swapId, number, authorId, status: 'approved', data, body, submittedAt: now, reviewedAt: now, createdAt: now, updatedAt: now })
+    .returning({ id: revisions.id })
+    .get().id;
+  if (swap.currentRevisionId) db.update(revisions).set({ status: 'superseded', updatedAt: now }).where(eq(revisions.id, swap.currentRevisionId)).run();
+  db.update(swaps).set({ currentRevisionId: id, updatedAt: now }).where(eq(swaps.id, swapId)).run();
+  return { revisionId: id, number };
+}
