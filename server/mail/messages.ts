@@ -1,0 +1,85 @@
+// Builders of the messages the community loop sends. Each returns plain text and HTML; every string
+// that came from a member (titles, reasons, notes, names) is HTML-escaped in the HTML part.
+
+export type BuiltMessage = { subject: string; text: string; html: string };
+
+export function escapeHtml(s: string): string {
+  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
+}
+
+/** subjects are one line: no line breaks from user text can start a new header */
+const oneLine = (s: string) => s.replace(/[\r\n\t]+/g, ' ').trim().slice(0, 140);
+
+type Block = { text: string } | { quote: string } | { link: string; label: string };
+
+function build(subject: string, greeting: string, blocks: Block[]): BuiltMessage {
+  const text: string[] = [greeting, ''];
+  const html: string[] = [`<p>${escapeHtml(greeting)}</p>`];
+  for (const b of blocks) {
+    if ('text' in b) {
+      text.push(b.text, '');
+      html.push(`<p>${escapeHtml(b.text)}</p>`);
+    } else if ('quote' in b) {
+      text.push(...b.quote.split('\n').map((l) => `> ${l}`), '');
+      html.push(`<blockquote style="border-left:3px solid #b8892f;margin:0;padding-left:12px;white-space:pre-wrap">${escapeHtml(b.quote)}</blockquote>`);
+    } else {
+      text.push(`${b.label}: ${b.link}`, '');
+      html.push(`<p><a href="${escapeHtml(b.link)}">${escapeHtml(b.label)}</a></p>`);
+    }
+  }
+  text.push('— Swapyard');
+  html.push('<p style="color:#1d4d3a">— Swapyard</p>');
+  return { subject: oneLine(subject), text: text.join('\n'), html: `<div style="font-family:sans-serif;color:#2b2b2b">${html.join('\n')}</div>` };
+}
+
+type Base = { appUrl: string; name: string; title: string };
+const hello = (name: string) => `Hello ${name},`;
+
+export function submissionReceived(m: Base & { revisionId: number; number: number }): BuiltMessage {
+  return build(`Received: ${m.title}`, hello(m.name), [
+    { text: `Thank you — your ${m.number > 1 ? `revision ${m.number} of “${m.title}”` : `swap “${m.title}”`} is now in review. A moderator will look at it, usually within a few days; it stays locked while it is in review.` },
+    { link: `${m.appUrl}/me/submissions`, label: 'Your submissions' },
+  ]);
+}
+
+export function submissionApproved(m: Base & { slug: string; number: number; note: string }): BuiltMessage {
+  return build(`Approved: ${m.title}`, hello(m.name), [
+    { text: `Your ${m.number > 1 ? `revision ${m.number} of “${m.title}”` : `swap “${m.title}”`} was approved and is now public and searchable.` },
+    ...(m.note ? [{ text: 'The moderator noted:' }, { quote: m.note }] : []),
+    { link: `${m.appUrl}/swaps/${m.slug}`, label: 'Open the swap sheet' },
+  ]);
+}
+
+export function submissionSentBack(m: Base & { revisionId: number; reasons: string }): BuiltMessage {
+  return build(`Changes requested: ${m.title}`, hello(m.name), [
+    { text: `A moderator looked at “${m.title}” and asks for some changes before it can be approved:` },
+    { quote: m.reasons },
+    { text: 'Edit the submission and send it again; nothing you entered was lost.' },
+    { link: `${m.appUrl}/submissions/${m.revisionId}/edit`, label: 'Edit the submission' },
+  ]);
+}
+
+export function submissionDeclined(m: Base & { reasons: string }): BuiltMessage {
+  return build(`Declined: ${m.title}`, hello(m.name), [
+    { text: `A moderator declined “${m.title}”, for this reason:` },
+    { quote: m.reasons },
+    { link: `${m.appUrl}/me/submissions`, label: 'Your submissions' },
+  ]);
+}
+
+export function correctionApproved(m: Base & { slug: string; number: number; correctedBy: string }): BuiltMessage {
+  return build(`Your swap was updated: ${m.title}`, hello(m.name), [
+    { text: `${m.correctedBy} proposed a correction to your swap “${m.title}”. It was reviewed and approved as revision ${m.number}; the earlier revisions stay readable in the swap's history.` },
+    { link: `${m.appUrl}/swaps/${m.slug}`, label: 'See the swap sheet' },
+  ]);
+}
+
+export function flagResolved(m: Base & { slug: string; reason: string; note: string }): BuiltMessage {
+  return build(`Your flag was resolved: ${m.title}`, hello(m.name), [
+    { text: `You flagged “${m.title}”:` },
+    { quote: m.reason },
+    { text: 'A moderator resolved it:' },
+    { quote: m.note },
+    { link: `${m.appUrl}/swaps/${m.slug}`, label: 'Open the swap sheet' },
+  ]);
+}
