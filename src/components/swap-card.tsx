@@ -5,7 +5,7 @@ import { Badge } from './ui/badge';
 import { paths } from '../config/paths';
 
 export const chassisLabel = (c: { make: string; model: string; code: string; yearFrom: number; yearTo: number | null }) =>
-  `${c.make} ${c.model} (${c.code}, ${c.yearFrom}–${c.yearTo ?? 'on'})`;
+  `${c.make} ${c.model} (${c.code === c.model ? '' : `${c.code}, `}${c.yearFrom}–${c.yearTo ?? 'on'})`;
 
 export function SwapCard({ swap }: { swap: SwapCardData }) {
   return (

@@ -40,7 +40,7 @@ export default function HomePage() {
               <span>Browse by chassis:</span>
               {chassis.data.map((c) => (
                 <Link key={c.slug} to={paths.chassis(c.slug)} className="rounded-full border border-paper/30 px-3 py-1 font-bold hover:border-paper">
-                  {c.make} {c.model} {c.code}
+                  {c.make} {c.model}{c.code === c.model ? '' : ` ${c.code}`}
                 </Link>
               ))}
             </p>

@@ -6,7 +6,7 @@ export function Page({ title, heading, lead, actions, children }: { title: strin
     document.title = `${title} · Swapyard`;
   }, [title]);
   return (
-    <div className="mx-auto w-full max-w-sheet px-4 py-6 sm:px-6 sm:py-10">
+    <div className="mx-auto w-full max-w-sheet px-4 py-6 sm:px-6 sm:py-10 print:max-w-none print:p-0">
       {(heading || actions) && (
         <header className="mb-6 flex flex-wrap items-end justify-between gap-4">
           <div>

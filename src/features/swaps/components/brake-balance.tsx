@@ -12,7 +12,7 @@ export function BrakeBalanceSection({ data }: { data: SwapData }) {
   if (!balance) return null;
   return (
     <SheetSection id="balance" title="Brake balance">
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid items-start gap-3 sm:grid-cols-3">
         <Figure
           label="Front share before"
           value={pct(balance.frontShareBefore)}

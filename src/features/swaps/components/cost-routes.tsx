@@ -15,7 +15,7 @@ export function CostRoutesSection({ data }: { data: SwapData }) {
           const total = totals[route];
           const saving = savings[route];
           return (
-            <div key={route} className={`rounded-lg border p-4 ${route === 'new_kit' ? 'border-brass/50 bg-brass-soft/30' : 'border-ink/10 bg-paper-card'}`}>
+            <div key={route} className={`rounded-lg border p-4 print:p-2 ${route === 'new_kit' ? 'border-brass/50 bg-brass-soft/30' : 'border-ink/10 bg-paper-card'}`}>
               <h3 className="text-sm font-bold uppercase tracking-wide text-graphite-soft">{costRouteLabels[route]}</h3>
               <p className="tabular mt-1 text-2xl font-extrabold text-graphite">{total === null ? '—' : formatMoney(total, currency)}</p>
               {route !== 'new_kit' && saving && saving.amountMinor !== 0 && (
@@ -28,7 +28,7 @@ export function CostRoutesSection({ data }: { data: SwapData }) {
               )}
               {route === 'new_kit' && <p className="text-xs text-graphite-soft">Baseline for comparison</p>}
               {lines.length > 0 && (
-                <ul className="tabular mt-3 space-y-1 text-sm">
+                <ul className="tabular mt-3 space-y-1 text-sm print:hidden">
                   {lines.map((l, i) => (
                     <li key={i} className="flex justify-between gap-2">
                       <span>{l.item}</span>

@@ -132,7 +132,7 @@ export function MachiningSection({ steps }: { steps: SwapData['machining'] }) {
       ) : (
         <ol className="space-y-2">
           {steps.map((s, i) => (
-            <li key={i} className="flex gap-3 rounded-lg border border-ink/10 bg-paper-card p-3">
+            <li key={i} className="flex gap-3 rounded-lg border border-ink/10 bg-paper-card p-3 print:p-1.5">
               <span className="tabular flex h-7 w-7 shrink-0 items-center justify-center rounded-full bg-ink text-sm font-bold text-paper">{i + 1}</span>
               <div>
                 <p className="font-bold">

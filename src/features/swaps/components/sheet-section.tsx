@@ -2,7 +2,7 @@ import type { ReactNode } from 'react';
 
 export function SheetSection({ id, title, children, aside }: { id: string; title: string; children: ReactNode; aside?: ReactNode }) {
   return (
-    <section id={id} aria-labelledby={`${id}-h`} className="print-break-avoid scroll-mt-20">
+    <section id={id} aria-labelledby={`${id}-h`} className="scroll-mt-20">
       <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2 border-b border-ink/15 pb-1">
         <h2 id={`${id}-h`} className="text-lg font-extrabold text-ink">
           {title}
@@ -30,9 +30,9 @@ export function SpecTable({ caption, head, rows }: { caption: string; head: Reac
         </thead>
         <tbody>
           {rows.map((r, i) => (
-            <tr key={i} className="border-b border-graphite/10 align-top">
+            <tr key={i} className="print-break-avoid border-b border-graphite/10 align-top">
               {r.map((c, j) => (
-                <td key={j} className="px-2 py-2">
+                <td key={j} className="px-2 py-2 print:py-0.5">
                   {c}
                 </td>
               ))}

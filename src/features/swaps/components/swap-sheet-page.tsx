@@ -55,7 +55,11 @@ export function SwapSheet({ view, banner }: { view: SwapSheetView; banner?: Reac
           .
         </div>
       )}
-      <header className="mb-8">
+      <header className="mb-8 print:mb-3">
+          <p className="hidden text-xs text-graphite-soft print:block">
+            Build sheet printed from Swapyard · {data.title} · revision {revision.number} approved {date(revision.approvedAt)} ·{' '}
+            {typeof window === 'undefined' ? '' : `${window.location.origin}${paths.swapRevision(swap.slug, revision.number)}`}
+          </p>
         <div className="flex flex-wrap gap-2">
           <Badge tone="ink">{swap.axle === 'front' ? 'Front axle' : 'Rear axle'}</Badge>
           <Badge>{categoryLabels[swap.category]}</Badge>
@@ -64,7 +68,7 @@ export function SwapSheet({ view, banner }: { view: SwapSheetView; banner?: Reac
           </Badge>
           {data.parkingBrakeKept !== null && <Badge tone={data.parkingBrakeKept ? 'ink' : 'oxide'}>{data.parkingBrakeKept ? 'Parking brake kept' : 'Parking brake lost'}</Badge>}
         </div>
-        <h1 className="mt-3 text-2xl font-extrabold leading-tight tracking-tight text-ink sm:text-4xl">{data.title}</h1>
+        <h1 className="mt-3 text-2xl font-extrabold leading-tight tracking-tight text-ink sm:text-4xl print:text-2xl">{data.title}</h1>
         <p className="mt-2 text-graphite">
           For the{' '}
           <Link to={paths.chassis(chassis.slug)} className="font-bold text-ink underline decoration-brass underline-offset-2">
@@ -94,7 +98,7 @@ export function SwapSheet({ view, banner }: { view: SwapSheetView; banner?: Reac
         </div>
       </header>
 
-      <div className="grid gap-10">
+      <div className="grid gap-10 print:gap-4">
         <Caution topics={brakesWork ? ['brakes', 'wheels', 'fasteners'] : ['wheels', 'fasteners']} />
         <PartsSection parts={data.parts} />
         {data.adapter && <AdapterSection adapter={data.adapter} />}
@@ -126,7 +130,9 @@ export function SwapSheet({ view, banner }: { view: SwapSheetView; banner?: Reac
             {data.wheel.notes && <p className="mt-2 text-sm text-graphite">{data.wheel.notes}</p>}
           </SheetSection>
         )}
-        <WheelCheckPanel data={data} axle={swap.axle} wheelBoltThread={chassis.wheelBoltThread} />
+        <div className="print:hidden">
+          <WheelCheckPanel data={data} axle={swap.axle} wheelBoltThread={chassis.wheelBoltThread} />
+        </div>
         <BrakeBalanceSection data={data} />
         <CostRoutesSection data={data} />
         {data.tools.length > 0 && (
@@ -141,16 +147,22 @@ export function SwapSheet({ view, banner }: { view: SwapSheetView; banner?: Reac
           </SheetSection>
         )}
         {revision.body && (
-          <SheetSection id="write-up" title="Write-up">
-            <Markdown>{revision.body}</Markdown>
-          </SheetSection>
+          <div className="print:hidden">
+            <SheetSection id="write-up" title="Write-up">
+              <Markdown>{revision.body}</Markdown>
+            </SheetSection>
+          </div>
         )}
         {revision.photos.length > 0 && (
-          <SheetSection id="photos" title="Photos">
-            <PhotoGrid photos={revision.photos} />
-          </SheetSection>
+          <div className="print:hidden">
+            <SheetSection id="photos" title="Photos">
+              <PhotoGrid photos={revision.photos} />
+            </SheetSection>
+          </div>
         )}
-        <RevisionHistory slug={swap.slug} history={history} shown={revision.number} />
+        <div className="print:hidden">
+          <RevisionHistory slug={swap.slug} history={history} shown={revision.number} />
+        </div>
       </div>
     </Page>
   );

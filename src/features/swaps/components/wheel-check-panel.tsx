@@ -18,10 +18,12 @@ const empty: Form = { diameterIn: '', widthIn: '', offsetMm: '', spacer: '0', ba
 
 function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors: Partial<Record<keyof Form, string>> } {
   const errors: Partial<Record<keyof Form, string>> = {};
+  // nothing typed yet: no complaints, just the prompt
+  const started = form.diameterIn.trim() !== '' || form.widthIn.trim() !== '' || form.offsetMm.trim() !== '';
   const num = (key: keyof Form, { required = false, min = -Infinity, max = Infinity } = {}) => {
     const raw = form[key].trim().replace(',', '.');
     if (raw === '') {
-      if (required) errors[key] = 'Needed for the check';
+      if (required && started) errors[key] = 'Needed for the check';
       return undefined;
     }
     const v = Number(raw);
