@@ -1,0 +1,173 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
+import { startServer, type RunningServer } from './support/server';
+import { launchBrowser } from './support/browser';
+
+let server: RunningServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startServer();
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+/** The figure shown under a result's label inside a panel. */
+const figure = (panel: Locator, label: string) =>
+  panel.getByText(label, { exact: true }).locator('xpath=following-sibling::p[1]').innerText();
+
+/** Opens /tools and collects any uncaught page error, which every test checks at its end. */
+/** A text input by the start of its label (labels end in the unit shown, e.g. "Spacer (mm)"). */
+const field = (scope: Locator, label: string) =>
+  scope.getByRole('textbox', { name: new RegExp(`^${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`) });
+
+async function openTools(context: BrowserContext, query = ''): Promise<{ page: Page; errors: string[] }> {
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await page.goto(`${server.url}/tools${query}`);
+  await page.getByRole('heading', { level: 1, name: 'Fitment calculators' }).waitFor();
+  return { page, errors };
+}
+
+describe('calculators page', () => {
+  it('when a tyre size and a spacer are entered, then the page shows the reference figures, keeps them in the URL and converts units', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: server.url });
+    const { page, errors } = await openTools(context);
+    const tyre = page.locator('#tyre');
+    const offset = page.locator('#offset');
+
+    // A malformed code is refused beside its field, and the results say what to fix instead of failing.
+    const tyreInput = field(tyre, 'Tyre size');
+    await tyreInput.fill('225/45X17');
+    await expect.poll(() => tyre.getByRole('alert').innerText()).toContain('is not a tyre size');
+    expect(await tyreInput.getAttribute('aria-invalid')).toBe('true');
+    expect(await tyre.locator('[data-waiting]').innerText()).toContain('Fix the marked field');
+
+    // Tyre code convention (REFERENCES.md): 225/45R17 → sidewall 101.25 mm, overall Ø 634.30 mm, circumference 1992.71 mm.
+    await tyreInput.fill('225/45R17');
+    await expect.poll(() => figure(tyre, 'Sidewall height')).toBe('101.25 mm');
+    expect(await figure(tyre, 'Overall diameter')).toBe('634.3 mm');
+    expect(await figure(tyre, 'Circumference')).toBe('1,992.7 mm');
+    expect(await tyreInput.getAttribute('aria-invalid')).toBe('false');
+    expect(await tyre.getByRole('alert').count()).toBe(0);
+
+    // Common practice, no source (REFERENCES.md): 17×8 ET45 + 15 mm spacer → ET30, backspacing 5.6811 in (144.30 mm), track + 30 mm.
+    await field(offset, 'Rim width').fill('8');
+    await field(offset, 'Offset ET').fill('45');
+    await field(offset, 'Spacer').fill('15');
+    await expect.poll(() => figure(offset, 'Effective offset')).toBe('ET30');
+    expect(await figure(offset, 'Track change per axle')).toBe('+30 mm');
+    expect(await figure(offset, 'Backspacing')).toBe('144.3 mm');
+    expect(await figure(offset, 'Each wheel moves outboard')).toBe('15 mm');
+
+    const query = new URL(page.url()).searchParams;
+    expect(query.get('tyre')).toBe('225/45R17');
+    expect(query.get('spacer')).toBe('15');
+
+    // A panel's link carries that panel's inputs and its anchor, nothing else.
+    await offset.getByRole('button', { name: 'Copy link to Offset and spacer' }).click();
+    await expect.poll(() => offset.getByRole('status').innerText()).toBe('Link copied');
+    const copied = new URL(await page.evaluate(() => navigator.clipboard.readText()));
+    expect(copied.pathname).toBe('/tools');
+    expect(copied.hash).toBe('#offset');
+    expect(Object.fromEntries(copied.searchParams)).toEqual({ width: '8', et: '45', spacer: '15' });
+
+    // Reloading the address restores every input and result.
+    await page.reload();
+    await page.getByRole('heading', { level: 1, name: 'Fitment calculators' }).waitFor();
+    expect(await field(tyre, 'Tyre size').inputValue()).toBe('225/45R17');
+    expect(await field(offset, 'Spacer').inputValue()).toBe('15');
+    expect(await figure(tyre, 'Sidewall height')).toBe('101.25 mm');
+    expect(await figure(offset, 'Effective offset')).toBe('ET30');
+
+    // Imperial: inputs and outputs in inches, the URL still in millimetres. 101.25 / 25.4 = 3.98622 in; 30 / 25.4 = 1.18110 in.
+    await page.getByRole('group', { name: 'Units for the calculators' }).getByRole('button', { name: 'Imperial' }).click();
+    await expect.poll(() => figure(tyre, 'Sidewall height')).toBe('3.9862 in');
+    expect(await figure(tyre, 'Overall diameter')).toBe('24.972 in');
+    expect(await figure(offset, 'Track change per axle')).toBe('+1.181 in');
+    expect(await offset.getByText('Spacer (in)').count()).toBe(1);
+    expect(await field(offset, 'Spacer').inputValue()).toBe('0.5906');
+    expect(await figure(offset, 'Effective offset')).toBe('ET30');
+
+    // A spacer typed in inches is stored in mm: 0.75 in = 19.05 mm → ET25.95.
+    await field(offset, 'Spacer').fill('0.75');
+    await expect.poll(() => new URL(page.url()).searchParams.get('spacer')).toBe('19.05');
+    expect(await figure(offset, 'Effective offset')).toBe('ET25.95');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('when the brake chain from the references is entered, then the front share moves 65.93 % → 73.72 % and the shift is flagged', async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const { page, errors } = await openTools(context);
+    const brakes = page.locator('#brakes');
+    const corner = async (name: string, pistons: string, rotor: string, pad: string) => {
+      const group = brakes.getByRole('group', { name });
+      await field(group, 'Pistons per side').fill(pistons);
+      await field(group, 'Rotor Ø').fill(rotor);
+      await field(group, 'Pad height').fill(pad);
+    };
+    // Disc-brake textbook formula (REFERENCES.md): 50 bar, μ 0.40; stock 1 × 54 mm, 280/50; rear 1 × 38 mm, 280/40; swap 40 + 44 mm, 330/55.
+    await corner('Stock front', '54', '280', '50');
+    expect(await brakes.locator('[data-waiting]').innerText()).toContain('stock rear pistons');
+    await corner('Stock rear', '38', '280', '40');
+    await corner('Swapped front', '40, 44', '330', '55');
+    await expect.poll(() => figure(brakes, 'Front share, stock')).toBe('65.93 %');
+    expect(await figure(brakes, 'Front share, swapped')).toBe('73.72 %');
+    expect(await brakes.locator('[data-attention]').getAttribute('data-attention')).toBe('true');
+    expect(await brakes.locator('[data-attention]').innerText()).toContain('+7.79 points to the front');
+    // Textbook torque per corner: 1053.50 / 1527.44 / 544.38 N·m, shown whole.
+    const table = await brakes.getByRole('table').innerText();
+    expect(table).toContain('1,054 N·m');
+    expect(table).toContain('1,527 N·m');
+    expect(table).toContain('544 N·m');
+
+    // A pad taller than the rotor radius is refused at that field.
+    await field(brakes.getByRole('group', { name: 'Swapped front' }), 'Pad height').fill('170');
+    await expect.poll(() => brakes.getByRole('group', { name: 'Swapped front' }).getByRole('alert').innerText()).toContain(
+      'less than the rotor radius',
+    );
+    expect(await brakes.locator('[data-attention]').count()).toBe(0);
+    expect(await brakes.getByRole('note', { name: 'Safety caution' }).count()).toBe(1);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('when a bolt is too short for its spacer, then thread engagement fails with its margin and the rule applied', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    // Common practice, no source (REFERENCES.md): M12×1.5 in steel needs 1.0 × d = 12 mm = 8 turns.
+    const { page, errors } = await openTools(context, '?thread=M12x1.5&bolt=28&clamp=14&tspacer=5#thread');
+    const thread = page.locator('#thread');
+    const topOf = (id: string) => page.evaluate((el) => document.getElementById(el)!.getBoundingClientRect().top, id);
+    // The link's anchor lands on its panel, and the jump list moves between panels.
+    await expect.poll(() => topOf('thread')).toBeLessThan(120);
+    expect(await topOf('thread')).toBeGreaterThanOrEqual(-1);
+    await page.getByRole('navigation', { name: 'Calculators' }).getByRole('link', { name: 'Brake balance' }).click();
+    await expect.poll(() => topOf('brakes')).toBeLessThan(120);
+    expect(await topOf('brakes')).toBeGreaterThanOrEqual(-1);
+    expect(new URL(page.url()).searchParams.get('bolt')).toBe('28');
+    const verdict = thread.locator('[data-verdict]');
+    await expect.poll(() => verdict.getAttribute('data-verdict')).toBe('fail');
+    const text = await verdict.innerText();
+    expect(text).toContain('9 mm · 6 turns');
+    expect(text).toContain('Margin: −3 mm');
+    expect(text).toContain('1.0 × bolt diameter in a steel hub');
+    expect(await figure(thread, 'Bolt needed with the spacer')).toBe('33 mm');
+    expect(await figure(thread, 'Shortest bolt for the rule')).toBe('31 mm');
+
+    await field(thread, 'Bolt length').fill('35');
+    await expect.poll(() => verdict.getAttribute('data-verdict')).toBe('pass');
+    expect(await verdict.innerText()).toContain('Margin: +4 mm');
+
+    await field(thread, 'Thread').fill('M12');
+    await expect.poll(() => thread.getByRole('alert').innerText()).toContain('is not a metric thread');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
