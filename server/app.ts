@@ -17,6 +17,9 @@ import { fakeAuthorizeRouter, startFakeProvider } from './auth/fake-provider';
 import { refuseCrossSite, requireCsrfToken } from './middleware/csrf';
 import { meRouter } from './features/me/me.router';
 import { adminRouter } from './features/admin/admin.router';
+import { submissionsRouter } from './features/submissions/submissions.router';
+import { reviewRouter } from './features/review/review.router';
+import { outboxRouter } from './features/outbox/outbox.router';
 import { fittedReportsRouter } from './features/fitted-reports/fitted-reports.router';
 import { carsRouter } from './features/cars/cars.router';
 import { shopLinkRedirectRouter, shopsRouter } from './features/shops/shops.router';
@@ -71,6 +74,9 @@ export function createApp(deps: AppDeps) {
   // --- feature routers ---
   app.use('/api', meRouter(deps));
   app.use('/api', adminRouter({ db: deps.db, clock: deps.clock, endSessions: (userId) => sessionStore.destroyAllFor(userId) }));
+  app.use('/api', submissionsRouter(deps));
+  app.use('/api', reviewRouter(deps));
+  app.use('/api', outboxRouter(deps));
   app.use('/api', fittedReportsRouter(deps));
   app.use('/api', carsRouter(deps));
   app.use('/api', shopsRouter(deps));

@@ -16,6 +16,9 @@ const envSchema = z.object({
   AUTH_PROVIDER: z.enum(['github', 'fake']).optional(),
   /** requests to /auth/* per client address in 15 minutes */
   AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(300),
+  /** per signed-in member and hour: new submissions and sends to review, and photo upload requests */
+  SUBMISSION_RATE_LIMIT: z.coerce.number().int().min(1).default(60),
+  UPLOAD_RATE_LIMIT: z.coerce.number().int().min(1).default(120),
   SMTP_URL: z.string().min(1).optional(),
   MAIL_FROM: z.string().default('Swapyard <no-reply@swapyard.invalid>'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
@@ -33,6 +36,7 @@ export type Config = {
   uploadDir: string;
   sessionSecret: string;
   auth: { mode: 'github' | 'fake'; clientId: string; clientSecret: string; rateLimit: number };
+  rateLimits: { submissionsPerHour: number; uploadsPerHour: number };
   smtpUrl?: string;
   mailFrom: string;
   logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
@@ -78,6 +82,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       clientSecret: mode === 'github' ? e.GITHUB_CLIENT_SECRET! : 'swapyard-local-secret',
       rateLimit: e.AUTH_RATE_LIMIT,
     },
+    rateLimits: { submissionsPerHour: e.SUBMISSION_RATE_LIMIT, uploadsPerHour: e.UPLOAD_RATE_LIMIT },
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
     logLevel: e.LOG_LEVEL,

@@ -31,9 +31,45 @@ export function needsWheelRequirement(data: SwapData, category?: Category): bool
 
 /** Words that name what kind of fastener something is, not which one; they never make a match on their own. */
 const genericWords = new Set([
-  'bolt', 'bolts', 'screw', 'screws', 'stud', 'studs', 'nut', 'nuts', 'washer', 'washers', 'hardware', 'fastener',
-  'fasteners', 'included', 'with', 'long', 'short', 'grade', 'zinc', 'steel', 'plated', 'kit', 'set', 'pair', 'pack',
-  'each', 'front', 'rear', 'left', 'right', 'side', 'new', 'used', 'from', 'into', 'onto', 'the', 'and', 'for',
+  'bolt',
+  'bolts',
+  'screw',
+  'screws',
+  'stud',
+  'studs',
+  'nut',
+  'nuts',
+  'washer',
+  'washers',
+  'hardware',
+  'fastener',
+  'fasteners',
+  'included',
+  'with',
+  'long',
+  'short',
+  'grade',
+  'zinc',
+  'steel',
+  'plated',
+  'kit',
+  'set',
+  'pair',
+  'pack',
+  'each',
+  'front',
+  'rear',
+  'left',
+  'right',
+  'side',
+  'new',
+  'used',
+  'from',
+  'into',
+  'onto',
+  'the',
+  'and',
+  'for',
 ]);
 
 function keyWords(text: string): Set<string> {
@@ -56,19 +92,28 @@ export type Fastener = { label: string; matches: (torqueRow: string) => boolean;
  *   fastener word (bolt, screw, stud, nut, washer, …).
  */
 export function fastenersOf(data: SwapData): Fastener[] {
-  const naming = (...words: string[]) => (row: string) => words.some((w) => new RegExp(`\\b${w}`, 'i').test(row));
+  const naming =
+    (...words: string[]) =>
+    (row: string) =>
+      words.some((w) => new RegExp(`\\b${w}`, 'i').test(row));
   const sharing = (item: string) => {
     const keys = keyWords(item);
     return (row: string) => [...keyWords(row)].some((w) => keys.has(w));
   };
   const list: Fastener[] = [];
   for (const p of data.parts) {
-    if (p.kind === 'caliper') list.push({ label: `${p.name} (mounting bolts)`, matches: naming('caliper'), rule: 'a torque row naming the caliper' });
-    if (p.kind === 'adapter') list.push({ label: p.name, matches: naming('adapter', 'bracket'), rule: 'a torque row naming the adapter or bracket' });
+    if (p.kind === 'caliper')
+      list.push({ label: `${p.name} (mounting bolts)`, matches: naming('caliper'), rule: 'a torque row naming the caliper' });
+    if (p.kind === 'adapter')
+      list.push({ label: p.name, matches: naming('adapter', 'bracket'), rule: 'a torque row naming the adapter or bracket' });
     if (p.kind === 'hardware') list.push({ label: p.name, matches: sharing(p.name), rule: 'a torque row naming this hardware' });
   }
   if (data.adapter && !data.parts.some((p) => p.kind === 'adapter')) {
-    list.push({ label: data.adapter.name, matches: naming('adapter', 'bracket'), rule: 'a torque row naming the adapter or bracket' });
+    list.push({
+      label: data.adapter.name,
+      matches: naming('adapter', 'bracket'),
+      rule: 'a torque row naming the adapter or bracket',
+    });
   }
   for (const item of data.adapter?.hardwareIncluded ?? []) {
     list.push({ label: item, matches: sharing(item), rule: 'a torque row naming this hardware' });
@@ -104,7 +149,8 @@ function requiredCheck(input: ReviewCheckInput): CheckResult {
   const missing: string[] = [];
   if (!data.title || data.title.trim().length < 8) missing.push('a title');
   if (data.parts.length === 0) missing.push('at least one part');
-  if (needsWheelRequirement(data, input.category) && !data.wheel) missing.push('the wheel requirement (minimum wheel and caliper dimensions)');
+  if (needsWheelRequirement(data, input.category) && !data.wheel)
+    missing.push('the wheel requirement (minimum wheel and caliper dimensions)');
   return missing.length
     ? { id: 'required', label: 'Required fields', status: 'fail', detail: `Missing: ${missing.join('; ')}.` }
     : { id: 'required', label: 'Required fields', status: 'pass', detail: 'Title, parts and wheel requirement are present.' };
@@ -119,9 +165,11 @@ function photosCheck(count: number): CheckResult {
 function torqueCheck(data: SwapData): CheckResult {
   const fasteners = fastenersOf(data);
   const label = 'Torque specs';
-  if (fasteners.length === 0) return { id: 'torque', label, status: 'pass', detail: 'No fasteners are listed, so no torque values are needed.' };
+  if (fasteners.length === 0)
+    return { id: 'torque', label, status: 'pass', detail: 'No fasteners are listed, so no torque values are needed.' };
   const missing = fasteners.filter((f) => !data.torque.some((t) => f.matches(t.fastener)));
-  if (missing.length === 0) return { id: 'torque', label, status: 'pass', detail: `Every listed fastener (${fasteners.length}) has a torque value.` };
+  if (missing.length === 0)
+    return { id: 'torque', label, status: 'pass', detail: `Every listed fastener (${fasteners.length}) has a torque value.` };
   return {
     id: 'torque',
     label,
@@ -140,7 +188,12 @@ function clearanceCheck(input: ReviewCheckInput): CheckResult {
       : { id: 'clearance', label, status: 'pass', detail: 'No wheel requirement applies to this record.' };
   }
   if (!rotorDiameterOf(data, axle)) {
-    return { id: 'clearance', label, status: 'attention', detail: 'No rotor diameter (rotors or brake figures), so the radial clearance cannot be computed.' };
+    return {
+      id: 'clearance',
+      label,
+      status: 'attention',
+      detail: 'No rotor diameter (rotors or brake figures), so the radial clearance cannot be computed.',
+    };
   }
   // the record's own smallest wheel: its smallest tested wheel, or a wheel of the stated minimum diameter
   const tested = [...req.testedWheels].sort((a, b) => a.diameterIn - b.diameterIn)[0];
@@ -159,8 +212,16 @@ function clearanceCheck(input: ReviewCheckInput): CheckResult {
     };
   }
   if (measured.length || spokeMeasured.length) {
-    const worst = [...measured.map((t) => `${t.diameterIn}″ barrel ${fmt(t.radialClearanceMm!)}`), ...spokeMeasured.map((t) => `${t.diameterIn}″ spokes ${fmt(t.spokeClearanceMm!)}`)];
-    return { id: 'clearance', label, status: 'fail', detail: `Measured clearance below ${MIN_CLEARANCE_MM} mm: ${worst.join(', ')}.` };
+    const worst = [
+      ...measured.map((t) => `${t.diameterIn}″ barrel ${fmt(t.radialClearanceMm!)}`),
+      ...spokeMeasured.map((t) => `${t.diameterIn}″ spokes ${fmt(t.spokeClearanceMm!)}`),
+    ];
+    return {
+      id: 'clearance',
+      label,
+      status: 'fail',
+      detail: `Measured clearance below ${MIN_CLEARANCE_MM} mm: ${worst.join(', ')}.`,
+    };
   }
   return {
     id: 'clearance',
@@ -175,7 +236,12 @@ function balanceCheck(input: ReviewCheckInput): CheckResult {
   const balance = brakeBalanceOf(input.data);
   if (!balance) {
     return input.category === 'brakes'
-      ? { id: 'balance', label, status: 'attention', detail: 'No brake figures before and after, so the change in front share is unknown.' }
+      ? {
+          id: 'balance',
+          label,
+          status: 'attention',
+          detail: 'No brake figures before and after, so the change in front share is unknown.',
+        }
       : { id: 'balance', label, status: 'pass', detail: 'No brake figures are needed for this record.' };
   }
   const share = (x: number) => `${Math.round(x * 1000) / 10} %`;
@@ -189,12 +255,23 @@ function balanceCheck(input: ReviewCheckInput): CheckResult {
 function costsCheck(data: SwapData): CheckResult {
   const routes = new Set(data.costs.map((c) => c.route));
   return routes.size > 0
-    ? { id: 'costs', label: 'Costs', status: 'pass', detail: `Costs given for ${routes.size} route${routes.size === 1 ? '' : 's'}.` }
+    ? {
+        id: 'costs',
+        label: 'Costs',
+        status: 'pass',
+        detail: `Costs given for ${routes.size} route${routes.size === 1 ? '' : 's'}.`,
+      }
     : { id: 'costs', label: 'Costs', status: 'fail', detail: 'No cost lines: give the costs for at least one route.' };
 }
 
 function duplicateCheck(duplicates: ReviewCheckInput['duplicates']): CheckResult {
-  if (duplicates.length === 0) return { id: 'duplicate', label: 'Likely duplicate', status: 'pass', detail: 'No approved swap with the same chassis, axle and donor caliper.' };
+  if (duplicates.length === 0)
+    return {
+      id: 'duplicate',
+      label: 'Likely duplicate',
+      status: 'pass',
+      detail: 'No approved swap with the same chassis, axle and donor caliper.',
+    };
   return {
     id: 'duplicate',
     label: 'Likely duplicate',

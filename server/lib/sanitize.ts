@@ -2,7 +2,12 @@ import sanitizeHtml from 'sanitize-html';
 
 const options: sanitizeHtml.IOptions = { allowedTags: [], allowedAttributes: {}, disallowedTagsMode: 'discard' };
 
-const unescapeBasic = (s: string) => s.replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&amp;/g, '&');
+const unescapeBasic = (s: string) =>
+  s
+    .replace(/&lt;/g, '<')
+    .replace(/&gt;/g, '>')
+    .replace(/&quot;/g, '"')
+    .replace(/&amp;/g, '&');
 
 /**
  * Removes every HTML tag (and the content of script/style elements) from free text before it is stored,

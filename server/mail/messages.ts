@@ -8,7 +8,11 @@ export function escapeHtml(s: string): string {
 }
 
 /** subjects are one line: no line breaks from user text can start a new header */
-const oneLine = (s: string) => s.replace(/[\r\n\t]+/g, ' ').trim().slice(0, 140);
+const oneLine = (s: string) =>
+  s
+    .replace(/[\r\n\t]+/g, ' ')
+    .trim()
+    .slice(0, 140);
 
 type Block = { text: string } | { quote: string } | { link: string; label: string };
 
@@ -21,7 +25,9 @@ function build(subject: string, greeting: string, blocks: Block[]): BuiltMessage
       html.push(`<p>${escapeHtml(b.text)}</p>`);
     } else if ('quote' in b) {
       text.push(...b.quote.split('\n').map((l) => `> ${l}`), '');
-      html.push(`<blockquote style="border-left:3px solid #b8892f;margin:0;padding-left:12px;white-space:pre-wrap">${escapeHtml(b.quote)}</blockquote>`);
+      html.push(
+        `<blockquote style="border-left:3px solid #b8892f;margin:0;padding-left:12px;white-space:pre-wrap">${escapeHtml(b.quote)}</blockquote>`,
+      );
     } else {
       text.push(`${b.label}: ${b.link}`, '');
       html.push(`<p><a href="${escapeHtml(b.link)}">${escapeHtml(b.label)}</a></p>`);
@@ -29,7 +35,11 @@ function build(subject: string, greeting: string, blocks: Block[]): BuiltMessage
   }
   text.push('— Swapyard');
   html.push('<p style="color:#1d4d3a">— Swapyard</p>');
-  return { subject: oneLine(subject), text: text.join('\n'), html: `<div style="font-family:sans-serif;color:#2b2b2b">${html.join('\n')}</div>` };
+  return {
+    subject: oneLine(subject),
+    text: text.join('\n'),
+    html: `<div style="font-family:sans-serif;color:#2b2b2b">${html.join('\n')}</div>`,
+  };
 }
 
 type Base = { appUrl: string; name: string; title: string };
@@ -37,14 +47,18 @@ const hello = (name: string) => `Hello ${name},`;
 
 export function submissionReceived(m: Base & { revisionId: number; number: number }): BuiltMessage {
   return build(`Received: ${m.title}`, hello(m.name), [
-    { text: `Thank you — your ${m.number > 1 ? `revision ${m.number} of “${m.title}”` : `swap “${m.title}”`} is now in review. A moderator will look at it, usually within a few days; it stays locked while it is in review.` },
+    {
+      text: `Thank you — your ${m.number > 1 ? `revision ${m.number} of “${m.title}”` : `swap “${m.title}”`} is now in review. A moderator will look at it, usually within a few days; it stays locked while it is in review.`,
+    },
     { link: `${m.appUrl}/me/submissions`, label: 'Your submissions' },
   ]);
 }
 
 export function submissionApproved(m: Base & { slug: string; number: number; note: string }): BuiltMessage {
   return build(`Approved: ${m.title}`, hello(m.name), [
-    { text: `Your ${m.number > 1 ? `revision ${m.number} of “${m.title}”` : `swap “${m.title}”`} was approved and is now public and searchable.` },
+    {
+      text: `Your ${m.number > 1 ? `revision ${m.number} of “${m.title}”` : `swap “${m.title}”`} was approved and is now public and searchable.`,
+    },
     ...(m.note ? [{ text: 'The moderator noted:' }, { quote: m.note }] : []),
     { link: `${m.appUrl}/swaps/${m.slug}`, label: 'Open the swap sheet' },
   ]);
@@ -69,7 +83,9 @@ export function submissionDeclined(m: Base & { reasons: string }): BuiltMessage 
 
 export function correctionApproved(m: Base & { slug: string; number: number; correctedBy: string }): BuiltMessage {
   return build(`Your swap was updated: ${m.title}`, hello(m.name), [
-    { text: `${m.correctedBy} proposed a correction to your swap “${m.title}”. It was reviewed and approved as revision ${m.number}; the earlier revisions stay readable in the swap's history.` },
+    {
+      text: `${m.correctedBy} proposed a correction to your swap “${m.title}”. It was reviewed and approved as revision ${m.number}; the earlier revisions stay readable in the swap's history.`,
+    },
     { link: `${m.appUrl}/swaps/${m.slug}`, label: 'See the swap sheet' },
   ]);
 }

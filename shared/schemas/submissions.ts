@@ -17,6 +17,16 @@ export const newChassisSchema = z.object({
   pcdMm: z.number().positive().max(300),
   centreBoreMm: z.number().positive().max(200),
   wheelBoltThread: z.string().trim().regex(/^M\d{1,2}(?:[x×]\d(?:\.\d{1,2})?)$/i, 'A metric thread like M12x1.5'),
+  /** the wheel and tyre the chassis left the factory on; when absent, the submission's smallest wheel stands in */
+  stockWheel: z
+    .object({
+      diameterIn: z.number().min(10).max(24),
+      widthIn: z.number().min(4).max(13),
+      offsetMm: z.number().min(-80).max(80),
+      tyre: z.string().trim().max(40).default(''),
+    })
+    .optional(),
+  notes: z.string().trim().max(1000).default(''),
 });
 export type NewChassis = z.infer<typeof newChassisSchema>;
 
@@ -149,3 +159,10 @@ export const flagSchema = z.object({ reason: z.string().trim().min(5, 'Say what 
 export const resolveFlagSchema = z.object({ note: z.string().trim().min(3, 'Say what was done').max(2000) });
 
 export type OutboxMessage = { id: number; to: string; subject: string; text: string; html: string; createdAt: string; sentAt: string | null };
+
+/** POST /api/review/:revisionId/{approve|send-back|decline} */
+export type DecisionResponse = { revision: SubmissionView };
+/** POST /api/review/bulk-decline */
+export type BulkDeclineResponse = { declined: number[] };
+/** POST (201), PATCH and DELETE /api/submissions/:id/photos…: the revision's photos in order */
+export type PhotoListResponse = { photos: PhotoView[] };

@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { automaticChecks, donorCaliperKeys, fastenersOf, sameDonorCaliper, type ReviewCheckInput } from '../../shared/review-checks';
+import {
+  automaticChecks,
+  donorCaliperKeys,
+  fastenersOf,
+  sameDonorCaliper,
+  type ReviewCheckInput,
+} from '../../shared/review-checks';
 import { swapDataSchema, type SwapDataInput } from '../../shared/schemas/swap-data';
 import type { CheckResult } from '../../shared/schemas/submissions';
 
@@ -30,7 +36,12 @@ function record(extra: Partial<SwapDataInput> = {}) {
   return swapDataSchema.parse({
     title: 'Vela four-piston calipers on 330 mm rotors',
     parts: [caliper],
-    adapter: { name: 'H31 radial caliper bracket', maker: 'Northgate Fabrication', partNumber: 'NF-H31-VB', hardwareIncluded: ['M12 caliper bolts, 4'] },
+    adapter: {
+      name: 'H31 radial caliper bracket',
+      maker: 'Northgate Fabrication',
+      partNumber: 'NF-H31-VB',
+      hardwareIncluded: ['M12 caliper bolts, 4'],
+    },
     rotors: [{ diameterMm: 330, thicknessMm: 28, vented: true }],
     torque: [
       { fastener: 'Caliper to bracket M12 bolts', nm: 85 },
@@ -59,7 +70,15 @@ function run(over: Partial<ReviewCheckInput> & { extra?: Partial<SwapDataInput> 
 
 describe('automaticChecks', () => {
   it('when the record is complete, then every check passes and they come in a fixed order', () => {
-    const results = automaticChecks({ data: record(), body: '', photoCount: 1, chassis: { wheelBoltThread: 'M12×1.5' }, axle: 'front', category: 'brakes', duplicates: [] });
+    const results = automaticChecks({
+      data: record(),
+      body: '',
+      photoCount: 1,
+      chassis: { wheelBoltThread: 'M12×1.5' },
+      axle: 'front',
+      category: 'brakes',
+      duplicates: [],
+    });
     expect(results.map((r) => r.id)).toEqual(['required', 'photos', 'torque', 'clearance', 'balance', 'costs', 'duplicate']);
     // no brake figures on a brakes record: attention, never a pass or a fail
     expect(results.map((r) => r.status)).toEqual(['pass', 'pass', 'pass', 'pass', 'attention', 'pass', 'pass']);
@@ -73,7 +92,10 @@ describe('automaticChecks', () => {
   });
 
   it('when the category needs no wheel and no wheel parts are listed, then a missing wheel requirement is fine', () => {
-    const r = run({ category: 'suspension', extra: { wheel: null, parts: [{ ...caliper, kind: 'line', name: 'Braided hose set' }], adapter: null, rotors: [] } });
+    const r = run({
+      category: 'suspension',
+      extra: { wheel: null, parts: [{ ...caliper, kind: 'line', name: 'Braided hose set' }], adapter: null, rotors: [] },
+    });
     expect(r.required.status).toBe('pass');
     expect(r.clearance.status).toBe('pass');
   });
@@ -90,7 +112,11 @@ describe('automaticChecks', () => {
   describe('torque for every fastener', () => {
     it('lists the caliper, the adapter and each item of its included hardware', () => {
       const labels = fastenersOf(record()).map((f) => f.label);
-      expect(labels).toEqual(['Vela four-piston fixed front caliper, left (mounting bolts)', 'H31 radial caliper bracket', 'M12 caliper bolts, 4']);
+      expect(labels).toEqual([
+        'Vela four-piston fixed front caliper, left (mounting bolts)',
+        'H31 radial caliper bracket',
+        'M12 caliper bolts, 4',
+      ]);
     });
 
     it('when the adapter has no torque row, then it fails naming the adapter', () => {
@@ -104,25 +130,36 @@ describe('automaticChecks', () => {
     it('when there are no torque rows at all, then every fastener is named as missing', () => {
       const r = run({ extra: { torque: [] } });
       expect(r.torque.status).toBe('fail');
-      for (const label of ['Vela four-piston', 'H31 radial caliper bracket', 'M12 caliper bolts']) expect(r.torque.detail).toContain(label);
+      for (const label of ['Vela four-piston', 'H31 radial caliper bracket', 'M12 caliper bolts'])
+        expect(r.torque.detail).toContain(label);
     });
 
     it('when a hardware part shares only a generic word with the torque rows, then it is still missing', () => {
       const r = run({ extra: { parts: [caliper, { ...caliper, kind: 'hardware', name: 'Banjo bolts', partNumbers: [] }] } });
       expect(r.torque.status).toBe('fail');
       expect(r.torque.detail).toContain('Banjo bolts');
-      const fixed = run({ extra: { parts: [caliper, { ...caliper, kind: 'hardware', name: 'Banjo bolts', partNumbers: [] }], torque: [...record().torque, { fastener: 'Banjo bolt at the caliper', nm: 30 }] } });
+      const fixed = run({
+        extra: {
+          parts: [caliper, { ...caliper, kind: 'hardware', name: 'Banjo bolts', partNumbers: [] }],
+          torque: [...record().torque, { fastener: 'Banjo bolt at the caliper', nm: 30 }],
+        },
+      });
       expect(fixed.torque.status).toBe('pass');
     });
 
     it('when bolt-on spacers are fitted, then a spacer torque row is needed', () => {
       const spacers = [{ thicknessMm: 20, hubCentric: true, mounting: 'bolt_on' as const, quantity: 2 }];
       expect(run({ extra: { spacers } }).torque.status).toBe('fail');
-      expect(run({ extra: { spacers, torque: [...record().torque, { fastener: 'Spacer to hub nuts', nm: 110 }] } }).torque.status).toBe('pass');
+      expect(
+        run({ extra: { spacers, torque: [...record().torque, { fastener: 'Spacer to hub nuts', nm: 110 }] } }).torque.status,
+      ).toBe('pass');
     });
 
     it('when nothing that takes a torque is listed, then it passes and says so', () => {
-      const r = run({ category: 'repair', extra: { parts: [{ ...caliper, kind: 'pad', name: 'Sport pads' }], adapter: null, torque: [], wheel: null } });
+      const r = run({
+        category: 'repair',
+        extra: { parts: [{ ...caliper, kind: 'pad', name: 'Sport pads' }], adapter: null, torque: [], wheel: null },
+      });
       expect(r.torque.status).toBe('pass');
       expect(r.torque.detail).toMatch(/No fasteners/);
     });
@@ -146,7 +183,9 @@ describe('automaticChecks', () => {
 
     it('when exactly 3 mm remain, then it passes (the rule is "not below 3 mm")', () => {
       // 378.4 / 2 − (330 / 2 + 21.2) = 3.0 mm
-      expect(run({ extra: { wheel: { minDiameterIn: 16, caliperRadialProjectionMm: 21.2, caliperOutboardMm: 30 } } }).clearance.status).toBe('pass');
+      expect(
+        run({ extra: { wheel: { minDiameterIn: 16, caliperRadialProjectionMm: 21.2, caliperOutboardMm: 30 } } }).clearance.status,
+      ).toBe('pass');
     });
 
     it('when tested wheels are given, then the smallest one is checked, with the barrel measured on the minimum wheel', () => {
@@ -169,7 +208,12 @@ describe('automaticChecks', () => {
     });
 
     it('when a measured clearance on a tested wheel is below 3 mm, then it fails even if the estimate passes', () => {
-      const wheel = { minDiameterIn: 16, caliperRadialProjectionMm: 12, caliperOutboardMm: 30, testedWheels: [{ diameterIn: 16, widthIn: 7, offsetMm: 35, spokeClearanceMm: 1.5 }] };
+      const wheel = {
+        minDiameterIn: 16,
+        caliperRadialProjectionMm: 12,
+        caliperOutboardMm: 30,
+        testedWheels: [{ diameterIn: 16, widthIn: 7, offsetMm: 35, spokeClearanceMm: 1.5 }],
+      };
       const r = run({ extra: { wheel } });
       expect(r.clearance.status).toBe('fail');
       expect(r.clearance.detail).toContain('spokes 1.5 mm');

@@ -1,0 +1,445 @@
+import { and, asc, eq, lt, sql, type SQL } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { chassis, flags, parts, reviewEvents, reviewReasonTemplates, revisions, swaps, users } from '../../db/schema/index';
+import { AppError } from '../../lib/app-error';
+import { stripHtml } from '../../lib/sanitize';
+import { notify } from '../../mail/notify';
+import {
+  correctionApproved,
+  flagResolved,
+  submissionApproved,
+  submissionDeclined,
+  submissionSentBack,
+} from '../../mail/messages';
+import type { SessionUser } from '../../middleware/require-role';
+import type {
+  FlagItem,
+  ReasonTemplate,
+  ReviewDetail,
+  ReviewQueue,
+  ReviewQueueItem,
+  SubmissionView,
+} from '../../../shared/schemas/submissions';
+import type { SwapData, SwapPart } from '../../../shared/schemas/swap-data';
+import { iso, personRef } from '../swaps/swap-views';
+import { checksFor, loadRevision, photoCounts, submissionView, type LoadedRevision } from '../submissions/submission-views';
+import { slugify, uniqueSlug, type SubmissionDeps } from '../submissions/submissions.service';
+
+export type ReviewDeps = SubmissionDeps;
+export type Decision = 'approved' | 'sent_back' | 'declined';
+type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+
+const DAY_MS = 24 * 60 * 60 * 1000;
+
+export type QueueFilters = { status: 'in_review' | 'sent_back'; chassis?: string; olderThanDays?: number };
+
+export function reviewQueue(deps: ReviewDeps, filters: QueueFilters): ReviewQueue {
+  const { db, clock } = deps;
+  const where: SQL[] = [eq(revisions.status, filters.status)];
+  if (filters.chassis) where.push(eq(chassis.slug, filters.chassis));
+  if (filters.olderThanDays !== undefined)
+    where.push(lt(revisions.submittedAt, new Date(clock.now().getTime() - filters.olderThanDays * DAY_MS)));
+  const rows = db
+    .select({ revision: revisions, swap: swaps, chassis, author: users })
+    .from(revisions)
+    .innerJoin(swaps, eq(swaps.id, revisions.swapId))
+    .innerJoin(chassis, eq(chassis.id, swaps.chassisId))
+    .innerJoin(users, eq(users.id, revisions.authorId))
+    .where(and(...where))
+    .orderBy(asc(revisions.submittedAt), asc(revisions.id))
+    .limit(500)
+    .all();
+  const photos = photoCounts(
+    db,
+    rows.map((r) => r.revision.id),
+  );
+  const items = rows.map((row): ReviewQueueItem => ({
+    revisionId: row.revision.id,
+    swapSlug: row.swap.slug,
+    title: row.revision.data.title,
+    author: personRef(row.author),
+    submittedAt: iso(row.revision.submittedAt),
+    status: row.revision.status,
+    number: row.revision.number,
+    isCorrection: row.revision.number > 1,
+    chassis: { slug: row.chassis.slug, label: `${row.chassis.make} ${row.chassis.model} (${row.chassis.code})` },
+    axle: row.swap.axle,
+    failedChecks: checksFor(db, row, photos.get(row.revision.id) ?? 0).filter((c) => c.status === 'fail').length,
+  }));
+  const count = (status: 'in_review' | 'sent_back') =>
+    db
+      .select({ n: sql<number>`count(*)` })
+      .from(revisions)
+      .where(eq(revisions.status, status))
+      .get()!.n;
+  const openFlags = listFlags(db, 'open');
+  return {
+    items,
+    counts: { in_review: count('in_review'), sent_back: count('sent_back'), flags: openFlags.length },
+    flags: openFlags,
+  };
+}
+
+function reviewable(db: Db, revisionId: number): LoadedRevision {
+  const row = loadRevision(db, revisionId);
+  // drafts stay private to their author, even from the desk
+  if (!row || row.revision.status === 'draft') throw AppError.notFound('That submission');
+  return row;
+}
+
+export function reviewDetail(deps: ReviewDeps, viewer: SessionUser, revisionId: number): ReviewDetail {
+  const { db } = deps;
+  const row = reviewable(db, revisionId);
+  const currentRow =
+    row.swap.currentRevisionId !== null && row.swap.currentRevisionId !== row.revision.id
+      ? db
+          .select({ number: revisions.number, data: revisions.data, body: revisions.body })
+          .from(revisions)
+          .where(eq(revisions.id, row.swap.currentRevisionId))
+          .get()
+      : undefined;
+  const history = db
+    .select({ event: reviewEvents, actor: users })
+    .from(reviewEvents)
+    .innerJoin(users, eq(users.id, reviewEvents.actorId))
+    .where(eq(reviewEvents.revisionId, revisionId))
+    .orderBy(asc(reviewEvents.at), asc(reviewEvents.id))
+    .all();
+  return {
+    revision: submissionView(db, row, viewer),
+    checks: checksFor(db, row),
+    current: currentRow ?? null,
+    history: history.map((h) => ({
+      action: h.event.action,
+      actor: personRef(h.actor),
+      note: h.event.note,
+      at: h.event.at.toISOString(),
+    })),
+    canDecide: row.revision.status === 'in_review' && row.revision.authorId !== viewer.id,
+  };
+}
+
+function assertDecidable(actor: SessionUser, row: LoadedRevision) {
+  if (row.revision.authorId === actor.id)
+    throw AppError.forbidden('You cannot decide on your own submission; another moderator has to review it.');
+  if (row.revision.status !== 'in_review') {
+    throw AppError.conflict(`Only a revision in review can be decided; this one is ${row.revision.status.replace('_', ' ')}.`);
+  }
+}
+
+const partNumberKey = (pn: string) => pn.toLowerCase().replace(/[^a-z0-9]/g, '');
+
+/** A catalogue part of the same kind sharing a part number, if there is one. */
+function findCataloguePart(tx: Tx, line: SwapPart): number | null {
+  const keys = new Set(line.partNumbers.map(partNumberKey).filter(Boolean));
+  if (keys.size === 0) return null;
+  const candidates = tx
+    .select({ id: parts.id, partNumbers: parts.partNumbers })
+    .from(parts)
+    .where(eq(parts.kind, line.kind))
+    .all();
+  return candidates.find((c) => c.partNumbers.some((pn) => keys.has(partNumberKey(pn))))?.id ?? null;
+}
+
+/** New parts of an approved revision join the catalogue; the revision's lines then point at them. */
+function addNewParts(tx: Tx, now: Date, data: SwapData): SwapData {
+  const lines = data.parts.map((line) => {
+    if (line.partId) return line;
+    const existing = findCataloguePart(tx, line);
+    if (existing) return { ...line, partId: existing };
+    const created = tx
+      .insert(parts)
+      .values({
+        slug: uniqueSlug(tx, parts, slugify(`${line.maker} ${line.name}`, 70)),
+        kind: line.kind,
+        name: line.name,
+        maker: line.maker,
+        partNumbers: line.partNumbers,
+        specs: {},
+        cameOn: line.cameOn,
+        notes: line.notes,
+        createdAt: now,
+        updatedAt: now,
+      })
+      .returning({ id: parts.id })
+      .get();
+    return { ...line, partId: created.id };
+  });
+  return { ...data, parts: lines };
+}
+
+export async function approve(deps: ReviewDeps, actor: SessionUser, revisionId: number, note: string): Promise<SubmissionView> {
+  const { db, clock } = deps;
+  const row = reviewable(db, revisionId);
+  assertDecidable(actor, row);
+  const now = clock.now();
+  const cleanNote = stripHtml(note);
+  db.transaction((tx) => {
+    // the swap as it is now, inside the write
+    const swap = tx.select().from(swaps).where(eq(swaps.id, row.swap.id)).get()!;
+    const previous = swap.currentRevisionId
+      ? tx.select().from(revisions).where(eq(revisions.id, swap.currentRevisionId)).get()
+      : undefined;
+    if (previous && previous.number > row.revision.number) {
+      throw AppError.conflict(
+        `Revision ${previous.number} was approved after this one was written; send this one back so its author can start from the current revision.`,
+      );
+    }
+    const changed = tx
+      .update(revisions)
+      .set({
+        status: 'approved',
+        data: addNewParts(tx, now, row.revision.data),
+        reviewedAt: now,
+        reviewedById: actor.id,
+        reviewNote: cleanNote || null,
+        updatedAt: now,
+      })
+      .where(and(eq(revisions.id, revisionId), eq(revisions.status, 'in_review')))
+      .run().changes;
+    if (!changed) throw AppError.conflict('Another moderator decided on this revision a moment ago.');
+    if (previous) {
+      tx.update(revisions).set({ status: 'superseded', updatedAt: now }).where(eq(revisions.id, previous.id)).run();
+      tx.insert(reviewEvents)
+        .values({
+          revisionId: previous.id,
+          actorId: actor.id,
+          action: 'superseded',
+          note: `Replaced by revision ${row.revision.number}.`,
+          at: now,
+        })
+        .run();
+    }
+    tx.update(swaps).set({ currentRevisionId: revisionId, updatedAt: now }).where(eq(swaps.id, swap.id)).run();
+    tx.update(chassis)
+      .set({ proposed: false, updatedAt: now })
+      .where(and(eq(chassis.id, swap.chassisId), eq(chassis.proposed, true)))
+      .run();
+    tx.insert(reviewEvents).values({ revisionId, actorId: actor.id, action: 'approved', note: cleanNote, at: now }).run();
+  });
+
+  const title = row.revision.data.title;
+  const { author } = row;
+  await notify(
+    deps.mailer,
+    deps.logger,
+    author,
+    submissionApproved({
+      appUrl: deps.appUrl,
+      name: author.name || author.login,
+      title,
+      slug: row.swap.slug,
+      number: row.revision.number,
+      note: cleanNote,
+    }),
+  );
+  if (row.swap.authorId !== author.id) {
+    const original = db.select().from(users).where(eq(users.id, row.swap.authorId)).get();
+    if (original) {
+      await notify(
+        deps.mailer,
+        deps.logger,
+        original,
+        correctionApproved({
+          appUrl: deps.appUrl,
+          name: original.name || original.login,
+          title,
+          slug: row.swap.slug,
+          number: row.revision.number,
+          correctedBy: author.name || author.login,
+        }),
+      );
+    }
+  }
+  return submissionView(db, loadRevision(db, revisionId)!, actor);
+}
+
+function refuse(tx: Tx, actor: SessionUser, revisionId: number, action: 'sent_back' | 'declined', note: string, now: Date) {
+  const changed = tx
+    .update(revisions)
+    .set({ status: action, reviewedAt: now, reviewedById: actor.id, reviewNote: note, updatedAt: now })
+    .where(and(eq(revisions.id, revisionId), eq(revisions.status, 'in_review')))
+    .run().changes;
+  if (!changed) throw AppError.conflict('Another moderator decided on this revision a moment ago.');
+  tx.insert(reviewEvents).values({ revisionId, actorId: actor.id, action, note, at: now }).run();
+}
+
+async function tellRefused(deps: ReviewDeps, row: LoadedRevision, action: 'sent_back' | 'declined', reasons: string) {
+  const { author } = row;
+  const base = { appUrl: deps.appUrl, name: author.name || author.login, title: row.revision.data.title, reasons };
+  await notify(
+    deps.mailer,
+    deps.logger,
+    author,
+    action === 'sent_back' ? submissionSentBack({ ...base, revisionId: row.revision.id }) : submissionDeclined(base),
+  );
+}
+
+/** Send back (changes requested) or decline; both need the reason the member will read. */
+export async function sendBackOrDecline(
+  deps: ReviewDeps,
+  actor: SessionUser,
+  revisionId: number,
+  action: 'sent_back' | 'declined',
+  note: string,
+): Promise<SubmissionView> {
+  const { db, clock } = deps;
+  const row = reviewable(db, revisionId);
+  assertDecidable(actor, row);
+  const reasons = requireReason(note);
+  db.transaction((tx) => refuse(tx, actor, revisionId, action, reasons, clock.now()));
+  await tellRefused(deps, row, action, reasons);
+  return submissionView(db, loadRevision(db, revisionId)!, actor);
+}
+
+function requireReason(note: string): string {
+  const clean = stripHtml(note).trim();
+  if (clean.length < 3)
+    throw AppError.invalid('Give the reason the member will read.', { note: 'Give the reason the member will read.' });
+  return clean;
+}
+
+/** Several obvious spam submissions declined at once with one reason: all of them or none. */
+export async function bulkDecline(deps: ReviewDeps, actor: SessionUser, revisionIds: number[], note: string): Promise<number[]> {
+  const { db, clock } = deps;
+  const ids = [...new Set(revisionIds)];
+  const reasons = requireReason(note);
+  const rows = ids.map((id) => loadRevision(db, id));
+  const fields: Record<string, string> = {};
+  rows.forEach((row, i) => {
+    if (!row || row.revision.status === 'draft') fields[`revisionIds.${i}`] = `Revision ${ids[i]} was not found.`;
+    else if (row.revision.authorId === actor.id)
+      fields[`revisionIds.${i}`] = `Revision ${ids[i]} is your own; another moderator has to decide on it.`;
+    else if (row.revision.status !== 'in_review')
+      fields[`revisionIds.${i}`] = `Revision ${ids[i]} is ${row.revision.status.replace('_', ' ')}, not in review.`;
+  });
+  if (Object.keys(fields).length)
+    throw new AppError('not_decidable', 'Some of these revisions cannot be declined; nothing was changed.', 409, fields);
+  const now = clock.now();
+  db.transaction((tx) => {
+    for (const id of ids) refuse(tx, actor, id, 'declined', reasons, now);
+  });
+  for (const row of rows) await tellRefused(deps, row!, 'declined', reasons);
+  return ids;
+}
+
+// --- reason templates ---
+
+const templateOf = (t: typeof reviewReasonTemplates.$inferSelect): ReasonTemplate => ({ id: t.id, label: t.label, text: t.text });
+
+export function listTemplates(db: Db): ReasonTemplate[] {
+  return db
+    .select()
+    .from(reviewReasonTemplates)
+    .orderBy(asc(reviewReasonTemplates.label), asc(reviewReasonTemplates.id))
+    .all()
+    .map(templateOf);
+}
+
+export function createTemplate(deps: ReviewDeps, input: { label: string; text: string }): ReasonTemplate {
+  const now = deps.clock.now();
+  return templateOf(
+    deps.db
+      .insert(reviewReasonTemplates)
+      .values({ label: stripHtml(input.label), text: stripHtml(input.text), createdAt: now, updatedAt: now })
+      .returning()
+      .get(),
+  );
+}
+
+export function updateTemplate(deps: ReviewDeps, id: number, input: { label: string; text: string }): ReasonTemplate {
+  const row = deps.db
+    .update(reviewReasonTemplates)
+    .set({ label: stripHtml(input.label), text: stripHtml(input.text), updatedAt: deps.clock.now() })
+    .where(eq(reviewReasonTemplates.id, id))
+    .returning()
+    .get();
+  if (!row) throw AppError.notFound('That reason template');
+  return templateOf(row);
+}
+
+export function deleteTemplate(db: Db, id: number) {
+  if (!db.delete(reviewReasonTemplates).where(eq(reviewReasonTemplates.id, id)).run().changes)
+    throw AppError.notFound('That reason template');
+}
+
+// --- flags ---
+
+function listFlags(db: Db, status: 'open' | 'resolved', id?: number): FlagItem[] {
+  return db
+    .select({
+      flag: flags,
+      slug: swaps.slug,
+      title: sql<string | null>`json_extract(${revisions.data}, '$.title')`,
+      reporter: users,
+    })
+    .from(flags)
+    .innerJoin(swaps, eq(swaps.id, flags.swapId))
+    .leftJoin(revisions, eq(revisions.id, swaps.currentRevisionId))
+    .innerJoin(users, eq(users.id, flags.reporterId))
+    .where(id === undefined ? eq(flags.status, status) : eq(flags.id, id))
+    .orderBy(asc(flags.createdAt), asc(flags.id))
+    .all()
+    .map((r) => ({
+      id: r.flag.id,
+      swapSlug: r.slug,
+      title: r.title ?? r.slug,
+      reason: r.flag.reason,
+      reporter: personRef(r.reporter),
+      status: r.flag.status,
+      createdAt: r.flag.createdAt.toISOString(),
+      resolutionNote: r.flag.resolutionNote,
+    }));
+}
+
+/** Any signed-in member may flag a public swap. */
+export function createFlag(deps: ReviewDeps, user: SessionUser, slug: string, reason: string): FlagItem {
+  const { db, clock } = deps;
+  const swap = db.select({ id: swaps.id, current: swaps.currentRevisionId }).from(swaps).where(eq(swaps.slug, slug)).get();
+  if (!swap || swap.current === null) throw AppError.notFound('That swap');
+  const clean = stripHtml(reason).trim();
+  if (clean.length < 5)
+    throw AppError.invalid('Say what is wrong (at least 5 characters).', {
+      reason: 'Say what is wrong (at least 5 characters).',
+    });
+  const now = clock.now();
+  const id = db
+    .insert(flags)
+    .values({ swapId: swap.id, reporterId: user.id, reason: clean, createdAt: now, updatedAt: now })
+    .returning({ id: flags.id })
+    .get().id;
+  return listFlags(db, 'open', id)[0];
+}
+
+export async function resolveFlag(deps: ReviewDeps, actor: SessionUser, id: number, note: string): Promise<FlagItem> {
+  const { db, clock } = deps;
+  const clean = stripHtml(note).trim();
+  if (clean.length < 3) throw AppError.invalid('Say what was done.', { note: 'Say what was done.' });
+  const now = clock.now();
+  const flag = db.select().from(flags).where(eq(flags.id, id)).get();
+  if (!flag) throw AppError.notFound('That flag');
+  const changed = db
+    .update(flags)
+    .set({ status: 'resolved', resolutionNote: clean, resolvedById: actor.id, resolvedAt: now, updatedAt: now })
+    .where(and(eq(flags.id, id), eq(flags.status, 'open')))
+    .run().changes;
+  if (!changed) throw AppError.conflict('This flag was already resolved.');
+  const item = listFlags(db, 'resolved', id)[0];
+  const reporter = db.select().from(users).where(eq(users.id, flag.reporterId)).get();
+  if (reporter) {
+    await notify(
+      deps.mailer,
+      deps.logger,
+      reporter,
+      flagResolved({
+        appUrl: deps.appUrl,
+        name: reporter.name || reporter.login,
+        title: item.title,
+        slug: item.swapSlug,
+        reason: flag.reason,
+        note: clean,
+      }),
+    );
+  }
+  return item;
+}

@@ -1,0 +1,153 @@
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import { rateLimit } from 'express-rate-limit';
+import { z } from 'zod';
+import type { AppDeps } from '../../app';
+import { AppError } from '../../lib/app-error';
+import { validated } from '../../middleware/validate';
+import { requirePermission, requireUser } from '../../middleware/require-role';
+import { idParamSchema } from '../../../shared/schemas/params';
+import { createSubmissionSchema, photoOrderSchema, updateSubmissionSchema } from '../../../shared/schemas/submissions';
+import { MAX_PHOTO_BYTES } from '../photos/photo-processing';
+import {
+  createSubmission,
+  deleteSubmission,
+  getSubmission,
+  listMySubmissions,
+  submitForReview,
+  updateSubmission,
+  type SubmissionDeps,
+} from './submissions.service';
+import {
+  addPhotos,
+  assertCanUpload,
+  deletePhoto,
+  MAX_PHOTOS_PER_REVISION,
+  parseCaptions,
+  updatePhotos,
+} from './submission-photos.service';
+
+const idParams = z.object({ id: idParamSchema });
+const photoParams = z.object({ id: idParamSchema, photoId: z.string().regex(/^[a-z0-9]{12,40}$/, 'Not a photo id') });
+
+/** Per signed-in member (the routes behind it all require one), counted over an hour. */
+function perUserLimit(limit: number, what: string): RequestHandler {
+  return rateLimit({
+    windowMs: 60 * 60 * 1000,
+    limit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => `user:${req.user!.id}`,
+    handler: (req, _res, next) => {
+      req.log?.warn({ event: 'rate_limited', userId: req.user?.id ?? null, path: req.originalUrl }, `${what} rate limit reached`);
+      next(
+        new AppError(
+          'rate_limited',
+          `Too many ${what} in the last hour. Wait a while and try again; nothing saved was lost.`,
+          429,
+        ),
+      );
+    },
+  });
+}
+
+export function submissionsRouter({ db, clock, mailer, storage, logger, config }: AppDeps) {
+  const router = Router();
+  const deps: SubmissionDeps = { db, clock, mailer, storage, logger, appUrl: config.appUrl };
+  const submitLimit = perUserLimit(config.rateLimits.submissionsPerHour, 'submissions');
+  const uploadLimit = perUserLimit(config.rateLimits.uploadsPerHour, 'photo uploads');
+
+  // memory only, and only on this route: the bytes never touch the disk before they are checked and re-encoded
+  const upload = multer({
+    storage: multer.memoryStorage(),
+    limits: {
+      fileSize: MAX_PHOTO_BYTES,
+      files: MAX_PHOTOS_PER_REVISION,
+      fields: 4,
+      fieldSize: 16 * 1024,
+      fieldNameSize: 40,
+      parts: MAX_PHOTOS_PER_REVISION + 4,
+    },
+  }).array('photos', MAX_PHOTOS_PER_REVISION);
+
+  router.post(
+    '/submissions',
+    requirePermission('submit'),
+    submitLimit,
+    validated({ body: createSubmissionSchema }, async ({ body }, req, res) => {
+      res.status(201).json(await createSubmission(deps, req.user!, body));
+    }),
+  );
+
+  router.get(
+    '/submissions/:id',
+    requireUser,
+    validated({ params: idParams }, ({ params }, req, res) => {
+      res.set('Cache-Control', 'private, no-store').json(getSubmission(db, req.user!, params.id));
+    }),
+  );
+
+  router.patch(
+    '/submissions/:id',
+    requirePermission('submit'),
+    validated({ params: idParams, body: updateSubmissionSchema }, ({ params, body }, req, res) => {
+      res.json(updateSubmission(deps, req.user!, params.id, body));
+    }),
+  );
+
+  router.post(
+    '/submissions/:id/submit',
+    requirePermission('submit'),
+    submitLimit,
+    validated({ params: idParams }, async ({ params }, req, res) => {
+      res.json(await submitForReview(deps, req.user!, params.id));
+    }),
+  );
+
+  router.delete(
+    '/submissions/:id',
+    requirePermission('submit'),
+    validated({ params: idParams }, async ({ params }, req, res) => {
+      await deleteSubmission(deps, req.user!, params.id);
+      res.status(204).end();
+    }),
+  );
+
+  router.post(
+    '/submissions/:id/photos',
+    requirePermission('submit'),
+    uploadLimit,
+    validated({ params: idParams }, ({ params }, req, _res, next) => {
+      assertCanUpload(deps, req.user!, params.id);
+      next();
+    }),
+    upload,
+    validated({ params: idParams }, async ({ params }, req, res) => {
+      const files = (req.files as Express.Multer.File[] | undefined) ?? [];
+      const captions = parseCaptions((req.body as Record<string, unknown> | undefined)?.captions);
+      res.status(201).json({ photos: await addPhotos(deps, req.user!, params.id, files, captions) });
+    }),
+  );
+
+  router.patch(
+    '/submissions/:id/photos',
+    requirePermission('submit'),
+    validated({ params: idParams, body: photoOrderSchema }, ({ params, body }, req, res) => {
+      res.json({ photos: updatePhotos(deps, req.user!, params.id, body.photos) });
+    }),
+  );
+
+  router.delete(
+    '/submissions/:id/photos/:photoId',
+    requirePermission('submit'),
+    validated({ params: photoParams }, async ({ params }, req, res) => {
+      res.json({ photos: await deletePhoto(deps, req.user!, params.id, params.photoId) });
+    }),
+  );
+
+  router.get('/me/submissions', requireUser, (req, res) => {
+    res.set('Cache-Control', 'private, no-store').json({ items: listMySubmissions(db, req.user!.id) });
+  });
+
+  return router;
+}

@@ -1,0 +1,459 @@
+import { and, desc, eq, inArray, like, max, ne, sql } from 'drizzle-orm';
+import { ZodError } from 'zod';
+import type { Db } from '../../db/client';
+import { chassis, parts, reviewEvents, revisionPhotos, revisions, swaps } from '../../db/schema/index';
+import type { StockBrakes, StockWheel } from '../../db/schema/catalogue';
+import type { Clock } from '../../lib/clock';
+import type { Logger } from '../../lib/logger';
+import type { Mailer } from '../../mail/mailer';
+import { newFileId, type Storage } from '../../storage/disk-storage';
+import { AppError } from '../../lib/app-error';
+import { stripHtml, stripHtmlDeep } from '../../lib/sanitize';
+import { notify } from '../../mail/notify';
+import { submissionReceived } from '../../mail/messages';
+import type { SessionUser } from '../../middleware/require-role';
+import { swapDataSchema, type SwapData } from '../../../shared/schemas/swap-data';
+import type {
+  CreateSubmission,
+  MySubmissionItem,
+  NewChassis,
+  SubmissionView,
+  UpdateSubmission,
+} from '../../../shared/schemas/submissions';
+import { thumbId } from '../photos/photo-files';
+import { assertEditable, loadRevision, revisionFor, submissionView, type SwapRow } from './submission-views';
+
+export type SubmissionDeps = { db: Db; clock: Clock; mailer: Mailer; storage: Storage; logger: Logger; appUrl: string };
+type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+
+export function slugify(text: string, maxLength = 80): string {
+  return text
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .slice(0, maxLength)
+    .replace(/^-+|-+$/g, '');
+}
+
+/** `base`, or `base-2`, `base-3` … the first that the table does not hold yet. */
+export function uniqueSlug(db: Db | Tx, table: typeof swaps | typeof chassis | typeof parts, base: string): string {
+  const root = base || 'untitled';
+  const taken = new Set(
+    db
+      .select({ slug: table.slug })
+      .from(table)
+      .where(like(table.slug, `${root}%`))
+      .all()
+      .map((r) => r.slug),
+  );
+  if (!taken.has(root)) return root;
+  for (let n = 2; ; n++) if (!taken.has(`${root}-${n}`)) return `${root}-${n}`;
+}
+
+/** Raw HTML leaves every string of the record and the write-up; the cleaned record is checked again. */
+function cleanRecord(data: SwapData, body: string): { data: SwapData; body: string } {
+  const parsed = swapDataSchema.safeParse(stripHtmlDeep(data));
+  if (!parsed.success) throw new ZodError(parsed.error.issues.map((i) => ({ ...i, path: ['data', ...i.path] })));
+  return { data: parsed.data, body: stripHtml(body) };
+}
+
+function checkPartIds(db: Db | Tx, data: SwapData) {
+  const ids = [...new Set(data.parts.flatMap((p) => (p.partId ? [p.partId] : [])))];
+  if (ids.length === 0) return;
+  const known = new Set(
+    db
+      .select({ id: parts.id })
+      .from(parts)
+      .where(inArray(parts.id, ids))
+      .all()
+      .map((r) => r.id),
+  );
+  const fields: Record<string, string> = {};
+  data.parts.forEach((p, i) => {
+    if (p.partId && !known.has(p.partId))
+      fields[`data.parts.${i}.partId`] = 'That part is not in the catalogue; pick it again or add it as a new part.';
+  });
+  if (Object.keys(fields).length) throw AppError.invalid('A part refers to a catalogue entry that does not exist.', fields);
+}
+
+function catalogueChassisId(db: Db | Tx, id: number): number {
+  const row = db.select({ id: chassis.id, proposed: chassis.proposed }).from(chassis).where(eq(chassis.id, id)).get();
+  if (!row || row.proposed)
+    throw AppError.invalid('That chassis is not in the catalogue.', {
+      chassisId: 'Pick a chassis from the list, or propose a new one.',
+    });
+  return row.id;
+}
+
+function chassisValues(input: NewChassis, data: SwapData) {
+  const smallest = [...(data.wheel?.testedWheels ?? [])].sort((a, b) => a.diameterIn - b.diameterIn)[0];
+  const stockWheel: StockWheel = input.stockWheel ?? {
+    diameterIn: smallest?.diameterIn ?? data.wheel?.minDiameterIn ?? 15,
+    widthIn: smallest?.widthIn ?? 6,
+    offsetMm: smallest?.offsetMm ?? 35,
+    tyre: '',
+  };
+  const before = data.brakes?.before;
+  const corner = (c: NonNullable<typeof before>['front'] | undefined) =>
+    c
+      ? {
+          kind: 'disc' as const,
+          pistonsPerSideMm: c.pistonsPerSideMm,
+          rotorDiameterMm: c.rotorDiameterMm,
+          padHeightMm: c.padHeightMm,
+          description: 'From the brake figures of the submission that proposed this chassis.',
+        }
+      : { kind: 'disc' as const, pistonsPerSideMm: [], rotorDiameterMm: 0, padHeightMm: 0, description: 'Not given yet.' };
+  const stockBrakes: StockBrakes = { front: corner(before?.front), rear: corner(before?.rear) };
+  const gaps = [
+    input.stockWheel ? null : 'stock wheel taken from the submission',
+    before ? null : 'stock brakes not given',
+  ].filter(Boolean);
+  return {
+    make: input.make,
+    model: input.model,
+    code: input.code,
+    yearFrom: input.yearFrom,
+    yearTo: input.yearTo,
+    body: input.body,
+    lugCount: input.lugCount,
+    pcdMm: input.pcdMm,
+    centreBoreMm: input.centreBoreMm,
+    wheelBoltThread: input.wheelBoltThread,
+    stockWheel,
+    stockBrakes,
+    notes: stripHtml(
+      [input.notes, gaps.length ? `Proposed with a submission (${gaps.join('; ')}).` : ''].filter(Boolean).join('\n\n'),
+    ),
+  };
+}
+
+function proposeChassis(tx: Tx, clock: Clock, input: NewChassis, data: SwapData): number {
+  const now = clock.now();
+  const base = slugify(
+    input.code.toLowerCase() === input.model.toLowerCase()
+      ? `${input.make} ${input.model}`
+      : `${input.make} ${input.model} ${input.code}`,
+    60,
+  );
+  return tx
+    .insert(chassis)
+    .values({
+      ...chassisValues(input, data),
+      slug: uniqueSlug(tx, chassis, base),
+      proposed: true,
+      createdAt: now,
+      updatedAt: now,
+    })
+    .returning({ id: chassis.id })
+    .get().id;
+}
+
+/** A proposed chassis that no swap refers to any more is removed again. */
+function dropUnusedProposedChassis(tx: Tx, chassisId: number) {
+  const row = tx.select({ proposed: chassis.proposed }).from(chassis).where(eq(chassis.id, chassisId)).get();
+  if (!row?.proposed) return;
+  const used = tx.select({ id: swaps.id }).from(swaps).where(eq(swaps.chassisId, chassisId)).limit(1).get();
+  if (!used) tx.delete(chassis).where(eq(chassis.id, chassisId)).run();
+}
+
+function viewOf(db: Db, id: number, user: SessionUser): SubmissionView {
+  return submissionView(db, loadRevision(db, id)!, user);
+}
+
+/** A correction keeps its swap's chassis, axle and category; they belong to the swap, not to one revision. */
+function refuseSwapLevelChanges(swap: SwapRow, input: Pick<UpdateSubmission, 'chassisId' | 'newChassis' | 'axle' | 'category'>) {
+  const fields: Record<string, string> = {};
+  const message = 'A correction keeps the swap’s chassis, axle and category.';
+  if (input.chassisId !== undefined && input.chassisId !== swap.chassisId) fields.chassisId = message;
+  if (input.newChassis) fields.newChassis = message;
+  if (input.axle !== undefined && input.axle !== swap.axle) fields.axle = message;
+  if (input.category !== undefined && input.category !== swap.category) fields.category = message;
+  if (Object.keys(fields).length) throw AppError.invalid(message, fields);
+}
+
+/** POST /api/submissions: a new swap with its draft revision 1, or with `swapSlug` a draft correction N+1 of an approved swap. */
+export async function createSubmission(
+  deps: SubmissionDeps,
+  user: SessionUser,
+  input: CreateSubmission,
+): Promise<SubmissionView> {
+  const { db, clock, storage } = deps;
+  const { data, body } = cleanRecord(input.data, input.body);
+  checkPartIds(db, data);
+  const now = clock.now();
+
+  if (input.swapSlug) {
+    const swap = db.select().from(swaps).where(eq(swaps.slug, input.swapSlug)).get();
+    if (!swap || swap.currentRevisionId === null) throw AppError.notFound('That swap');
+    refuseSwapLevelChanges(swap, input);
+    const open = db
+      .select({ id: revisions.id, number: revisions.number, status: revisions.status })
+      .from(revisions)
+      .where(
+        and(
+          eq(revisions.swapId, swap.id),
+          eq(revisions.authorId, user.id),
+          inArray(revisions.status, ['draft', 'sent_back', 'in_review']),
+        ),
+      )
+      .get();
+    if (open) {
+      throw new AppError(
+        'open_revision',
+        `You already have revision ${open.number} of this swap (${open.status.replace('_', ' ')}); continue with that one.`,
+        409,
+        {
+          swapSlug: `Revision ${open.number} (id ${open.id}) is still open.`,
+        },
+      );
+    }
+    // the correction starts with copies of the current revision's photos, so it can change them without touching the approved one
+    const copies = await copyPhotos(deps, swap.currentRevisionId);
+    try {
+      const id = db.transaction((tx) => {
+        const last =
+          tx
+            .select({ n: max(revisions.number) })
+            .from(revisions)
+            .where(eq(revisions.swapId, swap.id))
+            .get()?.n ?? 0;
+        const revisionId = tx
+          .insert(revisions)
+          .values({
+            swapId: swap.id,
+            number: last + 1,
+            authorId: user.id,
+            status: 'draft',
+            data,
+            body,
+            createdAt: now,
+            updatedAt: now,
+          })
+          .returning({ id: revisions.id })
+          .get().id;
+        for (const c of copies)
+          tx.insert(revisionPhotos)
+            .values({ ...c, revisionId, createdAt: now })
+            .run();
+        return revisionId;
+      });
+      return viewOf(db, id, user);
+    } catch (err) {
+      await removeFiles(
+        storage,
+        copies.map((c) => c.fileId),
+      );
+      throw err;
+    }
+  }
+
+  if (input.chassisId && input.newChassis) {
+    throw AppError.invalid('Pick a chassis or propose a new one, not both.', {
+      chassisId: 'Pick a chassis or propose a new one, not both.',
+    });
+  }
+  const id = db.transaction((tx) => {
+    const chassisId = input.chassisId
+      ? catalogueChassisId(tx, input.chassisId)
+      : proposeChassis(tx, clock, input.newChassis!, data);
+    const code = tx.select({ code: chassis.code }).from(chassis).where(eq(chassis.id, chassisId)).get()!.code;
+    const slug = uniqueSlug(tx, swaps, slugify(`${code} ${input.axle} ${data.title}`));
+    const swap = tx
+      .insert(swaps)
+      .values({
+        slug,
+        chassisId,
+        axle: input.axle!,
+        category: input.category!,
+        authorId: user.id,
+        createdAt: now,
+        updatedAt: now,
+      })
+      .returning({ id: swaps.id })
+      .get();
+    return tx
+      .insert(revisions)
+      .values({ swapId: swap.id, number: 1, authorId: user.id, status: 'draft', data, body, createdAt: now, updatedAt: now })
+      .returning({ id: revisions.id })
+      .get().id;
+  });
+  return viewOf(db, id, user);
+}
+
+export function getSubmission(db: Db, user: SessionUser, id: number): SubmissionView {
+  return submissionView(db, revisionFor(db, user, id), user);
+}
+
+/** PATCH /api/submissions/:id: autosave of the whole record while it is a draft or sent back. */
+export function updateSubmission(deps: SubmissionDeps, user: SessionUser, id: number, input: UpdateSubmission): SubmissionView {
+  const { db, clock } = deps;
+  const row = revisionFor(db, user, id);
+  assertEditable(user, row);
+  const { data, body } = cleanRecord(input.data, input.body);
+  checkPartIds(db, data);
+  const now = clock.now();
+  const { swap } = row;
+  const swapIsNew = swap.currentRevisionId === null && row.revision.number === 1;
+  if (!swapIsNew) refuseSwapLevelChanges(swap, input);
+  if (input.chassisId && input.newChassis) {
+    throw AppError.invalid('Pick a chassis or propose a new one, not both.', {
+      chassisId: 'Pick a chassis or propose a new one, not both.',
+    });
+  }
+
+  db.transaction((tx) => {
+    if (swapIsNew) {
+      let chassisId = swap.chassisId;
+      if (input.chassisId !== undefined && input.chassisId !== swap.chassisId)
+        chassisId = catalogueChassisId(tx, input.chassisId);
+      if (input.newChassis) {
+        const ownProposal =
+          row.chassis.proposed &&
+          !tx
+            .select({ id: swaps.id })
+            .from(swaps)
+            .where(and(eq(swaps.chassisId, swap.chassisId), ne(swaps.id, swap.id)))
+            .get();
+        if (ownProposal)
+          tx.update(chassis)
+            .set({ ...chassisValues(input.newChassis, data), updatedAt: now })
+            .where(eq(chassis.id, swap.chassisId))
+            .run();
+        else chassisId = proposeChassis(tx, clock, input.newChassis, data);
+      }
+      tx.update(swaps)
+        .set({ chassisId, axle: input.axle ?? swap.axle, category: input.category ?? swap.category, updatedAt: now })
+        .where(eq(swaps.id, swap.id))
+        .run();
+      if (chassisId !== swap.chassisId) dropUnusedProposedChassis(tx, swap.chassisId);
+    }
+    const changed = tx
+      .update(revisions)
+      .set({ data, body, updatedAt: now })
+      .where(and(eq(revisions.id, id), inArray(revisions.status, ['draft', 'sent_back'])))
+      .run().changes;
+    // the status moved between the check and the write (a submit from another tab)
+    if (!changed) throw AppError.conflict('This revision was just sent to review and is locked; your last change was not saved.');
+  });
+  return viewOf(db, id, user);
+}
+
+/** POST /api/submissions/:id/submit: a draft or sent-back revision goes to the review desk. */
+export async function submitForReview(deps: SubmissionDeps, user: SessionUser, id: number): Promise<SubmissionView> {
+  const { db, clock } = deps;
+  const row = revisionFor(db, user, id);
+  assertEditable(user, row);
+  const now = clock.now();
+  db.transaction((tx) => {
+    tx.update(revisions)
+      .set({ status: 'in_review', submittedAt: now, reviewNote: null, updatedAt: now })
+      .where(eq(revisions.id, id))
+      .run();
+    tx.insert(reviewEvents).values({ revisionId: id, actorId: user.id, action: 'submitted', note: '', at: now }).run();
+  });
+  await notify(
+    deps.mailer,
+    deps.logger,
+    row.author,
+    submissionReceived({
+      appUrl: deps.appUrl,
+      name: row.author.name || row.author.login,
+      title: row.revision.data.title,
+      revisionId: id,
+      number: row.revision.number,
+    }),
+  );
+  return viewOf(db, id, user);
+}
+
+/** DELETE /api/submissions/:id: only a draft that never went to review; a new swap's draft takes the swap with it. */
+export async function deleteSubmission(deps: SubmissionDeps, user: SessionUser, id: number) {
+  const { db, storage } = deps;
+  const row = revisionFor(db, user, id);
+  if (row.revision.authorId !== user.id) throw AppError.forbidden('Only the author can delete a draft.');
+  if (row.revision.status !== 'draft') {
+    throw AppError.conflict('Only a draft that was never sent to review can be deleted; this revision keeps its review history.');
+  }
+  const files = db.select({ fileId: revisionPhotos.fileId }).from(revisionPhotos).where(eq(revisionPhotos.revisionId, id)).all();
+  db.transaction((tx) => {
+    tx.delete(revisions).where(eq(revisions.id, id)).run();
+    const others = tx
+      .select({ n: sql<number>`count(*)` })
+      .from(revisions)
+      .where(eq(revisions.swapId, row.swap.id))
+      .get()!.n;
+    if (others === 0 && row.swap.currentRevisionId === null) {
+      tx.delete(swaps).where(eq(swaps.id, row.swap.id)).run();
+      dropUnusedProposedChassis(tx, row.swap.chassisId);
+    }
+  });
+  // files go after the rows, so no row ever points at a missing file
+  await removeFiles(
+    storage,
+    files.map((f) => f.fileId),
+  );
+}
+
+async function removeFiles(storage: Storage, fileIds: string[]) {
+  for (const id of fileIds) {
+    await storage.remove(id).catch(() => undefined);
+    await storage.remove(thumbId(id)).catch(() => undefined);
+  }
+}
+
+/** New files (full and thumbnail) with the same content as a revision's photos, and the rows to insert for them. */
+async function copyPhotos(deps: SubmissionDeps, revisionId: number) {
+  const { db, storage } = deps;
+  const rows = db
+    .select()
+    .from(revisionPhotos)
+    .where(eq(revisionPhotos.revisionId, revisionId))
+    .orderBy(revisionPhotos.position, revisionPhotos.id)
+    .all();
+  const copies: Omit<typeof revisionPhotos.$inferInsert, 'revisionId' | 'createdAt'>[] = [];
+  try {
+    for (const r of rows) {
+      const fileId = newFileId();
+      copies.push({
+        fileId,
+        caption: r.caption,
+        position: r.position,
+        width: r.width,
+        height: r.height,
+        bytes: r.bytes,
+        sha256: r.sha256,
+      });
+      await storage.put(fileId, await storage.read(r.fileId));
+      if (await storage.exists(thumbId(r.fileId))) await storage.put(thumbId(fileId), await storage.read(thumbId(r.fileId)));
+    }
+  } catch (err) {
+    await removeFiles(
+      storage,
+      copies.map((c) => c.fileId),
+    );
+    throw err;
+  }
+  return copies;
+}
+
+export function listMySubmissions(db: Db, userId: number): MySubmissionItem[] {
+  return db
+    .select({ revision: revisions, slug: swaps.slug })
+    .from(revisions)
+    .innerJoin(swaps, eq(swaps.id, revisions.swapId))
+    .where(eq(revisions.authorId, userId))
+    .orderBy(desc(revisions.updatedAt), desc(revisions.id))
+    .all()
+    .map(({ revision: r, slug }) => ({
+      id: r.id,
+      swapSlug: slug,
+      number: r.number,
+      title: r.data.title,
+      status: r.status,
+      reviewNote: r.reviewNote,
+      updatedAt: r.updatedAt.toISOString(),
+      submittedAt: r.submittedAt ? r.submittedAt.toISOString() : null,
+    }));
+}
