@@ -17,6 +17,7 @@ import { fakeAuthorizeRouter, startFakeProvider } from './auth/fake-provider';
 import { refuseCrossSite, requireCsrfToken } from './middleware/csrf';
 import { meRouter } from './features/me/me.router';
 import { adminRouter } from './features/admin/admin.router';
+import { searchIndexRouter } from './features/search-index/search-index.router';
 import { submissionsRouter } from './features/submissions/submissions.router';
 import { reviewRouter } from './features/review/review.router';
 import { outboxRouter } from './features/outbox/outbox.router';
@@ -74,6 +75,7 @@ export function createApp(deps: AppDeps) {
   // --- feature routers ---
   app.use('/api', meRouter(deps));
   app.use('/api', adminRouter({ db: deps.db, clock: deps.clock, endSessions: (userId) => sessionStore.destroyAllFor(userId) }));
+  app.use('/api', searchIndexRouter(deps));
   app.use('/api', submissionsRouter(deps));
   app.use('/api', reviewRouter(deps));
   app.use('/api', outboxRouter(deps));

@@ -1,0 +1,193 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { eq } from 'drizzle-orm';
+import { makeTestApp, type TestApp } from './support/test-app';
+import { chassis, revisions, swaps, users } from '../../server/db/schema/index';
+import { swapDataSchema, type SwapDataInput } from '../../shared/schemas/swap-data';
+import type { RevisionStatus } from '../../shared/schemas/enums';
+import type { SearchIndexResponse } from '../../shared/search/search-document';
+
+let t: TestApp;
+let authorId: number;
+let chassisId: number;
+const at = new Date('2024-03-01T10:00:00Z');
+
+function swapData(title: string, extra: Partial<SwapDataInput> = {}) {
+  return swapDataSchema.parse({
+    title,
+    parts: [
+      {
+        role: 'Front caliper',
+        kind: 'caliper',
+        name: 'Vela four-piston fixed caliper',
+        maker: 'Orsino',
+        partNumbers: ['OV-355-104-L', 'OV-355-104-R'],
+        cameOn: ['Orsino Vela 2.0 (1996–2001)'],
+        quantity: 2,
+      },
+    ],
+    adapter: { name: 'H31 caliper bracket', maker: 'Northgate Fabrication', partNumber: 'NF-H31-VB' },
+    machining: [{ operation: 'grind', where: 'Knuckle casting edge', required: true }],
+    wheel: { minDiameterIn: 16, caliperRadialProjectionMm: 12, caliperOutboardMm: 30 },
+    costs: [
+      { route: 'as_built', item: 'Used calipers', amountMinor: 32000 },
+      { route: 'as_built', item: 'Brackets', amountMinor: 14000 },
+      { route: 'new_kit', item: 'Complete kit', amountMinor: 98000 },
+    ],
+    parkingBrakeKept: null,
+    ...extra,
+  });
+}
+
+/** A swap with one revision per given status; the swap's current revision is the approved one, if any. */
+function addSwap(slug: string, statuses: RevisionStatus[], titles: string[] = statuses.map((s, i) => `${slug} ${s} revision ${i + 1}`)) {
+  const swap = t.db
+    .insert(swaps)
+    .values({ slug, chassisId, axle: 'front', category: 'brakes', authorId, createdAt: at, updatedAt: at })
+    .returning()
+    .get();
+  const ids = statuses.map((status, i) => {
+    const reviewed = status === 'approved' || status === 'superseded' || status === 'declined' || status === 'sent_back';
+    return t.db
+      .insert(revisions)
+      .values({
+        swapId: swap.id,
+        number: i + 1,
+        authorId,
+        status,
+        data: swapData(titles[i]),
+        submittedAt: status === 'draft' ? null : at,
+        reviewedAt: reviewed ? at : null,
+        createdAt: at,
+        updatedAt: at,
+      })
+      .returning({ id: revisions.id })
+      .get().id;
+  });
+  const approved = statuses.indexOf('approved');
+  if (approved >= 0) t.db.update(swaps).set({ currentRevisionId: ids[approved] }).where(eq(swaps.id, swap.id)).run();
+  return { swapId: swap.id, revisionIds: ids };
+}
+
+beforeAll(async () => {
+  t = await makeTestApp();
+  authorId = t.db
+    .insert(users)
+    .values({ provider: 'github', providerId: '101', login: 'rivet_rosa', name: 'Rosa', createdAt: at, updatedAt: at })
+    .returning()
+    .get().id;
+  chassisId = t.db
+    .insert(chassis)
+    .values({
+      slug: 'halden-h31',
+      make: 'Halden',
+      model: 'H31',
+      code: 'H31',
+      yearFrom: 1991,
+      yearTo: 1999,
+      lugCount: 5,
+      pcdMm: 112,
+      centreBoreMm: 66.6,
+      wheelBoltThread: 'M12×1.5',
+      stockWheel: { diameterIn: 15, widthIn: 6, offsetMm: 38, tyre: '195/60R15' },
+      stockBrakes: {
+        front: { kind: 'disc', pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50, description: 'Single piston' },
+        rear: { kind: 'disc', pistonsPerSideMm: [36], rotorDiameterMm: 260, padHeightMm: 40, description: 'Single piston' },
+      },
+      createdAt: at,
+      updatedAt: at,
+    })
+    .returning()
+    .get().id;
+});
+afterAll(() => t.close());
+
+const getIndex = (etag?: string) => {
+  const r = request(t.app).get('/api/search-index').set('accept-encoding', 'gzip');
+  return etag ? r.set('if-none-match', etag) : r;
+};
+
+describe('GET /api/search-index', () => {
+  it('when swaps sit in every status, then only approved current revisions are in the index', async () => {
+    addSwap('approved-one', ['approved']);
+    addSwap('only-draft', ['draft']);
+    addSwap('only-in-review', ['in_review']);
+    addSwap('only-sent-back', ['sent_back']);
+    addSwap('only-declined', ['declined']);
+    addSwap('approved-with-pending-edit', ['approved', 'in_review'], ['Approved text of the sheet', 'Pending edit of the sheet']);
+    addSwap('superseded-then-approved', ['superseded', 'approved'], ['Old approved text', 'New approved text']);
+
+    const res = await getIndex();
+    expect(res.status).toBe(200);
+    const body = res.body as SearchIndexResponse;
+    expect(body.documents.map((d) => d.slug).sort()).toEqual(['approved-one', 'approved-with-pending-edit', 'superseded-then-approved']);
+    const titles = Object.fromEntries(body.documents.map((d) => [d.slug, d.title]));
+    expect(titles['approved-with-pending-edit']).toBe('Approved text of the sheet');
+    expect(titles['superseded-then-approved']).toBe('New approved text');
+
+    const doc = body.documents.find((d) => d.slug === 'approved-one')!;
+    expect(doc.chassis).toEqual({ slug: 'halden-h31', make: 'Halden', model: 'H31', code: 'H31', yearFrom: 1991, yearTo: 1999 });
+    expect(doc.partNumbers).toEqual(['OV-355-104-L', 'OV-355-104-R']);
+    expect(doc.cameOn).toEqual(['Orsino Vela 2.0 (1996–2001)']);
+    expect(doc.adapter).toEqual({ name: 'H31 caliper bracket', maker: 'Northgate Fabrication', partNumber: 'NF-H31-VB' });
+    expect(doc.machining).toBe('minor');
+    expect(doc.minWheelIn).toBe(16);
+    // as built 320 + 140 = 460, new kit 980
+    expect(doc.cost).toEqual({ min: 46000, max: 98000, currency: 'EUR' });
+  });
+
+  it('when the client sends back the ETag it holds, then the answer is 304 with no body', async () => {
+    const first = await getIndex();
+    expect(first.headers.etag).toMatch(/^"[A-Za-z0-9_-]+"$/);
+    expect(first.headers['cache-control']).toBe('no-cache');
+    const again = await getIndex(first.headers.etag);
+    expect(again.status).toBe(304);
+    expect(again.text).toBe('');
+    const stale = await getIndex('"something-else"');
+    expect(stale.status).toBe(200);
+  });
+
+  it('when the index is large enough, then it travels compressed', async () => {
+    for (let i = 0; i < 6; i++) addSwap(`bulk-${i}`, ['approved']);
+    const res = await getIndex();
+    expect(res.status).toBe(200);
+    expect(res.headers['content-encoding']).toBe('gzip');
+    expect((res.body as SearchIndexResponse).documents.length).toBe(9);
+  });
+
+  it('when a swap gets a newly approved revision, then the index and its ETag change', async () => {
+    const { swapId, revisionIds } = addSwap('about-to-change', ['approved', 'in_review'], ['Before the correction', 'After the correction']);
+    const before = await getIndex();
+    expect((before.body as SearchIndexResponse).documents.find((d) => d.slug === 'about-to-change')?.title).toBe('Before the correction');
+
+    const later = new Date(at.getTime() + 60_000);
+    t.db.update(revisions).set({ status: 'superseded', updatedAt: later }).where(eq(revisions.id, revisionIds[0])).run();
+    t.db.update(revisions).set({ status: 'approved', reviewedAt: later, updatedAt: later }).where(eq(revisions.id, revisionIds[1])).run();
+    t.db.update(swaps).set({ currentRevisionId: revisionIds[1], updatedAt: later }).where(eq(swaps.id, swapId)).run();
+
+    const after = await getIndex(before.headers.etag);
+    expect(after.status).toBe(200);
+    expect(after.headers.etag).not.toBe(before.headers.etag);
+    const doc = (after.body as SearchIndexResponse).documents.find((d) => d.slug === 'about-to-change')!;
+    expect(doc.title).toBe('After the correction');
+    expect(doc.updatedAt).toBe(later.toISOString());
+  });
+
+  it('when only a fitted-report count changes, then the index changes too', async () => {
+    const before = await getIndex();
+    const target = (before.body as SearchIndexResponse).documents.find((d) => d.slug === 'approved-one')!;
+    t.db.update(swaps).set({ fittedCount: target.fittedCount + 1 }).where(eq(swaps.id, target.id)).run();
+    const after = await getIndex(before.headers.etag);
+    expect(after.status).toBe(200);
+    expect((after.body as SearchIndexResponse).documents.find((d) => d.id === target.id)!.fittedCount).toBe(target.fittedCount + 1);
+  });
+
+  it('when an approved swap is taken back to no current revision, then it leaves the index', async () => {
+    const before = await getIndex();
+    const target = (before.body as SearchIndexResponse).documents.find((d) => d.slug === 'bulk-0')!;
+    t.db.update(swaps).set({ currentRevisionId: null }).where(eq(swaps.id, target.id)).run();
+    const after = await getIndex(before.headers.etag);
+    expect(after.status).toBe(200);
+    expect((after.body as SearchIndexResponse).documents.some((d) => d.slug === 'bulk-0')).toBe(false);
+  });
+});
