@@ -1,0 +1,176 @@
+import { useId, useMemo, useRef, useState, type KeyboardEvent } from 'react';
+import type { ChassisView } from '@shared/schemas/views';
+import { inputClass } from './ui/field';
+
+export type ChassisOption = Pick<ChassisView, 'slug' | 'make' | 'model' | 'code' | 'yearFrom' | 'yearTo'>;
+
+const years = (c: ChassisOption) => `${c.yearFrom}–${c.yearTo ?? 'on'}`;
+export const chassisOptionLabel = (c: ChassisOption) => `${c.make} ${c.model} · ${c.code} · ${years(c)}`;
+
+/** Every typed word must appear in make, model or code; a four-digit year must fall inside the build years. */
+export function matchesChassis(c: ChassisOption, text: string) {
+  const hay = `${c.make} ${c.model} ${c.code}`.toLowerCase();
+  return text
+    .toLowerCase()
+    .split(/\s+/)
+    .filter(Boolean)
+    .every((w) => {
+      if (/^\d{4}$/.test(w)) {
+        const y = Number(w);
+        return y >= c.yearFrom && y <= (c.yearTo ?? 9999);
+      }
+      return hay.includes(w) || years(c).includes(w);
+    });
+}
+
+type Props = {
+  options: ChassisOption[];
+  value: string | null;
+  onChange: (slug: string | null) => void;
+  label?: string;
+  hint?: string;
+  placeholder?: string;
+  id?: string;
+};
+
+/** One text box over make, model, chassis code and years (ARIA combobox with a list box). */
+export function ChassisCombobox({ options, value, onChange, label = 'Chassis', hint, placeholder = 'Make, model, code or year', id }: Props) {
+  const autoId = useId();
+  const inputId = id ?? `${autoId}-input`;
+  const listId = `${autoId}-list`;
+  const hintId = hint ? `${autoId}-hint` : undefined;
+  const selected = options.find((o) => o.slug === value) ?? null;
+  const [text, setText] = useState<string | null>(null);
+  const [open, setOpen] = useState(false);
+  const [active, setActive] = useState(0);
+  const inputRef = useRef<HTMLInputElement>(null);
+
+  const shown = text ?? (selected ? chassisOptionLabel(selected) : '');
+  const matches = useMemo(() => (text ? options.filter((o) => matchesChassis(o, text)) : options).slice(0, 50), [options, text]);
+
+  const choose = (o: ChassisOption | null) => {
+    onChange(o?.slug ?? null);
+    setText(null);
+    setOpen(false);
+  };
+
+  const onKeyDown = (e: KeyboardEvent<HTMLInputElement>) => {
+    if (e.key === 'ArrowDown') {
+      e.preventDefault();
+      if (!open) setOpen(true);
+      else setActive((a) => Math.min(a + 1, matches.length - 1));
+    } else if (e.key === 'ArrowUp') {
+      e.preventDefault();
+      setActive((a) => Math.max(a - 1, 0));
+    } else if (e.key === 'Home' && open) {
+      e.preventDefault();
+      setActive(0);
+    } else if (e.key === 'End' && open) {
+      e.preventDefault();
+      setActive(matches.length - 1);
+    } else if (e.key === 'Enter' && open) {
+      e.preventDefault();
+      if (matches[active]) choose(matches[active]);
+    } else if (e.key === 'Escape') {
+      if (open) {
+        e.preventDefault();
+        setOpen(false);
+        setText(null);
+      } else if (value) {
+        e.preventDefault();
+        choose(null);
+      }
+    }
+  };
+
+  const activeId = open && matches[active] ? `${listId}-${matches[active].slug}` : undefined;
+
+  return (
+    <div className="relative flex flex-col gap-1">
+      <label htmlFor={inputId} className="text-sm font-bold text-graphite">
+        {label}
+      </label>
+      <div className="relative">
+        <input
+          ref={inputRef}
+          id={inputId}
+          type="text"
+          role="combobox"
+          aria-expanded={open}
+          aria-controls={listId}
+          aria-autocomplete="list"
+          aria-activedescendant={activeId}
+          aria-describedby={hintId}
+          autoComplete="off"
+          spellCheck={false}
+          placeholder={placeholder}
+          className={`${inputClass} pr-9`}
+          value={shown}
+          onChange={(e) => {
+            setText(e.target.value);
+            setActive(0);
+            setOpen(true);
+          }}
+          onFocus={(e) => e.target.select()}
+          onClick={() => setOpen(true)}
+          onBlur={() => {
+            setOpen(false);
+            setText(null);
+          }}
+          onKeyDown={onKeyDown}
+        />
+        {value && (
+          <button
+            type="button"
+            aria-label={`Clear ${label.toLowerCase()}`}
+            className="absolute inset-y-0 right-0 flex w-9 items-center justify-center text-lg text-graphite-soft hover:text-oxide"
+            onClick={() => {
+              choose(null);
+              inputRef.current?.focus();
+            }}
+          >
+            ×
+          </button>
+        )}
+      </div>
+      {hint && (
+        <p id={hintId} className="text-xs text-graphite-soft">
+          {hint}
+        </p>
+      )}
+      <ul
+        id={listId}
+        role="listbox"
+        aria-label={label}
+        hidden={!open}
+        className="absolute top-full z-20 mt-1 max-h-72 w-full overflow-auto rounded-md border border-ink/15 bg-paper-card py-1 shadow-lg"
+      >
+        {matches.length === 0 ? (
+          <li className="px-3 py-2 text-sm text-graphite-soft" role="presentation">
+            No chassis matches “{text}”.
+          </li>
+        ) : (
+          matches.map((o, i) => (
+            <li
+              key={o.slug}
+              id={`${listId}-${o.slug}`}
+              role="option"
+              aria-selected={o.slug === value}
+              className={`cursor-pointer px-3 py-2 text-sm ${i === active ? 'bg-ink-faint text-ink' : 'text-graphite'}`}
+              onMouseDown={(e) => e.preventDefault()}
+              onMouseEnter={() => setActive(i)}
+              onClick={() => choose(o)}
+            >
+              <span className="font-bold">
+                {o.make} {o.model}
+              </span>{' '}
+              <span className="tabular text-graphite-soft">
+                {o.code} · {years(o)}
+              </span>
+            </li>
+          ))
+        )}
+      </ul>
+    </div>
+  );
+}

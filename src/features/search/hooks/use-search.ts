@@ -1,0 +1,21 @@
+import { keepPreviousData, useQuery } from '@tanstack/react-query';
+import type { SearchRequest } from '@shared/search/search-engine';
+import { searchIndexQueryOptions, searchKeys } from '../api/get-search-index';
+import { searchClient } from '../worker/search-client';
+
+export const useSearchIndex = () => useQuery(searchIndexQueryOptions(searchClient));
+
+/** Answers from the worker for one search state; the previous answer stays up while the next is computed. */
+export function useSearch(request: SearchRequest) {
+  const index = useSearchIndex();
+  const version = index.data?.version ?? 0;
+  const results = useQuery({
+    queryKey: searchKeys.query(version, request),
+    queryFn: () => searchClient.query(request),
+    enabled: version > 0,
+    placeholderData: keepPreviousData,
+    staleTime: Infinity,
+    gcTime: 60_000,
+  });
+  return { index, results };
+}
