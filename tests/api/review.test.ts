@@ -2,8 +2,11 @@ import type { Server } from 'node:http';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import sharp from 'sharp';
+import pino from 'pino';
+import { Writable } from 'node:stream';
 import { and, desc, eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
+import { createApp } from '../../server/app';
 import { addUser, csrfToken, listen, signIn, type Agent } from './support/auth-helpers';
 import { addChassis, swapRecord } from './support/swap-fixtures';
 import { chassis, flags, mailOutbox, parts, reviewEvents, revisions, swaps } from '../../server/db/schema/index';
@@ -516,5 +519,48 @@ describe('GET /api/outbox', () => {
     expect((await ada.agent.get('/api/outbox')).status).toBe(200);
     expect((await kai.agent.get('/api/outbox')).status).toBe(403);
     expect((await request(server).get('/api/outbox')).status).toBe(401);
+  });
+});
+
+describe('decision logs', () => {
+  it('every decision is logged with who, what and which revision, and without the member-facing note', async () => {
+    const lines: Record<string, unknown>[] = [];
+    const sink = new Writable({
+      write(chunk, _enc, done) {
+        for (const line of String(chunk).split('\n').filter(Boolean)) lines.push(JSON.parse(line));
+        done();
+      },
+    });
+    // a second app on the same database, whose logger the test can read
+    const logged = createApp({
+      db: t.db,
+      mailer: t.mailer,
+      storage: t.storage,
+      clock: { now: () => new Date() },
+      config: t.config,
+      logger: pino({ level: 'info' }, sink),
+    });
+    const l = listen(logged);
+    try {
+      const sub = await submitted(rosa, swapRecord({ title: 'A record whose decision is logged' }));
+      const a = l.agent();
+      await signIn(a, 'gauge_mo');
+      const token = await csrfToken(a);
+      expect(
+        (
+          await a
+            .post(`/api/review/${sub.id}/send-back`)
+            .set('x-csrf-token', token)
+            .send({ note: 'Secret reason text\n{"event":"forged"}' })
+        ).status,
+      ).toBe(200);
+      const decision = lines.find((x) => x.event === 'review_decision');
+      expect(decision).toMatchObject({ revisionId: sub.id, action: 'sent_back', actorId: mo.id });
+      expect(decision!.time).toBeDefined();
+      expect(JSON.stringify(lines)).not.toContain('Secret reason text');
+      expect(lines.some((x) => x.event === 'forged')).toBe(false);
+    } finally {
+      l.server.close();
+    }
   });
 });

@@ -4,11 +4,19 @@ import { useChassisPage } from '../api/get-catalogue';
 import { Page } from '../../../components/ui/page';
 import { Loading, ErrorNotice } from '../../../components/ui/query-state';
 import { SwapCard, chassisLabel } from '../../../components/swap-card';
+import type { SwapCard as SwapCardData } from '@shared/schemas/views';
 import { useUnits } from '../../../lib/units';
 import { paths } from '../../../config/paths';
 import { ButtonLink } from '../../../components/ui/button';
 
-export default function ChassisPage() {
+type ChassisPageProps = {
+  /** shown above the swap list (e.g. which of the member's cars the swaps were checked against) */
+  intro?: (chassisSlug: string) => React.ReactNode;
+  /** shown under a swap's card (e.g. that check's verdict) */
+  cardNote?: (swap: SwapCardData) => React.ReactNode;
+};
+
+export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) {
   const { slug = '' } = useParams();
   const query = useChassisPage(slug);
   const { length } = useUnits();
@@ -29,6 +37,7 @@ export default function ChassisPage() {
         />
       </section>
       <div className="mt-10 space-y-10">
+        {intro?.(c.slug)}
         {swaps.length === 0 && <p className="text-graphite-soft">No approved swaps for this chassis yet.</p>}
         {axles.map((axle) => {
           const forAxle = swaps.filter((s) => s.axle === axle);
@@ -44,7 +53,7 @@ export default function ChassisPage() {
                     <h3 className="mb-2 text-sm font-bold uppercase tracking-wide text-graphite-soft">{categoryLabels[cat]}</h3>
                     <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
                       {group.map((s) => (
-                        <li key={s.slug} className="flex"><SwapCard swap={s} /></li>
+                        <li key={s.slug} className={cardNote ? 'flex flex-col' : 'flex'}><SwapCard swap={s} />{cardNote?.(s)}</li>
                       ))}
                     </ul>
                   </div>

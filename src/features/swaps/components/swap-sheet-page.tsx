@@ -17,7 +17,7 @@ import { SheetSection } from './sheet-section';
 import { PartsSection, AdapterSection, ShimsSpacersSection, RotorsSection, MachiningSection, TorqueSection } from './sheet-parts';
 import { CostRoutesSection } from './cost-routes';
 import { BrakeBalanceSection } from './brake-balance';
-import { WheelCheckPanel } from './wheel-check-panel';
+import { WheelCheckPanel, type WheelPreset } from './wheel-check-panel';
 import { RevisionHistory } from './revision-history';
 
 const date = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—');
@@ -31,7 +31,16 @@ export default function SwapSheetPage() {
   return <SwapSheet view={query.data} />;
 }
 
-export function SwapSheet({ view, banner }: { view: SwapSheetView; banner?: React.ReactNode }) {
+type SwapSheetProps = {
+  view: SwapSheetView;
+  banner?: React.ReactNode;
+  /** "Fill from" buttons of the wheel check (a member's saved cars) */
+  presets?: WheelPreset[];
+  /** sections the app adds from other features (fitted reports, shop link panel), shown before the revision history */
+  extraSections?: React.ReactNode;
+};
+
+export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetProps) {
   const { swap, chassis, revision, history, currentNumber } = view;
   const { data } = revision;
   const { length } = useUnits();
@@ -131,7 +140,7 @@ export function SwapSheet({ view, banner }: { view: SwapSheetView; banner?: Reac
           </SheetSection>
         )}
         <div className="print:hidden">
-          <WheelCheckPanel data={data} axle={swap.axle} wheelBoltThread={chassis.wheelBoltThread} />
+          <WheelCheckPanel data={data} axle={swap.axle} wheelBoltThread={chassis.wheelBoltThread} presets={presets} />
         </div>
         <BrakeBalanceSection data={data} />
         <CostRoutesSection data={data} />
@@ -160,6 +169,7 @@ export function SwapSheet({ view, banner }: { view: SwapSheetView; banner?: Reac
             </SheetSection>
           </div>
         )}
+        {extraSections}
         <div className="print:hidden">
           <RevisionHistory slug={swap.slug} history={history} shown={revision.number} />
         </div>

@@ -1,0 +1,61 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useParams, useSearchParams } from 'react-router';
+import { can } from '@shared/roles';
+import { SwapSheet } from '../../features/swaps/components/swap-sheet-page';
+import { useSwap } from '../../features/swaps/api/get-swap';
+import { swapKeys } from '../../features/swaps/api/swap-keys';
+import { useMe } from '../../features/account/api/get-me';
+import { useCarWheelPresets } from '../../features/cars/components/car-checks';
+import { FittedReportsSection } from '../../features/fitted-reports/components/fitted-reports-section';
+import { MakeShopLinkPanel } from '../../features/shops/components/make-shop-link-panel';
+import { RetiredLinkBanner, ShopLinkBanner } from '../../features/shops/components/shop-link-banner';
+import { usePinnedSheet } from '../../features/shops/api/shop-links';
+import { Page } from '../../components/ui/page';
+import { ErrorNotice, Loading } from '../../components/ui/query-state';
+import { ApiError } from '../../lib/api-client';
+
+/**
+ * The swap sheet as the app composes it: the swaps feature's sheet, with the member's cars as wheel-check
+ * presets, fitted reports, the shop-link panel for shop accounts, and, when opened through a shop link
+ * (`?via=<code>`), the shop's banner and note over the revision it quoted.
+ */
+export default function SwapSheetRoute() {
+  const { slug = '', n } = useParams();
+  const [search] = useSearchParams();
+  const via = search.get('via');
+  const number = n === undefined ? undefined : Number(n);
+  const sheet = useSwap(slug, Number.isInteger(number) ? number : undefined);
+  const pinned = usePinnedSheet(via);
+  const me = useMe();
+  const user = me.data?.user ?? null;
+  const qc = useQueryClient();
+  const presets = useCarWheelPresets(sheet.data?.chassis.slug ?? '', Boolean(user));
+
+  if (sheet.isPending || (via && pinned.isPending)) return <Page title="Swap"><Loading label="Loading the swap sheet…" /></Page>;
+  if (sheet.isError) return <Page title="Swap not found"><ErrorNotice error={sheet.error} /></Page>;
+
+  const view = sheet.data;
+  const pinnedView = pinned.data && pinned.data.sheet.swap.slug === view.swap.slug ? pinned.data : null;
+  const banner = pinnedView ? (
+    <ShopLinkBanner pinned={pinnedView} />
+  ) : via && pinned.error instanceof ApiError && pinned.error.code === 'link_retired' ? (
+    <RetiredLinkBanner message={pinned.error.message} />
+  ) : null;
+
+  const refreshSheet = () => void qc.invalidateQueries({ queryKey: swapKeys.detail(view.swap.slug) });
+  const shopName = user?.shop && can(user.role, 'manage_shop_links') ? user.shop.name : null;
+
+  return (
+    <SwapSheet
+      view={view}
+      banner={banner}
+      presets={presets}
+      extraSections={
+        <>
+          <FittedReportsSection slug={view.swap.slug} revisions={view.history} shownNumber={view.revision.number} onChanged={refreshSheet} />
+          {shopName && <MakeShopLinkPanel swapSlug={view.swap.slug} shownNumber={view.revision.number} currentNumber={view.currentNumber} shopName={shopName} />}
+        </>
+      }
+    />
+  );
+}

@@ -1,0 +1,28 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { CarList, CarView } from '@shared/schemas/cars';
+import type { ChassisView } from '@shared/schemas/views';
+import { api } from '../../../lib/api-client';
+import { carKeys } from './car-keys';
+
+export const myCarsQueryOptions = () =>
+  queryOptions({
+    queryKey: carKeys.mine(),
+    queryFn: () => api<CarList>('/api/cars').then((r) => r.items),
+  });
+
+/** The member's cars; pass `enabled: false` for a signed-out reader (the API would answer 401). */
+export const useMyCars = (enabled = true) => useQuery({ ...myCarsQueryOptions(), enabled });
+
+export const chassisOptionsQueryOptions = () =>
+  queryOptions({
+    queryKey: carKeys.chassisOptions(),
+    queryFn: () => api<{ items: ChassisView[] }>('/api/chassis').then((r) => r.items),
+    staleTime: 10 * 60_000,
+  });
+
+export const useChassisOptions = () => useQuery(chassisOptionsQueryOptions());
+
+/** Cars on one chassis, for "fill from my car" buttons and chassis-page marks. */
+export function carsOnChassis(cars: CarView[] | undefined, chassisSlug: string) {
+  return (cars ?? []).filter((c) => c.chassis.slug === chassisSlug);
+}

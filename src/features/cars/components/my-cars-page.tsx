@@ -1,0 +1,118 @@
+import { useState } from 'react';
+import { Link } from 'react-router';
+import type { CarView } from '@shared/schemas/cars';
+import { Page } from '../../../components/ui/page';
+import { Loading, ErrorNotice } from '../../../components/ui/query-state';
+import { Button } from '../../../components/ui/button';
+import { Caution } from '../../../components/caution';
+import { paths } from '../../../config/paths';
+import { useUnits } from '../../../lib/units';
+import { useMyCars } from '../api/get-cars';
+import { useCreateCar, useDeleteCar, useUpdateCar } from '../api/save-car';
+import { CarForm } from './car-form';
+
+export const wheelLabel = (w: { wheelDiameterIn: number; wheelWidthIn: number; wheelOffsetMm: number }) => `${w.wheelDiameterIn}×${w.wheelWidthIn} ET${w.wheelOffsetMm}`;
+
+export default function MyCarsPage() {
+  const cars = useMyCars();
+  const create = useCreateCar();
+  return (
+    <Page
+      title="My cars"
+      heading="My cars"
+      lead="Keep each car’s chassis, wheel and tyre here. Swap sheets can then fill ‘Check my wheel’ from a car in one click, and chassis pages mark which swaps clear your wheel."
+    >
+      <div className="grid gap-8">
+        {cars.isPending ? (
+          <Loading label="Loading your cars…" />
+        ) : cars.isError ? (
+          <ErrorNotice error={cars.error} />
+        ) : cars.data.length === 0 ? (
+          <p className="rounded-lg border border-dashed border-ink/25 bg-paper-card p-6 text-graphite">No cars yet. Add the first one below.</p>
+        ) : (
+          <ul className="grid gap-4 md:grid-cols-2" aria-label="Your cars">
+            {cars.data.map((car) => (
+              <li key={car.id}>
+                <CarCard car={car} />
+              </li>
+            ))}
+          </ul>
+        )}
+        <section aria-labelledby="add-car-h" className="rounded-xl border border-ink/15 bg-paper-card p-4 sm:p-6">
+          <h2 id="add-car-h" className="mb-4 text-lg font-extrabold text-ink">
+            Add a car
+          </h2>
+          <CarForm saving={create.isPending} onSave={(input) => create.mutateAsync(input)} />
+        </section>
+        <Caution topics={['wheels', 'fasteners']} />
+      </div>
+    </Page>
+  );
+}
+
+function CarCard({ car }: { car: CarView }) {
+  const units = useUnits();
+  const [editing, setEditing] = useState(false);
+  const [confirming, setConfirming] = useState(false);
+  const update = useUpdateCar();
+  const remove = useDeleteCar();
+  if (editing) {
+    return (
+      <div className="rounded-xl border border-ink/30 bg-paper-card p-4">
+        <CarForm car={car} saving={update.isPending} onSave={(input) => update.mutateAsync({ id: car.id, input }).then(() => setEditing(false))} onCancel={() => setEditing(false)} />
+      </div>
+    );
+  }
+  return (
+    <article className="flex h-full flex-col rounded-xl border border-ink/10 bg-paper-card p-4 shadow-sm">
+      <h3 className="text-lg font-extrabold text-ink">{car.nickname}</h3>
+      <p className="text-sm text-graphite-soft">
+        <Link to={paths.chassis(car.chassis.slug)} className="font-bold text-ink underline decoration-brass underline-offset-2">
+          {car.chassis.make} {car.chassis.model} · {car.chassis.code}
+        </Link>{' '}
+        ({car.chassis.yearFrom}–{car.chassis.yearTo ?? 'on'})
+      </p>
+      <dl className="tabular mt-3 grid grid-cols-3 gap-2 text-sm">
+        <div className="rounded-md bg-paper px-2 py-1">
+          <dt className="text-xs text-graphite-soft">Wheel</dt>
+          <dd className="font-extrabold">{wheelLabel(car)}</dd>
+        </div>
+        <div className="rounded-md bg-paper px-2 py-1">
+          <dt className="text-xs text-graphite-soft">Tyre</dt>
+          <dd className="font-extrabold">{car.tyre || '—'}</dd>
+        </div>
+        <div className="rounded-md bg-paper px-2 py-1">
+          <dt className="text-xs text-graphite-soft">Spacer</dt>
+          <dd className="font-extrabold">{car.spacerMm > 0 ? units.length(car.spacerMm) : 'None'}</dd>
+        </div>
+      </dl>
+      <div className="mt-auto flex flex-wrap items-center gap-2 pt-4">
+        <Button variant="secondary" onClick={() => setEditing(true)}>
+          Edit
+        </Button>
+        {confirming ? (
+          <>
+            <Button variant="danger" disabled={remove.isPending} onClick={() => remove.mutate(car.id)}>
+              {remove.isPending ? 'Removing…' : `Remove ${car.nickname}`}
+            </Button>
+            <Button variant="quiet" onClick={() => setConfirming(false)}>
+              Keep it
+            </Button>
+          </>
+        ) : (
+          <Button variant="quiet" onClick={() => setConfirming(true)}>
+            Remove
+          </Button>
+        )}
+        <Link to={paths.search(`chassis=${car.chassis.slug}&wheel=${car.wheelDiameterIn}`)} className="ml-auto text-sm font-bold text-ink underline">
+          Swaps for this car
+        </Link>
+      </div>
+      {remove.error && (
+        <p role="alert" className="mt-2 text-sm font-semibold text-oxide">
+          {remove.error.message}
+        </p>
+      )}
+    </article>
+  );
+}

@@ -1,0 +1,66 @@
+import { Link } from 'react-router';
+import type { PinnedSheetView } from '@shared/schemas/shops';
+import { Markdown } from '../../../components/markdown';
+import { paths } from '../../../config/paths';
+import { qrUrl } from '../api/shop-links';
+
+const date = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—');
+
+/** Above a sheet opened through a shop link: who sent it, their note, and whether the record moved on since. */
+export function ShopLinkBanner({ pinned }: { pinned: PinnedSheetView }) {
+  const { shop, link, sheet, newerRevision } = pinned;
+  return (
+    <aside aria-label={`Note from ${shop.name}`} className="print-break-avoid mb-6 rounded-xl border-2 border-brass bg-paper-card p-4 shadow-sm sm:p-5">
+      <div className="flex flex-wrap items-start justify-between gap-4">
+        <div className="min-w-0 flex-1">
+          <p className="text-xs font-bold uppercase tracking-wide text-brass-deep">Shared by a shop</p>
+          <p className="mt-0.5 text-lg font-extrabold text-ink">
+            <Link to={paths.shop(shop.slug)} className="underline decoration-brass underline-offset-2">
+              {shop.name}
+            </Link>
+            {shop.town && <span className="font-semibold text-graphite-soft"> · {shop.town}</span>}
+          </p>
+          {link.note && (
+            <div className="mt-2 border-l-4 border-brass-soft pl-3">
+              <Markdown>{link.note}</Markdown>
+            </div>
+          )}
+          <p className="mt-3 text-sm text-graphite">
+            This is the revision {shop.name} quoted: <strong>revision {sheet.revision.number}</strong>, approved {date(sheet.revision.approvedAt)}.
+          </p>
+        </div>
+        {/* the printed sheet carries the link back to this page */}
+        <figure className="hidden shrink-0 text-center print:block">
+          <img src={qrUrl(link.code, 'svg')} alt="" className="h-28 w-28" />
+          <figcaption className="tabular mt-1 text-[10px] text-graphite-soft">{link.url}</figcaption>
+        </figure>
+      </div>
+      {newerRevision && (
+        <div role="status" className="mt-3 rounded-lg border border-brass bg-brass-soft/50 p-3 text-sm">
+          <p className="font-bold text-brass-deep">A newer revision of this swap exists (revision {newerRevision.number}).</p>
+          <p className="mt-0.5">What changed since the shop’s quote: {newerRevision.summary.replace(/^Changed: /, '')}</p>
+          <p className="no-print mt-1">
+            <Link to={paths.swapCompare(sheet.swap.slug, sheet.revision.number, newerRevision.number)} className="font-bold text-ink underline">
+              Compare the two revisions
+            </Link>{' '}
+            ·{' '}
+            <Link to={paths.swap(sheet.swap.slug)} className="font-bold text-ink underline">
+              Read revision {newerRevision.number}
+            </Link>{' '}
+            · ask {shop.name} whether their quote still stands.
+          </p>
+        </div>
+      )}
+    </aside>
+  );
+}
+
+/** The reader followed a link the shop has since retired; the sheet still shows, without the shop's note. */
+export function RetiredLinkBanner({ message }: { message: string }) {
+  return (
+    <aside role="status" className="mb-6 rounded-xl border border-graphite/20 bg-paper-card p-4 text-sm text-graphite">
+      <p className="font-bold text-ink">This shop link has been retired</p>
+      <p className="mt-1">{message} You are reading the revision it pointed to; check the revision history for the current one.</p>
+    </aside>
+  );
+}
