@@ -17,6 +17,9 @@ import { fakeAuthorizeRouter, startFakeProvider } from './auth/fake-provider';
 import { refuseCrossSite, requireCsrfToken } from './middleware/csrf';
 import { meRouter } from './features/me/me.router';
 import { adminRouter } from './features/admin/admin.router';
+import { swapsRouter } from './features/swaps/swaps.router';
+import { catalogueRouter } from './features/catalogue/catalogue.router';
+import { mediaRouter } from './features/photos/media.router';
 import { searchIndexRouter } from './features/search-index/search-index.router';
 import { submissionsRouter } from './features/submissions/submissions.router';
 import { reviewRouter } from './features/review/review.router';
@@ -75,6 +78,8 @@ export function createApp(deps: AppDeps) {
   // --- feature routers ---
   app.use('/api', meRouter(deps));
   app.use('/api', adminRouter({ db: deps.db, clock: deps.clock, endSessions: (userId) => sessionStore.destroyAllFor(userId) }));
+  app.use('/api', swapsRouter(deps));
+  app.use('/api', catalogueRouter(deps));
   app.use('/api', searchIndexRouter(deps));
   app.use('/api', submissionsRouter(deps));
   app.use('/api', reviewRouter(deps));
@@ -84,6 +89,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api', shopsRouter(deps));
 
 
+  app.use(mediaRouter(deps));
   app.use(shopLinkRedirectRouter(deps));
 
   app.use('/api', apiNotFound);
