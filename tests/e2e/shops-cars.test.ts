@@ -1,0 +1,137 @@
+import fs from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { startServer, type RunningServer } from './support/server';
+import { launchBrowser } from './support/browser';
+
+// The demo seed loads into the server's empty database: Ridgeway Performance, its shop account, and rivet_rosa.
+const sheetSlug = 'h31-front-vela-four-piston-330';
+
+let server: RunningServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startServer({ SEED_DEMO: 'auto' });
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+/** Signs in through the real strategy and the fake provider's page, the way a person does, and lands on `returnTo`. */
+async function signedInPage(login: string, returnTo: string): Promise<{ page: Page; errors: string[] }> {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await page.goto(`${server.url}/auth/github?returnTo=${encodeURIComponent(returnTo)}`);
+  const authorize = new URL(page.url());
+  expect(authorize.pathname).toBe('/auth/fake/authorize');
+  authorize.searchParams.set('login', login);
+  await page.goto(authorize.toString());
+  await page.waitForURL((u) => u.pathname === returnTo.split('?')[0]);
+  return { page, errors };
+}
+
+describe('shop links and my cars in the browser', () => {
+  let code = '';
+
+  it('when a shop user makes a link from a swap sheet, then it gets a short address and its QR downloads as PNG and SVG', async () => {
+    const { page, errors } = await signedInPage('ridgeway_shop', `/swaps/${sheetSlug}`);
+    const panel = page.locator('#shop-link');
+    await panel.getByRole('heading', { name: 'Make a shop link' }).waitFor();
+    await panel.getByRole('textbox', { name: 'Note to the customer' }).fill('Fixed price **includes** the 10 mm spacers. <script>bad()</script>Ask for Jo.');
+    await panel.getByRole('button', { name: 'Make link' }).click();
+    const url = await panel.getByTestId('shop-link-url').innerText();
+    expect(url).toMatch(new RegExp(`^${server.url}/l/[a-z2-9]{7}$`));
+    code = url.split('/l/')[1]!;
+
+    const [png] = await Promise.all([page.waitForEvent('download'), panel.getByRole('link', { name: 'Download QR (PNG)' }).click()]);
+    expect(png.suggestedFilename()).toBe(`swapyard-link-${code}.png`);
+    const pngBytes = fs.readFileSync((await png.path())!);
+    expect(pngBytes.subarray(0, 4)).toEqual(Buffer.from([0x89, 0x50, 0x4e, 0x47]));
+    const [svg] = await Promise.all([page.waitForEvent('download'), panel.getByRole('link', { name: 'Download QR (SVG)' }).click()]);
+    expect(svg.suggestedFilename()).toBe(`swapyard-link-${code}.svg`);
+    expect(fs.readFileSync((await svg.path())!, 'utf8')).toMatch(/^<svg/);
+
+    // the links list shows it, with no visits yet
+    await page.getByRole('link', { name: 'All our shop links' }).click();
+    const row = page.locator(`tr[data-link-code="${code}"]`);
+    await row.waitFor();
+    expect(await row.innerText()).toContain('Fixed price');
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+
+  it('when an anonymous visitor opens /l/:code, then they see the pinned revision under the shop’s banner and note, and the visit counts', async () => {
+    expect(code).not.toBe('');
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await page.goto(`${server.url}/l/${code}`);
+    await page.waitForURL(new RegExp(`/swaps/${sheetSlug}/r/2\\?via=${code}$`));
+    const banner = page.getByRole('complementary', { name: 'Note from Ridgeway Performance' });
+    await banner.waitFor();
+    const text = await banner.innerText();
+    expect(text).toContain('Fixed price includes the 10 mm spacers. Ask for Jo.');
+    expect(text).not.toContain('bad()');
+    expect(text).toContain('revision 2');
+    expect(await banner.locator('strong', { hasText: 'includes' }).count()).toBe(1);
+    await page.getByRole('heading', { level: 1, name: /Orsino Vela four-piston front calipers/ }).waitFor();
+
+    const unknown = await page.goto(`${server.url}/l/zzzzzzz`);
+    expect(unknown?.status()).toBe(404);
+    expect(await page.getByRole('heading', { level: 1 }).innerText()).toBe('We don’t know this link');
+    expect(errors).toEqual([]);
+    await context.close();
+
+    const shop = await signedInPage('ridgeway_shop', '/shop/links');
+    const row = shop.page.locator(`tr[data-link-code="${code}"]`);
+    await row.waitFor();
+    expect(await row.locator('td').nth(2).innerText()).toMatch(/\b1$/);
+    await shop.page.context().close();
+  });
+
+  it('when a member saves a car, then the swap sheet’s wheel check fills from it in one click and shows its verdicts', async () => {
+    const { page, errors } = await signedInPage('rivet_rosa', '/me/cars');
+    const form = page.getByRole('form', { name: 'Add a car' });
+    await form.getByRole('combobox', { name: 'Chassis' }).fill('H31');
+    await form.getByRole('option', { name: /Halden H31/ }).first().click();
+    await form.getByRole('textbox', { name: 'Nickname' }).fill('Track coupe');
+    await form.getByRole('textbox', { name: /^Wheel diameter/ }).fill('17');
+    await form.getByRole('textbox', { name: /^Wheel width/ }).fill('7.5');
+    await form.getByRole('textbox', { name: /^Offset ET/ }).fill('35');
+    await form.getByRole('textbox', { name: /^Spacer fitted/ }).fill('10');
+    await form.getByRole('textbox', { name: /^Tyre size/ }).fill('215/45-17');
+    await form.getByRole('button', { name: 'Add car' }).click();
+    expect(await form.getByRole('alert').first().innerText()).toContain('is not a tyre size');
+    await form.getByRole('textbox', { name: /^Tyre size/ }).fill('215/45R17');
+    await form.getByRole('button', { name: 'Add car' }).click();
+    const cars = page.getByRole('list', { name: 'Your cars' });
+    await cars.getByRole('heading', { name: 'Track coupe' }).waitFor();
+    expect(await cars.innerText()).toContain('17×7.5 ET35');
+
+    await page.goto(`${server.url}/swaps/${sheetSlug}`);
+    const check = page.locator('#check');
+    await check.getByRole('button', { name: 'Track coupe (17×7.5 ET35)' }).click();
+    const wheelForm = check.getByRole('form', { name: 'Your wheel' });
+    expect(await wheelForm.getByRole('textbox', { name: 'Diameter (in)' }).inputValue()).toBe('17');
+    expect(await wheelForm.getByRole('textbox', { name: 'Offset ET (mm)' }).inputValue()).toBe('35');
+    expect(await wheelForm.getByRole('textbox', { name: /^Spacer/ }).inputValue()).toBe('10');
+    const diameter = check.locator('[data-verdict]').filter({ has: page.getByText('Wheel diameter', { exact: true }) });
+    await diameter.waitFor();
+    expect(await diameter.getAttribute('data-verdict')).toBe('pass');
+    expect(await diameter.innerText()).toContain('17″ (needs ≥ 16″)');
+    expect(await check.getByText('New offset').locator('xpath=following-sibling::p[1]').innerText()).toBe('ET25');
+
+    // the chassis page marks the swap against the saved car, naming the rule
+    await page.goto(`${server.url}/chassis/halden-h31`);
+    await page.getByText(/Checked against your cars: .*Track coupe \(17×7\.5 ET35\)/).waitFor();
+    expect(await page.locator('[data-car-check="pass"]', { hasText: 'Track coupe' }).count()).toBeGreaterThan(0);
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+});
