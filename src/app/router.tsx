@@ -14,6 +14,7 @@ export const routes: RouteObject[] = [
     errorElement: <RouteError />,
     children: [
       { index: true, element: <HomePage /> },
+      { path: 'search', ...page(() => import('./routes/search-route')) },
       { path: 'swaps/:slug', ...page(() => import('./routes/swap-sheet-route')) },
       { path: 'swaps/:slug/r/:n', ...page(() => import('./routes/swap-sheet-route')) },
       { path: 'swaps/:slug/compare', ...page(() => import('../features/swaps/components/swap-compare-page')) },
