@@ -1,0 +1,172 @@
+import { gzipSync } from 'node:zlib';
+import { performance } from 'node:perf_hooks';
+import Database from 'better-sqlite3';
+import MiniSearch from 'minisearch';
+import { buildIndex, indexOptions, matchQuery, queryTree, releaseMatch, search, searchOptions, type SearchIndex } from '../shared/search/search-engine';
+import { normalisePartNumber, parseQuery, tokenize } from '../shared/search/normalise';
+import type { SearchDocument } from '../shared/search/search-document';
+import { makeDocuments, makeQueries, makeWorld } from './search-fixtures';
+
+// npm run bench:search — client-side search at 1k / 10k / 50k approved swaps, beside a linear scan
+// and a server-side SQLite FTS5 query over the same documents, all in this one run.
+
+const sizes = [1_000, 10_000, 50_000];
+const QUERIES = 300;
+
+const percentile = (xs: number[], p: number) => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.min(s.length - 1, Math.floor((p / 100) * s.length))];
+};
+const round = (n: number, d = 3) => Math.round(n * 10 ** d) / 10 ** d;
+
+function time<T>(fn: () => T): [T, number] {
+  const t0 = performance.now();
+  const out = fn();
+  return [out, performance.now() - t0];
+}
+
+function timeQueries(queries: string[], run: (q: string) => unknown) {
+  for (const q of queries.slice(0, 30)) run(q); // warm up
+  const ms = queries.map((q) => time(() => run(q))[1]);
+  return { p50: percentile(ms, 50), p95: percentile(ms, 95), max: Math.max(...ms) };
+}
+
+/** The naive baseline: lower-cased text per document, every query word must appear somewhere in it. */
+function linearBaseline(docs: SearchDocument[]) {
+  const hay = docs.map((d) =>
+    [d.title, d.chassis.make, d.chassis.model, d.chassis.code, ...d.partNames, ...d.cameOn, d.adapter?.name ?? '', d.adapter?.maker ?? '', ...tokenize([...d.partNumbers, d.adapter?.partNumber ?? ''].join(' '))]
+      .join(' ')
+      .toLowerCase(),
+  );
+  return (q: string) => {
+    const words = parseQuery(q).map((pieces) => pieces.join(''));
+    const out: number[] = [];
+    for (let i = 0; i < hay.length; i++) if (words.every((w) => hay[i].includes(w))) out.push(i);
+    return out.slice(0, 20);
+  };
+}
+
+/** A server-side alternative: FTS5 with prefix queries and bm25 weights like the client's boosts (no typo tolerance). */
+function fts5Baseline(docs: SearchDocument[]) {
+  const db = new Database(':memory:');
+  db.exec(`create virtual table swaps_fts using fts5(code, model, make, part_numbers, title, part_names, adapter, came_on, tokenize = 'unicode61 remove_diacritics 2', prefix = '2 3')`);
+  const insert = db.prepare('insert into swaps_fts(rowid, code, model, make, part_numbers, title, part_names, adapter, came_on) values (?, ?, ?, ?, ?, ?, ?, ?, ?)');
+  const [, buildMs] = time(() =>
+    db.transaction(() => {
+      for (const d of docs) {
+        const numbers = [...d.partNumbers, d.adapter?.partNumber ?? ''].filter(Boolean);
+        insert.run(d.id, d.chassis.code, d.chassis.model, d.chassis.make, [...numbers, ...numbers.map(normalisePartNumber)].join(' '), d.title, d.partNames.join(' '), d.adapter ? `${d.adapter.name} ${d.adapter.maker}` : '', d.cameOn.join(' '));
+      }
+    })(),
+  );
+  const stmt = db.prepare('select rowid from swaps_fts where swaps_fts match ? order by bm25(swaps_fts, 10, 8, 3, 6, 2, 1.2, 1, 0.8) limit 20');
+  const run = (q: string) => {
+    const chunks = parseQuery(q);
+    if (chunks.length === 0) return [];
+    const expr = chunks.map((pieces) => `"${pieces.join('')}"*`).join(' AND ');
+    return stmt.all(expr);
+  };
+  return { run, buildMs, close: () => db.close() };
+}
+
+type Row = {
+  buildMs: number;
+  docsJsonBytes: number;
+  gzBytesPerDoc: number;
+  indexJsonBytes: number;
+  indexGzBytesPerDoc: number;
+  loadMs: number;
+  parseAndBuildMs: number;
+  queryP50Ms: number;
+  queryP95Ms: number;
+  matchP95Ms: number;
+  plainMiniP95Ms: number;
+  browseAllMs: number;
+  linearP95Ms: number;
+  fts5P95Ms: number;
+  fts5BuildMs: number;
+  avgResults: number;
+};
+
+const world = makeWorld();
+const summary: Record<string, Row> = {};
+const log = (s: string) => process.stdout.write(s + '\n');
+
+log(`search benchmark — node ${process.version}, ${QUERIES} queries per size\n`);
+for (const n of sizes) {
+  const docs = makeDocuments(n, world);
+  const queries = makeQueries(QUERIES, docs, world);
+
+  const docsJson = JSON.stringify({ documents: docs });
+  const docsGz = gzipSync(docsJson).length;
+  const [index, buildMs] = time(() => buildIndex(docs));
+  const indexJson = JSON.stringify(index.mini);
+  const indexGz = gzipSync(indexJson).length;
+  const [, loadMs] = time(() => MiniSearch.loadJSON(indexJson, indexOptions));
+  const [, parseAndBuildMs] = time(() => buildIndex((JSON.parse(docsJson) as { documents: SearchDocument[] }).documents));
+
+  const full = timeQueries(queries, (q) => search(index, { q, limit: 20 }));
+  const matchOnly = timeQueries(queries, (q) => releaseMatch(index, matchQuery(index, q)));
+  const plain = timeQueries(queries, (q) => {
+    const tree = queryTree(q);
+    return tree ? index.mini.search(tree, searchOptions) : [];
+  });
+  const [, browseAllMs] = time(() => search(index as SearchIndex, { limit: 20 }));
+  const avgResults = queries.reduce((s, q) => s + search(index, { q, limit: 0 }).total, 0) / queries.length;
+
+  const linear = timeQueries(queries, linearBaseline(docs));
+  const fts = fts5Baseline(docs);
+  const ftsTimes = timeQueries(queries, fts.run);
+  fts.close();
+
+  const row: Row = {
+    buildMs: round(buildMs, 1),
+    docsJsonBytes: docsJson.length,
+    gzBytesPerDoc: round(docsGz / n, 1),
+    indexJsonBytes: indexJson.length,
+    indexGzBytesPerDoc: round(indexGz / n, 1),
+    loadMs: round(loadMs, 1),
+    parseAndBuildMs: round(parseAndBuildMs, 1),
+    queryP50Ms: round(full.p50),
+    queryP95Ms: round(full.p95),
+    matchP95Ms: round(matchOnly.p95),
+    plainMiniP95Ms: round(plain.p95),
+    browseAllMs: round(browseAllMs),
+    linearP95Ms: round(linear.p95),
+    fts5P95Ms: round(ftsTimes.p95),
+    fts5BuildMs: round(fts.buildMs, 1),
+    avgResults: round(avgResults, 1),
+  };
+  summary[String(n)] = row;
+
+  log(`── ${n.toLocaleString('en')} documents`);
+  log(`  build index          ${row.buildMs} ms (JSON.parse + build: ${row.parseAndBuildMs} ms)`);
+  log(`  documents on wire    ${(docsJson.length / 1024).toFixed(0)} KiB JSON, ${(docsGz / 1024).toFixed(0)} KiB gzip = ${row.gzBytesPerDoc} B/doc`);
+  log(`  serialized index     ${(indexJson.length / 1024).toFixed(0)} KiB JSON, ${(indexGz / 1024).toFixed(0)} KiB gzip = ${row.indexGzBytesPerDoc} B/doc (still needs the documents to show and facet)`);
+  log(`  load serialized      ${row.loadMs} ms (MiniSearch.loadJSON)`);
+  log(`  query (full answer)  p50 ${row.queryP50Ms} ms, p95 ${row.queryP95Ms} ms, max ${round(full.max)} ms — match + filters + facets + sort + page`);
+  log(`  query (match only)   p50 ${round(matchOnly.p50)} ms, p95 ${row.matchP95Ms} ms`);
+  log(`  minisearch.search    p50 ${round(plain.p50)} ms, p95 ${row.plainMiniP95Ms} ms (the library's own scoring, same tree; for comparison)`);
+  log(`  browse all, newest   ${row.browseAllMs} ms (no query, facets over every document)`);
+  log(`  linear filter        p50 ${round(linear.p50)} ms, p95 ${row.linearP95Ms} ms (substring, no ranking or typos)`);
+  log(`  SQLite FTS5          p50 ${round(ftsTimes.p50)} ms, p95 ${row.fts5P95Ms} ms (prefix + bm25, no typos, no facets; build ${row.fts5BuildMs} ms)`);
+  log(`  results per query    ${row.avgResults} on average`);
+  log('');
+}
+
+const budget = (ok: boolean) => (ok ? 'ok' : 'OVER');
+log('budgets (DESIGN §9):');
+log(`  p95 ≤ 1 ms at 10,000: ${summary['10000'].queryP95Ms} ms ${budget(summary['10000'].queryP95Ms <= 1)}`);
+log(`  p95 ≤ 2 ms at 50,000: ${summary['50000'].queryP95Ms} ms ${budget(summary['50000'].queryP95Ms <= 2)}`);
+log(`  ≤ 300 B/doc gzipped:  ${Math.max(...sizes.map((n) => summary[String(n)].gzBytesPerDoc))} B ${budget(sizes.every((n) => summary[String(n)].gzBytesPerDoc <= 300))}`);
+log('');
+log(
+  JSON.stringify(
+    Object.fromEntries(
+      Object.entries(summary).map(([n, r]) => [
+        n,
+        { buildMs: r.buildMs, gzBytesPerDoc: r.gzBytesPerDoc, loadMs: r.loadMs, queryP50Ms: r.queryP50Ms, queryP95Ms: r.queryP95Ms, linearP95Ms: r.linearP95Ms, fts5P95Ms: r.fts5P95Ms, indexGzBytesPerDoc: r.indexGzBytesPerDoc, matchP95Ms: r.matchP95Ms },
+      ]),
+    ),
+  ),
+);
