@@ -1,0 +1,45 @@
+import type { SubmissionView } from '@shared/schemas/submissions';
+import type { SwapSheetView } from '@shared/schemas/views';
+import { RequireSignedIn } from '../../features/account/components/require-signed-in';
+import { ReviewPage } from '../../features/review/components/review-page';
+import { SwapSheet } from '../../features/swaps/components/swap-sheet-page';
+
+// The review desk shows a revision through the swap sheet itself; the two features meet here.
+
+/** The sheet's view of a revision that is not published yet. */
+export function sheetViewOf(r: SubmissionView): SwapSheetView {
+  return {
+    swap: {
+      id: r.swapId,
+      slug: r.swapSlug,
+      axle: r.axle,
+      category: r.category,
+      fittedCount: 0,
+      author: r.author,
+      createdAt: r.submittedAt ?? r.updatedAt,
+    },
+    chassis: r.chassis,
+    revision: {
+      id: r.id,
+      number: r.number,
+      status: r.status,
+      data: r.data,
+      body: r.body,
+      approvedAt: r.status === 'approved' ? r.reviewedAt : null,
+      submittedAt: r.submittedAt,
+      author: r.author,
+      photos: r.photos,
+    },
+    // no "newer revision" banner: this is the revision under review
+    currentNumber: null,
+    history: [],
+  };
+}
+
+export default function ReviewRevisionRoute() {
+  return (
+    <RequireSignedIn permission="review" what="the review desk">
+      <ReviewPage sheet={(r) => <SwapSheet view={sheetViewOf(r)} />} />
+    </RequireSignedIn>
+  );
+}

@@ -1,0 +1,10 @@
+export type QueueFilters = { status?: string; chassis?: string; olderThanDays?: number };
+
+export const reviewKeys = {
+  all: ['review'] as const,
+  queues: () => ['review', 'queue'] as const,
+  queue: (f: QueueFilters) => ['review', 'queue', f] as const,
+  detail: (revisionId: number) => ['review', 'detail', revisionId] as const,
+  templates: () => ['review', 'templates'] as const,
+  outbox: () => ['outbox'] as const,
+};

@@ -1,0 +1,224 @@
+import { useRef, useState } from 'react';
+import { Link } from 'react-router';
+import type { SubmissionView } from '@shared/schemas/submissions';
+import { decisionNoteSchema, reasonTemplateSchema, requiredReasonSchema } from '@shared/schemas/submissions';
+import { Button } from '../../../components/ui/button';
+import { TextArea, TextInput } from '../../../components/ui/field';
+import { ApiError } from '../../../lib/api-client';
+import { paths } from '../../../config/paths';
+import { useDecide, type Decision } from '../api/decide';
+import { useCreateTemplate, useDeleteTemplate, useTemplates, useUpdateTemplate } from '../api/templates';
+
+const choices: { value: Decision; label: string; hint: string }[] = [
+  { value: 'approve', label: 'Approve', hint: 'It becomes the swap’s current revision and appears in search.' },
+  { value: 'send-back', label: 'Send back', hint: 'The author changes it and sends it again. Reasons required.' },
+  { value: 'decline', label: 'Decline', hint: 'Not published. Reason required.' },
+];
+
+const doneWords: Record<Decision, string> = { approve: 'Approved', 'send-back': 'Sent back to the author', decline: 'Declined' };
+
+/** Approve, send back or decline one revision; the author is told by e-mail. */
+export function DecisionPanel({ revision, canDecide }: { revision: SubmissionView; canDecide: boolean }) {
+  const [decision, setDecision] = useState<Decision>('approve');
+  const [note, setNote] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const [done, setDone] = useState<Decision | null>(null);
+  const noteRef = useRef<HTMLDivElement>(null);
+  const decide = useDecide(revision.id);
+
+  if (!canDecide) {
+    return (
+      <aside aria-labelledby="decide-h" className="rounded-xl border border-graphite/20 bg-paper-card p-4">
+        <h2 id="decide-h" className="text-lg font-extrabold text-ink">
+          Decision
+        </h2>
+        <p className="mt-2 text-sm text-graphite" data-testid="cannot-decide">
+          {done
+            ? `${doneWords[done]}. The author has been told by e-mail.`
+            : revision.status !== 'in_review'
+              ? `This revision is ${revision.status.replace('_', ' ')}; decisions are made only while it is in review.`
+              : 'You wrote this revision, so another moderator decides on it.'}
+        </p>
+        {(done === 'approve' || revision.status === 'approved') && (
+          <Link to={paths.swap(revision.swapSlug)} className="mt-3 inline-block font-bold text-ink underline">
+            Open the published swap sheet
+          </Link>
+        )}
+        <fieldset disabled className="mt-3 space-y-2 opacity-50">
+          {choices.map((c) => (
+            <label key={c.value} className="flex items-center gap-2 text-sm">
+              <input type="radio" name="decision-disabled" /> {c.label}
+            </label>
+          ))}
+        </fieldset>
+      </aside>
+    );
+  }
+
+  const insert = (text: string) => {
+    setNote((n) => (n.trim() ? `${n.trimEnd()}\n${text}` : text));
+    requestAnimationFrame(() => noteRef.current?.querySelector('textarea')?.focus());
+  };
+
+  const send = async (e: React.FormEvent) => {
+    e.preventDefault();
+    setError(null);
+    const parsed = (decision === 'approve' ? decisionNoteSchema : requiredReasonSchema).safeParse({ note });
+    if (!parsed.success) return setError(parsed.error.issues[0]?.message ?? 'Check the note');
+    try {
+      await decide.mutateAsync({ decision, note: parsed.data.note });
+      setDone(decision);
+    } catch (err) {
+      setError(err instanceof ApiError ? (err.fields.note ?? err.message) : 'That did not work. Try again.');
+    }
+  };
+
+  const needsReason = decision !== 'approve';
+  return (
+    <aside aria-labelledby="decide-h" className="rounded-xl border border-ink/20 bg-paper-card p-4 shadow-sm">
+      <h2 id="decide-h" className="text-lg font-extrabold text-ink">
+        Decision
+      </h2>
+      <form onSubmit={(e) => void send(e)} className="mt-3 space-y-4" noValidate>
+        <fieldset className="space-y-2">
+          <legend className="sr-only">Decision</legend>
+          {choices.map((c) => (
+            <label
+              key={c.value}
+              className={`flex cursor-pointer items-start gap-2 rounded-lg border p-2 text-sm ${decision === c.value ? 'border-ink bg-ink-faint/50' : 'border-graphite/15'}`}
+            >
+              <input
+                type="radio"
+                name="decision"
+                value={c.value}
+                checked={decision === c.value}
+                onChange={() => setDecision(c.value)}
+                className="mt-1 h-4 w-4 accent-ink"
+              />
+              <span>
+                <span className="font-bold">{c.label}</span>
+                <span className="block text-xs text-graphite-soft">{c.hint}</span>
+              </span>
+            </label>
+          ))}
+        </fieldset>
+        {needsReason && <Templates onInsert={insert} />}
+        <div ref={noteRef}>
+          <TextArea
+            label={needsReason ? 'Reasons (the author reads these)' : 'Note to the author (optional)'}
+            rows={5}
+            value={note}
+            onChange={(e) => setNote(e.target.value)}
+            error={error ?? undefined}
+          />
+        </div>
+        <Button
+          type="submit"
+          variant={decision === 'decline' ? 'danger' : 'primary'}
+          className="w-full"
+          disabled={decide.isPending}
+        >
+          {decide.isPending ? 'Saving the decision…' : choices.find((c) => c.value === decision)!.label}
+        </Button>
+      </form>
+    </aside>
+  );
+}
+
+/** Reusable reasons: insert one into the note; moderators add, edit and delete them. */
+function Templates({ onInsert }: { onInsert: (text: string) => void }) {
+  const templates = useTemplates();
+  const [editing, setEditing] = useState<{ id: number | null; label: string; text: string } | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const create = useCreateTemplate();
+  const update = useUpdateTemplate();
+  const remove = useDeleteTemplate();
+
+  const save = async () => {
+    if (!editing) return;
+    const parsed = reasonTemplateSchema.safeParse({ label: editing.label, text: editing.text });
+    if (!parsed.success)
+      return setError(parsed.error.issues.map((i) => `${String(i.path[0])}: ${i.message}`)[0] ?? 'Check the template');
+    setError(null);
+    try {
+      if (editing.id) await update.mutateAsync({ id: editing.id, ...parsed.data });
+      else await create.mutateAsync(parsed.data);
+      setEditing(null);
+    } catch (err) {
+      setError(err instanceof ApiError ? err.message : 'The template was not saved.');
+    }
+  };
+
+  return (
+    <div className="space-y-2">
+      <p className="text-sm font-bold text-graphite">Reason templates</p>
+      {templates.isError && <p className="text-sm text-oxide">The templates did not load.</p>}
+      <ul className="flex flex-wrap gap-2">
+        {(templates.data ?? []).map((t) => (
+          <li key={t.id} className="flex items-center overflow-hidden rounded-full border border-ink/25 bg-paper text-sm">
+            <button
+              type="button"
+              className="px-3 py-1 font-bold text-ink hover:bg-ink-faint"
+              onClick={() => onInsert(t.text)}
+              title={t.text}
+            >
+              + {t.label}
+            </button>
+            <button
+              type="button"
+              className="border-l border-ink/15 px-2 py-1 text-graphite-soft hover:bg-ink-faint"
+              onClick={() => setEditing({ id: t.id, label: t.label, text: t.text })}
+              aria-label={`Edit the template “${t.label}”`}
+            >
+              ✎
+            </button>
+          </li>
+        ))}
+        <li>
+          <button
+            type="button"
+            className="rounded-full border border-dashed border-ink/30 px-3 py-1 text-sm text-ink hover:bg-ink-faint"
+            onClick={() => setEditing({ id: null, label: '', text: '' })}
+          >
+            New template
+          </button>
+        </li>
+      </ul>
+      {editing && (
+        <div className="space-y-2 rounded-lg border border-graphite/15 bg-paper p-3">
+          <TextInput
+            label="Template name"
+            value={editing.label}
+            onChange={(e) => setEditing({ ...editing, label: e.target.value })}
+          />
+          <TextArea
+            label="Text"
+            rows={3}
+            value={editing.text}
+            onChange={(e) => setEditing({ ...editing, text: e.target.value })}
+            error={error ?? undefined}
+          />
+          <div className="flex flex-wrap gap-2">
+            <Button variant="secondary" onClick={() => void save()} disabled={create.isPending || update.isPending}>
+              Save template
+            </Button>
+            {editing.id && (
+              <Button
+                variant="quiet"
+                onClick={() => {
+                  if (editing.id && window.confirm(`Delete the template “${editing.label}”?`))
+                    void remove.mutateAsync(editing.id).then(() => setEditing(null));
+                }}
+              >
+                Delete
+              </Button>
+            )}
+            <Button variant="quiet" onClick={() => setEditing(null)}>
+              Cancel
+            </Button>
+          </div>
+        </div>
+      )}
+    </div>
+  );
+}

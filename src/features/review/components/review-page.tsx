@@ -1,0 +1,177 @@
+import type { ReactNode } from 'react';
+import { Link, useParams } from 'react-router';
+import type { CheckResult, ReviewDetail, SubmissionView } from '@shared/schemas/submissions';
+import { revisionStatusLabels } from '@shared/schemas/enums';
+import { Page } from '../../../components/ui/page';
+import { Badge } from '../../../components/ui/badge';
+import { ErrorNotice, Loading } from '../../../components/ui/query-state';
+import { RevisionDiff } from '../../../components/revision-diff';
+import { chassisLabel } from '../../../components/swap-card';
+import { paths } from '../../../config/paths';
+import { useReviewDetail } from '../api/get-review-detail';
+import { DecisionPanel } from './decision-panel';
+
+const when = (iso: string | null) =>
+  iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : '—';
+
+const checkLook: Record<CheckResult['status'], { mark: string; word: string; tone: string }> = {
+  pass: { mark: '✓', word: 'Pass', tone: 'border-ink/25 bg-ink-faint/50 text-ink' },
+  fail: { mark: '✕', word: 'Fails', tone: 'border-oxide/50 bg-oxide-soft text-oxide' },
+  attention: { mark: '!', word: 'Look closely', tone: 'border-brass/60 bg-brass-soft/50 text-brass-deep' },
+};
+
+function Checks({ checks }: { checks: CheckResult[] }) {
+  const failing = checks.filter((c) => c.status === 'fail').length;
+  const attention = checks.filter((c) => c.status === 'attention').length;
+  return (
+    <section aria-labelledby="checks-h">
+      <h2 id="checks-h" className="text-xl font-extrabold text-ink">
+        Automatic checks
+      </h2>
+      <p className="mb-3 text-sm text-graphite-soft">
+        {failing === 0 && attention === 0
+          ? 'Every check passes.'
+          : `${failing} failing, ${attention} to look at closely, ${checks.length - failing - attention} passing.`}
+      </p>
+      <ul className="space-y-2" data-testid="checks">
+        {checks.map((c) => {
+          const look = checkLook[c.status];
+          return (
+            <li key={c.id} className={`rounded-lg border p-3 ${look.tone}`} data-check={c.id} data-status={c.status}>
+              <div className="flex items-baseline justify-between gap-3">
+                <span className="font-bold text-graphite">{c.label}</span>
+                <span className="whitespace-nowrap text-xs font-extrabold uppercase tracking-wide">
+                  <span aria-hidden>{look.mark} </span>
+                  {look.word}
+                </span>
+              </div>
+              {c.detail && <p className="mt-1 text-sm text-graphite">{c.detail}</p>}
+              {c.link && (
+                <Link to={c.link} className="mt-1 inline-block text-sm font-bold text-ink underline">
+                  Open the likely duplicate
+                </Link>
+              )}
+            </li>
+          );
+        })}
+      </ul>
+    </section>
+  );
+}
+
+const actionWords: Record<string, string> = {
+  submit: 'sent it for review',
+  submitted: 'sent it for review',
+  resubmit: 'sent it for review again',
+  approve: 'approved it',
+  approved: 'approved it',
+  'send-back': 'sent it back',
+  send_back: 'sent it back',
+  sent_back: 'sent it back',
+  decline: 'declined it',
+  declined: 'declined it',
+  create: 'started the draft',
+  created: 'started the draft',
+};
+
+function History({ history }: { history: ReviewDetail['history'] }) {
+  return (
+    <section aria-labelledby="history-h">
+      <h2 id="history-h" className="mb-3 text-xl font-extrabold text-ink">
+        History
+      </h2>
+      {history.length === 0 ? (
+        <p className="text-sm text-graphite-soft">No events yet.</p>
+      ) : (
+        <ol className="space-y-3 border-l-2 border-ink/15 pl-4">
+          {history.map((h, i) => (
+            <li key={i}>
+              <p className="text-sm">
+                <strong>{h.actor.name}</strong> {actionWords[h.action] ?? h.action.replace(/[_-]/g, ' ')}{' '}
+                <span className="text-graphite-soft">· {when(h.at)}</span>
+              </p>
+              {h.note && <p className="mt-1 whitespace-pre-wrap rounded-md bg-paper-card p-2 text-sm text-graphite">{h.note}</p>}
+            </li>
+          ))}
+        </ol>
+      )}
+    </section>
+  );
+}
+
+/**
+ * `/review/:revisionId`: what a moderator needs to decide — checks, the changes against
+ * the current revision, the history, the decision, and the sheet as readers will see it
+ * (rendered by `sheet`, which the app supplies).
+ */
+export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => ReactNode }) {
+  const { revisionId = '' } = useParams();
+  const id = Number(revisionId);
+  const query = useReviewDetail(id);
+  if (query.isPending)
+    return (
+      <Page title="Review">
+        <Loading label="Loading the revision…" />
+      </Page>
+    );
+  if (query.isError)
+    return (
+      <Page title="Review">
+        <ErrorNotice error={query.error} />
+      </Page>
+    );
+  const { revision, checks, current, history, canDecide } = query.data;
+  return (
+    <Page
+      title={`Review: ${revision.data.title}`}
+      heading={revision.data.title}
+      lead={
+        <>
+          {chassisLabel(revision.chassis)} · {revision.axle} axle · by {revision.author.name} (@{revision.author.login}) · sent{' '}
+          {when(revision.submittedAt)}
+        </>
+      }
+      actions={
+        <div className="flex flex-wrap gap-2">
+          <Badge tone={revision.status === 'in_review' ? 'brass' : revision.status === 'approved' ? 'ink' : 'plain'}>
+            {revisionStatusLabels[revision.status]}
+          </Badge>
+          {revision.isCorrection ? <Badge tone="brass">Correction → revision {revision.number}</Badge> : <Badge>New swap</Badge>}
+        </div>
+      }
+    >
+      <p className="mb-6 text-sm">
+        <Link to={paths.review()} className="font-bold text-ink underline">
+          ← Back to the review desk
+        </Link>
+      </p>
+      <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="min-w-0 space-y-10">
+          <Checks checks={checks} />
+          {current && (
+            <section aria-labelledby="diff-h">
+              <h2 id="diff-h" className="mb-3 text-xl font-extrabold text-ink">
+                Changes against revision {current.number}
+              </h2>
+              <RevisionDiff
+                before={current}
+                after={{ data: revision.data, body: revision.body }}
+                labels={[`Revision ${current.number} (current)`, `This revision (${revision.number})`]}
+              />
+            </section>
+          )}
+          <History history={history} />
+        </div>
+        <div className="lg:sticky lg:top-4 lg:self-start">
+          <DecisionPanel revision={revision} canDecide={canDecide} />
+        </div>
+      </div>
+      <section aria-labelledby="sheet-h" className="mt-12 rounded-2xl border-2 border-dashed border-ink/20">
+        <h2 id="sheet-h" className="px-4 pt-4 text-xl font-extrabold text-ink sm:px-6">
+          The sheet as it will look
+        </h2>
+        {sheet(revision)}
+      </section>
+    </Page>
+  );
+}

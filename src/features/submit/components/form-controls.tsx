@@ -1,0 +1,214 @@
+import type { ReactNode } from 'react';
+import { useFormContext, useFormState, type Path } from 'react-hook-form';
+import { Field, inputClass } from '../../../components/ui/field';
+import { Button } from '../../../components/ui/button';
+import { messageAt, type FormValues } from '../lib/form-values';
+
+// Inputs bound to the submission form by name; each shows its own error beside it.
+
+type Name = Path<FormValues>;
+
+function useFieldError(name: string) {
+  const { errors } = useFormState<FormValues>({ name: name as Name });
+  return messageAt(errors, name);
+}
+
+type Common = { name: Name; label: ReactNode; hint?: ReactNode; className?: string; disabled?: boolean };
+
+export function FText({
+  name,
+  label,
+  hint,
+  className,
+  disabled,
+  placeholder,
+  autoComplete = 'off',
+}: Common & { placeholder?: string; autoComplete?: string }) {
+  const { register } = useFormContext<FormValues>();
+  const error = useFieldError(name);
+  return (
+    <Field label={label} hint={hint} error={error} className={className}>
+      {(a11y) => (
+        <input
+          className={inputClass}
+          {...a11y}
+          {...register(name)}
+          placeholder={placeholder}
+          autoComplete={autoComplete}
+          disabled={disabled}
+        />
+      )}
+    </Field>
+  );
+}
+
+/** A number typed as text: decimal keypad on phones, comma or point, the unit beside it. */
+export function FNum({
+  name,
+  label,
+  hint,
+  className,
+  disabled,
+  unit,
+  placeholder,
+}: Common & { unit?: string; placeholder?: string }) {
+  const { register } = useFormContext<FormValues>();
+  const error = useFieldError(name);
+  return (
+    <Field label={label} hint={hint} error={error} className={className}>
+      {(a11y) => (
+        <div className="flex items-stretch">
+          <input
+            className={`${inputClass} tabular ${unit ? 'rounded-r-none' : ''}`}
+            inputMode="decimal"
+            autoComplete="off"
+            {...a11y}
+            {...register(name)}
+            placeholder={placeholder}
+            disabled={disabled}
+          />
+          {unit && (
+            <span
+              className="flex min-w-10 items-center justify-center rounded-r-md border border-l-0 border-graphite/25 bg-paper-deep px-2 text-sm text-graphite-soft"
+              aria-hidden
+            >
+              {unit}
+            </span>
+          )}
+        </div>
+      )}
+    </Field>
+  );
+}
+
+export function FArea({
+  name,
+  label,
+  hint,
+  className,
+  disabled,
+  rows = 3,
+  placeholder,
+}: Common & { rows?: number; placeholder?: string }) {
+  const { register } = useFormContext<FormValues>();
+  const error = useFieldError(name);
+  return (
+    <Field label={label} hint={hint} error={error} className={className}>
+      {(a11y) => (
+        <textarea
+          className={inputClass}
+          rows={rows}
+          {...a11y}
+          {...register(name)}
+          placeholder={placeholder}
+          disabled={disabled}
+        />
+      )}
+    </Field>
+  );
+}
+
+export function FSelect({
+  name,
+  label,
+  hint,
+  className,
+  disabled,
+  options,
+}: Common & { options: readonly { value: string; label: string }[] }) {
+  const { register } = useFormContext<FormValues>();
+  const error = useFieldError(name);
+  return (
+    <Field label={label} hint={hint} error={error} className={className}>
+      {(a11y) => (
+        <select className={inputClass} {...a11y} {...register(name)} disabled={disabled}>
+          {options.map((o) => (
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
+          ))}
+        </select>
+      )}
+    </Field>
+  );
+}
+
+export function FCheck({ name, label, hint, className = '', disabled }: Common) {
+  const { register } = useFormContext<FormValues>();
+  return (
+    <label className={`flex min-h-10 items-start gap-2 text-sm font-bold text-graphite ${className}`}>
+      <input type="checkbox" className="mt-1 h-5 w-5 accent-ink" {...register(name)} disabled={disabled} />
+      <span>
+        {label}
+        {hint && <span className="block text-xs font-normal text-graphite-soft">{hint}</span>}
+      </span>
+    </label>
+  );
+}
+
+/** The error of a whole list (e.g. "List at least one part"), shown above its rows. */
+export function ListError({ name }: { name: string }) {
+  const { errors } = useFormState<FormValues>();
+  const node = name
+    .split('.')
+    .reduce<unknown>((n, k) => (n && typeof n === 'object' ? (n as Record<string, unknown>)[k] : undefined), errors);
+  const own =
+    node && typeof node === 'object'
+      ? ((node as { root?: { message?: string }; message?: string }).root?.message ?? (node as { message?: string }).message)
+      : undefined;
+  return own ? (
+    <p role="alert" className="text-sm font-semibold text-oxide">
+      {own}
+    </p>
+  ) : null;
+}
+
+/** One section of the form, with an anchor for the outline. */
+export function FormSection({ id, title, lead, children }: { id: string; title: string; lead?: ReactNode; children: ReactNode }) {
+  return (
+    <section
+      id={id}
+      aria-labelledby={`${id}-h`}
+      className="scroll-mt-20 rounded-xl border border-ink/10 bg-paper-card p-4 shadow-sm sm:p-6"
+    >
+      <h2 id={`${id}-h`} className="text-lg font-extrabold text-ink">
+        {title}
+      </h2>
+      {lead && <p className="mt-1 text-sm text-graphite-soft">{lead}</p>}
+      <div className="mt-4 space-y-4">{children}</div>
+    </section>
+  );
+}
+
+/** A row of a list with its position and a remove button. */
+export function ListRow({
+  label,
+  onRemove,
+  children,
+  disabled,
+}: {
+  label: string;
+  onRemove: () => void;
+  children: ReactNode;
+  disabled?: boolean;
+}) {
+  return (
+    <fieldset className="rounded-lg border border-graphite/15 bg-paper p-3 sm:p-4">
+      <legend className="px-1 text-sm font-bold text-ink">{label}</legend>
+      <div className="grid gap-3 sm:grid-cols-2">{children}</div>
+      <div className="mt-3 flex justify-end">
+        <Button variant="quiet" onClick={onRemove} disabled={disabled} aria-label={`Remove ${label.toLowerCase()}`}>
+          Remove
+        </Button>
+      </div>
+    </fieldset>
+  );
+}
+
+export function AddButton({ onClick, children, disabled }: { onClick: () => void; children: ReactNode; disabled?: boolean }) {
+  return (
+    <Button variant="secondary" onClick={onClick} disabled={disabled}>
+      <span aria-hidden>＋</span> {children}
+    </Button>
+  );
+}

@@ -1,0 +1,87 @@
+import { Link } from 'react-router';
+import type { SubmissionView } from '@shared/schemas/submissions';
+import { revisionStatusLabels, type RevisionStatus } from '@shared/schemas/enums';
+import { Page } from '../../../components/ui/page';
+import { Badge } from '../../../components/ui/badge';
+import { ButtonLink } from '../../../components/ui/button';
+import { Markdown } from '../../../components/markdown';
+import { PhotoGrid } from '../../../components/photo-grid';
+import { chassisLabel } from '../../../components/swap-card';
+import { paths } from '../../../config/paths';
+
+const explain: Record<RevisionStatus, string> = {
+  draft: 'This draft can be edited.',
+  sent_back: 'A moderator sent this back; you can change it and send it again.',
+  in_review: 'A moderator is reading it. It is locked until they decide; you will get an e-mail with the outcome.',
+  approved: 'Approved and published. Approved revisions never change — to change it, propose a correction.',
+  declined: 'A moderator declined this revision. It stays here for your records.',
+  superseded: 'A newer approved revision replaced this one.',
+};
+
+const tone = (s: RevisionStatus) =>
+  s === 'approved' ? 'ink' : s === 'declined' ? 'oxide' : s === 'in_review' ? 'brass' : 'plain';
+
+/** A revision its author can no longer edit: in review, approved, declined or superseded. */
+export function LockedSubmission({ view }: { view: SubmissionView }) {
+  const when = view.submittedAt
+    ? new Date(view.submittedAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })
+    : null;
+  return (
+    <Page
+      title={view.data.title}
+      heading={view.data.title}
+      lead={`${chassisLabel(view.chassis)} · ${view.axle} axle · revision ${view.number}`}
+    >
+      <div role="status" className="mb-6 rounded-xl border border-ink/15 bg-paper-card p-4 sm:p-6" data-testid="locked-status">
+        <div className="flex flex-wrap items-center gap-2">
+          <Badge tone={tone(view.status)}>{revisionStatusLabels[view.status]}</Badge>
+          {view.status === 'in_review' && <span className="text-sm text-graphite-soft">🔒 Locked while in review</span>}
+          {when && <span className="text-sm text-graphite-soft">Sent {when}</span>}
+        </div>
+        <p className="mt-3 text-graphite">{explain[view.status]}</p>
+        {view.reviewNote && (view.status === 'declined' || view.status === 'approved') && (
+          <p className="mt-2 whitespace-pre-wrap text-sm text-graphite">
+            <strong>Moderator’s note:</strong> {view.reviewNote}
+          </p>
+        )}
+        <div className="mt-4 flex flex-wrap gap-3">
+          {view.status === 'approved' && <ButtonLink to={paths.swap(view.swapSlug)}>Open the swap sheet</ButtonLink>}
+          {(view.status === 'approved' || view.status === 'superseded') && (
+            <ButtonLink to={`${paths.submit()}?swap=${encodeURIComponent(view.swapSlug)}`} variant="secondary">
+              Propose a correction
+            </ButtonLink>
+          )}
+          <ButtonLink to={paths.mySubmissions()} variant="secondary">
+            My submissions
+          </ButtonLink>
+        </div>
+      </div>
+      {view.data.summary && <p className="mb-6 text-lg text-graphite">{view.data.summary}</p>}
+      <h2 className="mb-2 text-lg font-extrabold text-ink">Parts</h2>
+      <ul className="mb-6 list-disc pl-5 text-graphite">
+        {view.data.parts.map((p, i) => (
+          <li key={i}>
+            {p.quantity} × {p.name} <span className="text-graphite-soft">({p.role})</span>
+          </li>
+        ))}
+      </ul>
+      {view.body && (
+        <>
+          <h2 className="mb-2 text-lg font-extrabold text-ink">Write-up</h2>
+          <Markdown className="mb-6">{view.body}</Markdown>
+        </>
+      )}
+      {view.photos.length > 0 && (
+        <>
+          <h2 className="mb-2 text-lg font-extrabold text-ink">Photos</h2>
+          <PhotoGrid photos={view.photos} />
+        </>
+      )}
+      <p className="mt-8 text-sm">
+        <Link to={paths.mySubmissions()} className="font-bold text-ink underline">
+          Back to my submissions
+        </Link>
+      </p>
+    </Page>
+  );
+}

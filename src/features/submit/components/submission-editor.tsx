@@ -1,0 +1,329 @@
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { FormProvider, useForm, useWatch, type Resolver } from 'react-hook-form';
+import { Link, useNavigate } from 'react-router';
+import { useQueryClient } from '@tanstack/react-query';
+import type { SubmissionView } from '@shared/schemas/submissions';
+import type { ChassisView, SwapSheetView } from '@shared/schemas/views';
+import { revisionStatusLabels, type Axle, type Category } from '@shared/schemas/enums';
+import { Page } from '../../../components/ui/page';
+import { Badge } from '../../../components/ui/badge';
+import { Button } from '../../../components/ui/button';
+import { Caution } from '../../../components/caution';
+import { ApiError } from '../../../lib/api-client';
+import { paths } from '../../../config/paths';
+import { submissionKeys } from '../api/submission-keys';
+import { useSubmitForReview } from '../api/submit-for-review';
+import { useChassisOptions } from '../api/get-chassis-options';
+import { errorsOf, formPathOf, newChassisReadable, parsePayload, type FormValues } from '../lib/form-values';
+import { clearBackup, readBackup, useAutosave } from '../lib/use-autosave';
+import { SaveStatus } from './save-status';
+import { ChassisSection } from './chassis-section';
+import {
+  AdapterSection,
+  MachiningSection,
+  PartsSection,
+  RotorsSection,
+  ShimsSpacersSection,
+  TitleSection,
+  TorqueSection,
+} from './parts-sections';
+import { BrakesSection, CostsSection, JobSection, WheelSection, WriteUpSection } from './figures-sections';
+import { LiveFigures } from './live-figures';
+import { PhotoUploader } from './photo-uploader';
+import { FormSection } from './form-controls';
+
+export type EditorMode = { kind: 'new' } | { kind: 'correction'; swap: SwapSheetView } | { kind: 'edit'; view: SubmissionView };
+
+const outline = [
+  ['chassis', 'Chassis'],
+  ['title', 'Title'],
+  ['parts', 'Parts'],
+  ['adapter', 'Adapter'],
+  ['shims', 'Shims & spacers'],
+  ['rotors', 'Rotors'],
+  ['machining', 'Machining'],
+  ['torque', 'Torque'],
+  ['wheel', 'Wheel'],
+  ['brakes', 'Brakes'],
+  ['costs', 'Costs'],
+  ['job', 'The job'],
+  ['write-up', 'Write-up'],
+  ['photos', 'Photos'],
+] as const;
+
+function backupKeyOf(mode: EditorMode) {
+  if (mode.kind === 'edit') return `swapyard.draft.${mode.view.id}`;
+  if (mode.kind === 'correction') return `swapyard.draft.new.${mode.swap.swap.slug}`;
+  return 'swapyard.draft.new';
+}
+
+/**
+ * The submission form for a new swap, a correction of an approved one, or a draft /
+ * sent-back revision. The shared zod schema validates it, exactly as the server will.
+ */
+export function SubmissionEditor({
+  mode,
+  initial,
+  handedOver = false,
+}: {
+  mode: EditorMode;
+  initial: FormValues;
+  handedOver?: boolean;
+}) {
+  const navigate = useNavigate();
+  const queryClient = useQueryClient();
+  const view = mode.kind === 'edit' ? mode.view : null;
+  const swapSlug = mode.kind === 'correction' ? mode.swap.swap.slug : view?.isCorrection ? view.swapSlug : null;
+  const backupKey = backupKeyOf(mode);
+  const sending = useRef(false);
+  const [sendError, setSendError] = useState<string | null>(null);
+  const [backup, setBackup] = useState(() => {
+    const b = readBackup(backupKey);
+    const savedAt = view ? Date.parse(view.updatedAt) : 0;
+    return b && b.at > savedAt && !handedOver ? b : null;
+  });
+
+  const resolver: Resolver<FormValues> = useMemo(
+    () => async (values) => {
+      const parsed = parsePayload(values, swapSlug);
+      return parsed.ok ? { values, errors: {} } : { values: {}, errors: errorsOf(parsed.issues) };
+    },
+    [swapSlug],
+  );
+  const form = useForm<FormValues>({ defaultValues: initial, resolver, mode: 'onTouched', reValidateMode: 'onChange' });
+
+  const autosave = useAutosave({
+    form,
+    submissionId: view?.id ?? null,
+    swapSlug,
+    enabled: true,
+    backupKey,
+    savedValues: view && !handedOver ? initial : null,
+    onCreated: (created) => {
+      queryClient.setQueryData(submissionKeys.detail(created.id), created);
+      void queryClient.invalidateQueries({ queryKey: submissionKeys.mine() });
+      clearBackup(backupKey);
+      if (!sending.current) navigate(paths.editSubmission(created.id), { replace: true, state: { handoff: form.getValues() } });
+    },
+    onSaved: (saved) => {
+      queryClient.setQueryData<SubmissionView>(submissionKeys.detail(saved.id), (old) =>
+        old ? { ...saved, photos: old.photos } : saved,
+      );
+    },
+  });
+  // input handed over from /submit may hold keystrokes typed after the first save
+  const { retry } = autosave;
+  useEffect(() => {
+    if (handedOver) void retry();
+  }, [handedOver, retry]);
+
+  const submit = useSubmitForReview();
+
+  const onSend = form.handleSubmit(
+    async () => {
+      setSendError(null);
+      sending.current = true;
+      try {
+        const saved = await autosave.flush();
+        if (!saved.ok || !saved.id) {
+          setSendError('The draft could not be saved, so it was not sent. Fix what is marked and try again.');
+          return;
+        }
+        await submit.mutateAsync(saved.id);
+        clearBackup(backupKey);
+        navigate(paths.editSubmission(saved.id), { replace: true });
+        window.scrollTo({ top: 0 });
+      } catch (err) {
+        if (err instanceof ApiError) {
+          for (const [path, message] of Object.entries(err.fields))
+            form.setError(formPathOf(path) as never, { type: 'server', message });
+          setSendError(err.message);
+        } else setSendError('It could not be sent. Check the connection and try again.');
+      } finally {
+        sending.current = false;
+      }
+    },
+    (errors) => {
+      const count = Object.keys(errors).length;
+      setSendError(count ? 'Some fields need attention before a moderator can read it — they are marked in red.' : null);
+      requestAnimationFrame(() => document.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus());
+    },
+  );
+
+  // chassis facts for the live figures
+  const chassisList = useChassisOptions();
+  const [chassisMode, chassisId, axleValue, categoryValue, newChassis] = useWatch({
+    control: form.control,
+    name: ['chassisMode', 'chassisId', 'axle', 'category', 'newChassis'],
+  });
+  const fixedChassis: ChassisView | null =
+    mode.kind === 'correction' ? mode.swap.chassis : view?.isCorrection ? view.chassis : null;
+  const pickedChassis =
+    fixedChassis ??
+    (chassisMode === 'existing'
+      ? (chassisList.data?.find((c) => String(c.id) === chassisId) ??
+        (view && String(view.chassis.id) === chassisId ? view.chassis : null))
+      : null);
+  const axle: Axle | null = mode.kind === 'correction' ? mode.swap.swap.axle : view?.isCorrection ? view.axle : axleValue || null;
+  const category: Category | null =
+    mode.kind === 'correction' ? mode.swap.swap.category : view?.isCorrection ? view.category : categoryValue || null;
+  const thread =
+    pickedChassis?.wheelBoltThread ?? (chassisMode === 'new' ? (newChassisReadable(newChassis)?.wheelBoltThread ?? null) : null);
+
+  const title =
+    mode.kind === 'correction'
+      ? `Correct “${mode.swap.revision.data.title}”`
+      : view
+        ? view.status === 'sent_back'
+          ? 'Revise and resend'
+          : view.isCorrection
+            ? 'Correction draft'
+            : 'Draft swap'
+        : 'Record a swap';
+  const photos = view?.photos ?? [];
+
+  return (
+    <Page
+      title={title}
+      heading={title}
+      lead={
+        mode.kind === 'correction'
+          ? `Your correction becomes revision ${(mode.swap.currentNumber ?? mode.swap.revision.number) + 1} once a moderator approves it; until then revision ${mode.swap.revision.number} stays public. It is credited to you.`
+          : 'Record a combination you have fitted. It saves as you type; a moderator checks it before it reaches search.'
+      }
+      actions={
+        <div className="flex flex-col items-start gap-1 sm:items-end">
+          {view && <Badge tone={view.status === 'sent_back' ? 'oxide' : 'plain'}>{revisionStatusLabels[view.status]}</Badge>}
+          <SaveStatus state={autosave.state} onRetry={() => void autosave.retry()} />
+        </div>
+      }
+    >
+      {view?.status === 'sent_back' && (
+        <div role="alert" className="mb-6 rounded-xl border-l-4 border-brass bg-brass-soft/40 p-4">
+          <h2 className="font-extrabold text-ink">A moderator sent this back with these reasons</h2>
+          <p className="mt-2 whitespace-pre-wrap text-graphite">{view.reviewNote || 'No reason was given.'}</p>
+          <p className="mt-2 text-sm text-graphite-soft">Change what they asked for, then send it for review again.</p>
+        </div>
+      )}
+      {mode.kind === 'correction' && (
+        <p className="mb-6 text-sm">
+          <Link to={paths.swap(mode.swap.swap.slug)} className="font-bold text-ink underline">
+            Open the current swap sheet
+          </Link>{' '}
+          to compare while you edit.
+        </p>
+      )}
+      {backup && (
+        <div
+          role="status"
+          className="mb-6 flex flex-wrap items-center justify-between gap-3 rounded-lg border border-brass bg-paper-card p-3 text-sm"
+        >
+          <span>
+            This device kept input from {new Date(backup.at).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}{' '}
+            that was never saved.
+          </span>
+          <span className="flex gap-2">
+            <Button
+              variant="secondary"
+              onClick={() => {
+                form.reset(backup.values, { keepDefaultValues: true });
+                setBackup(null);
+                void autosave.retry();
+              }}
+            >
+              Restore it
+            </Button>
+            <Button
+              variant="quiet"
+              onClick={() => {
+                clearBackup(backupKey);
+                setBackup(null);
+              }}
+            >
+              Discard
+            </Button>
+          </span>
+        </div>
+      )}
+
+      <FormProvider {...form}>
+        <form onSubmit={onSend} noValidate className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem] lg:gap-x-8">
+          <div className="min-w-0 space-y-6 lg:col-start-1 lg:row-start-1">
+            <ChassisSection
+              fixed={
+                fixedChassis
+                  ? {
+                      chassis: fixedChassis,
+                      axle: axle ?? '',
+                      category: mode.kind === 'correction' ? mode.swap.swap.category : (view?.category ?? ''),
+                    }
+                  : null
+              }
+            />
+            <TitleSection />
+            <PartsSection />
+            <AdapterSection />
+            <ShimsSpacersSection />
+            <RotorsSection />
+            <MachiningSection />
+            <TorqueSection />
+            <WheelSection />
+            <BrakesSection chassis={pickedChassis} />
+            <CostsSection />
+            <JobSection />
+            <WriteUpSection />
+            <FormSection
+              id="photos"
+              title="Photos"
+              lead="The fitted parts, the clearance at its tightest point, any machining. Captions say what each shows."
+            >
+              <PhotoUploader submissionId={view?.id ?? null} photos={photos} />
+            </FormSection>
+          </div>
+
+          <aside className="lg:col-start-2 lg:row-span-2 lg:row-start-1" aria-label="Form outline and figures">
+            <div className="space-y-6 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:overflow-y-auto lg:pr-1">
+              <nav aria-label="Form sections" className="hidden lg:block">
+                <ul className="flex flex-wrap gap-1 text-sm">
+                  {outline.map(([id, label]) => (
+                    <li key={id}>
+                      <a href={`#${id}`} className="block rounded px-2 py-1 text-ink hover:bg-ink-faint">
+                        {label}
+                      </a>
+                    </li>
+                  ))}
+                </ul>
+              </nav>
+              <LiveFigures axle={axle} category={category} wheelBoltThread={thread} photoCount={photos.length} />
+              <Caution />
+            </div>
+          </aside>
+          <div className="rounded-xl border border-ink/20 bg-paper-card p-4 sm:p-6 lg:col-start-1 lg:row-start-2">
+            <h2 className="text-lg font-extrabold text-ink">Send for review</h2>
+            <p className="mt-1 text-sm text-graphite-soft">
+              A moderator checks the record, the figures and the photos. While it is in review you cannot change it; you will get
+              an e-mail with the outcome.
+            </p>
+            {sendError && (
+              <p role="alert" className="mt-3 font-semibold text-oxide">
+                {sendError}
+              </p>
+            )}
+            <div className="mt-4 flex flex-wrap items-center gap-3">
+              <Button type="submit" disabled={form.formState.isSubmitting}>
+                {form.formState.isSubmitting
+                  ? 'Sending…'
+                  : view?.status === 'sent_back'
+                    ? 'Send for review again'
+                    : 'Send for review'}
+              </Button>
+              <Link to={paths.mySubmissions()} className="text-sm font-bold text-ink underline">
+                My submissions
+              </Link>
+            </div>
+          </div>
+        </form>
+      </FormProvider>
+    </Page>
+  );
+}

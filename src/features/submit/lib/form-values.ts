@@ -1,0 +1,522 @@
+import { get, set, type FieldErrors } from 'react-hook-form';
+import type { z } from 'zod';
+import {
+  adapterSchema,
+  brakeFiguresSchema,
+  costLineSchema,
+  machiningStepSchema,
+  rotorSchema,
+  shimSchema,
+  spacerSchema,
+  swapDataSchema,
+  swapPartSchema,
+  torqueSpecSchema,
+  wheelRequirementSchema,
+  type SwapData,
+} from '@shared/schemas/swap-data';
+import { createSubmissionSchema, type CreateSubmission, type NewChassis } from '@shared/schemas/submissions';
+import type { Axle, Category, CostRoute, PartKind } from '@shared/schemas/enums';
+import type { ChassisView } from '@shared/schemas/views';
+
+// What the inputs hold. Numbers stay text while typed (a half-typed "12," must not vanish),
+// lists of words are one text box; toPayload turns it into the shared schema's shape, and the
+// field names mirror the schema's paths so client and server errors land on the same field.
+
+type Num = string;
+
+export type CornerValues = { pistonsPerSideMm: string; rotorDiameterMm: Num; padHeightMm: Num };
+
+export type FormValues = {
+  chassisMode: 'existing' | 'new';
+  chassisId: string;
+  newChassis: {
+    make: string;
+    model: string;
+    code: string;
+    yearFrom: Num;
+    yearTo: Num;
+    body: string;
+    lugCount: Num;
+    pcdMm: Num;
+    centreBoreMm: Num;
+    wheelBoltThread: string;
+    stockWheel: { diameterIn: Num; widthIn: Num; offsetMm: Num; tyre: string };
+  };
+  axle: '' | Axle;
+  category: '' | Category;
+  body: string;
+  data: {
+    title: string;
+    summary: string;
+    parts: {
+      partId: string;
+      role: string;
+      kind: PartKind;
+      name: string;
+      maker: string;
+      partNumbers: string;
+      cameOn: string;
+      quantity: Num;
+      notes: string;
+    }[];
+    hasAdapter: boolean;
+    adapter: { name: string; maker: string; partNumber: string; hardwareIncluded: string; notes: string };
+    shims: { location: string; thicknessMm: Num; quantity: Num }[];
+    shimTargetMm: Num;
+    spacers: { thicknessMm: Num; hubCentric: boolean; mounting: 'slip_on' | 'bolt_on'; quantity: Num; notes: string }[];
+    rotors: { diameterMm: Num; thicknessMm: Num; vented: boolean; partNumber: string; notes: string }[];
+    machining: { operation: 'grind' | 'machine' | 'drill' | 'trim'; where: string; required: boolean; notes: string }[];
+    torque: { fastener: string; nm: Num; notes: string }[];
+    hasWheel: boolean;
+    wheel: {
+      minDiameterIn: Num;
+      barrelInnerDiameterMm: Num;
+      caliperRadialProjectionMm: Num;
+      caliperOutboardMm: Num;
+      testedWheels: {
+        diameterIn: Num;
+        widthIn: Num;
+        offsetMm: Num;
+        spacerMm: Num;
+        radialClearanceMm: Num;
+        spokeClearanceMm: Num;
+        note: string;
+      }[];
+      notes: string;
+    };
+    hasBrakes: boolean;
+    brakes: {
+      linePressureBar: Num;
+      padMu: Num;
+      before: { front: CornerValues; rear: CornerValues };
+      after: { front: CornerValues; rear: CornerValues };
+    };
+    currency: string;
+    costs: { route: CostRoute; item: string; amount: Num }[];
+    installHours: Num;
+    difficulty: Num;
+    tools: string;
+    parkingBrakeKept: '' | 'yes' | 'no';
+  };
+};
+
+export const emptyPart = (): FormValues['data']['parts'][number] => ({
+  partId: '',
+  role: '',
+  kind: 'caliper',
+  name: '',
+  maker: '',
+  partNumbers: '',
+  cameOn: '',
+  quantity: '2',
+  notes: '',
+});
+const emptyCorner = (): CornerValues => ({ pistonsPerSideMm: '', rotorDiameterMm: '', padHeightMm: '' });
+
+export function emptyValues(): FormValues {
+  return {
+    chassisMode: 'existing',
+    chassisId: '',
+    newChassis: {
+      make: '',
+      model: '',
+      code: '',
+      yearFrom: '',
+      yearTo: '',
+      body: '',
+      lugCount: '5',
+      pcdMm: '',
+      centreBoreMm: '',
+      wheelBoltThread: '',
+      stockWheel: { diameterIn: '', widthIn: '', offsetMm: '', tyre: '' },
+    },
+    axle: '',
+    category: '',
+    body: '',
+    data: {
+      title: '',
+      summary: '',
+      parts: [emptyPart()],
+      hasAdapter: false,
+      adapter: { name: '', maker: '', partNumber: '', hardwareIncluded: '', notes: '' },
+      shims: [],
+      shimTargetMm: '',
+      spacers: [],
+      rotors: [],
+      machining: [],
+      torque: [],
+      hasWheel: false,
+      wheel: {
+        minDiameterIn: '',
+        barrelInnerDiameterMm: '',
+        caliperRadialProjectionMm: '',
+        caliperOutboardMm: '',
+        testedWheels: [],
+        notes: '',
+      },
+      hasBrakes: false,
+      brakes: {
+        linePressureBar: '50',
+        padMu: '0.4',
+        before: { front: emptyCorner(), rear: emptyCorner() },
+        after: { front: emptyCorner(), rear: emptyCorner() },
+      },
+      currency: 'EUR',
+      costs: [],
+      installHours: '',
+      difficulty: '',
+      tools: '',
+      parkingBrakeKept: '',
+    },
+  };
+}
+
+// ---------- text ↔ values ----------
+
+const str = (n: number | null | undefined) => (n === null || n === undefined ? '' : String(n));
+
+/** '' → undefined; "12,5" → 12.5; anything unreadable stays NaN so the schema names the field */
+export function num(text: string): number | undefined {
+  const t = text.trim().replace(',', '.');
+  if (t === '') return undefined;
+  return Number(t);
+}
+const numOrNull = (text: string) => num(text) ?? null;
+
+export const splitWords = (text: string) =>
+  text
+    .split(/[,\n]/)
+    .map((s) => s.trim())
+    .filter(Boolean);
+export const splitLines = (text: string) =>
+  text
+    .split('\n')
+    .map((s) => s.trim())
+    .filter(Boolean);
+
+function cornerOf(c: CornerValues) {
+  return {
+    pistonsPerSideMm: splitWords(c.pistonsPerSideMm).map((p) => Number(p.replace(',', '.'))),
+    rotorDiameterMm: num(c.rotorDiameterMm),
+    padHeightMm: num(c.padHeightMm),
+  };
+}
+const cornerValues = (c: { pistonsPerSideMm: number[]; rotorDiameterMm: number; padHeightMm: number }): CornerValues => ({
+  pistonsPerSideMm: c.pistonsPerSideMm.join(', '),
+  rotorDiameterMm: str(c.rotorDiameterMm),
+  padHeightMm: str(c.padHeightMm),
+});
+
+/** Only the amount is typed in major units (12.50); the record keeps integer minor units. */
+const toMinor = (text: string) => {
+  const v = num(text);
+  return v === undefined ? undefined : Number.isFinite(v) ? Math.round(v * 100) : v;
+};
+
+/** The structured record as the shared schema reads it (unparsed: the schema decides what is wrong). */
+export function dataOf(d: FormValues['data']): unknown {
+  return {
+    title: d.title,
+    summary: d.summary,
+    parts: d.parts.map((p) => ({
+      ...(p.partId ? { partId: Number(p.partId) } : {}),
+      role: p.role,
+      kind: p.kind,
+      name: p.name,
+      maker: p.maker,
+      partNumbers: splitWords(p.partNumbers),
+      cameOn: splitLines(p.cameOn),
+      quantity: num(p.quantity),
+      notes: p.notes,
+    })),
+    adapter: d.hasAdapter ? { ...d.adapter, hardwareIncluded: splitLines(d.adapter.hardwareIncluded) } : null,
+    shims: d.shims.map((s) => ({ location: s.location, thicknessMm: num(s.thicknessMm), quantity: num(s.quantity) })),
+    shimTargetMm: numOrNull(d.shimTargetMm),
+    spacers: d.spacers.map((s) => ({ ...s, thicknessMm: num(s.thicknessMm), quantity: num(s.quantity) })),
+    rotors: d.rotors.map((r) => ({ ...r, diameterMm: num(r.diameterMm), thicknessMm: num(r.thicknessMm) })),
+    machining: d.machining,
+    torque: d.torque.map((t) => ({ ...t, nm: num(t.nm) })),
+    wheel: d.hasWheel ? wheelOf(d.wheel) : null,
+    brakes: d.hasBrakes ? brakesOf(d.brakes) : null,
+    currency: d.currency.trim().toUpperCase(),
+    costs: d.costs.map((c) => ({ route: c.route, item: c.item, amountMinor: toMinor(c.amount) })),
+    installHours: numOrNull(d.installHours),
+    difficulty: numOrNull(d.difficulty),
+    tools: splitWords(d.tools),
+    parkingBrakeKept: d.parkingBrakeKept === '' ? null : d.parkingBrakeKept === 'yes',
+  };
+}
+
+function wheelOf(w: FormValues['data']['wheel']) {
+  return {
+    minDiameterIn: num(w.minDiameterIn),
+    barrelInnerDiameterMm: num(w.barrelInnerDiameterMm),
+    caliperRadialProjectionMm: num(w.caliperRadialProjectionMm),
+    caliperOutboardMm: num(w.caliperOutboardMm),
+    testedWheels: w.testedWheels.map((t) => ({
+      diameterIn: num(t.diameterIn),
+      widthIn: num(t.widthIn),
+      offsetMm: num(t.offsetMm),
+      spacerMm: num(t.spacerMm) ?? 0,
+      radialClearanceMm: num(t.radialClearanceMm),
+      spokeClearanceMm: num(t.spokeClearanceMm),
+      note: t.note,
+    })),
+    notes: w.notes,
+  };
+}
+
+function brakesOf(b: FormValues['data']['brakes']) {
+  return {
+    linePressureBar: num(b.linePressureBar),
+    padMu: num(b.padMu),
+    before: { front: cornerOf(b.before.front), rear: cornerOf(b.before.rear) },
+    after: { front: cornerOf(b.after.front), rear: cornerOf(b.after.rear) },
+  };
+}
+
+function newChassisOf(c: FormValues['newChassis']) {
+  return {
+    make: c.make,
+    model: c.model,
+    code: c.code,
+    yearFrom: num(c.yearFrom),
+    yearTo: numOrNull(c.yearTo),
+    body: c.body,
+    lugCount: num(c.lugCount),
+    pcdMm: num(c.pcdMm),
+    centreBoreMm: num(c.centreBoreMm),
+    wheelBoltThread: c.wheelBoltThread,
+    ...(c.stockWheel.diameterIn.trim()
+      ? {
+          stockWheel: {
+            diameterIn: num(c.stockWheel.diameterIn),
+            widthIn: num(c.stockWheel.widthIn),
+            offsetMm: num(c.stockWheel.offsetMm),
+            tyre: c.stockWheel.tyre,
+          },
+        }
+      : {}),
+  };
+}
+
+/** The request body of POST /api/submissions (also PATCH, without swapSlug). */
+export function toPayload(v: FormValues, swapSlug: string | null): unknown {
+  const data = dataOf(v.data);
+  if (swapSlug) return { swapSlug, data, body: v.body };
+  return {
+    ...(v.chassisMode === 'existing'
+      ? v.chassisId
+        ? { chassisId: Number(v.chassisId) }
+        : {}
+      : { newChassis: newChassisOf(v.newChassis) }),
+    axle: v.axle || undefined,
+    category: v.category || undefined,
+    data,
+    body: v.body,
+  };
+}
+
+export function valuesFromData(data: SwapData, body: string, base: FormValues = emptyValues()): FormValues {
+  return {
+    ...base,
+    body,
+    data: {
+      title: data.title,
+      summary: data.summary,
+      parts: data.parts.map((p) => ({
+        partId: str(p.partId),
+        role: p.role,
+        kind: p.kind,
+        name: p.name,
+        maker: p.maker,
+        partNumbers: p.partNumbers.join(', '),
+        cameOn: p.cameOn.join('\n'),
+        quantity: str(p.quantity),
+        notes: p.notes,
+      })),
+      hasAdapter: data.adapter !== null,
+      adapter: data.adapter ? { ...data.adapter, hardwareIncluded: data.adapter.hardwareIncluded.join('\n') } : base.data.adapter,
+      shims: data.shims.map((s) => ({ location: s.location, thicknessMm: str(s.thicknessMm), quantity: str(s.quantity) })),
+      shimTargetMm: str(data.shimTargetMm),
+      spacers: data.spacers.map((s) => ({ ...s, thicknessMm: str(s.thicknessMm), quantity: str(s.quantity) })),
+      rotors: data.rotors.map((r) => ({ ...r, diameterMm: str(r.diameterMm), thicknessMm: str(r.thicknessMm) })),
+      machining: data.machining.map((m) => ({ ...m })),
+      torque: data.torque.map((t) => ({ ...t, nm: str(t.nm) })),
+      hasWheel: data.wheel !== null,
+      wheel: data.wheel
+        ? {
+            minDiameterIn: str(data.wheel.minDiameterIn),
+            barrelInnerDiameterMm: str(data.wheel.barrelInnerDiameterMm),
+            caliperRadialProjectionMm: str(data.wheel.caliperRadialProjectionMm),
+            caliperOutboardMm: str(data.wheel.caliperOutboardMm),
+            testedWheels: data.wheel.testedWheels.map((t) => ({
+              diameterIn: str(t.diameterIn),
+              widthIn: str(t.widthIn),
+              offsetMm: str(t.offsetMm),
+              spacerMm: str(t.spacerMm),
+              radialClearanceMm: str(t.radialClearanceMm),
+              spokeClearanceMm: str(t.spokeClearanceMm),
+              note: t.note,
+            })),
+            notes: data.wheel.notes,
+          }
+        : base.data.wheel,
+      hasBrakes: data.brakes !== null,
+      brakes: data.brakes
+        ? {
+            linePressureBar: str(data.brakes.linePressureBar),
+            padMu: str(data.brakes.padMu),
+            before: { front: cornerValues(data.brakes.before.front), rear: cornerValues(data.brakes.before.rear) },
+            after: { front: cornerValues(data.brakes.after.front), rear: cornerValues(data.brakes.after.rear) },
+          }
+        : base.data.brakes,
+      currency: data.currency,
+      costs: data.costs.map((c) => ({ route: c.route, item: c.item, amount: (c.amountMinor / 100).toFixed(2) })),
+      installHours: str(data.installHours),
+      difficulty: str(data.difficulty),
+      tools: data.tools.join(', '),
+      parkingBrakeKept: data.parkingBrakeKept === null ? '' : data.parkingBrakeKept ? 'yes' : 'no',
+    },
+  };
+}
+
+export function valuesFromChassis(chassisId: number, axle: Axle, category: Category, base: FormValues): FormValues {
+  return { ...base, chassisMode: 'existing', chassisId: String(chassisId), axle, category };
+}
+
+/** "Before" figures from the chassis' stock brakes, which the catalogue already knows. */
+export function stockCorner(c: ChassisView['stockBrakes']['front']): CornerValues {
+  return cornerValues(c);
+}
+
+// ---------- validation ----------
+
+/** Friendlier words for zod's generic messages; the schema's own messages always win. */
+export function friendlyIssue(issue: {
+  code: string;
+  input?: unknown;
+  minimum?: unknown;
+  maximum?: unknown;
+  origin?: string;
+}): string | undefined {
+  if (issue.code === 'invalid_type')
+    return issue.input === undefined || issue.input === null
+      ? 'Needed'
+      : typeof issue.input === 'number'
+        ? 'Enter a number'
+        : 'Check this value';
+  if (issue.code === 'too_small' && issue.origin === 'number') return `At least ${String(issue.minimum)}`;
+  if (issue.code === 'too_big' && issue.origin === 'number') return `At most ${String(issue.maximum)}`;
+  if (issue.code === 'too_big' && issue.origin === 'string') return `At most ${String(issue.maximum)} characters`;
+  if (issue.code === 'too_small' && issue.origin === 'string')
+    return Number(issue.minimum) <= 1 ? 'Needed' : `At least ${String(issue.minimum)} characters`;
+  if (issue.code === 'too_big' && issue.origin === 'array') return `At most ${String(issue.maximum)} entries`;
+  if (issue.code === 'invalid_value') return 'Pick one of the choices';
+  return undefined;
+}
+
+/**
+ * A schema path (server field or zod issue) → the form field showing it: list items of a
+ * word list collapse onto their text box, amounts onto the typed amount.
+ */
+export function formPathOf(path: string): string {
+  return path
+    .replace(/^(data\.parts\.\d+\.(?:partNumbers|cameOn))\.\d+$/, '$1')
+    .replace(/^(data\.adapter\.hardwareIncluded)\.\d+$/, '$1')
+    .replace(/^(data\.tools)\.\d+$/, '$1')
+    .replace(/^(data\.brakes\.(?:before|after)\.(?:front|rear)\.pistonsPerSideMm)\.\d+$/, '$1')
+    .replace(/^(data\.costs\.\d+)\.amountMinor$/, '$1.amount')
+    .replace(/^newChassis$/, 'newChassis.make')
+    .replace(/^data\.parts$/, 'data.parts.root');
+}
+
+export type ParseResult = { ok: true; payload: CreateSubmission } | { ok: false; issues: { path: string; message: string }[] };
+
+const placeholderData = { title: 'placeholder title', parts: [{ role: 'x', kind: 'caliper', name: 'xx', quantity: 1 }] };
+
+export function parsePayload(v: FormValues, swapSlug: string | null): ParseResult {
+  const payload = toPayload(v, swapSlug) as Record<string, unknown>;
+  const opts = { error: (iss: unknown) => friendlyIssue(iss as never) };
+  const result = createSubmissionSchema.safeParse(payload, opts);
+  if (result.success) return { ok: true, payload: result.data };
+  const issues = result.error.issues.map((i) => ({ path: formPathOf(i.path.map(String).join('.')), message: i.message }));
+  // the schema's whole-object rules (chassis, axle, category) only run once the record reads;
+  // run them against a stand-in record too, so those fields are marked at the same time
+  const outer = createSubmissionSchema.safeParse({ ...payload, data: placeholderData }, opts);
+  if (!outer.success) {
+    for (const i of outer.error.issues) {
+      const path = formPathOf(i.path.map(String).join('.'));
+      if (!path.startsWith('data') && !issues.some((x) => x.path === path)) issues.push({ path, message: i.message });
+    }
+  }
+  return { ok: false, issues };
+}
+
+export function errorsOf(issues: { path: string; message: string }[]): FieldErrors<FormValues> {
+  const errors: FieldErrors<FormValues> = {};
+  for (const i of issues) if (!get(errors, i.path)) set(errors, i.path, { type: 'schema', message: i.message });
+  return errors;
+}
+
+/** The first message at a field or anywhere under it (a list's row errors show on the row). */
+export function messageAt(errors: unknown, path: string): string | undefined {
+  const node = get(errors, path) as unknown;
+  const find = (n: unknown, depth: number): string | undefined => {
+    if (!n || typeof n !== 'object' || depth > 4) return undefined;
+    const m = (n as { message?: unknown }).message;
+    if (typeof m === 'string' && m) return m;
+    for (const [k, child] of Object.entries(n))
+      if (k !== 'ref' && k !== 'type') {
+        const f = find(child, depth + 1);
+        if (f) return f;
+      }
+    return undefined;
+  };
+  return find(node, 0);
+}
+
+// ---------- live figures on a half-filled form ----------
+
+type SectionSchema<T> = z.ZodType<T>;
+function tryParse<T>(schema: SectionSchema<T>, value: unknown): T | null {
+  const r = schema.safeParse(value);
+  return r.success ? r.data : null;
+}
+
+/**
+ * A complete SwapData from whatever sections already read correctly, for the figures and checks
+ * beside the form; a row or section still being typed counts as absent rather than blocking the rest.
+ */
+export function liveDataOf(v: FormValues['data']): SwapData {
+  const raw = dataOf(v) as Record<string, unknown>;
+  const rows = <T>(schema: SectionSchema<T>, list: unknown) =>
+    ((list as unknown[]) ?? []).map((r) => tryParse(schema, r)).filter((r): r is T => r !== null);
+  const shape = swapDataSchema.shape;
+  return {
+    title: String(raw.title ?? '').trim(),
+    summary: '',
+    parts: rows(swapPartSchema, raw.parts),
+    adapter: raw.adapter ? tryParse(adapterSchema, raw.adapter) : null,
+    shims: rows(shimSchema, raw.shims),
+    shimTargetMm: tryParse(shape.shimTargetMm, raw.shimTargetMm),
+    spacers: rows(spacerSchema, raw.spacers),
+    rotors: rows(rotorSchema, raw.rotors),
+    machining: rows(machiningStepSchema, raw.machining),
+    torque: rows(torqueSpecSchema, raw.torque),
+    wheel: raw.wheel ? tryParse(wheelRequirementSchema, raw.wheel) : null,
+    brakes: raw.brakes ? tryParse(brakeFiguresSchema, raw.brakes) : null,
+    currency: /^[A-Z]{3}$/.test(String(raw.currency)) ? String(raw.currency) : 'EUR',
+    costs: rows(costLineSchema, raw.costs),
+    installHours: tryParse(shape.installHours, raw.installHours),
+    difficulty: tryParse(shape.difficulty, raw.difficulty),
+    tools: [],
+    parkingBrakeKept: null,
+  };
+}
+
+export function newChassisReadable(v: FormValues['newChassis']): Pick<NewChassis, 'wheelBoltThread'> | null {
+  return /^M\d{1,2}(?:[x×]\d(?:\.\d{1,2})?)$/i.test(v.wheelBoltThread.trim())
+    ? { wheelBoltThread: v.wheelBoltThread.trim() }
+    : null;
+}

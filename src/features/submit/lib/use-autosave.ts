@@ -1,0 +1,177 @@
+import { useCallback, useEffect, useRef, useState } from 'react';
+import type { UseFormReturn } from 'react-hook-form';
+import type { SubmissionView, UpdateSubmission } from '@shared/schemas/submissions';
+import { ApiError } from '../../../lib/api-client';
+import { createSubmission, updateSubmission } from '../api/save-submission';
+import { formPathOf, parsePayload, type FormValues } from './form-values';
+
+export type SaveState =
+  | { kind: 'idle' }
+  | { kind: 'pending' }
+  | { kind: 'saving' }
+  | { kind: 'saved'; at: Date }
+  | { kind: 'incomplete'; issues: { path: string; message: string }[] }
+  | { kind: 'error'; message: string; fields: number };
+
+const DEBOUNCE_MS = 1200;
+
+// ---- a copy of the inputs on this device, so nothing typed is lost when a save fails ----
+
+type Backup = { values: FormValues; at: number };
+export function readBackup(key: string): Backup | null {
+  try {
+    const raw = localStorage.getItem(key);
+    return raw ? (JSON.parse(raw) as Backup) : null;
+  } catch {
+    return null;
+  }
+}
+function writeBackup(key: string, values: FormValues) {
+  try {
+    localStorage.setItem(key, JSON.stringify({ values, at: Date.now() } satisfies Backup));
+  } catch {
+    // storage full or blocked: the form itself still holds the input
+  }
+}
+export function clearBackup(key: string) {
+  try {
+    localStorage.removeItem(key);
+  } catch {
+    // nothing to clear
+  }
+}
+
+type Options = {
+  form: UseFormReturn<FormValues>;
+  submissionId: number | null;
+  swapSlug: string | null;
+  enabled: boolean;
+  backupKey: string;
+  onCreated: (view: SubmissionView) => void;
+  onSaved?: (view: SubmissionView) => void;
+  /** the values the server already holds, when the form opens on a saved revision */
+  savedValues?: FormValues | null;
+};
+
+/**
+ * Saves the draft a moment after each change: the first save creates it (POST), later ones
+ * replace it (PATCH). Saves run one at a time; a change during a save triggers one more.
+ * An incomplete record is kept on this device until it passes the shared schema.
+ */
+export function useAutosave({
+  form,
+  submissionId,
+  swapSlug,
+  enabled,
+  backupKey,
+  onCreated,
+  onSaved,
+  savedValues = null,
+}: Options) {
+  const [state, setStateRaw] = useState<SaveState>(submissionId ? { kind: 'saved', at: new Date() } : { kind: 'idle' });
+  const stateRef = useRef<SaveState>(state);
+  const setState = useCallback((next: SaveState | ((s: SaveState) => SaveState)) => {
+    stateRef.current = typeof next === 'function' ? next(stateRef.current) : next;
+    setStateRaw(stateRef.current);
+  }, []);
+  const idRef = useRef(submissionId);
+  const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const running = useRef<Promise<SubmissionView | null> | null>(null);
+  const again = useRef(false);
+  const [savedJson] = useState(() => {
+    const parsed = savedValues ? parsePayload(savedValues, swapSlug) : null;
+    return parsed?.ok ? JSON.stringify(parsed.payload) : null;
+  });
+  const lastSaved = useRef<string | null>(savedJson);
+  const changedSinceSave = useRef(false);
+  const callbacks = useRef({ onCreated, onSaved });
+  callbacks.current = { onCreated, onSaved };
+
+  useEffect(() => {
+    idRef.current = submissionId;
+  }, [submissionId]);
+
+  const saveNow = useCallback(async (): Promise<SubmissionView | null> => {
+    const parsed = parsePayload(form.getValues(), swapSlug);
+    if (!parsed.ok) {
+      setState({ kind: 'incomplete', issues: parsed.issues });
+      return null;
+    }
+    const json = JSON.stringify(parsed.payload);
+    if (json === lastSaved.current && idRef.current) {
+      setState((s) => (s.kind === 'saved' ? s : { kind: 'saved', at: new Date() }));
+      return null;
+    }
+    setState({ kind: 'saving' });
+    changedSinceSave.current = false;
+    try {
+      let view: SubmissionView;
+      if (idRef.current) {
+        const { swapSlug: _slug, ...rest } = parsed.payload;
+        void _slug;
+        view = await updateSubmission(idRef.current, rest as UpdateSubmission);
+      } else {
+        view = await createSubmission(parsed.payload);
+        idRef.current = view.id;
+        callbacks.current.onCreated(view);
+      }
+      lastSaved.current = json;
+      if (!changedSinceSave.current) clearBackup(backupKey);
+      setState({ kind: 'saved', at: new Date() });
+      callbacks.current.onSaved?.(view);
+      return view;
+    } catch (err) {
+      const apiErr = err instanceof ApiError ? err : null;
+      const fields = Object.entries(apiErr?.fields ?? {});
+      for (const [path, message] of fields) form.setError(formPathOf(path) as never, { type: 'server', message });
+      setState({
+        kind: 'error',
+        message: apiErr?.message ?? 'The draft could not be saved. Your input is still here.',
+        fields: fields.length,
+      });
+      return null;
+    }
+  }, [form, swapSlug, backupKey, setState]);
+
+  const run = useCallback((): Promise<SubmissionView | null> => {
+    if (running.current) {
+      again.current = true;
+      return running.current;
+    }
+    const p = saveNow().finally(() => {
+      running.current = null;
+      if (again.current) {
+        again.current = false;
+        void run();
+      }
+    });
+    running.current = p;
+    return p;
+  }, [saveNow]);
+
+  useEffect(() => {
+    if (!enabled) return;
+    const sub = form.watch((values, info) => {
+      if (!info.name && info.type === undefined) return; // a reset, not a person typing
+      changedSinceSave.current = true;
+      writeBackup(backupKey, values as FormValues);
+      setState({ kind: 'pending' });
+      if (timer.current) clearTimeout(timer.current);
+      timer.current = setTimeout(() => void run(), DEBOUNCE_MS);
+    });
+    return () => {
+      sub.unsubscribe();
+      if (timer.current) clearTimeout(timer.current);
+    };
+  }, [enabled, form, backupKey, run, setState]);
+
+  /** Save whatever is pending now (before sending for review); ok when the server holds the current input. */
+  const flush = useCallback(async () => {
+    if (timer.current) clearTimeout(timer.current);
+    if (running.current) await running.current;
+    await run();
+    return { id: idRef.current, ok: stateRef.current.kind === 'saved' };
+  }, [run]);
+
+  return { state, flush, retry: run };
+}

@@ -1,0 +1,117 @@
+import { describe, expect, it } from 'vitest';
+import {
+  emptyValues,
+  formPathOf,
+  liveDataOf,
+  parsePayload,
+  toPayload,
+  valuesFromData,
+  type FormValues,
+} from '../../../src/features/submit/lib/form-values';
+import { brakeBalanceOf, costSummaryOf } from '../../../shared/fitment/swap-checks';
+
+function filled(): FormValues {
+  const v = emptyValues();
+  v.chassisId = '3';
+  v.axle = 'front';
+  v.category = 'brakes';
+  v.body = 'Bolted on in an afternoon.';
+  v.data.title = 'Vela four-piston calipers on the H31';
+  v.data.parts[0] = {
+    ...v.data.parts[0],
+    role: 'front caliper',
+    name: 'Vela four-piston caliper',
+    partNumbers: 'OV-355-104-L, OV-355-104-R',
+    cameOn: 'Orsino Vela 2.0\nOrsino Vela 2.4',
+    quantity: '2',
+  };
+  v.data.hasAdapter = true;
+  v.data.adapter = {
+    name: 'Northgate bracket',
+    maker: 'Northgate Fabrication',
+    partNumber: 'NF-31-V4',
+    hardwareIncluded: '2 × M10 bolts\n2 × washers',
+    notes: '',
+  };
+  v.data.torque = [{ fastener: 'caliper to bracket', nm: '85,5', notes: '' }];
+  v.data.costs = [{ route: 'as_built', item: 'Calipers, used', amount: '240.50' }];
+  v.data.tools = 'torque wrench, flare-nut spanner';
+  v.data.parkingBrakeKept = '';
+  return v;
+}
+
+describe('submission form values', () => {
+  it('when the form is filled, then the payload passes the shared schema with numbers, lists and minor units', () => {
+    const r = parsePayload(filled(), null);
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.payload.chassisId).toBe(3);
+    expect(r.payload.data.parts[0].partNumbers).toEqual(['OV-355-104-L', 'OV-355-104-R']);
+    expect(r.payload.data.parts[0].cameOn).toEqual(['Orsino Vela 2.0', 'Orsino Vela 2.4']);
+    expect(r.payload.data.adapter?.hardwareIncluded).toEqual(['2 × M10 bolts', '2 × washers']);
+    expect(r.payload.data.torque[0].nm).toBe(85.5);
+    expect(r.payload.data.costs[0].amountMinor).toBe(24050);
+    expect(r.payload.data.tools).toEqual(['torque wrench', 'flare-nut spanner']);
+    expect(r.payload.data.wheel).toBeNull();
+  });
+
+  it('when a saved record is loaded into the form, then saving it again gives the same record', () => {
+    const first = parsePayload(filled(), null);
+    if (!first.ok) throw new Error('fixture must parse');
+    const again = parsePayload(
+      valuesFromData(first.payload.data, first.payload.body, {
+        ...emptyValues(),
+        chassisId: '3',
+        axle: 'front',
+        category: 'brakes',
+      }),
+      null,
+    );
+    expect(again.ok && again.payload).toEqual(first.payload);
+  });
+
+  it('when fields are wrong, then each issue names the form field that shows it', () => {
+    const v = filled();
+    v.data.title = 'short';
+    v.data.parts[0].quantity = '';
+    v.data.costs[0].amount = 'lots';
+    v.chassisId = '';
+    const r = parsePayload(v, null);
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    const by = Object.fromEntries(r.issues.map((i) => [i.path, i.message]));
+    expect(by['data.title']).toBe('A title of at least 8 characters');
+    expect(by['data.parts.0.quantity']).toBe('Needed');
+    expect(by['data.costs.0.amount']).toBe('Enter a number');
+    expect(by.chassisId).toBe('Pick a chassis or propose a new one');
+  });
+
+  it('when the server names a list item or a minor-unit amount, then the error goes to the text box', () => {
+    expect(formPathOf('data.parts.1.partNumbers.3')).toBe('data.parts.1.partNumbers');
+    expect(formPathOf('data.costs.2.amountMinor')).toBe('data.costs.2.amount');
+    expect(formPathOf('data.tools.0')).toBe('data.tools');
+    expect(formPathOf('data.brakes.after.front.pistonsPerSideMm.1')).toBe('data.brakes.after.front.pistonsPerSideMm');
+    expect(formPathOf('data.parts.0.name')).toBe('data.parts.0.name');
+  });
+
+  it('when a correction is saved, then only the slug, data and body are sent', () => {
+    const payload = toPayload(filled(), 'vela-calipers-h31') as Record<string, unknown>;
+    expect(Object.keys(payload).sort()).toEqual(['body', 'data', 'swapSlug']);
+  });
+
+  it('when only some sections read correctly, then the live figures use those and skip the rest', () => {
+    const v = filled();
+    v.data.hasBrakes = true;
+    const corner = { pistonsPerSideMm: '38, 42', rotorDiameterMm: '280', padHeightMm: '45' };
+    v.data.brakes.before = { front: { pistonsPerSideMm: '54', rotorDiameterMm: '256', padHeightMm: '40' }, rear: corner };
+    v.data.brakes.after = { front: corner, rear: corner };
+    v.data.costs.push({ route: 'new_kit', item: 'Kit', amount: 'half-typed,' });
+    const live = liveDataOf(v.data);
+    expect(live.brakes?.after.front.pistonsPerSideMm).toEqual([38, 42]);
+    expect(brakeBalanceOf(live)).not.toBeNull();
+    expect(live.costs).toHaveLength(1);
+    expect(costSummaryOf(live).totals.as_built).toBe(24050);
+    v.data.brakes.after.front.rotorDiameterMm = '';
+    expect(liveDataOf(v.data).brakes).toBeNull();
+  });
+});
