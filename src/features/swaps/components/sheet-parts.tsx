@@ -65,7 +65,7 @@ export function ShimsSpacersSection({ data }: { data: SwapData }) {
   const { length } = useUnits();
   return (
     <SheetSection id="shims" title="Shims and spacers">
-      <div className="grid gap-4 md:grid-cols-2">
+      <div className="grid grid-cols-1 gap-4 md:grid-cols-2">
         <div>
           <h3 className="mb-1 text-sm font-bold">Centring shims (adapter to caliper)</h3>
           {data.shims.length === 0 ? (

@@ -107,7 +107,7 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
         </div>
       </header>
 
-      <div className="grid gap-10 print:gap-4">
+      <div className="grid grid-cols-1 gap-10 print:gap-4">
         <Caution topics={brakesWork ? ['brakes', 'wheels', 'fasteners'] : ['wheels', 'fasteners']} />
         <PartsSection parts={data.parts} />
         {data.adapter && <AdapterSection adapter={data.adapter} />}
