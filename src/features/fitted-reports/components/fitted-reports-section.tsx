@@ -31,7 +31,7 @@ export function useWheelText() {
 export function FittedReportsSection({ slug, revisions, shownNumber, onChanged }: Props) {
   const query = useFittedReports(slug);
   return (
-    <section id="fitted" aria-labelledby="fitted-h" className="print-break-avoid scroll-mt-20">
+    <section id="fitted" aria-labelledby="fitted-h" className="no-print scroll-mt-20">
       <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2 border-b border-ink/15 pb-1">
         <h2 id="fitted-h" className="text-lg font-extrabold text-ink">
           Fitted by members
@@ -75,7 +75,7 @@ function FittedReportsBody({ view, slug, revisions, shownNumber, onChanged }: Pr
                   <strong>
                     Fitted by {v.fittedBy} other {v.fittedBy === 1 ? 'member' : 'members'}
                   </strong>
-                  , not counting its author.
+                  .
                 </>
               ) : (
                 'No other member has reported fitting it yet.'
