@@ -3,7 +3,7 @@ import QRCode from 'qrcode';
 import { z } from 'zod';
 import type { AppDeps } from '../../app';
 import { validated } from '../../middleware/validate';
-import { requireUser } from '../../middleware/require-role';
+import { requirePermission, requireRole, requireUser } from '../../middleware/require-role';
 import { slugSchema } from '../../../shared/schemas/params';
 import { createShopLinkSchema, shopLinkCodeSchema, updateShopLinkSchema, updateShopSchema } from '../../../shared/schemas/shops';
 import {
@@ -38,7 +38,7 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
 
   router.patch(
     '/shops/:slug',
-    requireUser,
+    requireRole('shop'),
     validated({ params: z.object({ slug: slugSchema }), body: updateShopSchema }, ({ params, body }, req, res) => {
       res.json({ shop: updateShop(db, clock, params.slug, req.user!, body) });
     }),
@@ -54,7 +54,7 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
 
   router.post(
     '/shop-links',
-    requireUser,
+    requirePermission('manage_shop_links'),
     validated({ body: createShopLinkSchema }, ({ body }, req, res) => {
       const link = createShopLink(db, clock, appUrl, req.user!, body);
       req.log?.info({ event: 'shop_link_created', code: link.code, userId: req.user!.id }, 'shop link created');
@@ -64,7 +64,7 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
 
   router.patch(
     '/shop-links/:code',
-    requireUser,
+    requirePermission('manage_shop_links'),
     validated({ params: codeParams, body: updateShopLinkSchema }, ({ params, body }, req, res) => {
       res.json({ link: updateShopLinkNote(db, clock, appUrl, req.user!, params.code, body.note) });
     }),
@@ -72,7 +72,7 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
 
   router.post(
     '/shop-links/:code/retire',
-    requireUser,
+    requirePermission('manage_shop_links'),
     validated({ params: codeParams }, ({ params }, req, res) => {
       res.json({ link: retireShopLink(db, clock, appUrl, req.user!, params.code) });
     }),
