@@ -169,7 +169,7 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
             </SheetSection>
           </div>
         )}
-        {extraSections}
+        {extraSections && <div className="grid grid-cols-1 gap-10 print:hidden">{extraSections}</div>}
         <div className="print:hidden">
           <RevisionHistory slug={swap.slug} history={history} shown={revision.number} />
         </div>
