@@ -1,5 +1,5 @@
 import MiniSearch, { type Options, type Query, type SearchOptions } from 'minisearch';
-import { axles, categories, categoryLabels, machiningLevels, type Axle, type Category, type MachiningLevel } from '../schemas/enums';
+import { axles, categories, categoryLabels, machiningLevelLabels, machiningLevels, type Axle, type Category, type MachiningLevel } from '../schemas/enums';
 import { parseQuery, processTerm, tokenize, chunkPieces } from './normalise';
 import type { SearchDocument } from './search-document';
 
@@ -491,7 +491,7 @@ function allowedCodes(index: SearchIndex, f: SearchFilters): Record<Group, Uint8
 }
 
 const parkingLabels: Record<string, string> = { yes: 'Parking brake kept', no: 'Parking brake lost' };
-const machiningLabels: Record<string, string> = { none: 'No machining', minor: 'Minor work', major: 'Machining required' };
+const machiningLabels: Record<string, string> = machiningLevelLabels;
 
 /** Query, filter, count facets, sort and page. */
 export function search(index: SearchIndex, request: SearchRequest = {}): SearchResponse {

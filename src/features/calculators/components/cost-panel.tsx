@@ -6,6 +6,7 @@ import { Select, TextInput } from '../../../components/ui/field';
 import { Figure } from '../../../components/verdict';
 import { readable, type CalcParams } from './calc-params';
 import { Panel, Waiting } from './calc-form';
+import { formatMoney } from '../../../lib/money';
 
 export const costKeys = ['cost', 'cur'];
 
@@ -27,11 +28,7 @@ export function toMinor(text: string): number | null {
   return Number(match[1]) * 100 + Number((match[2] ?? '0').padEnd(2, '0'));
 }
 
-export function formatMoney(minor: number, currency: string): string {
-  const abs = Math.abs(minor);
-  const whole = Math.floor(abs / 100).toLocaleString('en-GB');
-  return `${minor < 0 ? '−' : ''}${whole}.${String(abs % 100).padStart(2, '0')} ${currency}`;
-}
+const money = (minor: number, currency: string) => formatMoney(minor, currency, { code: true });
 
 export function CostPanel({ params }: { params: CalcParams }) {
   const stored = params.getAll('cost').map(decode);
@@ -143,15 +140,15 @@ export function CostPanel({ params }: { params: CalcParams }) {
                 <Figure
                   key={route}
                   label={costRouteLabels[route]}
-                  value={formatMoney(total, currency)}
+                  value={money(total, currency)}
                   note={
                     route === 'new_kit'
                       ? 'the baseline'
                       : saving === null
                         ? 'add a new kit line to compare'
                         : saving.amountMinor >= 0
-                          ? `saves ${formatMoney(saving.amountMinor, currency)}${saving.percent !== null ? ` (${saving.percent.toFixed(1)} %)` : ''} against the new kit`
-                          : `costs ${formatMoney(-saving.amountMinor, currency)} more than the new kit`
+                          ? `saves ${money(saving.amountMinor, currency)}${saving.percent !== null ? ` (${saving.percent.toFixed(1)} %)` : ''} against the new kit`
+                          : `costs ${money(-saving.amountMinor, currency)} more than the new kit`
                   }
                 />
               );

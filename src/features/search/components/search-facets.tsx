@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { costBuckets, type FacetValue, type FilterKey, type SearchFacets, type SearchFilters } from '@shared/search/search-engine';
 import { ChassisCombobox, type ChassisOption } from '../../../components/chassis-combobox';
-import { formatMoney } from './search-result';
+import { formatMoney } from '../../../lib/money';
 
 type Props = {
   facets: SearchFacets;
@@ -15,7 +15,7 @@ type Props = {
 export function costBucketLabel(value: string, currency: string | null) {
   const b = costBuckets.find((x) => x.value === value);
   if (!b) return value;
-  const money = (minor: number) => (currency ? formatMoney(minor, currency) : String(minor / 100));
+  const money = (minor: number) => (currency ? formatMoney(minor, currency, { whole: true }) : String(minor / 100));
   if (b.minMinor === 0) return `Under ${money(b.maxMinor)}`;
   if (b.maxMinor === Infinity) return `${money(b.minMinor)} and more`;
   return `${money(b.minMinor)} – ${money(b.maxMinor)}`;

@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import { useNavigationType, useSearchParams } from 'react-router';
-import { categoryLabels, type Category } from '@shared/schemas/enums';
+import { categoryLabels, machiningLevelLabels, type Category, type MachiningLevel } from '@shared/schemas/enums';
 import type { FilterKey, SearchFilters, SearchResponse, SearchSort } from '@shared/search/search-engine';
 import { Page } from '../../../components/ui/page';
 import { Button } from '../../../components/ui/button';
@@ -24,7 +24,7 @@ function filterLabel(key: FilterKey, filters: SearchFilters, info: IndexInfo | u
     case 'wheel':
       return `${v}″ wheels`;
     case 'machining':
-      return v === 'none' ? 'No machining' : v === 'minor' ? 'Minor work' : 'Machining required';
+      return machiningLevelLabels[v as MachiningLevel];
     case 'parkingBrake':
       return v === 'yes' ? 'Parking brake kept' : 'Parking brake lost';
     case 'cost':

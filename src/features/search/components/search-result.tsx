@@ -1,19 +1,17 @@
 import { Link } from 'react-router';
 import type { SearchDocument } from '@shared/search/search-document';
-import { categoryLabels } from '@shared/schemas/enums';
+import { categoryLabels, machiningLevelLabels } from '@shared/schemas/enums';
 import { Badge } from '../../../components/ui/badge';
 import { chassisLabel } from '../../../components/swap-card';
 import { paths } from '../../../config/paths';
+import { formatMoney } from '../../../lib/money';
 
-const machiningText = { none: 'No machining', minor: 'Minor work', major: 'Machining required' } as const;
 
-export function formatMoney(minor: number, currency: string) {
-  return new Intl.NumberFormat('en-GB', { style: 'currency', currency, maximumFractionDigits: 0 }).format(minor / 100);
-}
+const wholeMoney = (minor: number, currency: string) => formatMoney(minor, currency, { whole: true });
 
 export function costText(cost: SearchDocument['cost']) {
   if (!cost) return null;
-  return cost.min === cost.max ? formatMoney(cost.min, cost.currency) : `${formatMoney(cost.min, cost.currency)} – ${formatMoney(cost.max, cost.currency)}`;
+  return cost.min === cost.max ? wholeMoney(cost.min, cost.currency) : `${wholeMoney(cost.min, cost.currency)} – ${wholeMoney(cost.max, cost.currency)}`;
 }
 
 /** One result: title, chassis, the specs people filter by, and the parts that make it up. */
@@ -25,7 +23,7 @@ export function SearchResult({ doc }: { doc: SearchDocument }) {
       <div className="flex flex-wrap items-center gap-1.5">
         <Badge tone="ink">{doc.axle === 'front' ? 'Front axle' : 'Rear axle'}</Badge>
         <Badge tone="plain">{categoryLabels[doc.category]}</Badge>
-        {doc.machining !== 'none' && <Badge tone={doc.machining === 'major' ? 'oxide' : 'brass'}>{machiningText[doc.machining]}</Badge>}
+        {doc.machining !== 'none' && <Badge tone={doc.machining === 'major' ? 'oxide' : 'brass'}>{machiningLevelLabels[doc.machining]}</Badge>}
       </div>
       <h3 className="mt-2 text-lg font-extrabold leading-snug text-ink">
         <Link to={paths.swap(doc.slug)} data-result-link className="after:absolute after:inset-0 focus:outline-none">

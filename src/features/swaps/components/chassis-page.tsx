@@ -25,7 +25,7 @@ export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) 
   const { chassis: c, swaps } = query.data;
   const corner = (k: 'front' | 'rear') => c.stockBrakes[k];
   return (
-    <Page title={chassisLabel(c)} heading={`${c.make} ${c.model} · ${c.code}`} lead={`${c.body} · ${c.yearFrom}–${c.yearTo ?? 'on'}${c.notes ? ` · ${c.notes}` : ''}`}
+    <Page title={chassisLabel(c)} heading={c.code === c.model ? `${c.make} ${c.model}` : `${c.make} ${c.model} · ${c.code}`} lead={`${c.body} · ${c.yearFrom}–${c.yearTo ?? 'on'}${c.notes ? ` · ${c.notes}` : ''}`}
       actions={<ButtonLink to={paths.search(`chassis=${c.slug}`)} variant="secondary">Search within this chassis</ButtonLink>}>
       <section aria-labelledby="hub-h" className="grid gap-4 md:grid-cols-3">
         <h2 id="hub-h" className="sr-only">Hub and stock specs</h2>

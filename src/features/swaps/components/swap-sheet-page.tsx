@@ -1,6 +1,6 @@
 import { Link, useParams } from 'react-router';
 import type { SwapSheetView } from '@shared/schemas/views';
-import { categoryLabels } from '@shared/schemas/enums';
+import { categoryLabels, machiningLevelLabels } from '@shared/schemas/enums';
 import { machiningLevel } from '@shared/schemas/swap-data';
 import { useSwap } from '../api/get-swap';
 import { Page } from '../../../components/ui/page';
@@ -73,7 +73,7 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
           <Badge tone="ink">{swap.axle === 'front' ? 'Front axle' : 'Rear axle'}</Badge>
           <Badge>{categoryLabels[swap.category]}</Badge>
           <Badge tone={level === 'major' ? 'oxide' : level === 'minor' ? 'brass' : 'plain'}>
-            {level === 'none' ? 'No machining' : level === 'minor' ? 'Minor machining' : 'Major machining'}
+            {machiningLevelLabels[level]}
           </Badge>
           {data.parkingBrakeKept !== null && <Badge tone={data.parkingBrakeKept ? 'ink' : 'oxide'}>{data.parkingBrakeKept ? 'Parking brake kept' : 'Parking brake lost'}</Badge>}
         </div>
