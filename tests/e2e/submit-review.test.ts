@@ -54,12 +54,26 @@ function photo(): Promise<Buffer> {
   const height = 600;
   const raw = Buffer.alloc(width * height * 3);
   for (let i = 0; i < raw.length; i++) raw[i] = (i * 7919 + (i >> 5) * 104729) % 251;
-  return sharp(raw, { raw: { width, height, channels: 3 } }).jpeg({ quality: 95 }).toBuffer();
+  return sharp(raw, { raw: { width, height, channels: 3 } })
+    .jpeg({ quality: 95 })
+    .toBuffer();
 }
 
 const title = 'Orsino Vela calipers on the Halden H31 front';
 
 describe('submit and review journey', () => {
+  it('when the form opens on a 390 px phone, then nothing is wider than the screen', async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+    const { page, errors } = await signIn(context, 'camber_kai', '/submit');
+    await page.getByRole('heading', { level: 1, name: 'Record a swap' }).waitFor();
+    await page.getByRole('checkbox', { name: 'The swap limits which wheels fit' }).check();
+    await page.getByRole('button', { name: 'Add a tested wheel' }).click();
+    await page.getByRole('checkbox', { name: 'The swap changes calipers or rotors' }).check();
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   it('when a member records a swap and a moderator approves it, then it is searchable and the member is told', async () => {
     // ---- the member fills the form ----
     const memberContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
@@ -107,12 +121,16 @@ describe('submit and review journey', () => {
     await text('Item').fill('Two used calipers');
     await text('Amount').fill('240');
 
-    await page.getByRole('textbox', { name: 'Write-up (markdown)' }).fill('## Fitting\n\nThe **bracket** bolts on without grinding.');
+    await page
+      .getByRole('textbox', { name: 'Write-up (markdown)' })
+      .fill('## Fitting\n\nThe **bracket** bolts on without grinding.');
     await expect.poll(() => page.getByTestId('write-up-preview').locator('strong').innerText()).toBe('bracket');
 
     // live figure: barrel 360/2 − (rotor 280/2 + reach 12) = 28 mm (the clearance formula in shared/fitment/clearance.ts)
     const live = page.getByRole('region', { name: 'Figures from your entries' });
-    await expect.poll(() => live.getByText('Caliper to barrel on a 15″ wheel').locator('xpath=../following-sibling::p[1]').innerText()).toBe('28 mm');
+    await expect
+      .poll(() => live.getByText('Caliper to barrel on a 15″ wheel').locator('xpath=../following-sibling::p[1]').innerText())
+      .toBe('28 mm');
     await expect.poll(() => live.getByText('€240.00').count()).toBeGreaterThan(0);
 
     // the draft saves by itself and the address becomes the draft's own
@@ -120,24 +138,61 @@ describe('submit and review journey', () => {
     await expect.poll(() => page.locator('[data-save-state]').getAttribute('data-save-state'), { timeout: 15_000 }).toBe('saved');
     const revisionId = Number(/submissions\/(\d+)\/edit/.exec(page.url())![1]);
 
+    // a refused save keeps the input, shows the server's reason beside its field, and the next save goes through
+    const saveState = () => page.locator('[data-save-state]').getAttribute('data-save-state');
+    const refusal = {
+      error: {
+        code: 'validation',
+        message: 'Check the marked fields.',
+        fields: { 'data.parts.0.maker': 'Give the maker as printed on the casting' },
+      },
+    };
+    await page.route('**/api/submissions/*', (route) =>
+      route.request().method() === 'PATCH'
+        ? route.fulfill({ status: 400, contentType: 'application/json', body: JSON.stringify(refusal) })
+        : route.fallback(),
+    );
+    await text('Maker').fill('Ors');
+    await expect.poll(saveState, { timeout: 10_000 }).toBe('error');
+    await page.getByRole('alert').filter({ hasText: 'Give the maker as printed on the casting' }).waitFor();
+    expect(await text('Maker').inputValue()).toBe('Ors');
+    await page.unroute('**/api/submissions/*');
+    await text('Maker').fill('Orsino');
+    await expect.poll(saveState, { timeout: 10_000 }).toBe('saved');
+    expect(await page.getByRole('alert').filter({ hasText: 'Give the maker as printed on the casting' }).count()).toBe(0);
+    const stored = await page.evaluate(async (id) => (await fetch(`/api/submissions/${id}`)).json(), revisionId);
+    expect(stored.data.parts[0].maker).toBe('Orsino');
+
     // ---- a photo, uploaded over a slow link so the progress bar is seen moving ----
     const cdp = await memberContext.newCDPSession(page);
     await cdp.send('Network.enable');
-    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 96 * 1024 });
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false,
+      latency: 20,
+      downloadThroughput: -1,
+      uploadThroughput: 96 * 1024,
+    });
     const jpeg = await photo();
     expect(jpeg.length).toBeGreaterThan(150_000);
     await page.locator('input[type="file"]').setInputFiles({ name: 'fitted.jpg', mimeType: 'image/jpeg', buffer: jpeg });
     const bar = page.getByRole('progressbar', { name: 'Uploading fitted.jpg' });
     await bar.waitFor();
     await expect.poll(async () => Number(await bar.getAttribute('value')), { timeout: 15_000 }).toBeGreaterThan(0);
-    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false,
+      latency: 0,
+      downloadThroughput: -1,
+      uploadThroughput: -1,
+    });
     const photos = page.getByRole('list', { name: 'Photos in this revision' });
     await photos.getByRole('listitem').first().waitFor({ timeout: 20_000 });
     await page.getByRole('textbox', { name: 'Caption for photo 1' }).fill('Caliper on the bracket, 28 mm to the barrel');
     await page.getByRole('textbox', { name: 'Caption for photo 1' }).blur();
 
     // a wrong type is refused with a clear message and nothing is added
-    await page.locator('input[type="file"]').setInputFiles({ name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('not a photo') });
+    await page
+      .locator('input[type="file"]')
+      .setInputFiles({ name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('not a photo') });
     await page.getByText('notes.txt: only JPEG, PNG or WebP photos can be added.').waitFor();
     expect(await photos.getByRole('listitem').count()).toBe(1);
 
@@ -168,7 +223,12 @@ describe('submit and review journey', () => {
     for (const id of ['required', 'photos', 'torque', 'clearance', 'costs']) {
       expect(await checks.locator(`[data-check="${id}"]`).getAttribute('data-status'), id).toBe('pass');
     }
-    expect(await mod.getByRole('region', { name: 'The sheet as it will look' }).getByRole('heading', { level: 1, name: title }).count()).toBe(1);
+    expect(
+      await mod
+        .getByRole('region', { name: 'The sheet as it will look' })
+        .getByRole('heading', { level: 1, name: title })
+        .count(),
+    ).toBe(1);
 
     await mod.getByRole('textbox', { name: 'Note to the author (optional)' }).fill('Clear photos, thank you.');
     await mod.getByRole('button', { name: 'Approve', exact: true }).click();

@@ -1,5 +1,8 @@
+import { lazy } from 'react';
 import { RequireSignedIn } from '../../features/account/components/require-signed-in';
-import EditSubmissionPage from '../../features/submit/components/edit-submission-page';
+
+// the page's own chunk loads only once the account check has passed
+const EditSubmissionPage = lazy(() => import('../../features/submit/components/edit-submission-page'));
 
 export default function EditSubmissionRoute() {
   return (

@@ -1,5 +1,8 @@
+import { lazy } from 'react';
 import { RequireSignedIn } from '../../features/account/components/require-signed-in';
-import MySubmissionsPage from '../../features/submit/components/my-submissions-page';
+
+// the page's own chunk loads only once the account check has passed
+const MySubmissionsPage = lazy(() => import('../../features/submit/components/my-submissions-page'));
 
 export default function MySubmissionsRoute() {
   return (

@@ -1,5 +1,8 @@
+import { lazy } from 'react';
 import { RequireSignedIn } from '../../features/account/components/require-signed-in';
-import OutboxPage from '../../features/review/components/outbox-page';
+
+// the page's own chunk loads only once the account check has passed
+const OutboxPage = lazy(() => import('../../features/review/components/outbox-page'));
 
 export default function OutboxRoute() {
   return (

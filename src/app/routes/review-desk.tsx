@@ -1,5 +1,8 @@
+import { lazy } from 'react';
 import { RequireSignedIn } from '../../features/account/components/require-signed-in';
-import ReviewDeskPage from '../../features/review/components/review-desk-page';
+
+// the page's own chunk loads only once the account check has passed
+const ReviewDeskPage = lazy(() => import('../../features/review/components/review-desk-page'));
 
 export default function ReviewDeskRoute() {
   return (

@@ -39,7 +39,20 @@ export function sheetViewOf(r: SubmissionView): SwapSheetView {
 export default function ReviewRevisionRoute() {
   return (
     <RequireSignedIn permission="review" what="the review desk">
-      <ReviewPage sheet={(r) => <SwapSheet view={sheetViewOf(r)} />} />
+      <ReviewPage
+        sheet={(r) => (
+          <SwapSheet
+            view={sheetViewOf(r)}
+            banner={
+              r.status === 'approved' ? undefined : (
+                <p role="note" className="mb-4 rounded-lg border border-brass bg-brass-soft/40 p-3 text-sm">
+                  Preview of revision {r.number} as readers will see it once approved. It is not public yet.
+                </p>
+              )
+            }
+          />
+        )}
+      />
     </RequireSignedIn>
   );
 }

@@ -1,5 +1,8 @@
+import { lazy } from 'react';
 import { RequireSignedIn } from '../../features/account/components/require-signed-in';
-import SubmitPage from '../../features/submit/components/submit-page';
+
+// the page's own chunk loads only once the account check has passed
+const SubmitPage = lazy(() => import('../../features/submit/components/submit-page'));
 
 export default function SubmitRoute() {
   return (

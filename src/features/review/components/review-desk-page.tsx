@@ -150,9 +150,9 @@ export default function ReviewDeskPage() {
       lead="Submissions and corrections waiting for a moderator, oldest first. A revision reaches search only when approved here."
     >
       {counts && (
-        <ul className="mb-6 flex flex-wrap gap-3" aria-label="Counts">
+        <ul className="mb-6 grid grid-cols-3 gap-2 sm:flex sm:flex-wrap sm:gap-3" aria-label="Counts">
           <Count label="In review" value={counts.in_review} />
-          <Count label="Sent back, waiting for the author" value={counts.sent_back} />
+          <Count label="Sent back" value={counts.sent_back} />
           <Count label="Open flags" value={counts.flags} href="#flags" />
         </ul>
       )}
@@ -266,7 +266,7 @@ function Count({ label, value, href }: { label: string; value: number; href?: st
     </>
   );
   return (
-    <li className="min-w-32 rounded-lg border border-ink/10 bg-paper-card px-4 py-2">
+    <li className="rounded-lg border border-ink/10 bg-paper-card px-3 py-2 sm:min-w-32 sm:px-4">
       {href ? <a href={href}>{body}</a> : body}
     </li>
   );

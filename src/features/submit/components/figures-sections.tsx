@@ -218,7 +218,7 @@ export function WriteUpSection() {
       </div>
       <div className="grid gap-4 lg:grid-cols-2">
         <div className={tab === 'write' ? '' : 'hidden lg:block'}>
-          <FArea name="body" label="Write-up (markdown)" rows={16} />
+          <FArea name="body" label="Write-up (markdown)" rows={14} />
         </div>
         <div className={tab === 'preview' ? '' : 'hidden lg:block'}>
           <p className="mb-1 text-sm font-bold text-graphite" id="preview-label">

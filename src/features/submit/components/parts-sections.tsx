@@ -24,7 +24,7 @@ export function TitleSection() {
   return (
     <FormSection id="title" title="Title and summary">
       <FText name="data.title" label="Title" hint="What goes on what, e.g. “Vela four-piston front calipers on the H31”." />
-      <FArea name="data.summary" label="Summary" rows={2} hint="One or two sentences for search results." />
+      <FArea name="data.summary" label="Summary" rows={3} hint="One or two sentences for search results." />
     </FormSection>
   );
 }

@@ -13,6 +13,7 @@ import { ApiError } from '../../../lib/api-client';
 import { paths } from '../../../config/paths';
 import { submissionKeys } from '../api/submission-keys';
 import { useSubmitForReview } from '../api/submit-for-review';
+import { useDeleteSubmission } from '../api/delete-submission';
 import { useChassisOptions } from '../api/get-chassis-options';
 import { errorsOf, formPathOf, newChassisReadable, parsePayload, type FormValues } from '../lib/form-values';
 import { clearBackup, readBackup, useAutosave } from '../lib/use-autosave';
@@ -99,6 +100,7 @@ export function SubmissionEditor({
     enabled: true,
     backupKey,
     savedValues: view && !handedOver ? initial : null,
+    savedAt: view?.updatedAt ?? null,
     onCreated: (created) => {
       queryClient.setQueryData(submissionKeys.detail(created.id), created);
       void queryClient.invalidateQueries({ queryKey: submissionKeys.mine() });
@@ -118,6 +120,17 @@ export function SubmissionEditor({
   }, [handedOver, retry]);
 
   const submit = useSubmitForReview();
+  const discard = useDeleteSubmission();
+  const onDiscard = async () => {
+    if (!view || !window.confirm('Delete this draft and its photos? This cannot be undone.')) return;
+    try {
+      await discard.mutateAsync(view.id);
+      clearBackup(backupKey);
+      navigate(paths.mySubmissions(), { replace: true });
+    } catch (err) {
+      setSendError(err instanceof ApiError ? err.message : 'The draft was not deleted. Try again.');
+    }
+  };
 
   const onSend = form.handleSubmit(
     async () => {
@@ -189,7 +202,11 @@ export function SubmissionEditor({
       lead={
         mode.kind === 'correction'
           ? `Your correction becomes revision ${(mode.swap.currentNumber ?? mode.swap.revision.number) + 1} once a moderator approves it; until then revision ${mode.swap.revision.number} stays public. It is credited to you.`
-          : 'Record a combination you have fitted. It saves as you type; a moderator checks it before it reaches search.'
+          : view?.status === 'sent_back'
+            ? 'Change what the moderator asked for below. It saves as you type; send it again when it is ready.'
+            : view
+              ? 'It saves as you type. Send it for review when it is complete; a moderator checks it before it reaches search.'
+              : 'Record a combination you have fitted. It saves as you type; a moderator checks it before it reaches search.'
       }
       actions={
         <div className="flex flex-col items-start gap-1 sm:items-end">
@@ -320,6 +337,16 @@ export function SubmissionEditor({
               <Link to={paths.mySubmissions()} className="text-sm font-bold text-ink underline">
                 My submissions
               </Link>
+              {view?.status === 'draft' && (
+                <Button
+                  variant="quiet"
+                  className="ml-auto text-oxide"
+                  onClick={() => void onDiscard()}
+                  disabled={discard.isPending}
+                >
+                  Delete draft
+                </Button>
+              )}
             </div>
           </div>
         </form>

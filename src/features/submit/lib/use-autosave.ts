@@ -51,6 +51,8 @@ type Options = {
   onSaved?: (view: SubmissionView) => void;
   /** the values the server already holds, when the form opens on a saved revision */
   savedValues?: FormValues | null;
+  /** when the server last stored the revision */
+  savedAt?: string | null;
 };
 
 /**
@@ -67,8 +69,11 @@ export function useAutosave({
   onCreated,
   onSaved,
   savedValues = null,
+  savedAt = null,
 }: Options) {
-  const [state, setStateRaw] = useState<SaveState>(submissionId ? { kind: 'saved', at: new Date() } : { kind: 'idle' });
+  const [state, setStateRaw] = useState<SaveState>(
+    submissionId ? { kind: 'saved', at: savedAt ? new Date(savedAt) : new Date() } : { kind: 'idle' },
+  );
   const stateRef = useRef<SaveState>(state);
   const setState = useCallback((next: SaveState | ((s: SaveState) => SaveState)) => {
     stateRef.current = typeof next === 'function' ? next(stateRef.current) : next;
@@ -84,6 +89,7 @@ export function useAutosave({
   });
   const lastSaved = useRef<string | null>(savedJson);
   const changedSinceSave = useRef(false);
+  const serverErrorPaths = useRef<string[]>([]);
   const callbacks = useRef({ onCreated, onSaved });
   callbacks.current = { onCreated, onSaved };
 
@@ -116,6 +122,8 @@ export function useAutosave({
         callbacks.current.onCreated(view);
       }
       lastSaved.current = json;
+      if (serverErrorPaths.current.length) form.clearErrors(serverErrorPaths.current as never);
+      serverErrorPaths.current = [];
       if (!changedSinceSave.current) clearBackup(backupKey);
       setState({ kind: 'saved', at: new Date() });
       callbacks.current.onSaved?.(view);
@@ -124,6 +132,7 @@ export function useAutosave({
       const apiErr = err instanceof ApiError ? err : null;
       const fields = Object.entries(apiErr?.fields ?? {});
       for (const [path, message] of fields) form.setError(formPathOf(path) as never, { type: 'server', message });
+      serverErrorPaths.current = fields.map(([path]) => formPathOf(path));
       setState({
         kind: 'error',
         message: apiErr?.message ?? 'The draft could not be saved. Your input is still here.',
