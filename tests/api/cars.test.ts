@@ -4,7 +4,7 @@ import request from 'supertest';
 import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
 import { addUser, csrfToken, listen, signIn, type Agent } from './support/auth-helpers';
-import { addChassis } from './support/swap-rows';
+import { addChassis } from './support/swap-fixtures';
 import { cars } from '../../server/db/schema/index';
 import type { CarView } from '../../shared/schemas/cars';
 
@@ -24,7 +24,7 @@ beforeAll(async () => {
   addUser(t.db, 'rivet_rosa');
   addUser(t.db, 'camber_kai');
   h31 = addChassis(t.db, 'halden-h31').id;
-  h40 = addChassis(t.db, 'halden-h40').id;
+  h40 = addChassis(t.db, 'halden-h40', { model: 'H40', code: 'H40', yearFrom: 1999, yearTo: 2007 }).id;
   for (const [login, set] of [
     ['rivet_rosa', (v: typeof rosa) => (rosa = v)],
     ['camber_kai', (v: typeof kai) => (kai = v)],

@@ -4,7 +4,8 @@ import request from 'supertest';
 import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
 import { addShop, addUser, csrfToken, listen, signIn, type Agent } from './support/auth-helpers';
-import { addChassis, addSwap, approveNewRevision, swapData } from './support/swap-rows';
+import { addChassis } from './support/swap-fixtures';
+import { addSwap, approveNewRevision, swapData } from './support/swap-rows';
 import { shopLinks } from '../../server/db/schema/index';
 import type { PinnedSheetView, ShopLinkItem, ShopLinkList, ShopPageView } from '../../shared/schemas/shops';
 

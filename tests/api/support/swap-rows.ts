@@ -1,38 +1,11 @@
 import { eq } from 'drizzle-orm';
 import type { Db } from '../../../server/db/client';
-import { chassis, revisions, swaps } from '../../../server/db/schema/index';
+import { revisions, swaps } from '../../../server/db/schema/index';
 import { swapDataSchema, type SwapDataInput } from '../../../shared/schemas/swap-data';
 import type { RevisionStatus } from '../../../shared/schemas/enums';
 
 // Rows for tests that need approved swaps without going through the review desk.
 
-export function addChassis(db: Db, slug = 'halden-h31', extra: Partial<typeof chassis.$inferInsert> = {}) {
-  const now = new Date();
-  return db
-    .insert(chassis)
-    .values({
-      slug,
-      make: 'Halden',
-      model: slug.endsWith('h40') ? 'H40' : 'H31',
-      code: slug.endsWith('h40') ? 'H40' : 'H31',
-      yearFrom: 1991,
-      yearTo: 1999,
-      lugCount: 5,
-      pcdMm: 112,
-      centreBoreMm: 66.6,
-      wheelBoltThread: 'M12×1.5',
-      stockWheel: { diameterIn: 15, widthIn: 6, offsetMm: 38, tyre: '195/60R15' },
-      stockBrakes: {
-        front: { kind: 'disc', pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50, description: 'Single piston' },
-        rear: { kind: 'disc', pistonsPerSideMm: [36], rotorDiameterMm: 260, padHeightMm: 40, description: 'Single piston' },
-      },
-      createdAt: now,
-      updatedAt: now,
-      ...extra,
-    })
-    .returning()
-    .get();
-}
 
 export function swapData(title: string, extra: Partial<SwapDataInput> = {}) {
   return swapDataSchema.parse({
