@@ -7,6 +7,7 @@ import { swapKeys } from '../../features/swaps/api/swap-keys';
 import { useMe } from '../../features/account/api/get-me';
 import { useCarWheelPresets } from '../../features/cars/components/car-checks';
 import { FittedReportsSection } from '../../features/fitted-reports/components/fitted-reports-section';
+import { FlagSwapForm } from '../../features/swaps/components/flag-swap-form';
 import { MakeShopLinkPanel } from '../../features/shops/components/make-shop-link-panel';
 import { RetiredLinkBanner, ShopLinkBanner } from '../../features/shops/components/shop-link-banner';
 import { usePinnedSheet } from '../../features/shops/api/shop-links';
@@ -53,6 +54,7 @@ export default function SwapSheetRoute() {
       extraSections={
         <>
           <FittedReportsSection slug={view.swap.slug} revisions={view.history} shownNumber={view.revision.number} onChanged={refreshSheet} />
+          <FlagSwapForm slug={view.swap.slug} signedIn={Boolean(user)} />
           {shopName && <MakeShopLinkPanel swapSlug={view.swap.slug} shownNumber={view.revision.number} currentNumber={view.currentNumber} shopName={shopName} />}
         </>
       }
