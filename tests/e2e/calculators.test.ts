@@ -52,8 +52,8 @@ describe('calculators page', () => {
     // Tyre code convention (REFERENCES.md): 225/45R17 → sidewall 101.25 mm, overall Ø 634.30 mm, circumference 1992.71 mm.
     await tyreInput.fill('225/45R17');
     await expect.poll(() => figure(tyre, 'Sidewall height')).toBe('101.25 mm');
-    expect(await figure(tyre, 'Overall diameter')).toBe('634.3 mm');
-    expect(await figure(tyre, 'Circumference')).toBe('1,992.7 mm');
+    await expect.poll(() => figure(tyre, 'Overall diameter')).toBe('634.3 mm');
+    await expect.poll(() => figure(tyre, 'Circumference')).toBe('1,992.7 mm');
     expect(await tyreInput.getAttribute('aria-invalid')).toBe('false');
     expect(await tyre.getByRole('alert').count()).toBe(0);
 
@@ -62,9 +62,9 @@ describe('calculators page', () => {
     await field(offset, 'Offset ET').fill('45');
     await field(offset, 'Spacer').fill('15');
     await expect.poll(() => figure(offset, 'Effective offset')).toBe('ET30');
-    expect(await figure(offset, 'Track change per axle')).toBe('+30 mm');
-    expect(await figure(offset, 'Backspacing')).toBe('144.3 mm');
-    expect(await figure(offset, 'Each wheel moves outboard')).toBe('15 mm');
+    await expect.poll(() => figure(offset, 'Track change per axle')).toBe('+30 mm');
+    await expect.poll(() => figure(offset, 'Backspacing')).toBe('144.3 mm');
+    await expect.poll(() => figure(offset, 'Each wheel moves outboard')).toBe('15 mm');
 
     const query = new URL(page.url()).searchParams;
     expect(query.get('tyre')).toBe('225/45R17');
@@ -83,22 +83,22 @@ describe('calculators page', () => {
     await page.getByRole('heading', { level: 1, name: 'Fitment calculators' }).waitFor();
     expect(await field(tyre, 'Tyre size').inputValue()).toBe('225/45R17');
     expect(await field(offset, 'Spacer').inputValue()).toBe('15');
-    expect(await figure(tyre, 'Sidewall height')).toBe('101.25 mm');
-    expect(await figure(offset, 'Effective offset')).toBe('ET30');
+    await expect.poll(() => figure(tyre, 'Sidewall height')).toBe('101.25 mm');
+    await expect.poll(() => figure(offset, 'Effective offset')).toBe('ET30');
 
     // Imperial: inputs and outputs in inches, the URL still in millimetres. 101.25 / 25.4 = 3.98622 in; 30 / 25.4 = 1.18110 in.
     await page.getByRole('group', { name: 'Units for the calculators' }).getByRole('button', { name: 'Imperial' }).click();
     await expect.poll(() => figure(tyre, 'Sidewall height')).toBe('3.9862 in');
-    expect(await figure(tyre, 'Overall diameter')).toBe('24.972 in');
-    expect(await figure(offset, 'Track change per axle')).toBe('+1.181 in');
+    await expect.poll(() => figure(tyre, 'Overall diameter')).toBe('24.972 in');
+    await expect.poll(() => figure(offset, 'Track change per axle')).toBe('+1.181 in');
     expect(await offset.getByText('Spacer (in)').count()).toBe(1);
     expect(await field(offset, 'Spacer').inputValue()).toBe('0.5906');
-    expect(await figure(offset, 'Effective offset')).toBe('ET30');
+    await expect.poll(() => figure(offset, 'Effective offset')).toBe('ET30');
 
     // A spacer typed in inches is stored in mm: 0.75 in = 19.05 mm → ET25.95.
     await field(offset, 'Spacer').fill('0.75');
     await expect.poll(() => new URL(page.url()).searchParams.get('spacer')).toBe('19.05');
-    expect(await figure(offset, 'Effective offset')).toBe('ET25.95');
+    await expect.poll(() => figure(offset, 'Effective offset')).toBe('ET25.95');
     expect(errors).toEqual([]);
     await context.close();
   });
@@ -119,7 +119,7 @@ describe('calculators page', () => {
     await corner('Stock rear', '38', '280', '40');
     await corner('Swapped front', '40, 44', '330', '55');
     await expect.poll(() => figure(brakes, 'Front share, stock')).toBe('65.93 %');
-    expect(await figure(brakes, 'Front share, swapped')).toBe('73.72 %');
+    await expect.poll(() => figure(brakes, 'Front share, swapped')).toBe('73.72 %');
     expect(await brakes.locator('[data-attention]').getAttribute('data-attention')).toBe('true');
     expect(await brakes.locator('[data-attention]').innerText()).toContain('+7.79 points to the front');
     // Textbook torque per corner: 1053.50 / 1527.44 / 544.38 N·m, shown whole.
@@ -158,8 +158,8 @@ describe('calculators page', () => {
     expect(text).toContain('9 mm · 6 turns');
     expect(text).toContain('Margin: −3 mm');
     expect(text).toContain('1.0 × bolt diameter in a steel hub');
-    expect(await figure(thread, 'Bolt needed with the spacer')).toBe('33 mm');
-    expect(await figure(thread, 'Shortest bolt for the rule')).toBe('31 mm');
+    await expect.poll(() => figure(thread, 'Bolt needed with the spacer')).toBe('33 mm');
+    await expect.poll(() => figure(thread, 'Shortest bolt for the rule')).toBe('31 mm');
 
     await field(thread, 'Bolt length').fill('35');
     await expect.poll(() => verdict.getAttribute('data-verdict')).toBe('pass');
