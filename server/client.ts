@@ -9,7 +9,13 @@ export function staticClient(): RequestHandler[] {
   const dist = path.join(root, 'dist');
   const indexFile = path.join(dist, 'index.html');
   if (!fs.existsSync(indexFile)) throw new Error('No built client in dist/. Run `npm run build` first.');
-  const index = fs.readFileSync(indexFile, 'utf8');
+  // re-read when a new build replaces it, so a running server never points at deleted asset files
+  let index = { mtimeMs: 0, html: '' };
+  const currentIndex = () => {
+    const { mtimeMs } = fs.statSync(indexFile);
+    if (mtimeMs !== index.mtimeMs) index = { mtimeMs, html: fs.readFileSync(indexFile, 'utf8') };
+    return index.html;
+  };
   const router = express.Router();
   router.use(
     '/assets',
@@ -17,7 +23,7 @@ export function staticClient(): RequestHandler[] {
   );
   router.use(express.static(dist, { index: false, maxAge: '1h' }));
   router.get('/{*splat}', (_req, res) => {
-    res.set('Cache-Control', 'no-cache').type('html').send(index);
+    res.set('Cache-Control', 'no-cache').type('html').send(currentIndex());
   });
   return [router];
 }
