@@ -7,7 +7,7 @@ export default {
     extend: {
       colors: {
         ink: { DEFAULT: '#1d4d3a', soft: '#2f6a53', faint: '#dbe7e0' },
-        brass: { DEFAULT: '#b8892f', soft: '#e9d7ad', deep: '#7a5a1c' },
+        brass: { DEFAULT: '#b8892f', soft: '#e9d7ad', deep: '#70521a' },
         paper: { DEFAULT: '#f7f4ec', deep: '#ece6d6', card: '#fffdf8' },
         oxide: { DEFAULT: '#a4372a', soft: '#f6e1dc' },
         graphite: { DEFAULT: '#2b2b28', soft: '#5c5a52' },

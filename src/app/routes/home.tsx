@@ -31,7 +31,7 @@ export default function HomePage() {
               placeholder="Chassis code, car or part number — e.g. H31, Vela caliper, OV-355"
               className="min-h-12 flex-1 rounded-md border-0 bg-paper px-4 text-base text-graphite placeholder:text-graphite-soft"
             />
-            <button type="submit" className="min-h-12 rounded-md bg-brass px-6 font-extrabold text-ink hover:bg-brass-soft">
+            <button type="submit" className="min-h-12 rounded-md bg-brass-soft px-6 font-extrabold text-ink hover:bg-paper">
               Find swaps
             </button>
           </form>

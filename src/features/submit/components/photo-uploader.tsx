@@ -144,7 +144,7 @@ export function PhotoUploader({
       )}
       {!locked && (
         <div
-          className={`flex flex-col items-center gap-3 rounded-xl border-2 border-dashed p-6 text-center transition-colors ${dragging ? 'border-ink bg-ink-faint' : 'border-graphite/25 bg-paper'} ${disabled ? 'opacity-60' : ''}`}
+          className={`flex flex-col items-center gap-3 rounded-xl border-2 border-dashed p-6 text-center transition-colors ${dragging ? 'border-ink bg-ink-faint' : 'border-graphite/25 bg-paper'}`}
           onDragOver={(e) => {
             if (disabled) return;
             e.preventDefault();
@@ -161,7 +161,7 @@ export function PhotoUploader({
           <p className="text-sm text-graphite">Drop photos here, or</p>
           <label
             htmlFor={inputId}
-            className={`inline-flex min-h-10 cursor-pointer items-center rounded-md bg-ink px-4 py-2 text-sm font-bold text-paper hover:bg-ink-soft ${disabled ? 'pointer-events-none' : ''}`}
+            className={`inline-flex min-h-10 cursor-pointer items-center rounded-md bg-ink px-4 py-2 text-sm font-bold text-paper hover:bg-ink-soft ${disabled ? 'pointer-events-none opacity-60' : ''}`}
           >
             Choose photos
           </label>
