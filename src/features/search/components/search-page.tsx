@@ -116,9 +116,9 @@ export default function SearchPage() {
   return (
     <Page title={state.q ? `“${state.q}” — search` : 'Search swaps'}>
       <form role="search" className="mb-6" onSubmit={(e) => e.preventDefault()}>
-        <label htmlFor="search-q" className="mb-2 block text-2xl font-extrabold tracking-tight text-ink sm:text-3xl">
-          Find a swap that fits
-        </label>
+        <h1 className="mb-2 text-2xl font-extrabold tracking-tight text-ink sm:text-3xl">
+          <label htmlFor="search-q">Find a swap that fits</label>
+        </h1>
         <div className="relative">
           <input
             ref={inputRef}
