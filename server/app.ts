@@ -7,7 +7,7 @@ import type { Mailer } from './mail/mailer';
 import type { Storage } from './storage/disk-storage';
 import type { Clock } from './lib/clock';
 import type { Config } from './config';
-import type { Logger } from './lib/logger';
+import { httpLogSerializers, type Logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { healthRouter } from './features/health/health.router';
 import { SqliteSessionStore, sessionMiddleware } from './auth/session-store';
@@ -50,6 +50,7 @@ export function createApp(deps: AppDeps) {
       logger,
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') && !req.url?.startsWith('/auth') },
       customProps: (req) => ({ userId: (req as express.Request).user?.id ?? null }),
+      serializers: httpLogSerializers,
     }),
   );
   app.use(helmet({ contentSecurityPolicy: { directives: contentSecurityPolicy(config) } }));

@@ -9,6 +9,7 @@ import { AppError } from '../../lib/app-error';
 import { idParamSchema, slugSchema } from '../../../shared/schemas/params';
 import { createFittedReportSchema, updateFittedReportSchema } from '../../../shared/schemas/fitted-reports';
 import { MAX_PHOTO_BYTES } from '../photos/photo-processing';
+import { uploadError } from '../photos/photo-upload';
 import {
   createFittedReport,
   deleteFittedReport,
@@ -32,7 +33,7 @@ function photoUpload(): RequestHandler {
         const message = 'Send one photo, in the "photo" field.';
         return next(new AppError('upload_rejected', message, 400, { photo: message }));
       }
-      next(err);
+      next(uploadError(err, 'photo'));
     });
   };
 }

@@ -9,6 +9,7 @@ import { requirePermission, requireUser } from '../../middleware/require-role';
 import { idParamSchema } from '../../../shared/schemas/params';
 import { createSubmissionSchema, photoOrderSchema, updateSubmissionSchema } from '../../../shared/schemas/submissions';
 import { MAX_PHOTO_BYTES } from '../photos/photo-processing';
+import { readUpload } from '../photos/photo-upload';
 import {
   createSubmission,
   deleteSubmission,
@@ -58,17 +59,20 @@ export function submissionsRouter({ db, clock, mailer, storage, logger, config }
   const uploadLimit = perUserLimit(config.rateLimits.uploadsPerHour, 'photo uploads');
 
   // memory only, and only on this route: the bytes never touch the disk before they are checked and re-encoded
-  const upload = multer({
-    storage: multer.memoryStorage(),
-    limits: {
-      fileSize: MAX_PHOTO_BYTES,
-      files: MAX_PHOTOS_PER_REVISION,
-      fields: 4,
-      fieldSize: 16 * 1024,
-      fieldNameSize: 40,
-      parts: MAX_PHOTOS_PER_REVISION + 4,
-    },
-  }).array('photos', MAX_PHOTOS_PER_REVISION);
+  const upload = readUpload(
+    multer({
+      storage: multer.memoryStorage(),
+      limits: {
+        fileSize: MAX_PHOTO_BYTES,
+        files: MAX_PHOTOS_PER_REVISION,
+        fields: 4,
+        fieldSize: 16 * 1024,
+        fieldNameSize: 40,
+        parts: MAX_PHOTOS_PER_REVISION + 4,
+      },
+    }).array('photos', MAX_PHOTOS_PER_REVISION),
+    'photos',
+  );
 
   router.post(
     '/submissions',
