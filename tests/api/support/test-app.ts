@@ -8,11 +8,17 @@ import { createMailer } from '../../../server/mail/mailer';
 import { createDiskStorage } from '../../../server/storage/disk-storage';
 import { createLogger } from '../../../server/lib/logger';
 import type { Clock } from '../../../server/lib/clock';
+import type { DestinationStream } from 'pino';
 
 export type TestApp = Awaited<ReturnType<typeof makeTestApp>>;
 
+export type TestAppOptions = {
+  /** where the app's real logger (createLogger: ISO times, redaction) writes its JSON lines; silent without it */
+  logDestination?: DestinationStream;
+};
+
 /** A real app on a fresh SQLite file in a temp folder; each test file arranges its own rows. */
-export async function makeTestApp(env: Record<string, string> = {}, clock?: Clock) {
+export async function makeTestApp(env: Record<string, string> = {}, clock?: Clock, options: TestAppOptions = {}) {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'swapyard-test-'));
   const config = loadConfig({
     NODE_ENV: 'test',
@@ -27,7 +33,7 @@ export async function makeTestApp(env: Record<string, string> = {}, clock?: Cloc
   const storage = createDiskStorage(config.uploadDir);
   const theClock = clock ?? { now: () => new Date() };
   const mailer = createMailer({ db, clock: theClock, from: config.mailFrom });
-  const logger = createLogger('silent');
+  const logger = options.logDestination ? createLogger('info', options.logDestination) : createLogger('silent');
   const app = createApp({ db, mailer, storage, clock: theClock, config, logger });
   return {
     app,
@@ -35,6 +41,7 @@ export async function makeTestApp(env: Record<string, string> = {}, clock?: Cloc
     storage,
     mailer,
     config,
+    logger,
     dir,
     close() {
       closeDb(db);
