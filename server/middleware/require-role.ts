@@ -1,4 +1,5 @@
 import type { Request, RequestHandler } from 'express';
+import type {} from 'passport';
 import { AppError } from '../lib/app-error';
 import { can, type Permission, type Role } from '../../shared/roles';
 

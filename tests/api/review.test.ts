@@ -352,7 +352,7 @@ describe('the queue', () => {
     expect(aged.items.map((i) => i.revisionId)).toEqual([older.id]);
     const byChassis = (await mo.agent.get('/api/review/queue').query({ chassis: 'halden-h40' })).body as ReviewQueue;
     expect(byChassis.items.map((i) => i.revisionId)).toEqual([newer.id]);
-    expect(byChassis.items[0].chassis).toEqual({ slug: 'halden-h40', label: 'Halden H40 (H40)' });
+    expect(byChassis.items[0].chassis).toEqual({ slug: 'halden-h40', label: 'Halden H40' });
 
     await post(mo, `/api/review/${newer.id}/send-back`, { note: 'Add a photo please' });
     const sentBack = (await mo.agent.get('/api/review/queue').query({ status: 'sent_back' })).body as ReviewQueue;
