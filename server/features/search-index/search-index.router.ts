@@ -1,20 +1,15 @@
 import { Router } from 'express';
 import type { AppDeps } from '../../app';
 import { createSearchIndexService } from './search-index.service';
+import { sendCachedJson } from '../../lib/cached-json';
 
 export function searchIndexRouter({ db }: AppDeps) {
   const router = Router();
   const service = createSearchIndexService(db);
 
+  // readers revalidate on every visit; an unchanged index costs a 304 and no body
   router.get('/search-index', (req, res) => {
-    const body = service.current();
-    // readers revalidate on every visit; an unchanged index costs a 304 and no body
-    res.set({ ETag: body.etag, 'Cache-Control': 'no-cache', Vary: 'Accept-Encoding' });
-    if (req.fresh) {
-      res.status(304).end();
-      return;
-    }
-    res.type('application/json').send(body.json);
+    sendCachedJson(req, res, service.current());
   });
 
   return router;

@@ -1,10 +1,9 @@
-import { createHash } from 'node:crypto';
+import { fingerprintCache, type CachedJson } from '../../lib/cached-json';
 import { and, eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { chassis, revisions, swaps } from '../../db/schema/index';
 import { toSearchDocument, type SearchDocument } from '../../../shared/search/search-document';
 
-export type SearchIndexBody = { etag: string; json: string; count: number };
 
 const approvedCurrent = and(eq(revisions.id, swaps.currentRevisionId), eq(revisions.status, 'approved'));
 
@@ -54,17 +53,10 @@ function fingerprint(db: Db): string {
 
 /** Holds the built body in memory per app; rebuilds only when the fingerprint moves. */
 export function createSearchIndexService(db: Db) {
-  let cached: { fingerprint: string; body: SearchIndexBody } | null = null;
+  const cache = fingerprintCache(1);
   return {
-    current(): SearchIndexBody {
-      const fp = fingerprint(db);
-      if (cached?.fingerprint === fp) return cached.body;
-      const documents = searchDocuments(db);
-      const json = JSON.stringify({ documents });
-      // a strong validator: the same bytes always carry the same tag
-      const etag = `"${createHash('sha256').update(json).digest('base64url').slice(0, 27)}"`;
-      cached = { fingerprint: fp, body: { etag, json, count: documents.length } };
-      return cached.body;
+    current(): CachedJson {
+      return cache('index', fingerprint(db), () => ({ documents: searchDocuments(db) }));
     },
   };
 }

@@ -1,8 +1,10 @@
-import { Router } from 'express';
+import { Router, type Request, type Response } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../../app';
 import { validated } from '../../middleware/validate';
-import { getSwapSheet, recentSwaps } from './swaps.service';
+import { getSwapSheet, recentSwaps, sheetFingerprint } from './swaps.service';
+import { fingerprintCache, sendCachedJson } from '../../lib/cached-json';
+import { AppError } from '../../lib/app-error';
 import { slugSchema } from '../../../shared/schemas/params';
 
 export function swapsRouter({ db }: AppDeps) {
@@ -15,10 +17,18 @@ export function swapsRouter({ db }: AppDeps) {
     }),
   );
 
+  // sheets are read far more than they change: each is built once per change and served pre-compressed
+  const sheets = fingerprintCache();
+  const sendSheet = (req: Request, res: Response, slug: string, n?: number) => {
+    const fingerprint = sheetFingerprint(db, slug);
+    if (!fingerprint) throw AppError.notFound('That swap');
+    sendCachedJson(req, res, sheets(n === undefined ? slug : `${slug}/r/${n}`, fingerprint, () => getSwapSheet(db, slug, n)));
+  };
+
   router.get(
     '/swaps/:slug',
-    validated({ params: z.object({ slug: slugSchema }) }, ({ params }, _req, res) => {
-      res.json(getSwapSheet(db, params.slug));
+    validated({ params: z.object({ slug: slugSchema }) }, ({ params }, req, res) => {
+      sendSheet(req, res, params.slug);
     }),
   );
 
@@ -26,8 +36,8 @@ export function swapsRouter({ db }: AppDeps) {
     '/swaps/:slug/revisions/:n',
     validated(
       { params: z.object({ slug: slugSchema, n: z.coerce.number().int().min(1).max(100000) }) },
-      ({ params }, _req, res) => {
-        res.json(getSwapSheet(db, params.slug, params.n));
+      ({ params }, req, res) => {
+        sendSheet(req, res, params.slug, params.n);
       },
     ),
   );

@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, isNotNull } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNotNull, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { chassis, revisions, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
@@ -68,4 +68,20 @@ export function getSwapSheet(db: Db, slug: string, number?: number): SwapSheetVi
 
 export function recentSwaps(db: Db, limit: number): SwapCard[] {
   return swapCards(db, isNotNull(swaps.currentRevisionId), limit);
+}
+
+/**
+ * A cheap summary of everything a sheet is built from (the swap, its revisions, chassis and authors);
+ * null when there is no such swap. Approved revisions never change, so this moves only when a new
+ * revision is approved, the fitted count changes, or a chassis or author row is edited.
+ */
+export function sheetFingerprint(db: Db, slug: string): string | null {
+  const row = db.get<Record<string, number | null>>(sql`
+    select s.id, s.current_revision_id, s.fitted_count, s.updated_at, c.updated_at as chassis_at,
+      (select max(r.updated_at) from revisions r where r.swap_id = s.id) as revisions_at,
+      (select max(u.updated_at) from users u
+         where u.id = s.author_id or u.id in (select r.author_id from revisions r where r.swap_id = s.id)) as authors_at
+    from swaps s join chassis c on c.id = s.chassis_id
+    where s.slug = ${slug}`);
+  return row ? Object.values(row).join(':') : null;
 }
