@@ -10,7 +10,7 @@ import type { Config } from './config';
 import { httpLogSerializers, type Logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { healthRouter } from './features/health/health.router';
-import { SqliteSessionStore, sessionMiddleware } from './auth/session-store';
+import { SqliteSessionStore, sessionCookie, sessionMiddleware } from './auth/session-store';
 import { createPassport } from './auth/passport';
 import { authRateLimit, authRouter } from './auth/auth.router';
 import { fakeAuthorizeRouter, startFakeProvider } from './auth/fake-provider';
@@ -61,12 +61,17 @@ export function createApp(deps: AppDeps) {
   // --- sessions, sign-in, CSRF ---
   const sessionStore = new SqliteSessionStore(deps.db, deps.clock);
   const withSession = sessionMiddleware({ store: sessionStore, secret: config.sessionSecret, appUrl: config.appUrl });
-  // hashed client assets need no session (and must not get a rolling Set-Cookie)
-  app.use((req, res, next) => (req.path.startsWith('/assets/') ? next() : withSession(req, res, next)));
   const passport = createPassport({ db: deps.db, clock: deps.clock, config });
   app.use(passport.initialize());
   const restoreUser = passport.session();
-  app.use((req, res, next) => (req.path.startsWith('/assets/') ? next() : restoreUser(req, res, next)));
+  const cookieName = sessionCookie(config.appUrl).name;
+  // A read without a session cookie has no session to restore, and most readers never sign in:
+  // skip the session for them, except where one starts (sign-in, and /api/me, which hands out the CSRF token).
+  // Hashed client assets never need one (and must not get a rolling Set-Cookie).
+  const needsSession = (req: express.Request) =>
+    !req.path.startsWith('/assets/') &&
+    (!['GET', 'HEAD'].includes(req.method) || req.path.startsWith('/auth/') || req.path === '/api/me' || Boolean(req.headers.cookie?.includes(`${cookieName}=`)));
+  app.use((req, res, next) => (needsSession(req) ? withSession(req, res, () => restoreUser(req, res, next)) : next()));
   app.use(refuseCrossSite);
   app.use('/api', requireCsrfToken);
   app.use('/auth', authRateLimit(config.auth.rateLimit));

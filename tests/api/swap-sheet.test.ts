@@ -29,6 +29,8 @@ describe('GET /api/swaps/:slug', () => {
     expect(res.body.currentNumber).toBe(1);
     expect(res.body.history.map((h: { number: number }) => h.number)).toEqual([1]);
     expect(res.body.swap.author.login).toBe('rivet_rosa');
+    // an anonymous reader is not handed a session
+    expect(res.headers['set-cookie']).toBeUndefined();
   });
 
   it('when the swap is unknown or has only a draft, then the answer is a 404 in the error shape', async () => {
