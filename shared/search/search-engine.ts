@@ -123,15 +123,13 @@ export const indexOptions: Options<SearchDocument> = {
 };
 
 // ---------------------------------------------------------------------------------------------
-// Scoring. minisearch tokenizes, stores the term tree (exact, prefix and fuzzy lookups) and
-// serializes; answering a query goes straight over its postings into typed arrays, because
-// minisearch's own search builds an object per matching document and sorts them all, which
-// costs tens of milliseconds on a word like "caliper" that most swaps contain.
+// Scoring. minisearch tokenizes, stores the term tree (fuzzy lookups) and serializes; answering a
+// query goes over a flat copy of its postings in typed arrays, because minisearch's own search
+// builds an object per matching document and sorts them all, and even walking its Map postings
+// costs milliseconds on a word like "caliper" that most swaps contain.
 
 type FieldTermData = Map<number, Map<number, number>>;
-type TermTree = {
-  get(term: string): FieldTermData | undefined;
-  atPrefix(prefix: string): Iterable<[string, FieldTermData]>;
+type TermTree = Iterable<[string, FieldTermData]> & {
   fuzzyGet(term: string, maxDistance: number): Map<string, [FieldTermData, number]>;
 };
 /** the parts of minisearch's state the scorer reads; kept protected by the library */
@@ -150,54 +148,135 @@ const PREFIX_WEIGHT = 0.375;
 const FUZZY_WEIGHT = 0.45;
 const chassisFields: Field[] = ['code', 'model', 'make'];
 
-/** Sparse score accumulator over document positions. */
+/** Sparse score accumulator over document positions; a score of 0 means "not matched" (every match adds more than 0). */
 class Hits {
   readonly score: Float64Array;
-  ids: number[] = [];
+  /** matched positions in the order they were first scored; only the first `count` are live */
+  readonly ids: Int32Array;
+  count = 0;
   constructor(size: number) {
     this.score = new Float64Array(size);
+    this.ids = new Int32Array(size);
   }
   add(p: number, s: number) {
-    if (this.score[p] === 0) this.ids.push(p);
+    if (this.score[p] === 0) this.ids[this.count++] = p;
     this.score[p] += s;
   }
+  matched(): Int32Array {
+    return this.ids.subarray(0, this.count);
+  }
   clear() {
-    for (const p of this.ids) this.score[p] = 0;
-    this.ids = [];
+    for (let i = 0; i < this.count; i++) this.score[this.ids[i]] = 0;
+    this.count = 0;
+  }
+}
+
+/**
+ * Every term of the index in code-unit order, each with one posting list per field it occurs in,
+ * all flattened into typed arrays once at index time. A prefix is then a contiguous run of terms
+ * found by binary search, and a posting list two array slices (positions and term frequencies).
+ * Costs 6 bytes a posting beside minisearch's own maps (some 23 MB at 50,000 swaps).
+ */
+class Postings {
+  readonly terms: string[];
+  /** per term, its first list; term t owns lists firstList[t] … firstList[t + 1] − 1 */
+  readonly firstList: Uint32Array;
+  readonly listField: Uint8Array;
+  /** inverse document frequency of each (term, field), counted as minisearch counts it */
+  readonly listIdf: Float64Array;
+  /** list l covers postings listStart[l] … listStart[l + 1] − 1 */
+  readonly listStart: Uint32Array;
+  readonly position: Int32Array;
+  readonly tf: Uint16Array;
+
+  constructor(tree: TermTree, toPosition: Int32Array, total: number) {
+    const entries: [string, FieldTermData][] = [...tree];
+    entries.sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
+    let lists = 0;
+    let postings = 0;
+    for (const [, data] of entries) {
+      lists += data.size;
+      for (const list of data.values()) postings += list.size;
+    }
+    this.terms = entries.map((e) => e[0]);
+    this.firstList = new Uint32Array(entries.length + 1);
+    this.listField = new Uint8Array(lists);
+    this.listIdf = new Float64Array(lists);
+    this.listStart = new Uint32Array(lists + 1);
+    this.position = new Int32Array(postings);
+    this.tf = new Uint16Array(postings);
+    let l = 0;
+    let i = 0;
+    entries.forEach(([, data], t) => {
+      this.firstList[t] = l;
+      for (const [fieldId, list] of data) {
+        const n = list.size;
+        this.listField[l] = fieldId;
+        this.listIdf[l] = Math.log(1 + (total - n + 0.5) / (n + 0.5));
+        this.listStart[l] = i;
+        for (const [shortId, tf] of list) {
+          const p = toPosition[shortId];
+          if (p < 0) continue;
+          this.position[i] = p;
+          this.tf[i++] = tf;
+        }
+        l++;
+      }
+    });
+    this.firstList[entries.length] = l;
+    this.listStart[l] = i;
+  }
+
+  /** the first term ≥ `term` */
+  lowerBound(term: string): number {
+    let lo = 0;
+    let hi = this.terms.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (this.terms[mid] < term) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo;
+  }
+
+  find(term: string): number {
+    const t = this.lowerBound(term);
+    return this.terms[t] === term ? t : -1;
   }
 }
 
 class Scorer {
+  private readonly postings: Postings;
   private readonly tree: TermTree;
-  private readonly toPosition: Int32Array;
-  /** per field id: k·(1 − b + b·len/avg) by document short id */
+  /** per field id: k·(1 − b + b·len/avg) by document position */
   private readonly norm: Float32Array[];
   private readonly boostById: Float64Array;
   private readonly chassisMask: number;
   private readonly allMask: number;
-  private readonly total: number;
   private readonly pool: Hits[] = [];
   readonly size: number;
 
   constructor(mini: MiniSearch<SearchDocument>, position: Map<number, number>) {
     const m = mini as unknown as MiniInternals;
     this.tree = m._index;
-    this.total = m._documentCount;
     this.size = position.size;
-    this.toPosition = new Int32Array(m._nextId).fill(-1);
-    for (const [shortId, id] of m._documentIds) this.toPosition[shortId] = position.get(id) ?? -1;
+    const toPosition = new Int32Array(m._nextId).fill(-1);
+    for (const [shortId, id] of m._documentIds) toPosition[shortId] = position.get(id) ?? -1;
     const fieldCount = Object.keys(m._fieldIds).length;
-    this.norm = Array.from({ length: fieldCount }, () => new Float32Array(m._nextId));
+    this.norm = Array.from({ length: fieldCount }, () => new Float32Array(this.size));
     for (const [shortId, lengths] of m._fieldLength) {
+      const p = toPosition[shortId];
+      if (p < 0) continue;
       for (let f = 0; f < fieldCount; f++) {
         const avg = m._avgFieldLength[f] || 1;
-        this.norm[f][shortId] = BM25.k * (1 - BM25.b + (BM25.b * (lengths[f] ?? 0)) / avg);
+        this.norm[f][p] = BM25.k * (1 - BM25.b + (BM25.b * (lengths[f] ?? 0)) / avg);
       }
     }
     this.boostById = new Float64Array(fieldCount);
     for (const [field, id] of Object.entries(m._fieldIds)) this.boostById[id] = fieldBoosts[field as Field] ?? 1;
     this.chassisMask = chassisFields.reduce((mask, f) => mask | (1 << m._fieldIds[f]), 0);
     this.allMask = (1 << fieldCount) - 1;
+    this.postings = new Postings(this.tree, toPosition, m._documentCount);
   }
 
   take(): Hits {
@@ -208,31 +287,40 @@ class Scorer {
     this.pool.push(h);
   }
 
-  private addTerm(data: FieldTermData | undefined, weight: number, fieldMask: number, into: Hits) {
-    if (!data) return;
-    for (const [fieldId, postings] of data) {
+  /** BM25 of one term (by its index in `postings`) in the fields of `fieldMask`, times `weight` */
+  private addTerm(t: number, weight: number, fieldMask: number, into: Hits) {
+    if (t < 0) return;
+    const { firstList, listField, listIdf, listStart, position, tf } = this.postings;
+    const { score, ids } = into;
+    let count = into.count;
+    for (let l = firstList[t]; l < firstList[t + 1]; l++) {
+      const fieldId = listField[l];
       if (!(fieldMask & (1 << fieldId))) continue;
-      const n = postings.size;
-      const idf = Math.log(1 + (this.total - n + 0.5) / (n + 0.5));
-      const w = weight * this.boostById[fieldId] * idf;
+      const w = weight * this.boostById[fieldId] * listIdf[l];
       const norm = this.norm[fieldId];
-      for (const [shortId, tf] of postings) {
-        const p = this.toPosition[shortId];
-        if (p < 0) continue;
-        into.add(p, w * (BM25.d + (tf * (BM25.k + 1)) / (tf + norm[shortId])));
+      // Hits.add by hand: this loop runs once per posting of every matched term
+      for (let i = listStart[l]; i < listStart[l + 1]; i++) {
+        const p = position[i];
+        const f = tf[i];
+        if (score[p] === 0) ids[count++] = p;
+        score[p] += w * (BM25.d + (f * (BM25.k + 1)) / (f + norm[p]));
       }
     }
+    into.count = count;
   }
 
   /** exact, then prefix (from two characters; two-character prefixes only on make, model and code) */
   private addWord(term: string, into: Hits) {
-    this.addTerm(this.tree.get(term), 1, this.allMask, into);
+    const { terms } = this.postings;
+    const first = this.postings.lowerBound(term);
+    if (terms[first] === term) this.addTerm(first, 1, this.allMask, into);
     if (term.length < 2) return;
     const mask = term.length === 2 ? this.chassisMask : this.allMask;
-    for (const [t, data] of this.tree.atPrefix(term)) {
-      const distance = t.length - term.length;
+    for (let t = first; t < terms.length && terms[t].startsWith(term); t++) {
+      const length = terms[t].length;
+      const distance = length - term.length;
       if (distance === 0) continue;
-      this.addTerm(data, (PREFIX_WEIGHT * t.length) / (t.length + 0.3 * distance), mask, into);
+      this.addTerm(t, (PREFIX_WEIGHT * length) / (length + 0.3 * distance), mask, into);
     }
   }
 
@@ -241,9 +329,9 @@ class Scorer {
     if (!fuzzy) return;
     const maxDistance = fuzzy < 1 ? Math.min(2, Math.round(term.length * fuzzy)) : fuzzy;
     if (!maxDistance) return;
-    for (const [t, [data, distance]] of this.tree.fuzzyGet(term, maxDistance)) {
+    for (const [t, [, distance]] of this.tree.fuzzyGet(term, maxDistance)) {
       if (distance === 0) continue;
-      this.addTerm(data, (FUZZY_WEIGHT * t.length) / (t.length + distance), this.allMask, into);
+      this.addTerm(this.postings.find(t), (FUZZY_WEIGHT * t.length) / (t.length + distance), this.allMask, into);
     }
   }
 
@@ -263,19 +351,24 @@ class Scorer {
         return h;
       });
       const both = this.intersect(parts);
-      for (const p of both.ids) hits.add(p, both.score[p]);
+      parts.forEach((h) => this.give(h));
+      for (let i = 0; i < both.count; i++) {
+        const p = both.ids[i];
+        hits.add(p, both.score[p]);
+      }
       this.give(both);
     }
-    if (hits.ids.length === 0) this.addFuzzy(joined, hits);
+    if (hits.count === 0) this.addFuzzy(joined, hits);
     return hits;
   }
 
-  /** documents in every set, scores summed; the inputs go back to the pool */
+  /** documents in every set, scores summed in the sets' order; the inputs stay with the caller */
   intersect(sets: Hits[]): Hits {
     const out = this.take();
     if (sets.length === 0) return out;
-    const smallest = sets.reduce((a, b) => (a.ids.length <= b.ids.length ? a : b));
-    for (const p of smallest.ids) {
+    const smallest = sets.reduce((a, b) => (a.count <= b.count ? a : b));
+    for (let i = 0; i < smallest.count; i++) {
+      const p = smallest.ids[i];
       let s = 0;
       let all = true;
       for (const h of sets) {
@@ -288,15 +381,17 @@ class Scorer {
       }
       if (all) out.add(p, s);
     }
-    for (const h of sets) this.give(h);
     return out;
   }
 
+  /** documents in any set, scores summed; the inputs stay with the caller */
   union(sets: Hits[]): Hits {
     const out = this.take();
     for (const h of sets) {
-      for (const p of h.ids) out.add(p, h.score[p]);
-      this.give(h);
+      for (let i = 0; i < h.count; i++) {
+        const p = h.ids[i];
+        out.add(p, h.score[p]);
+      }
     }
     return out;
   }
@@ -325,12 +420,39 @@ function encode(docs: SearchDocument[], valueOf: (d: SearchDocument) => string |
   return { values, code, byDoc };
 }
 
+/**
+ * Every document's facet codes side by side (document p, group g at p·G + g), each shifted into one
+ * code space shared by all groups, so counting a document is nine `counts[code]++` on adjacent entries.
+ */
+type FacetTable = {
+  /** group g owns shared codes offset[g] … offset[g + 1] − 1 */
+  offset: Int32Array;
+  codes: Uint16Array | Uint32Array;
+  /** counts over every document, for browsing without a query or filter */
+  all: Int32Array;
+};
+const G = groups.length;
+
+function facetTable(codes: Record<Group, Codes>, size: number): FacetTable {
+  const offset = new Int32Array(G + 1);
+  groups.forEach((g, i) => (offset[i + 1] = offset[i] + codes[g].values.length));
+  const table = offset[G] <= 0xffff ? new Uint16Array(size * G) : new Uint32Array(size * G);
+  groups.forEach((g, i) => {
+    const byDoc = codes[g].byDoc;
+    for (let p = 0; p < size; p++) table[p * G + i] = offset[i] + byDoc[p];
+  });
+  const all = new Int32Array(offset[G]);
+  for (let j = 0; j < table.length; j++) all[table[j]]++;
+  return { offset, codes: table, all };
+}
+
 export type SearchIndex = {
   mini: MiniSearch<SearchDocument>;
   docs: SearchDocument[];
   position: Map<number, number>;
   scorer: Scorer;
   codes: Record<Group, Codes>;
+  facets: FacetTable;
   /** positions, newest first / most fitted first */
   newest: Int32Array;
   fitted: Int32Array;
@@ -362,22 +484,24 @@ function wrap(mini: MiniSearch<SearchDocument>, docs: SearchDocument[]): SearchI
   }
   const wheelSizes = [...new Set(docs.map((d) => d.minWheelIn).filter((w): w is number => w !== null))].sort((a, b) => a - b);
   const position = new Map(docs.map((d, i) => [d.id, i]));
+  const codes: Record<Group, Codes> = {
+    make: encode(docs, (d) => d.chassis.make),
+    model: encode(docs, (d) => d.chassis.make + SEP + d.chassis.model),
+    chassis: encode(docs, (d) => d.chassis.slug),
+    axle: encode(docs, (d) => d.axle, axles),
+    category: encode(docs, (d) => d.category, categories),
+    wheel: encode(docs, (d) => (d.minWheelIn === null ? null : String(d.minWheelIn)), wheelSizes.map(String)),
+    machining: encode(docs, (d) => d.machining, machiningLevels),
+    parkingBrake: encode(docs, (d) => (d.parkingBrakeKept === null ? null : d.parkingBrakeKept ? 'yes' : 'no'), ['yes', 'no']),
+    cost: encode(docs, (d) => (d.cost ? costBucketOf(d.cost.min) : null), costBuckets.map((b) => b.value)),
+  };
   return {
     mini,
     docs,
     position,
     scorer: new Scorer(mini, position),
-    codes: {
-      make: encode(docs, (d) => d.chassis.make),
-      model: encode(docs, (d) => d.chassis.make + SEP + d.chassis.model),
-      chassis: encode(docs, (d) => d.chassis.slug),
-      axle: encode(docs, (d) => d.axle, axles),
-      category: encode(docs, (d) => d.category, categories),
-      wheel: encode(docs, (d) => (d.minWheelIn === null ? null : String(d.minWheelIn)), wheelSizes.map(String)),
-      machining: encode(docs, (d) => d.machining, machiningLevels),
-      parkingBrake: encode(docs, (d) => (d.parkingBrakeKept === null ? null : d.parkingBrakeKept ? 'yes' : 'no'), ['yes', 'no']),
-      cost: encode(docs, (d) => (d.cost ? costBucketOf(d.cost.min) : null), costBuckets.map((b) => b.value)),
-    },
+    codes,
+    facets: facetTable(codes, docs.length),
     newest,
     fitted,
     newestRank,
@@ -417,19 +541,14 @@ export function matchQuery(index: SearchIndex, q: string): Matched | null {
   const { scorer } = index;
   const perChunk = chunks.map((c) => scorer.chunk(c));
   if (perChunk.length === 1) return { hits: perChunk[0], relaxed: false };
-  const copies = perChunk.map((h) => {
-    const c = scorer.take();
-    for (const p of h.ids) c.add(p, h.score[p]);
-    return c;
-  });
-  const all = scorer.intersect(perChunk);
-  if (all.ids.length > 0) {
-    copies.forEach((c) => scorer.give(c));
-    return { hits: all, relaxed: false };
+  let hits = scorer.intersect(perChunk);
+  const relaxed = hits.count === 0;
+  if (relaxed) {
+    scorer.give(hits);
+    hits = scorer.union(perChunk);
   }
-  scorer.give(all);
-  const any = scorer.union(copies);
-  return { hits: any, relaxed: any.ids.length > 0 };
+  perChunk.forEach((h) => scorer.give(h));
+  return { hits, relaxed: relaxed && hits.count > 0 };
 }
 
 /** Hands a match's buffers back for reuse. */
@@ -490,6 +609,66 @@ function allowedCodes(index: SearchIndex, f: SearchFilters): Record<Group, Uint8
   return out;
 }
 
+type Tally = { passing: Int32Array; flatCounts: Int32Array; relaxCounts: Int32Array };
+
+/**
+ * No filter: every candidate passes and counts in every group. When the match covers most of the
+ * index it is cheaper to start from the counts over all documents and take away the unmatched ones
+ * (one score check per document, G decrements per miss) than to add up the matched ones (G per hit).
+ */
+function tallyUnfiltered(table: FacetTable, candidates: Int32Array, hits: Hits | null): Tally {
+  const relaxCounts = new Int32Array(G);
+  const { codes } = table;
+  if (hits === null) return { passing: candidates, flatCounts: table.all, relaxCounts };
+  const size = hits.score.length;
+  const counts = new Int32Array(table.all.length);
+  if (hits.count * 2 * G > size * (G + 1)) {
+    counts.set(table.all);
+    const score = hits.score;
+    for (let p = 0; p < size; p++) {
+      if (score[p] !== 0) continue;
+      for (let j = p * G; j < p * G + G; j++) counts[codes[j]]--;
+    }
+  } else {
+    for (let i = 0; i < candidates.length; i++) {
+      const base = candidates[i] * G;
+      for (let j = base; j < base + G; j++) counts[codes[j]]++;
+    }
+  }
+  return { passing: candidates, flatCounts: counts, relaxCounts };
+}
+
+/**
+ * With filters: a candidate passes when no group rejects it; it counts in a group's facet when only
+ * that group's own (or its nested) filters reject it; one rejecting filter means it would pass without it.
+ */
+function tallyFiltered(table: FacetTable, candidates: Int32Array, allowed: Record<Group, Uint8Array | null>): Tally {
+  const { codes, offset } = table;
+  // allowed by shared code; a group without a filter allows all its codes
+  const allow = new Uint8Array(offset[G]).fill(1);
+  groups.forEach((g, i) => allowed[g]?.forEach((a, c) => (allow[offset[i] + c] = a)));
+  const filtered = Int32Array.from(groups.flatMap((g, i) => (allowed[g] ? [i] : [])));
+  const ignore = groups.map((g) => ~ignoredBy[g]);
+  const counts = new Int32Array(offset[G]);
+  const relaxCounts = new Int32Array(G);
+  const passing = new Int32Array(candidates.length);
+  let n = 0;
+  for (let i = 0; i < candidates.length; i++) {
+    const p = candidates[i];
+    const base = p * G;
+    let mask = 0;
+    for (let k = 0; k < filtered.length; k++) if (allow[codes[base + filtered[k]]] === 0) mask |= 1 << filtered[k];
+    if (mask === 0) {
+      passing[n++] = p;
+      for (let j = base; j < base + G; j++) counts[codes[j]]++;
+      continue;
+    }
+    if ((mask & (mask - 1)) === 0) relaxCounts[31 - Math.clz32(mask)]++;
+    for (let g = 0; g < G; g++) if ((mask & ignore[g]) === 0) counts[codes[base + g]]++;
+  }
+  return { passing: passing.subarray(0, n), flatCounts: counts, relaxCounts };
+}
+
 const parkingLabels: Record<string, string> = { yes: 'Parking brake kept', no: 'Parking brake lost' };
 const machiningLabels: Record<string, string> = machiningLevelLabels;
 
@@ -502,29 +681,15 @@ export function search(index: SearchIndex, request: SearchRequest = {}): SearchR
   const offset = Math.max(0, request.offset ?? 0);
   const limit = Math.max(0, Math.min(request.limit ?? 20, 200));
 
-  const candidates: ArrayLike<number> = matched ? matched.hits.ids : sort === 'fitted' ? index.fitted : index.newest;
+  const candidates: Int32Array = matched ? matched.hits.matched() : sort === 'fitted' ? index.fitted : index.newest;
   const allowed = allowedCodes(index, filters);
   const active = groups.filter((g) => allowed[g] !== null);
+  const { passing, flatCounts, relaxCounts } =
+    active.length === 0
+      ? tallyUnfiltered(index.facets, candidates, matched?.hits ?? null)
+      : tallyFiltered(index.facets, candidates, allowed);
   const counts = {} as Record<Group, Int32Array>;
-  for (const g of groups) counts[g] = new Int32Array(index.codes[g].values.length);
-  const relaxCounts = new Int32Array(groups.length);
-  const byDoc = groups.map((g) => index.codes[g].byDoc);
-  const allow = groups.map((g) => allowed[g]);
-  const countsByGroup = groups.map((g) => counts[g]);
-  const ignore = groups.map((g) => ~ignoredBy[g]);
-  const passing: number[] = [];
-
-  for (let i = 0; i < candidates.length; i++) {
-    const p = candidates[i];
-    let mask = 0;
-    for (let g = 0; g < 9; g++) {
-      const a = allow[g];
-      if (a !== null && a[byDoc[g][p]] === 0) mask |= 1 << g;
-    }
-    if (mask === 0) passing.push(p);
-    else if ((mask & (mask - 1)) === 0) relaxCounts[31 - Math.clz32(mask)]++;
-    for (let g = 0; g < 9; g++) if ((mask & ignore[g]) === 0) countsByGroup[g][byDoc[g][p]]++;
-  }
+  groups.forEach((g, i) => (counts[g] = flatCounts.subarray(index.facets.offset[i], index.facets.offset[i + 1])));
 
   let page: number[];
   if (!matched || sort === 'relevance') {
@@ -532,7 +697,7 @@ export function search(index: SearchIndex, request: SearchRequest = {}): SearchR
       const score = matched.hits.score;
       const newestRank = index.newestRank;
       page = topK(passing, offset + limit, (a, b) => score[a] > score[b] || (score[a] === score[b] && newestRank[a] < newestRank[b]));
-    } else page = passing.slice(0, offset + limit);
+    } else page = Array.from(passing.subarray(0, offset + limit));
   } else {
     const rank = sort === 'newest' ? index.newestRank : index.fittedRank;
     page = topK(passing, offset + limit, (a, b) => rank[a] < rank[b]);

@@ -217,6 +217,29 @@ describe('facets and filters', () => {
     ]);
   });
 
+  it('a query matching most swaps counts facets over exactly its results', () => {
+    // five of six swaps mention Halden (the Regent one through its donor caliper): the broad-match path
+    const r = search(index, { q: 'halden' });
+    expect(r.total).toBe(5);
+    expect(r.facets.make.map((f) => [f.value, f.count])).toEqual([
+      ['Halden', 4],
+      ['Tamsin', 1],
+    ]);
+    expect(r.facets.axle.map((f) => [f.value, f.count])).toEqual([
+      ['front', 3],
+      ['rear', 2],
+    ]);
+    expect(r.facets.wheel.map((f) => [f.value, f.count])).toEqual([
+      ['15', 3],
+      ['16', 4],
+      ['17', 5],
+    ]);
+    // a filter that holds nothing back takes the filtered path and must count the same
+    const filtered = search(index, { q: 'halden', filters: { wheel: 30 } });
+    expect(filtered.total).toBe(5);
+    expect({ ...filtered.facets, wheel: [] }).toEqual({ ...r.facets, wheel: [] });
+  });
+
   it('a facet keeps counting its other values while one is chosen; the others narrow', () => {
     const r = search(index, { filters: { axle: 'rear' } });
     expect(r.total).toBe(2);
