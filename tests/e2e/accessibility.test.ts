@@ -5,8 +5,8 @@ import { launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
 import { signInContext, watchedContext } from './support/watched-page';
 
-// axe-core in Chromium over the main pages of the built app on the demo scenario: no serious or
-// critical violations. Each page's counts by impact are printed for the report.
+// axe-core in Chromium over the main pages of the built app on the demo scenario: no violations of
+// any impact. Each page's counts by impact are printed for the report.
 
 let server: RunningServer;
 let browser: Browser;
@@ -44,7 +44,7 @@ describe('accessibility (axe-core)', () => {
   });
 
   for (const p of pages) {
-    it(`when the ${p.name} is checked, then axe finds no serious or critical violation`, async () => {
+    it(`when the ${p.name} is checked, then axe finds no violation`, async () => {
       const page = await contexts[p.as]!.newPage();
       await page.goto(`${server.url}${p.url()}`);
       await page.locator(p.ready).first().waitFor({ timeout: 15_000 });
@@ -57,8 +57,8 @@ describe('accessibility (axe-core)', () => {
           .map(([k, n]) => `${k} ${n}`)
           .join(', ')} (${result.passes.length} rules passed${result.violations.length ? `; failed: ${result.violations.map((v) => `${v.id} [${v.impact}]`).join(', ')}` : ''})`,
       );
+      // the design asks for no serious or critical findings; the pages are clean of the lesser ones too, so keep them so
       const bad = result.violations
-        .filter((v) => v.impact === 'serious' || v.impact === 'critical')
         .map((v) => `${v.impact} ${v.id}: ${v.help}\n${v.nodes.map((n) => `  ${n.target.join(' ')} ${n.html.slice(0, 120)} — ${n.failureSummary?.split('\n').slice(1).join(' ')}`).join('\n')}`);
       if (bad.length) console.log(`axe: ${p.name}:\n${bad.join('\n')}`);
       expect(bad).toEqual([]);

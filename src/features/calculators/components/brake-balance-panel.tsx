@@ -151,7 +151,7 @@ export function BrakeBalancePanel({ params }: { params: CalcParams }) {
             <caption className="sr-only">Brake torque per corner</caption>
             <thead>
               <tr className="text-left text-graphite-soft">
-                <th scope="col" className="py-1 font-bold"></th>
+                <th scope="col" className="py-1 font-bold"><span className="sr-only">Corner</span></th>
                 <th scope="col" className="py-1 text-right font-bold">Stock</th>
                 <th scope="col" className="py-1 text-right font-bold">Swapped</th>
               </tr>

@@ -76,8 +76,8 @@ const actionWords: Record<string, string> = {
 
 function History({ history }: { history: ReviewDetail['history'] }) {
   return (
-    <section aria-labelledby="history-h">
-      <h2 id="history-h" className="mb-3 text-xl font-extrabold text-ink">
+    <section aria-labelledby="review-history-h">
+      <h2 id="review-history-h" className="mb-3 text-xl font-extrabold text-ink">
         History
       </h2>
       {history.length === 0 ? (
