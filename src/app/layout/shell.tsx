@@ -1,6 +1,6 @@
 import { Suspense, useState } from 'react';
 import { Link, NavLink, Outlet, ScrollRestoration, useLocation } from 'react-router';
-import { UnitsToggle } from './units-toggle';
+import { UnitsToggle } from '../../components/units-toggle';
 import { Footer } from './footer';
 import { Loading } from '../../components/ui/query-state';
 import { AccountMenu } from '../../features/account/components/account-menu';

@@ -1,7 +1,7 @@
 import { useEffect } from 'react';
 import { Link, useLocation } from 'react-router';
 import { Page } from '../../../components/ui/page';
-import { useUnits } from '../../../lib/units';
+import { UnitsToggle } from '../../../components/units-toggle';
 import { useCalcParams } from './calc-params';
 import { TyrePanel } from './tyre-panel';
 import { OffsetPanel } from './offset-panel';
@@ -23,25 +23,6 @@ const panels = [
   { id: 'costs', label: 'Cost routes' },
 ];
 
-function PageUnits() {
-  const { system, setSystem } = useUnits();
-  return (
-    <div role="group" aria-label="Units for the calculators" className="inline-flex rounded-md border border-ink/30 bg-paper-card p-0.5 text-sm font-bold">
-      {(['metric', 'imperial'] as const).map((s) => (
-        <button
-          key={s}
-          type="button"
-          aria-pressed={system === s}
-          onClick={() => setSystem(s)}
-          className={`min-h-9 rounded px-3 ${system === s ? 'bg-ink text-paper' : 'text-ink hover:bg-ink-faint'}`}
-        >
-          {s === 'metric' ? 'Metric' : 'Imperial'}
-        </button>
-      ))}
-    </div>
-  );
-}
-
 export default function CalculatorsPage() {
   const params = useCalcParams();
   const { search, hash } = useLocation();
@@ -57,7 +38,7 @@ export default function CalculatorsPage() {
       title="Fitment calculators"
       heading="Fitment calculators"
       lead="The checks behind every swap sheet, for your own numbers. Results update as you type, and the address bar keeps your inputs: copy a panel's link to share exactly what you entered."
-      actions={<PageUnits />}
+      actions={<UnitsToggle look="page" label="Units for the calculators" />}
     >
       <nav aria-label="Calculators" className="mb-6">
         <ul className="flex flex-wrap gap-2">
