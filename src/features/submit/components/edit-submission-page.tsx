@@ -1,4 +1,4 @@
-import { useParams, useLocation } from 'react-router';
+import { useParams } from 'react-router';
 import type { SubmissionView } from '@shared/schemas/submissions';
 import { Page } from '../../../components/ui/page';
 import { ErrorNotice, Loading } from '../../../components/ui/query-state';
@@ -22,8 +22,6 @@ function valuesOfView(view: SubmissionView): FormValues {
 export default function EditSubmissionPage() {
   const { id: raw = '' } = useParams();
   const id = Number(raw);
-  const location = useLocation();
-  const handoff = (location.state as { handoff?: FormValues } | null)?.handoff ?? null;
   const query = useSubmission(id);
   if (!Number.isInteger(id) || id <= 0)
     return (
@@ -45,12 +43,5 @@ export default function EditSubmissionPage() {
     );
   const view = query.data;
   if (!view.editable) return <LockedSubmission view={view} />;
-  return (
-    <SubmissionEditor
-      key={view.id}
-      mode={{ kind: 'edit', view }}
-      initial={handoff ?? valuesOfView(view)}
-      handedOver={Boolean(handoff)}
-    />
-  );
+  return <SubmissionEditor key={view.id} mode={{ kind: 'edit', view }} initial={valuesOfView(view)} />;
 }

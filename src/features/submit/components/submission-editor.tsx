@@ -17,6 +17,7 @@ import { useDeleteSubmission } from '../api/delete-submission';
 import { useChassisOptions } from '../api/get-chassis-options';
 import { errorsOf, formPathOf, newChassisReadable, parsePayload, type FormValues } from '../lib/form-values';
 import { clearBackup, readBackup, useAutosave } from '../lib/use-autosave';
+import { handOver, handedOverForm, releaseHandOver } from '../lib/form-handoff';
 import { SaveStatus } from './save-status';
 import { ChassisSection } from './chassis-section';
 import {
@@ -62,18 +63,13 @@ function backupKeyOf(mode: EditorMode) {
  * The submission form for a new swap, a correction of an approved one, or a draft /
  * sent-back revision. The shared zod schema validates it, exactly as the server will.
  */
-export function SubmissionEditor({
-  mode,
-  initial,
-  handedOver = false,
-}: {
-  mode: EditorMode;
-  initial: FormValues;
-  handedOver?: boolean;
-}) {
+export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial: FormValues }) {
   const navigate = useNavigate();
   const queryClient = useQueryClient();
   const view = mode.kind === 'edit' ? mode.view : null;
+  // the form of /submit, when this draft was created there a moment ago
+  const [adopted] = useState(() => (view ? handedOverForm(view.id) : null));
+  const handedOver = adopted !== null;
   const swapSlug = mode.kind === 'correction' ? mode.swap.swap.slug : view?.isCorrection ? view.swapSlug : null;
   const backupKey = backupKeyOf(mode);
   const sending = useRef(false);
@@ -91,7 +87,16 @@ export function SubmissionEditor({
     },
     [swapSlug],
   );
-  const form = useForm<FormValues>({ defaultValues: initial, resolver, mode: 'onTouched', reValidateMode: 'onChange' });
+  const form = useForm<FormValues>({
+    ...(adopted ? { formControl: adopted } : { defaultValues: initial }),
+    resolver,
+    mode: 'onTouched',
+    reValidateMode: 'onChange',
+  });
+  const viewId = view?.id ?? null;
+  useEffect(() => {
+    if (adopted && viewId) releaseHandOver(viewId, adopted);
+  }, [adopted, viewId]);
 
   const autosave = useAutosave({
     form,
@@ -105,7 +110,10 @@ export function SubmissionEditor({
       queryClient.setQueryData(submissionKeys.detail(created.id), created);
       void queryClient.invalidateQueries({ queryKey: submissionKeys.mine() });
       clearBackup(backupKey);
-      if (!sending.current) navigate(paths.editSubmission(created.id), { replace: true, state: { handoff: form.getValues() } });
+      if (sending.current) return false;
+      handOver(created.id, form);
+      navigate(paths.editSubmission(created.id), { replace: true });
+      return true;
     },
     onSaved: (saved) => {
       queryClient.setQueryData<SubmissionView>(submissionKeys.detail(saved.id), (old) =>
@@ -113,7 +121,7 @@ export function SubmissionEditor({
       );
     },
   });
-  // input handed over from /submit may hold keystrokes typed after the first save
+  // the adopted form may hold keystrokes typed after the first save
   const { retry } = autosave;
   useEffect(() => {
     if (handedOver) void retry();

@@ -47,7 +47,8 @@ type Options = {
   swapSlug: string | null;
   enabled: boolean;
   backupKey: string;
-  onCreated: (view: SubmissionView) => void;
+  /** return true when another editor takes the new draft over; this one then stops saving */
+  onCreated: (view: SubmissionView) => boolean | void;
   onSaved?: (view: SubmissionView) => void;
   /** the values the server already holds, when the form opens on a saved revision */
   savedValues?: FormValues | null;
@@ -89,6 +90,7 @@ export function useAutosave({
   });
   const lastSaved = useRef<string | null>(savedJson);
   const changedSinceSave = useRef(false);
+  const handedOff = useRef(false);
   const serverErrorPaths = useRef<string[]>([]);
   const callbacks = useRef({ onCreated, onSaved });
   callbacks.current = { onCreated, onSaved };
@@ -119,7 +121,7 @@ export function useAutosave({
       } else {
         view = await createSubmission(parsed.payload);
         idRef.current = view.id;
-        callbacks.current.onCreated(view);
+        if (callbacks.current.onCreated(view) === true) handedOff.current = true;
       }
       lastSaved.current = json;
       if (serverErrorPaths.current.length) form.clearErrors(serverErrorPaths.current as never);
@@ -143,6 +145,8 @@ export function useAutosave({
   }, [form, swapSlug, backupKey, setState]);
 
   const run = useCallback((): Promise<SubmissionView | null> => {
+    // after a hand-over the adopting editor saves; two savers could land out of order
+    if (handedOff.current) return Promise.resolve(null);
     if (running.current) {
       again.current = true;
       return running.current;
@@ -151,7 +155,7 @@ export function useAutosave({
       running.current = null;
       if (again.current) {
         again.current = false;
-        void run();
+        if (!handedOff.current) void run();
       }
     });
     running.current = p;
@@ -162,6 +166,7 @@ export function useAutosave({
     if (!enabled) return;
     const sub = form.watch((values, info) => {
       if (!info.name && info.type === undefined) return; // a reset, not a person typing
+      if (handedOff.current) return;
       changedSinceSave.current = true;
       writeBackup(backupKey, values as FormValues);
       setState({ kind: 'pending' });
