@@ -2,103 +2,36 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
-import { chassis, revisions, swaps, users } from '../../server/db/schema/index';
-import { swapDataSchema, type SwapDataInput } from '../../shared/schemas/swap-data';
+import { revisions, swaps } from '../../server/db/schema/index';
 import type { RevisionStatus } from '../../shared/schemas/enums';
+import { addUser } from './support/auth-helpers';
+import { addChassis } from './support/swap-fixtures';
+import { addSwap as addSwapRows, swapData } from './support/swap-rows';
 import type { SearchIndexResponse } from '../../shared/search/search-document';
 
 let t: TestApp;
 let authorId: number;
 let chassisId: number;
-const at = new Date('2024-03-01T10:00:00Z');
 
-function swapData(title: string, extra: Partial<SwapDataInput> = {}) {
-  return swapDataSchema.parse({
-    title,
-    parts: [
-      {
-        role: 'Front caliper',
-        kind: 'caliper',
-        name: 'Vela four-piston fixed caliper',
-        maker: 'Orsino',
-        partNumbers: ['OV-355-104-L', 'OV-355-104-R'],
-        cameOn: ['Orsino Vela 2.0 (1996–2001)'],
-        quantity: 2,
-      },
-    ],
-    adapter: { name: 'H31 caliper bracket', maker: 'Northgate Fabrication', partNumber: 'NF-H31-VB' },
-    machining: [{ operation: 'grind', where: 'Knuckle casting edge', required: true }],
-    wheel: { minDiameterIn: 16, caliperRadialProjectionMm: 12, caliperOutboardMm: 30 },
-    costs: [
-      { route: 'as_built', item: 'Used calipers', amountMinor: 32000 },
-      { route: 'as_built', item: 'Brackets', amountMinor: 14000 },
-      { route: 'new_kit', item: 'Complete kit', amountMinor: 98000 },
-    ],
-    parkingBrakeKept: null,
-    ...extra,
-  });
-}
+/** what the index needs to show: machining (minor), two cost routes, no parking brake on the front axle */
+const indexed = {
+  machining: [{ operation: 'grind' as const, where: 'Knuckle casting edge', required: true }],
+  costs: [
+    { route: 'as_built' as const, item: 'Used calipers', amountMinor: 32000 },
+    { route: 'as_built' as const, item: 'Brackets', amountMinor: 14000 },
+    { route: 'new_kit' as const, item: 'Complete kit', amountMinor: 98000 },
+  ],
+};
 
 /** A swap with one revision per given status; the swap's current revision is the approved one, if any. */
 function addSwap(slug: string, statuses: RevisionStatus[], titles: string[] = statuses.map((s, i) => `${slug} ${s} revision ${i + 1}`)) {
-  const swap = t.db
-    .insert(swaps)
-    .values({ slug, chassisId, axle: 'front', category: 'brakes', authorId, createdAt: at, updatedAt: at })
-    .returning()
-    .get();
-  const ids = statuses.map((status, i) => {
-    const reviewed = status === 'approved' || status === 'superseded' || status === 'declined' || status === 'sent_back';
-    return t.db
-      .insert(revisions)
-      .values({
-        swapId: swap.id,
-        number: i + 1,
-        authorId,
-        status,
-        data: swapData(titles[i]),
-        submittedAt: status === 'draft' ? null : at,
-        reviewedAt: reviewed ? at : null,
-        createdAt: at,
-        updatedAt: at,
-      })
-      .returning({ id: revisions.id })
-      .get().id;
-  });
-  const approved = statuses.indexOf('approved');
-  if (approved >= 0) t.db.update(swaps).set({ currentRevisionId: ids[approved] }).where(eq(swaps.id, swap.id)).run();
-  return { swapId: swap.id, revisionIds: ids };
+  return addSwapRows(t.db, { slug, chassisId, authorId, revisions: statuses.map((status, i) => ({ status, data: swapData(titles[i], indexed) })) });
 }
 
 beforeAll(async () => {
   t = await makeTestApp();
-  authorId = t.db
-    .insert(users)
-    .values({ provider: 'github', providerId: '101', login: 'rivet_rosa', name: 'Rosa', createdAt: at, updatedAt: at })
-    .returning()
-    .get().id;
-  chassisId = t.db
-    .insert(chassis)
-    .values({
-      slug: 'halden-h31',
-      make: 'Halden',
-      model: 'H31',
-      code: 'H31',
-      yearFrom: 1991,
-      yearTo: 1999,
-      lugCount: 5,
-      pcdMm: 112,
-      centreBoreMm: 66.6,
-      wheelBoltThread: 'M12×1.5',
-      stockWheel: { diameterIn: 15, widthIn: 6, offsetMm: 38, tyre: '195/60R15' },
-      stockBrakes: {
-        front: { kind: 'disc', pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50, description: 'Single piston' },
-        rear: { kind: 'disc', pistonsPerSideMm: [36], rotorDiameterMm: 260, padHeightMm: 40, description: 'Single piston' },
-      },
-      createdAt: at,
-      updatedAt: at,
-    })
-    .returning()
-    .get().id;
+  authorId = addUser(t.db, 'rivet_rosa').id;
+  chassisId = addChassis(t.db).id;
 });
 afterAll(() => t.close());
 
@@ -160,7 +93,7 @@ describe('GET /api/search-index', () => {
     const before = await getIndex();
     expect((before.body as SearchIndexResponse).documents.find((d) => d.slug === 'about-to-change')?.title).toBe('Before the correction');
 
-    const later = new Date(at.getTime() + 60_000);
+    const later = new Date(Date.now() + 60_000);
     t.db.update(revisions).set({ status: 'superseded', updatedAt: later }).where(eq(revisions.id, revisionIds[0])).run();
     t.db.update(revisions).set({ status: 'approved', reviewedAt: later, updatedAt: later }).where(eq(revisions.id, revisionIds[1])).run();
     t.db.update(swaps).set({ currentRevisionId: revisionIds[1], updatedAt: later }).where(eq(swaps.id, swapId)).run();
