@@ -7,7 +7,7 @@ import { Writable } from 'node:stream';
 import { and, desc, eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
 import { createApp } from '../../server/app';
-import { addUser, csrfToken, listen, signIn, type Agent } from './support/auth-helpers';
+import { type Agent, type Member, csrfToken, listen, signIn, signedInMember } from './support/auth-helpers';
 import { addChassis, swapRecord } from './support/swap-fixtures';
 import { chassis, flags, mailOutbox, parts, reviewEvents, revisions, swaps, users } from '../../server/db/schema/index';
 import type { SwapDataInput } from '../../shared/schemas/swap-data';
@@ -18,19 +18,13 @@ let server: Server;
 let agent: () => Agent;
 let chassisId: number;
 
-type Member = { agent: Agent; token: string; id: number; login: string };
 let rosa: Member;
 let kai: Member;
 let paul: Member;
 let mo: Member;
 let ada: Member;
 
-async function member(login: string, role: 'member' | 'moderator' | 'admin' = 'member'): Promise<Member> {
-  const id = addUser(t.db, login, role).id;
-  const a = agent();
-  await signIn(a, login);
-  return { agent: a, token: await csrfToken(a), id, login };
-}
+const member = (login: string, role: 'member' | 'moderator' | 'admin' = 'member') => signedInMember(t.db, agent, login, role);
 
 const post = (m: Member, path: string, body?: object) => m.agent.post(path).set('x-csrf-token', m.token).send(body);
 const patch = (m: Member, path: string, body: object) => m.agent.patch(path).set('x-csrf-token', m.token).send(body);

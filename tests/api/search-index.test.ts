@@ -24,8 +24,17 @@ const indexed = {
 };
 
 /** A swap with one revision per given status; the swap's current revision is the approved one, if any. */
-function addSwap(slug: string, statuses: RevisionStatus[], titles: string[] = statuses.map((s, i) => `${slug} ${s} revision ${i + 1}`)) {
-  return addSwapRows(t.db, { slug, chassisId, authorId, revisions: statuses.map((status, i) => ({ status, data: swapData(titles[i], indexed) })) });
+function addSwap(
+  slug: string,
+  statuses: RevisionStatus[],
+  titles: string[] = statuses.map((s, i) => `${slug} ${s} revision ${i + 1}`),
+) {
+  return addSwapRows(t.db, {
+    slug,
+    chassisId,
+    authorId,
+    revisions: statuses.map((status, i) => ({ status, data: swapData(titles[i], indexed) })),
+  });
 }
 
 beforeAll(async () => {
@@ -53,7 +62,11 @@ describe('GET /api/search-index', () => {
     const res = await getIndex();
     expect(res.status).toBe(200);
     const body = res.body as SearchIndexResponse;
-    expect(body.documents.map((d) => d.slug).sort()).toEqual(['approved-one', 'approved-with-pending-edit', 'superseded-then-approved']);
+    expect(body.documents.map((d) => d.slug).sort()).toEqual([
+      'approved-one',
+      'approved-with-pending-edit',
+      'superseded-then-approved',
+    ]);
     const titles = Object.fromEntries(body.documents.map((d) => [d.slug, d.title]));
     expect(titles['approved-with-pending-edit']).toBe('Approved text of the sheet');
     expect(titles['superseded-then-approved']).toBe('New approved text');
@@ -89,13 +102,23 @@ describe('GET /api/search-index', () => {
   });
 
   it('when a swap gets a newly approved revision, then the index and its ETag change', async () => {
-    const { swapId, revisionIds } = addSwap('about-to-change', ['approved', 'in_review'], ['Before the correction', 'After the correction']);
+    const { swapId, revisionIds } = addSwap(
+      'about-to-change',
+      ['approved', 'in_review'],
+      ['Before the correction', 'After the correction'],
+    );
     const before = await getIndex();
-    expect((before.body as SearchIndexResponse).documents.find((d) => d.slug === 'about-to-change')?.title).toBe('Before the correction');
+    expect((before.body as SearchIndexResponse).documents.find((d) => d.slug === 'about-to-change')?.title).toBe(
+      'Before the correction',
+    );
 
     const later = new Date(Date.now() + 60_000);
     t.db.update(revisions).set({ status: 'superseded', updatedAt: later }).where(eq(revisions.id, revisionIds[0])).run();
-    t.db.update(revisions).set({ status: 'approved', reviewedAt: later, updatedAt: later }).where(eq(revisions.id, revisionIds[1])).run();
+    t.db
+      .update(revisions)
+      .set({ status: 'approved', reviewedAt: later, updatedAt: later })
+      .where(eq(revisions.id, revisionIds[1]))
+      .run();
     t.db.update(swaps).set({ currentRevisionId: revisionIds[1], updatedAt: later }).where(eq(swaps.id, swapId)).run();
 
     const after = await getIndex(before.headers.etag);
@@ -109,10 +132,16 @@ describe('GET /api/search-index', () => {
   it('when only a fitted-report count changes, then the index changes too', async () => {
     const before = await getIndex();
     const target = (before.body as SearchIndexResponse).documents.find((d) => d.slug === 'approved-one')!;
-    t.db.update(swaps).set({ fittedCount: target.fittedCount + 1 }).where(eq(swaps.id, target.id)).run();
+    t.db
+      .update(swaps)
+      .set({ fittedCount: target.fittedCount + 1 })
+      .where(eq(swaps.id, target.id))
+      .run();
     const after = await getIndex(before.headers.etag);
     expect(after.status).toBe(200);
-    expect((after.body as SearchIndexResponse).documents.find((d) => d.id === target.id)!.fittedCount).toBe(target.fittedCount + 1);
+    expect((after.body as SearchIndexResponse).documents.find((d) => d.id === target.id)!.fittedCount).toBe(
+      target.fittedCount + 1,
+    );
   });
 
   it('when an approved swap is taken back to no current revision, then it leaves the index', async () => {

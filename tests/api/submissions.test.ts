@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
-import { addUser, csrfToken, listen, signIn, type Agent } from './support/auth-helpers';
+import { type Agent, type Member, addUser, csrfToken, listen, signIn, signedInMember } from './support/auth-helpers';
 import { addChassis, addPart, swapRecord } from './support/swap-fixtures';
 import { chassis, mailOutbox, reviewEvents, revisions, swaps } from '../../server/db/schema/index';
 import type { SubmissionView } from '../../shared/schemas/submissions';
@@ -13,14 +13,10 @@ let server: Server;
 let agent: () => Agent;
 let chassisId: number;
 
-type Member = { agent: Agent; token: string; id: number };
 const members: Record<string, Member> = {};
 
 async function member(login: string, role: 'member' | 'moderator' = 'member'): Promise<Member> {
-  const id = addUser(t.db, login, role).id;
-  const a = agent();
-  await signIn(a, login);
-  return (members[login] = { agent: a, token: await csrfToken(a), id });
+  return (members[login] = await signedInMember(t.db, agent, login, role));
 }
 
 const post = (m: Member, path: string, body?: object) => m.agent.post(path).set('x-csrf-token', m.token).send(body);

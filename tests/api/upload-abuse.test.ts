@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import sharp from 'sharp';
 import { makeTestApp, type TestApp } from './support/test-app';
-import { addUser, csrfToken, listen, signIn, type Agent } from './support/auth-helpers';
+import { type Agent, type Member, addUser, csrfToken, listen, signIn, signedInMember } from './support/auth-helpers';
 import { addChassis, swapRecord } from './support/swap-fixtures';
 import { addSwap } from './support/swap-rows';
 import {
@@ -38,16 +38,10 @@ let server: Server;
 let agent: () => Agent;
 let chassisId: number;
 
-type Member = { agent: Agent; token: string; id: number };
 let rosa: Member;
 let kai: Member;
 
-async function member(login: string): Promise<Member> {
-  const id = addUser(t.db, login).id;
-  const a = agent();
-  await signIn(a, login);
-  return { agent: a, token: await csrfToken(a), id };
-}
+const member = (login: string) => signedInMember(t.db, agent, login);
 
 async function newDraft(m: Member = rosa): Promise<number> {
   const res = await m.agent

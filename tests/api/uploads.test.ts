@@ -6,7 +6,7 @@ import request from 'supertest';
 import sharp from 'sharp';
 import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
-import { addUser, csrfToken, listen, signIn, type Agent } from './support/auth-helpers';
+import { type Agent, type Member, addUser, csrfToken, listen, signIn, signedInMember } from './support/auth-helpers';
 import { addChassis, swapRecord } from './support/swap-fixtures';
 import { revisionPhotos } from '../../server/db/schema/index';
 
@@ -15,17 +15,11 @@ let server: Server;
 let agent: () => Agent;
 let chassisId: number;
 
-type Member = { agent: Agent; token: string };
 let rosa: Member;
 let kai: Member;
 let mo: Member;
 
-async function member(login: string, role: 'member' | 'moderator' = 'member'): Promise<Member> {
-  addUser(t.db, login, role);
-  const a = agent();
-  await signIn(a, login);
-  return { agent: a, token: await csrfToken(a) };
-}
+const member = (login: string, role: 'member' | 'moderator' = 'member') => signedInMember(t.db, agent, login, role);
 
 async function newDraft(m: Member = rosa): Promise<number> {
   const res = await m.agent

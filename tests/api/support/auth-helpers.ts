@@ -12,7 +12,17 @@ export function addUser(db: Db, login: string, role: Role = 'member', extra: Par
   const now = new Date();
   return db
     .insert(users)
-    .values({ provider: 'github', providerId: `demo-${login}`, login, name: login.replace(/_/g, ' '), role, email: `${login}@members.swapyard.invalid`, createdAt: now, updatedAt: now, ...extra })
+    .values({
+      provider: 'github',
+      providerId: `demo-${login}`,
+      login,
+      name: login.replace(/_/g, ' '),
+      role,
+      email: `${login}@members.swapyard.invalid`,
+      createdAt: now,
+      updatedAt: now,
+      ...extra,
+    })
     .returning()
     .get();
 }
@@ -33,7 +43,9 @@ export const sessionCookieOf = (res: { headers: Record<string, unknown> }, name 
  * (picking `login`) → the callback. Returns every response on the way.
  */
 export async function signIn(agent: Agent, login: string, returnTo?: string) {
-  const start = await agent.get(returnTo === undefined ? '/auth/github' : `/auth/github?returnTo=${encodeURIComponent(returnTo)}`);
+  const start = await agent.get(
+    returnTo === undefined ? '/auth/github' : `/auth/github?returnTo=${encodeURIComponent(returnTo)}`,
+  );
   expect(start.status).toBe(302);
   const authorize = new URL(start.headers.location, 'http://placeholder');
   expect(authorize.pathname).toBe('/auth/fake/authorize');
@@ -55,4 +67,20 @@ export async function csrfToken(agent: Agent): Promise<string> {
 export function listen(app: { listen: (port: number) => Server }) {
   const server = app.listen(0);
   return { server, agent: () => request.agent(server) };
+}
+
+export type Member = { agent: Agent; token: string; id: number; login: string };
+
+/** A user row, an agent signed in as that user through the fake provider, and its CSRF token. */
+export async function signedInMember(
+  db: Db,
+  newAgent: () => Agent,
+  login: string,
+  role: Role = 'member',
+  extra: Partial<typeof users.$inferInsert> = {},
+): Promise<Member> {
+  const id = addUser(db, login, role, extra).id;
+  const agent = newAgent();
+  await signIn(agent, login);
+  return { agent, token: await csrfToken(agent), id, login };
 }
