@@ -23,7 +23,10 @@ const bare = spawn(process.execPath, ['--import', 'tsx', 'bench/support/bare-ser
 const app = await startServer({ NODE_ENV: 'production', AUTH_PROVIDER: 'fake', SEED_DEMO: 'auto' });
 try {
   for (let i = 0; ; i++) {
-    const up = await fetch(`http://127.0.0.1:${barePort}/bare`).then((r) => r.ok, () => false);
+    const up = await fetch(`http://127.0.0.1:${barePort}/bare`).then(
+      (r) => r.ok,
+      () => false,
+    );
     if (up) break;
     if (i > 100) throw new Error('the bare server did not start');
     await new Promise((r) => setTimeout(r, 100));
@@ -56,7 +59,10 @@ try {
         `${name.padEnd(13)} ${String(connections).padStart(5)} ${r.rps.toFixed(0).padStart(7)} ${String(r.p50Ms).padStart(8)} ${String(r.p99Ms).padStart(7)} ${ratio.toFixed(2).padStart(6)} ${String(r.errors + r.non2xx).padStart(8)}`,
       );
       if (connections === 50) {
-        summary[name] = name === 'ceiling' ? { rps: Math.round(r.rps), p99Ms: r.p99Ms } : { rps: Math.round(r.rps), p99Ms: r.p99Ms, ratio: Number(ratio.toFixed(3)) };
+        summary[name] =
+          name === 'ceiling'
+            ? { rps: Math.round(r.rps), p99Ms: r.p99Ms }
+            : { rps: Math.round(r.rps), p99Ms: r.p99Ms, ratio: Number(ratio.toFixed(3)) };
       }
     }
   }

@@ -26,7 +26,13 @@ type Chassis = SearchDocument['chassis'];
 type Part = { name: string; numbers: string[]; cameOn: string[] };
 
 const partKinds = [
-  ['four-piston fixed caliper', 'two-piston sliding caliper', 'six-piston caliper', 'single-piston caliper', 'rear caliper with handbrake lever'],
+  [
+    'four-piston fixed caliper',
+    'two-piston sliding caliper',
+    'six-piston caliper',
+    'single-piston caliper',
+    'rear caliper with handbrake lever',
+  ],
   ['vented rotor', 'solid rotor', 'drilled rotor', 'two-piece floating rotor', 'rotor with drum hat'],
   ['pad set', 'braided brake line', 'master cylinder', 'wheel bolt set', 'hub-centric spacer', 'caliper bracket bolts'],
   ['coilover strut', 'anti-roll bar', 'knuckle', 'hub and bearing', 'drive shaft', 'wheel'],
@@ -62,7 +68,10 @@ export function makeWorld(seed = 7, chassisCount = 600, makeCount = 60) {
     const yearFrom = r.int(1965, 2018);
     chassis.push({ slug, make, model, code, yearFrom, yearTo: r.next() < 0.1 ? null : yearFrom + r.int(3, 12) });
   }
-  const makers = Array.from({ length: 40 }, () => `${word(2)} ${r.pick(['Fabrication', 'Performance', 'Motorsport', 'Engineering', 'Brakes'])}`);
+  const makers = Array.from(
+    { length: 40 },
+    () => `${word(2)} ${r.pick(['Fabrication', 'Performance', 'Motorsport', 'Engineering', 'Brakes'])}`,
+  );
   return { r, word, makes, chassis, makers };
 }
 
@@ -108,7 +117,11 @@ export function makeDocuments(count: number, world: World): SearchDocument[] {
       cameOn: [...new Set(used.flatMap((p) => p.cameOn))],
       adapter:
         r.next() < 0.7
-          ? { name: `${c.code} ${r.pick(['caliper bracket', 'adapter plate', 'relocation bracket'])}`, maker: adapterMaker, partNumber: `${adapterMaker.slice(0, 2).toUpperCase()}-${c.code}-${r.int(10, 99)}` }
+          ? {
+              name: `${c.code} ${r.pick(['caliper bracket', 'adapter plate', 'relocation bracket'])}`,
+              maker: adapterMaker,
+              partNumber: `${adapterMaker.slice(0, 2).toUpperCase()}-${c.code}-${r.int(10, 99)}`,
+            }
           : null,
       minWheelIn: r.next() < 0.85 ? r.pick([14, 15, 15, 16, 16, 17, 18]) : null,
       machining: r.pick(machiningLevels),
@@ -142,7 +155,11 @@ export function makeQueries(count: number, docs: SearchDocument[], world: World)
     (d: SearchDocument) => typo(r, d.chassis.make.toLowerCase()),
     (d: SearchDocument) => `${typo(r, d.chassis.make)} ${d.chassis.code}`,
     (d: SearchDocument) => r.pick(d.partNumbers),
-    (d: SearchDocument) => r.pick(d.partNumbers).replace(/[^A-Za-z0-9]/g, '').toLowerCase(),
+    (d: SearchDocument) =>
+      r
+        .pick(d.partNumbers)
+        .replace(/[^A-Za-z0-9]/g, '')
+        .toLowerCase(),
     (d: SearchDocument) => r.pick(d.partNumbers).slice(0, r.int(4, 7)),
     (d: SearchDocument) => `${d.chassis.code} ${typo(r, r.pick(['caliper', 'rotor', 'spacer', 'bracket']))}`,
     (d: SearchDocument) => `${d.chassis.model} ${d.axle} ${d.partNames[0].split(' ').at(-1)}`,

@@ -11,7 +11,16 @@ const body = JSON.stringify({ documents: makeDocuments(count, makeWorld()) });
 
 const browser = await chromium.launch({
   executablePath: process.env.CHROMIUM ?? '/usr/bin/chromium',
-  args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  args: [
+    '--headless',
+    '--no-sandbox',
+    '--disable-gpu',
+    '--disable-quic',
+    '--no-first-run',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+  ],
 });
 try {
   const page = await browser.newPage();
@@ -19,7 +28,10 @@ try {
   await page.addInitScript(() => {
     const w = window as unknown as { __long: number[] };
     w.__long = [];
-    new PerformanceObserver((list) => list.getEntries().forEach((e) => w.__long.push(e.duration))).observe({ type: 'longtask', buffered: true });
+    new PerformanceObserver((list) => list.getEntries().forEach((e) => w.__long.push(e.duration))).observe({
+      type: 'longtask',
+      buffered: true,
+    });
   });
   const t0 = Date.now();
   await page.goto(`${base}/search`);

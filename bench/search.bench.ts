@@ -2,7 +2,16 @@ import { gzipSync } from 'node:zlib';
 import { performance } from 'node:perf_hooks';
 import Database from 'better-sqlite3';
 import MiniSearch from 'minisearch';
-import { buildIndex, indexOptions, matchQuery, queryTree, releaseMatch, search, searchOptions, type SearchIndex } from '../shared/search/search-engine';
+import {
+  buildIndex,
+  indexOptions,
+  matchQuery,
+  queryTree,
+  releaseMatch,
+  search,
+  searchOptions,
+  type SearchIndex,
+} from '../shared/search/search-engine';
 import { normalisePartNumber, parseQuery, tokenize } from '../shared/search/normalise';
 import type { SearchDocument } from '../shared/search/search-document';
 import { makeDocuments, makeQueries, makeWorld } from './search-fixtures';
@@ -35,7 +44,17 @@ function timeQueries(queries: string[], run: (q: string) => unknown) {
 /** The naive baseline: lower-cased text per document, every query word must appear somewhere in it. */
 function linearBaseline(docs: SearchDocument[]) {
   const hay = docs.map((d) =>
-    [d.title, d.chassis.make, d.chassis.model, d.chassis.code, ...d.partNames, ...d.cameOn, d.adapter?.name ?? '', d.adapter?.maker ?? '', ...tokenize([...d.partNumbers, d.adapter?.partNumber ?? ''].join(' '))]
+    [
+      d.title,
+      d.chassis.make,
+      d.chassis.model,
+      d.chassis.code,
+      ...d.partNames,
+      ...d.cameOn,
+      d.adapter?.name ?? '',
+      d.adapter?.maker ?? '',
+      ...tokenize([...d.partNumbers, d.adapter?.partNumber ?? ''].join(' ')),
+    ]
       .join(' ')
       .toLowerCase(),
   );
@@ -50,17 +69,33 @@ function linearBaseline(docs: SearchDocument[]) {
 /** A server-side alternative: FTS5 with prefix queries and bm25 weights like the client's boosts (no typo tolerance). */
 function fts5Baseline(docs: SearchDocument[]) {
   const db = new Database(':memory:');
-  db.exec(`create virtual table swaps_fts using fts5(code, model, make, part_numbers, title, part_names, adapter, came_on, tokenize = 'unicode61 remove_diacritics 2', prefix = '2 3')`);
-  const insert = db.prepare('insert into swaps_fts(rowid, code, model, make, part_numbers, title, part_names, adapter, came_on) values (?, ?, ?, ?, ?, ?, ?, ?, ?)');
+  db.exec(
+    `create virtual table swaps_fts using fts5(code, model, make, part_numbers, title, part_names, adapter, came_on, tokenize = 'unicode61 remove_diacritics 2', prefix = '2 3')`,
+  );
+  const insert = db.prepare(
+    'insert into swaps_fts(rowid, code, model, make, part_numbers, title, part_names, adapter, came_on) values (?, ?, ?, ?, ?, ?, ?, ?, ?)',
+  );
   const [, buildMs] = time(() =>
     db.transaction(() => {
       for (const d of docs) {
         const numbers = [...d.partNumbers, d.adapter?.partNumber ?? ''].filter(Boolean);
-        insert.run(d.id, d.chassis.code, d.chassis.model, d.chassis.make, [...numbers, ...numbers.map(normalisePartNumber)].join(' '), d.title, d.partNames.join(' '), d.adapter ? `${d.adapter.name} ${d.adapter.maker}` : '', d.cameOn.join(' '));
+        insert.run(
+          d.id,
+          d.chassis.code,
+          d.chassis.model,
+          d.chassis.make,
+          [...numbers, ...numbers.map(normalisePartNumber)].join(' '),
+          d.title,
+          d.partNames.join(' '),
+          d.adapter ? `${d.adapter.name} ${d.adapter.maker}` : '',
+          d.cameOn.join(' '),
+        );
       }
     })(),
   );
-  const stmt = db.prepare('select rowid from swaps_fts where swaps_fts match ? order by bm25(swaps_fts, 10, 8, 3, 6, 2, 1.2, 1, 0.8) limit 20');
+  const stmt = db.prepare(
+    'select rowid from swaps_fts where swaps_fts match ? order by bm25(swaps_fts, 10, 8, 3, 6, 2, 1.2, 1, 0.8) limit 20',
+  );
   const run = (q: string) => {
     const chunks = parseQuery(q);
     if (chunks.length === 0) return [];
@@ -143,32 +178,58 @@ for (const n of sizes) {
 
   log(`── ${n.toLocaleString('en')} documents`);
   log(`  build index          ${row.buildMs} ms (JSON.parse + build: ${row.parseAndBuildMs} ms)`);
-  log(`  documents on wire    ${(docsJson.length / 1024).toFixed(0)} KiB JSON, ${(docsGz / 1024).toFixed(0)} KiB gzip = ${row.gzBytesPerDoc} B/doc`);
-  log(`  serialized index     ${(indexJson.length / 1024).toFixed(0)} KiB JSON, ${(indexGz / 1024).toFixed(0)} KiB gzip = ${row.indexGzBytesPerDoc} B/doc (still needs the documents to show and facet)`);
+  log(
+    `  documents on wire    ${(docsJson.length / 1024).toFixed(0)} KiB JSON, ${(docsGz / 1024).toFixed(0)} KiB gzip = ${row.gzBytesPerDoc} B/doc`,
+  );
+  log(
+    `  serialized index     ${(indexJson.length / 1024).toFixed(0)} KiB JSON, ${(indexGz / 1024).toFixed(0)} KiB gzip = ${row.indexGzBytesPerDoc} B/doc (still needs the documents to show and facet)`,
+  );
   log(`  load serialized      ${row.loadMs} ms (MiniSearch.loadJSON)`);
-  log(`  query (full answer)  p50 ${row.queryP50Ms} ms, p95 ${row.queryP95Ms} ms, max ${round(full.max)} ms — match + filters + facets + sort + page`);
+  log(
+    `  query (full answer)  p50 ${row.queryP50Ms} ms, p95 ${row.queryP95Ms} ms, max ${round(full.max)} ms — match + filters + facets + sort + page`,
+  );
   log(`  query (match only)   p50 ${round(matchOnly.p50)} ms, p95 ${row.matchP95Ms} ms`);
-  log(`  query + axle filter  p50 ${round(withFilter.p50)} ms, p95 ${round(withFilter.p95)} ms (full answer with one filter chosen)`);
-  log(`  minisearch.search    p50 ${round(plain.p50)} ms, p95 ${row.plainMiniP95Ms} ms (the library's own scoring, same tree; for comparison)`);
+  log(
+    `  query + axle filter  p50 ${round(withFilter.p50)} ms, p95 ${round(withFilter.p95)} ms (full answer with one filter chosen)`,
+  );
+  log(
+    `  minisearch.search    p50 ${round(plain.p50)} ms, p95 ${row.plainMiniP95Ms} ms (the library's own scoring, same tree; for comparison)`,
+  );
   log(`  browse all, newest   ${row.browseAllMs} ms (no query, facets over every document)`);
   log(`  linear filter        p50 ${round(linear.p50)} ms, p95 ${row.linearP95Ms} ms (substring, no ranking or typos)`);
-  log(`  SQLite FTS5          p50 ${round(ftsTimes.p50)} ms, p95 ${row.fts5P95Ms} ms (prefix + bm25, no typos, no facets; build ${row.fts5BuildMs} ms)`);
+  log(
+    `  SQLite FTS5          p50 ${round(ftsTimes.p50)} ms, p95 ${row.fts5P95Ms} ms (prefix + bm25, no typos, no facets; build ${row.fts5BuildMs} ms)`,
+  );
   log(`  results per query    ${row.avgResults} on average`);
   log('');
 }
 
 const budget = (ok: boolean) => (ok ? 'ok' : 'OVER');
 log('budgets (DESIGN §9):');
-if (summary['10000']) log(`  p95 ≤ 1 ms at 10,000: ${summary['10000'].queryP95Ms} ms ${budget(summary['10000'].queryP95Ms <= 1)}`);
-if (summary['50000']) log(`  p95 ≤ 2 ms at 50,000: ${summary['50000'].queryP95Ms} ms ${budget(summary['50000'].queryP95Ms <= 2)}`);
-log(`  ≤ 300 B/doc gzipped:  ${Math.max(...sizes.map((n) => summary[String(n)].gzBytesPerDoc))} B ${budget(sizes.every((n) => summary[String(n)].gzBytesPerDoc <= 300))}`);
+if (summary['10000'])
+  log(`  p95 ≤ 1 ms at 10,000: ${summary['10000'].queryP95Ms} ms ${budget(summary['10000'].queryP95Ms <= 1)}`);
+if (summary['50000'])
+  log(`  p95 ≤ 2 ms at 50,000: ${summary['50000'].queryP95Ms} ms ${budget(summary['50000'].queryP95Ms <= 2)}`);
+log(
+  `  ≤ 300 B/doc gzipped:  ${Math.max(...sizes.map((n) => summary[String(n)].gzBytesPerDoc))} B ${budget(sizes.every((n) => summary[String(n)].gzBytesPerDoc <= 300))}`,
+);
 log('');
 log(
   JSON.stringify(
     Object.fromEntries(
       Object.entries(summary).map(([n, r]) => [
         n,
-        { buildMs: r.buildMs, gzBytesPerDoc: r.gzBytesPerDoc, loadMs: r.loadMs, queryP50Ms: r.queryP50Ms, queryP95Ms: r.queryP95Ms, linearP95Ms: r.linearP95Ms, fts5P95Ms: r.fts5P95Ms, indexGzBytesPerDoc: r.indexGzBytesPerDoc, matchP95Ms: r.matchP95Ms },
+        {
+          buildMs: r.buildMs,
+          gzBytesPerDoc: r.gzBytesPerDoc,
+          loadMs: r.loadMs,
+          queryP50Ms: r.queryP50Ms,
+          queryP95Ms: r.queryP95Ms,
+          linearP95Ms: r.linearP95Ms,
+          fts5P95Ms: r.fts5P95Ms,
+          indexGzBytesPerDoc: r.indexGzBytesPerDoc,
+          matchP95Ms: r.matchP95Ms,
+        },
       ]),
     ),
   ),

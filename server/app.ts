@@ -70,7 +70,10 @@ export function createApp(deps: AppDeps) {
   // Hashed client assets never need one (and must not get a rolling Set-Cookie).
   const needsSession = (req: express.Request) =>
     !req.path.startsWith('/assets/') &&
-    (!['GET', 'HEAD'].includes(req.method) || req.path.startsWith('/auth/') || req.path === '/api/me' || Boolean(req.headers.cookie?.includes(`${cookieName}=`)));
+    (!['GET', 'HEAD'].includes(req.method) ||
+      req.path.startsWith('/auth/') ||
+      req.path === '/api/me' ||
+      Boolean(req.headers.cookie?.includes(`${cookieName}=`)));
   app.use((req, res, next) => (needsSession(req) ? withSession(req, res, () => restoreUser(req, res, next)) : next()));
   app.use(refuseCrossSite);
   app.use('/api', requireCsrfToken);
@@ -93,7 +96,6 @@ export function createApp(deps: AppDeps) {
   app.use('/api', fittedReportsRouter(deps));
   app.use('/api', carsRouter(deps));
   app.use('/api', shopsRouter(deps));
-
 
   app.use(mediaRouter(deps));
   app.use(shopLinkRedirectRouter(deps));

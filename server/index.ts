@@ -36,7 +36,10 @@ async function main() {
   const app = createApp({ db, mailer, storage, clock, config, logger, client });
 
   const server = app.listen(config.port, config.host, () => {
-    logger.info({ port: config.port, env: config.env, db: path.resolve(config.databaseUrl) }, `Swapyard listening on ${config.appUrl}`);
+    logger.info(
+      { port: config.port, env: config.env, db: path.resolve(config.databaseUrl) },
+      `Swapyard listening on ${config.appUrl}`,
+    );
   });
 
   let stopping = false;

@@ -3,7 +3,8 @@ import type { SwapData } from './schemas/swap-data';
 
 export type FieldChange = { path: string; before: string | null; after: string | null };
 
-const show = (v: unknown): string | null => (v === undefined || v === null ? null : typeof v === 'object' ? JSON.stringify(v) : String(v));
+const show = (v: unknown): string | null =>
+  v === undefined || v === null ? null : typeof v === 'object' ? JSON.stringify(v) : String(v);
 
 /** Leaf-by-leaf differences of two revisions' structured data, with readable dotted paths (parts.1.name). */
 export function diffSwapData(before: SwapData | null, after: SwapData): FieldChange[] {
@@ -19,7 +20,8 @@ export function diffSwapData(before: SwapData | null, after: SwapData): FieldCha
     if (objA || objB) {
       // one side is missing or a scalar: compare the leaves of whichever side is an object
       const base = (objA ? a : b) as Record<string, unknown>;
-      for (const k of Object.keys(base)) walk(objA ? base[k] : undefined, objB ? (b as Record<string, unknown>)[k] : undefined, path ? `${path}.${k}` : k);
+      for (const k of Object.keys(base))
+        walk(objA ? base[k] : undefined, objB ? (b as Record<string, unknown>)[k] : undefined, path ? `${path}.${k}` : k);
       if (!objA && a !== undefined && a !== null) changes.push({ path, before: show(a), after: null });
       if (!objB && b !== undefined && b !== null) changes.push({ path, before: null, after: show(b) });
       return;

@@ -41,7 +41,9 @@ export function authRateLimit(limit: number) {
     handler: (req, _res, next, options) => {
       req.log?.warn({ event: 'rate_limited', path: req.originalUrl }, 'sign-in rate limit reached');
       const minutes = Math.ceil(options.windowMs / 60000);
-      next(new AppError('rate_limited', `Too many sign-in attempts from your address. Wait ${minutes} minutes and try again.`, 429));
+      next(
+        new AppError('rate_limited', `Too many sign-in attempts from your address. Wait ${minutes} minutes and try again.`, 429),
+      );
     },
   });
 }

@@ -76,7 +76,10 @@ function bearer(request: globalThis.Request) {
 }
 
 const badCredentials = () =>
-  HttpResponse.json({ message: 'Bad credentials', documentation_url: 'https://docs.github.com/rest', status: '401' }, { status: 401 });
+  HttpResponse.json(
+    { message: 'Bad credentials', documentation_url: 'https://docs.github.com/rest', status: '401' },
+    { status: 401 },
+  );
 
 export const fakeProviderHandlers = [
   http.post(providerUrls.token, async ({ request }) => {
@@ -126,7 +129,16 @@ export function startFakeProvider() {
 
 // --- the authorize page ---
 
-type DemoAccount = { login: string; name: string; role: Role; providerId: string; email: string | null; avatarUrl: string | null; shop: string | null; suspended: boolean };
+type DemoAccount = {
+  login: string;
+  name: string;
+  role: Role;
+  providerId: string;
+  email: string | null;
+  avatarUrl: string | null;
+  shop: string | null;
+  suspended: boolean;
+};
 
 function demoAccounts(db: Db): DemoAccount[] {
   return db
@@ -151,7 +163,19 @@ function demoAccounts(db: Db): DemoAccount[] {
 const esc = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
-const palette = { ink: '#1d4d3a', inkFaint: '#dbe7e0', brass: '#b8892f', brassSoft: '#e9d7ad', brassDeep: '#7a5a1c', paper: '#f7f4ec', card: '#fffdf8', oxide: '#a4372a', oxideSoft: '#f6e1dc', graphite: '#2b2b28', soft: '#5c5a52' };
+const palette = {
+  ink: '#1d4d3a',
+  inkFaint: '#dbe7e0',
+  brass: '#b8892f',
+  brassSoft: '#e9d7ad',
+  brassDeep: '#7a5a1c',
+  paper: '#f7f4ec',
+  card: '#fffdf8',
+  oxide: '#a4372a',
+  oxideSoft: '#f6e1dc',
+  graphite: '#2b2b28',
+  soft: '#5c5a52',
+};
 
 const styles = `
 *{box-sizing:border-box}
@@ -220,7 +244,15 @@ export function fakeAuthorizeRouter({ db, config }: { db: Db; config: Config }) 
     res.set('Cache-Control', 'no-store');
     const params = checkParams(req, config);
     if (typeof params === 'string') {
-      res.status(400).type('html').send(page('Sign-in request refused', `<h1>Sign-in request refused</h1><div class="error" role="alert">${esc(params)}</div><a class="cancel" href="/">Back to Swapyard</a>`));
+      res
+        .status(400)
+        .type('html')
+        .send(
+          page(
+            'Sign-in request refused',
+            `<h1>Sign-in request refused</h1><div class="error" role="alert">${esc(params)}</div><a class="cancel" href="/">Back to Swapyard</a>`,
+          ),
+        );
       return;
     }
     const back = (extra: Record<string, string>) => {
@@ -237,9 +269,26 @@ export function fakeAuthorizeRouter({ db, config }: { db: Db; config: Config }) 
       } else {
         const known = accounts.find((a) => a.login.toLowerCase() === login.toLowerCase());
         const identity: Identity = known
-          ? { id: known.providerId, login: known.login, name: known.name, email: known.email ?? `${known.login}@members.swapyard.invalid`, avatarUrl: known.avatarUrl }
-          : { id: `${demoProviderPrefix}${login.toLowerCase()}`, login, name: '', email: `${login.toLowerCase()}@members.swapyard.invalid`, avatarUrl: null };
-        const code = issueCode({ identity, clientId: params.clientId, clientSecret: config.auth.clientSecret, redirectUri: params.redirectUri });
+          ? {
+              id: known.providerId,
+              login: known.login,
+              name: known.name,
+              email: known.email ?? `${known.login}@members.swapyard.invalid`,
+              avatarUrl: known.avatarUrl,
+            }
+          : {
+              id: `${demoProviderPrefix}${login.toLowerCase()}`,
+              login,
+              name: '',
+              email: `${login.toLowerCase()}@members.swapyard.invalid`,
+              avatarUrl: null,
+            };
+        const code = issueCode({
+          identity,
+          clientId: params.clientId,
+          clientSecret: config.auth.clientSecret,
+          redirectUri: params.redirectUri,
+        });
         res.redirect(302, back({ code }));
         return;
       }
@@ -252,12 +301,15 @@ export function fakeAuthorizeRouter({ db, config }: { db: Db; config: Config }) 
     const list = accounts.length
       ? `<ul>${accounts
           .map(
-            (a) => `<li><a class="account" href="${esc(choose(a.login))}"><span class="initials" aria-hidden="true">${esc(initials(a))}</span><span class="who"><b>${esc(a.name || a.login)}</b><small>@${esc(a.login)}${a.shop ? ` · ${esc(a.shop)}` : ''}</small></span>${a.suspended ? '<span class="badge off">Suspended</span>' : ''}<span class="badge">${esc(roleLabels[a.role])}</span></a></li>`,
+            (a) =>
+              `<li><a class="account" href="${esc(choose(a.login))}"><span class="initials" aria-hidden="true">${esc(initials(a))}</span><span class="who"><b>${esc(a.name || a.login)}</b><small>@${esc(a.login)}${a.shop ? ` · ${esc(a.shop)}` : ''}</small></span>${a.suspended ? '<span class="badge off">Suspended</span>' : ''}<span class="badge">${esc(roleLabels[a.role])}</span></a></li>`,
           )
           .join('')}</ul>`
       : '<p>No demo accounts are in this database yet. Sign in as a new member below.</p>';
     const hidden = ['response_type', 'client_id', 'redirect_uri', 'scope', 'state']
-      .map((k) => (typeof req.query[k] === 'string' ? `<input type="hidden" name="${k}" value="${esc(req.query[k] as string)}">` : ''))
+      .map((k) =>
+        typeof req.query[k] === 'string' ? `<input type="hidden" name="${k}" value="${esc(req.query[k] as string)}">` : '',
+      )
       .join('');
     const body = `<h1>Choose who signs in</h1>
 <p class="lead">This server runs without a real sign-in provider, so you pick a demo account. Each one has its role, to try what members, shops, moderators and admins see.</p>
@@ -269,7 +321,10 @@ ${list}
 <p class="hint">A new login becomes a member account the first time it signs in.</p>
 </form>
 <a class="cancel" href="${esc(back({ error: 'access_denied', error_description: 'The sign-in was cancelled.' }))}">Cancel and go back</a>`;
-    res.status(problem ? 400 : 200).type('html').send(page('Choose who signs in', body));
+    res
+      .status(problem ? 400 : 200)
+      .type('html')
+      .send(page('Choose who signs in', body));
   });
   return router;
 }

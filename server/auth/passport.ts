@@ -44,7 +44,12 @@ export function createPassport({ db, clock, config }: { db: Db; clock: Clock; co
   pp.use(
     new GitHubStrategy(
       options as unknown as StrategyOptions, // `state: true` is the oauth2 base's option, missing from these types
-      (_accessToken: string, _refreshToken: string, profile: Profile, done: (err: unknown, user?: Express.User | false, info?: SignInInfo) => void) => {
+      (
+        _accessToken: string,
+        _refreshToken: string,
+        profile: Profile,
+        done: (err: unknown, user?: Express.User | false, info?: SignInInfo) => void,
+      ) => {
         try {
           const result = signInFromProfile(db, clock, toProviderProfile(profile));
           if (!result.ok) {

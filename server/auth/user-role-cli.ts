@@ -30,7 +30,9 @@ function main(argv: string[]): number {
     return 0;
   } catch (err) {
     if (err instanceof AppError) {
-      console.error(err.code === 'not_found' ? `No user has the login "${login}" in ${file}. They need to sign in once first.` : err.message);
+      console.error(
+        err.code === 'not_found' ? `No user has the login "${login}" in ${file}. They need to sign in once first.` : err.message,
+      );
       return 1;
     }
     throw err;

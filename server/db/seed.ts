@@ -20,7 +20,13 @@ import {
   costLineSchema,
   type SwapData,
 } from '../../shared/schemas/swap-data';
-import { axleSchema, categorySchema, partKindSchema, revisionStatusSchema, type RevisionStatus } from '../../shared/schemas/enums';
+import {
+  axleSchema,
+  categorySchema,
+  partKindSchema,
+  revisionStatusSchema,
+  type RevisionStatus,
+} from '../../shared/schemas/enums';
 import { can, roleSchema } from '../../shared/roles';
 import { newFileId, type Storage } from '../storage/disk-storage';
 import type { Clock } from '../lib/clock';
@@ -158,7 +164,8 @@ const partsFileSchema = z.array(
     .superRefine((p, ctx) => {
       const r = specSchemas[p.kind].safeParse(p.specs);
       if (!r.success) {
-        for (const issue of r.error.issues) ctx.addIssue({ code: 'custom', path: ['specs', ...issue.path], message: issue.message });
+        for (const issue of r.error.issues)
+          ctx.addIssue({ code: 'custom', path: ['specs', ...issue.path], message: issue.message });
       }
     }),
 );
@@ -379,7 +386,11 @@ function resolveData(raw: Shape, parts: Map<string, Part>, file: string): { data
 
 const reviewedStatuses: RevisionStatus[] = ['approved', 'superseded', 'sent_back', 'declined'];
 
-function planSwap(file: string, raw: string, ctx: { parts: Map<string, Part>; users: Map<string, Content['users'][number]>; chassis: Set<string>; images: Set<string> }): PlannedSwap {
+function planSwap(
+  file: string,
+  raw: string,
+  ctx: { parts: Map<string, Part>; users: Map<string, Content['users'][number]>; chassis: Set<string>; images: Set<string> },
+): PlannedSwap {
   let parsed: matter.GrayMatterFile<string>;
   try {
     parsed = matter(raw);
@@ -399,7 +410,12 @@ function planSwap(file: string, raw: string, ctx: { parts: Map<string, Part>; us
 
   const latestBody = parsed.content.trim();
   const entries = [
-    ...meta.revisions.map((r) => ({ ...r, author: r.author ?? meta.author, rawData: { ...meta.data, ...r.data }, body: (r.body ?? latestBody).trim() })),
+    ...meta.revisions.map((r) => ({
+      ...r,
+      author: r.author ?? meta.author,
+      rawData: { ...meta.data, ...r.data },
+      body: (r.body ?? latestBody).trim(),
+    })),
     {
       status: meta.status,
       submittedAt: meta.submittedAt,
@@ -429,7 +445,8 @@ function planSwap(file: string, raw: string, ctx: { parts: Map<string, Part>; us
     } else if (e.reviewer || e.reviewedAt) {
       fail(file, `${where}: a ${e.status} revision has no reviewer yet`);
     }
-    if ((e.status === 'sent_back' || e.status === 'declined') && !e.reviewNote) fail(file, `${where}: ${e.status} needs a reviewNote with the reasons`);
+    if ((e.status === 'sent_back' || e.status === 'declined') && !e.reviewNote)
+      fail(file, `${where}: ${e.status} needs a reviewNote with the reasons`);
     for (const p of e.photos) if (!ctx.images.has(p.file)) fail(file, `${where}: photo ${p.file} is not in content/images`);
     const { data, partSlugs } = resolveData(e.rawData, ctx.parts, file);
     return {
@@ -448,7 +465,8 @@ function planSwap(file: string, raw: string, ctx: { parts: Map<string, Part>; us
   });
 
   const approvedAt = revisions.findIndex((r) => r.status === 'approved');
-  if (revisions.filter((r) => r.status === 'approved').length > 1) fail(file, 'more than one approved revision; the older ones are superseded');
+  if (revisions.filter((r) => r.status === 'approved').length > 1)
+    fail(file, 'more than one approved revision; the older ones are superseded');
   revisions.forEach((r, i) => {
     if (r.status === 'superseded' && (approvedAt === -1 || i > approvedAt)) {
       fail(file, `revision ${r.number} is superseded but no later revision is approved`);
@@ -489,7 +507,8 @@ async function loadContent(dir: string): Promise<Content> {
   for (const u of users) {
     if (u.shop && !shopSlugs.has(u.shop)) fail('users.json', `${u.login}: unknown shop ${u.shop}`);
     if (u.role === 'shop' && !u.shop) fail('users.json', `${u.login}: a shop account needs a shop`);
-    for (const c of u.cars) if (!chassisSlugs.has(c.chassis)) fail('users.json', `${u.login}: car on unknown chassis ${c.chassis}`);
+    for (const c of u.cars)
+      if (!chassisSlugs.has(c.chassis)) fail('users.json', `${u.login}: car on unknown chassis ${c.chassis}`);
   }
 
   const imageDir = path.join(dir, 'images');
@@ -520,7 +539,8 @@ async function loadContent(dir: string): Promise<Content> {
         fail('shops.json', `link ${link.code}: ${link.swap} has no approved revision ${link.revision}`);
       }
       const creator = users.find((u) => u.login === link.createdBy);
-      if (creator?.shop !== shop.slug) fail('shops.json', `link ${link.code}: ${link.createdBy} is not an account of ${shop.slug}`);
+      if (creator?.shop !== shop.slug)
+        fail('shops.json', `link ${link.code}: ${link.createdBy} is not an account of ${shop.slug}`);
     }
   }
 
@@ -595,9 +615,14 @@ function clearAll(tx: Tx) {
   // the swaps ↔ revisions reference runs both ways; check all foreign keys at commit instead
   tx.run(sql.raw('PRAGMA defer_foreign_keys = ON'));
   const tables = tx
-    .all<{ name: string }>(sql`SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '__drizzle%'`)
+    .all<{ name: string }>(
+      sql`SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '__drizzle%'`,
+    )
     .map((r) => r.name);
-  const ordered = [...deleteOrder.filter((name) => tables.includes(name)), ...tables.filter((name) => !deleteOrder.includes(name))];
+  const ordered = [
+    ...deleteOrder.filter((name) => tables.includes(name)),
+    ...tables.filter((name) => !deleteOrder.includes(name)),
+  ];
   for (const name of ordered) tx.run(sql.raw(`DELETE FROM "${name.replace(/"/g, '""')}"`));
   const hasSequence = tx.all<{ name: string }>(sql`SELECT name FROM sqlite_master WHERE name = 'sqlite_sequence'`).length > 0;
   if (hasSequence) tx.run(sql.raw('DELETE FROM sqlite_sequence'));
@@ -668,7 +693,10 @@ function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, St
     partIds.set(p.slug, row.id);
   }
 
-  for (const r of content.reasons) tx.insert(t.reviewReasonTemplates).values({ ...r, ...stamp() }).run();
+  for (const r of content.reasons)
+    tx.insert(t.reviewReasonTemplates)
+      .values({ ...r, ...stamp() })
+      .run();
 
   const revisionIds = new Map<string, Map<number, number>>();
   for (const swap of content.swaps) {
@@ -743,9 +771,13 @@ function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, St
       });
 
       const event = (action: (typeof t.reviewEvents.$inferInsert)['action'], actor: string, at: Date, note = '') =>
-        tx.insert(t.reviewEvents).values({ revisionId: revRow.id, actorId: userId(actor), action, note, at }).run();
+        tx
+          .insert(t.reviewEvents)
+          .values({ revisionId: revRow.id, actorId: userId(actor), action, note, at })
+          .run();
       if (rev.submittedAt) event('submitted', rev.author, rev.submittedAt);
-      if (rev.status === 'approved' || rev.status === 'superseded') event('approved', rev.reviewer!, rev.reviewedAt!, rev.reviewNote ?? '');
+      if (rev.status === 'approved' || rev.status === 'superseded')
+        event('approved', rev.reviewer!, rev.reviewedAt!, rev.reviewNote ?? '');
       if (rev.status === 'sent_back') event('sent_back', rev.reviewer!, rev.reviewedAt!, rev.reviewNote ?? '');
       if (rev.status === 'declined') event('declined', rev.reviewer!, rev.reviewedAt!, rev.reviewNote ?? '');
       if (rev.status === 'superseded') {

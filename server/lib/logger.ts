@@ -8,7 +8,14 @@ export function createLogger(level: pino.LevelWithSilent = 'info', destination?:
     level,
     timestamp: pino.stdTimeFunctions.isoTime,
     redact: {
-      paths: ['req.headers.cookie', 'req.headers["x-csrf-token"]', 'req.headers.authorization', 'res.headers["set-cookie"]', '*.accessToken', '*.token'],
+      paths: [
+        'req.headers.cookie',
+        'req.headers["x-csrf-token"]',
+        'req.headers.authorization',
+        'res.headers["set-cookie"]',
+        '*.accessToken',
+        '*.token',
+      ],
       censor: '[redacted]',
     },
   };

@@ -23,7 +23,10 @@ export const dropCsrfToken = (req: Request) => revokeToken(req);
 export const requireCsrfToken: RequestHandler = (req, _res, next) => {
   if (safeMethods.has(req.method)) return next();
   if (req.session && isRequestValid(req)) return next();
-  req.log?.warn({ event: 'csrf_refused', userId: req.user?.id ?? null, method: req.method, path: req.originalUrl }, 'csrf token missing or wrong');
+  req.log?.warn(
+    { event: 'csrf_refused', userId: req.user?.id ?? null, method: req.method, path: req.originalUrl },
+    'csrf token missing or wrong',
+  );
   next(
     new AppError(
       'csrf',

@@ -24,7 +24,10 @@ declare global {
 
 /** Every refusal is logged with who and what (pino-http puts the request logger on req.log). */
 function denied(req: Request, need: string) {
-  req.log?.warn({ event: 'authorization_denied', userId: req.user?.id ?? null, method: req.method, path: req.originalUrl, need }, 'authorization denied');
+  req.log?.warn(
+    { event: 'authorization_denied', userId: req.user?.id ?? null, method: req.method, path: req.originalUrl, need },
+    'authorization denied',
+  );
 }
 
 export const requireUser: RequestHandler = (req, _res, next) => {

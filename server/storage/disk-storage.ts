@@ -15,7 +15,11 @@ export type Storage = {
 const idPattern = /^[a-z0-9][a-z0-9_-]{10,80}(\.[a-z0-9]{2,5})?$/;
 
 export function newFileId(): string {
-  return crypto.randomBytes(16).toString('base64url').toLowerCase().replace(/[^a-z0-9]/g, 'x');
+  return crypto
+    .randomBytes(16)
+    .toString('base64url')
+    .toLowerCase()
+    .replace(/[^a-z0-9]/g, 'x');
 }
 
 export function createDiskStorage(dir: string): Storage {

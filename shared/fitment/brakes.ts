@@ -104,18 +104,8 @@ export function frontShare(front: BrakeCorner, rear: BrakeCorner, linePressureBa
 
 function shareOf(front: BrakeCorner, rear: BrakeCorner, linePressureBar: number, prefix: string): number {
   const pressure = requirePositive(linePressureBar, 'linePressureBar');
-  const frontTorque = torqueOf(
-    front,
-    muOf(front?.padMu ?? DEFAULT_PAD_MU, `${prefix}front.padMu`),
-    pressure,
-    `${prefix}front.`,
-  );
-  const rearTorque = torqueOf(
-    rear,
-    muOf(rear?.padMu ?? DEFAULT_PAD_MU, `${prefix}rear.padMu`),
-    pressure,
-    `${prefix}rear.`,
-  );
+  const frontTorque = torqueOf(front, muOf(front?.padMu ?? DEFAULT_PAD_MU, `${prefix}front.padMu`), pressure, `${prefix}front.`);
+  const rearTorque = torqueOf(rear, muOf(rear?.padMu ?? DEFAULT_PAD_MU, `${prefix}rear.padMu`), pressure, `${prefix}rear.`);
   return frontTorque / (frontTorque + rearTorque);
 }
 

@@ -3,8 +3,7 @@ import { MM_PER_IN } from './units';
 
 export const MIN_CLEARANCE_MM = 3;
 
-export const RADIAL_CLEARANCE_RULE =
-  'At least 3 mm (about 1/8 in) between the caliper and the wheel barrel (common practice)';
+export const RADIAL_CLEARANCE_RULE = 'At least 3 mm (about 1/8 in) between the caliper and the wheel barrel (common practice)';
 export const SPOKE_CLEARANCE_RULE = 'At least 3 mm (about 1/8 in) between the caliper and the spokes (common practice)';
 export const MAX_ROTOR_RULE =
   "Max rotor diameter ≈ wheel diameter − 4 in for typical four- and six-piston calipers (advisory; the wheel maker's clearance template governs)";

@@ -39,8 +39,7 @@ export function shimStack(targetMm: number, sizesMm: number[], maxPieces = 4): S
     const abs = Math.abs(total - target);
     const better =
       abs < bestAbs - EPSILON ||
-      (abs <= bestAbs + EPSILON &&
-        (stack.length < best.length || (stack.length === best.length && total < bestTotal - EPSILON)));
+      (abs <= bestAbs + EPSILON && (stack.length < best.length || (stack.length === best.length && total < bestTotal - EPSILON)));
     if (better) {
       best = [...stack];
       bestTotal = total;

@@ -50,7 +50,10 @@ function estimateBarrel(data: SwapData, wheel: WheelUnderTest): { mm: number; no
   const req = data.wheel;
   if (req?.barrelInnerDiameterMm) {
     const mm = req.barrelInnerDiameterMm + (wheel.diameterIn - req.minDiameterIn) * MM_PER_IN;
-    return { mm, note: `Estimated from the barrel measured on a ${req.minDiameterIn}″ wheel in this record; measure yours to be sure.` };
+    return {
+      mm,
+      note: `Estimated from the barrel measured on a ${req.minDiameterIn}″ wheel in this record; measure yours to be sure.`,
+    };
   }
   return {
     mm: wheel.diameterIn * MM_PER_IN - BARREL_ALLOWANCE_MM,
@@ -63,7 +66,9 @@ function estimateSpokeInset(data: SwapData, wheel: WheelUnderTest): { mm: number
   if (!req) return null;
   const known = req.testedWheels.filter((t) => t.spokeClearanceMm !== undefined);
   if (known.length === 0) return null;
-  const ref = known.reduce((best, t) => (Math.abs(t.diameterIn - wheel.diameterIn) < Math.abs(best.diameterIn - wheel.diameterIn) ? t : best));
+  const ref = known.reduce((best, t) =>
+    Math.abs(t.diameterIn - wheel.diameterIn) < Math.abs(best.diameterIn - wheel.diameterIn) ? t : best,
+  );
   const refInset = ref.spokeClearanceMm! + req.caliperOutboardMm - ref.spacerMm;
   // same spoke depth behind the outer rim edge; the edge sits at width/2 − ET from the mounting face
   const mm = refInset + (ref.offsetMm - wheel.offsetMm) + ((wheel.widthIn - ref.widthIn) * MM_PER_IN) / 2;
@@ -84,7 +89,11 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: s
       ? { mm: wheel.barrelInnerDiameterMm, note: 'From your measured barrel.' }
       : estimateBarrel(data, wheel);
     radial = {
-      ...radialClearance({ barrelInnerDiameterMm: barrel.mm, rotorDiameterMm: rotorMm, caliperRadialProjectionMm: req.caliperRadialProjectionMm }),
+      ...radialClearance({
+        barrelInnerDiameterMm: barrel.mm,
+        rotorDiameterMm: rotorMm,
+        caliperRadialProjectionMm: req.caliperRadialProjectionMm,
+      }),
       basis: wheel.barrelInnerDiameterMm ? 'measured' : 'estimated',
       basisNote: barrel.note,
     };
@@ -92,7 +101,10 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: s
 
   let spoke: WheelCheck['spoke'] = null;
   if (req) {
-    const inset = wheel.spokeInsetMm !== undefined ? { mm: wheel.spokeInsetMm, note: 'From your measured spoke inset.' } : estimateSpokeInset(data, wheel);
+    const inset =
+      wheel.spokeInsetMm !== undefined
+        ? { mm: wheel.spokeInsetMm, note: 'From your measured spoke inset.' }
+        : estimateSpokeInset(data, wheel);
     if (inset) {
       spoke = {
         ...spokeClearance({ spokeInsetMm: inset.mm, caliperOutboardMm: req.caliperOutboardMm, spacerMm: wheel.spacerMm }),
@@ -128,7 +140,12 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: s
 
   return {
     minDiameter: req
-      ? { ok: wheel.diameterIn >= req.minDiameterIn, requiredIn: req.minDiameterIn, givenIn: wheel.diameterIn, rule: `This swap needs at least a ${req.minDiameterIn}″ wheel.` }
+      ? {
+          ok: wheel.diameterIn >= req.minDiameterIn,
+          requiredIn: req.minDiameterIn,
+          givenIn: wheel.diameterIn,
+          rule: `This swap needs at least a ${req.minDiameterIn}″ wheel.`,
+        }
       : null,
     radial,
     spoke,
@@ -137,7 +154,12 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: s
     boltNote,
     maxRotor:
       rotorMm && wheel.diameterIn > 4
-        ? { maxRotorMm: maxRotorRuleOfThumbMm(wheel.diameterIn), rotorMm, withinRule: rotorMm <= maxRotorRuleOfThumbMm(wheel.diameterIn), rule: MAX_ROTOR_RULE }
+        ? {
+            maxRotorMm: maxRotorRuleOfThumbMm(wheel.diameterIn),
+            rotorMm,
+            withinRule: rotorMm <= maxRotorRuleOfThumbMm(wheel.diameterIn),
+            rule: MAX_ROTOR_RULE,
+          }
         : null,
     spacerNote,
   };
@@ -160,7 +182,8 @@ export function brakeBalanceOf(data: SwapData): BrakeBalance | null {
   const b = data.brakes;
   if (!b) return null;
   const withMu = <T extends object>(c: T) => ({ ...c, padMu: b.padMu });
-  const torque = (c: (typeof b)['before']['front']) => brakeTorqueNm({ ...c, padMu: b.padMu, linePressureBar: b.linePressureBar });
+  const torque = (c: (typeof b)['before']['front']) =>
+    brakeTorqueNm({ ...c, padMu: b.padMu, linePressureBar: b.linePressureBar });
   const before = { front: withMu(b.before.front), rear: withMu(b.before.rear) };
   const after = { front: withMu(b.after.front), rear: withMu(b.after.rear) };
   const shift = balanceShift(before, after);

@@ -66,10 +66,7 @@ export function parseMetricThread(designation: string): { diameterMm: number; pi
   const text = typeof designation === 'string' ? designation.trim().toUpperCase() : '';
   const match = METRIC_THREAD.exec(text);
   if (!match) {
-    throw new FitmentInputError(
-      'thread',
-      `"${String(designation)}" is not a metric thread like M12x1.5 (give the pitch)`,
-    );
+    throw new FitmentInputError('thread', `"${String(designation)}" is not a metric thread like M12x1.5 (give the pitch)`);
   }
   const diameterMm = Number(match[1].replace(',', '.'));
   const pitchMm = Number(match[2].replace(',', '.'));

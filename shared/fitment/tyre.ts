@@ -24,8 +24,7 @@ const MM_PER_MILE = 1_609_344;
 
 // Metric designation: [P]width/aspect construction rim [load index][speed rating].
 // Speed-rating letters skip I, O and X; "(Y)" marks the open-ended top rating.
-const TYRE_CODE =
-  /^P?\s*(\d{3})\s*\/\s*(\d{2})\s*(ZR|R|D|B)\s*(\d{1,2}(?:\.\d)?)(?:\s+(\d{2,3})?\s*(\(Y\)|[A-HJ-NP-WYZ])?)?$/;
+const TYRE_CODE = /^P?\s*(\d{3})\s*\/\s*(\d{2})\s*(ZR|R|D|B)\s*(\d{1,2}(?:\.\d)?)(?:\s+(\d{2,3})?\s*(\(Y\)|[A-HJ-NP-WYZ])?)?$/;
 
 const EXAMPLE = 'like 225/45R17 or 225/45ZR17 94W';
 

@@ -6,7 +6,11 @@ import { FitmentInputError } from '../fitment/errors';
 
 /** Form fields arrive as numbers from JSON; an empty string means "not given". */
 const num = (schema: z.ZodNumber, whenEmpty?: number) =>
-  z.preprocess((v) => (typeof v === 'string' ? (v.trim() === '' ? whenEmpty : Number(v.replace(',', '.'))) : v === undefined ? whenEmpty : v), schema);
+  z.preprocess(
+    (v) =>
+      typeof v === 'string' ? (v.trim() === '' ? whenEmpty : Number(v.replace(',', '.'))) : v === undefined ? whenEmpty : v,
+    schema,
+  );
 
 export const tyreSizeField = z
   .string()
@@ -17,25 +21,39 @@ export const tyreSizeField = z
     try {
       parseTyreSize(v);
     } catch (err) {
-      ctx.addIssue({ code: 'custom', message: err instanceof FitmentInputError ? err.message : 'Not a tyre size like 205/55R16' });
+      ctx.addIssue({
+        code: 'custom',
+        message: err instanceof FitmentInputError ? err.message : 'Not a tyre size like 205/55R16',
+      });
     }
   });
 
 const carShape = {
   chassisId: num(z.number({ error: 'Pick the chassis' }).int().positive('Pick the chassis')),
   nickname: z.string().trim().min(1, 'Give the car a name you will recognise').max(60, 'At most 60 characters'),
-  wheelDiameterIn: num(z.number({ error: 'Enter the wheel diameter' }).min(10, 'Between 10 and 24 in').max(24, 'Between 10 and 24 in')),
+  wheelDiameterIn: num(
+    z.number({ error: 'Enter the wheel diameter' }).min(10, 'Between 10 and 24 in').max(24, 'Between 10 and 24 in'),
+  ),
   wheelWidthIn: num(z.number({ error: 'Enter the wheel width' }).min(4, 'Between 4 and 13 in').max(13, 'Between 4 and 13 in')),
-  wheelOffsetMm: num(z.number({ error: 'Enter the offset (ET)' }).min(-80, 'Between −80 and 80 mm').max(80, 'Between −80 and 80 mm')),
+  wheelOffsetMm: num(
+    z.number({ error: 'Enter the offset (ET)' }).min(-80, 'Between −80 and 80 mm').max(80, 'Between −80 and 80 mm'),
+  ),
   tyre: tyreSizeField,
   spacerMm: num(z.number().min(0, 'Between 0 and 60 mm').max(60, 'Between 0 and 60 mm')),
 };
 
-export const carInputSchema = z.object({ ...carShape, tyre: carShape.tyre.default(''), spacerMm: num(z.number().min(0, 'Between 0 and 60 mm').max(60, 'Between 0 and 60 mm'), 0) });
+export const carInputSchema = z.object({
+  ...carShape,
+  tyre: carShape.tyre.default(''),
+  spacerMm: num(z.number().min(0, 'Between 0 and 60 mm').max(60, 'Between 0 and 60 mm'), 0),
+});
 export type CarInput = z.infer<typeof carInputSchema>;
 
 /** PATCH: only the fields sent change (no defaults here, or a missing field would be reset). */
-export const carUpdateSchema = z.object(carShape).partial().refine((v) => Object.values(v).some((x) => x !== undefined), { message: 'Send at least one field to change' });
+export const carUpdateSchema = z
+  .object(carShape)
+  .partial()
+  .refine((v) => Object.values(v).some((x) => x !== undefined), { message: 'Send at least one field to change' });
 export type CarUpdate = z.infer<typeof carUpdateSchema>;
 
 export const MAX_CARS = 20;

@@ -5,13 +5,22 @@ import type { PersonRef } from './views';
 
 /** JSON sends numbers; a multipart form (when a photo comes along) sends text. */
 const num = (schema: z.ZodNumber, whenEmpty?: number) =>
-  z.preprocess((v) => (typeof v === 'string' ? (v.trim() === '' ? whenEmpty : Number(v.replace(',', '.'))) : v === undefined ? whenEmpty : v), schema);
-const flag = z.preprocess((v) => (v === 'true' || v === '1' ? true : v === 'false' || v === '0' || v === '' ? false : v), z.boolean());
+  z.preprocess(
+    (v) =>
+      typeof v === 'string' ? (v.trim() === '' ? whenEmpty : Number(v.replace(',', '.'))) : v === undefined ? whenEmpty : v,
+    schema,
+  );
+const flag = z.preprocess(
+  (v) => (v === 'true' || v === '1' ? true : v === 'false' || v === '0' || v === '' ? false : v),
+  z.boolean(),
+);
 
 const reportShape = {
   /** the revision the member followed; the current one when not given */
   revisionNumber: num(z.number().int().min(1).max(100000)).optional(),
-  diameterIn: num(z.number({ error: 'Enter the wheel diameter' }).min(10, 'Between 10 and 24 in').max(24, 'Between 10 and 24 in')),
+  diameterIn: num(
+    z.number({ error: 'Enter the wheel diameter' }).min(10, 'Between 10 and 24 in').max(24, 'Between 10 and 24 in'),
+  ),
   widthIn: num(z.number({ error: 'Enter the wheel width' }).min(4, 'Between 4 and 13 in').max(13, 'Between 4 and 13 in')),
   offsetMm: num(z.number({ error: 'Enter the offset (ET)' }).min(-80, 'Between −80 and 80 mm').max(80, 'Between −80 and 80 mm')),
   spacerMm: num(z.number().min(0, 'Between 0 and 60 mm').max(60, 'Between 0 and 60 mm')),

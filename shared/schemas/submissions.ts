@@ -16,7 +16,10 @@ export const newChassisSchema = z.object({
   lugCount: z.number().int().min(3).max(10),
   pcdMm: z.number().positive().max(300),
   centreBoreMm: z.number().positive().max(200),
-  wheelBoltThread: z.string().trim().regex(/^M\d{1,2}(?:[x×]\d(?:\.\d{1,2})?)$/i, 'A metric thread like M12x1.5'),
+  wheelBoltThread: z
+    .string()
+    .trim()
+    .regex(/^M\d{1,2}(?:[x×]\d(?:\.\d{1,2})?)$/i, 'A metric thread like M12x1.5'),
   /** the wheel and tyre the chassis left the factory on; when absent, the submission's smallest wheel stands in */
   stockWheel: z
     .object({
@@ -45,7 +48,8 @@ export const createSubmissionSchema = z
   })
   .superRefine((v, ctx) => {
     if (v.swapSlug) return;
-    if (!v.chassisId && !v.newChassis) ctx.addIssue({ code: 'custom', path: ['chassisId'], message: 'Pick a chassis or propose a new one' });
+    if (!v.chassisId && !v.newChassis)
+      ctx.addIssue({ code: 'custom', path: ['chassisId'], message: 'Pick a chassis or propose a new one' });
     if (!v.axle) ctx.addIssue({ code: 'custom', path: ['axle'], message: 'Pick the axle' });
     if (!v.category) ctx.addIssue({ code: 'custom', path: ['category'], message: 'Pick a category' });
   });
@@ -147,18 +151,31 @@ export type ReviewDetail = {
 };
 
 export const decisionNoteSchema = z.object({ note: z.string().trim().max(4000).default('') });
-export const requiredReasonSchema = z.object({ note: z.string().trim().min(3, 'Give the reason the member will read').max(4000) });
+export const requiredReasonSchema = z.object({
+  note: z.string().trim().min(3, 'Give the reason the member will read').max(4000),
+});
 export const bulkDeclineSchema = z.object({
   revisionIds: z.array(z.number().int().positive()).min(1).max(100),
   note: z.string().trim().min(3, 'Give the reason').max(4000),
 });
-export const reasonTemplateSchema = z.object({ label: z.string().trim().min(2).max(60), text: z.string().trim().min(3).max(2000) });
+export const reasonTemplateSchema = z.object({
+  label: z.string().trim().min(2).max(60),
+  text: z.string().trim().min(3).max(2000),
+});
 export type ReasonTemplate = { id: number; label: string; text: string };
 
 export const flagSchema = z.object({ reason: z.string().trim().min(5, 'Say what is wrong (at least 5 characters)').max(2000) });
 export const resolveFlagSchema = z.object({ note: z.string().trim().min(3, 'Say what was done').max(2000) });
 
-export type OutboxMessage = { id: number; to: string; subject: string; text: string; html: string; createdAt: string; sentAt: string | null };
+export type OutboxMessage = {
+  id: number;
+  to: string;
+  subject: string;
+  text: string;
+  html: string;
+  createdAt: string;
+  sentAt: string | null;
+};
 
 /** POST /api/review/:revisionId/{approve|send-back|decline} */
 export type DecisionResponse = { revision: SubmissionView };

@@ -122,7 +122,10 @@ export const swapDataSchema = z.object({
   torque: z.array(torqueSpecSchema).max(30).default([]),
   wheel: wheelRequirementSchema.nullable().default(null),
   brakes: brakeFiguresSchema.nullable().default(null),
-  currency: z.string().regex(/^[A-Z]{3}$/, 'A three-letter currency code').default('EUR'),
+  currency: z
+    .string()
+    .regex(/^[A-Z]{3}$/, 'A three-letter currency code')
+    .default('EUR'),
   costs: z.array(costLineSchema).max(60).default([]),
   installHours: z.number().min(0).max(200).nullable().default(null),
   difficulty: z.number().int().min(1).max(5).nullable().default(null),

@@ -100,6 +100,13 @@ export type PartView = {
 export type PartPageView = { part: PartView; swaps: SwapCard[] };
 
 export type MeView = {
-  user: { id: number; login: string; name: string; avatarUrl: string | null; role: Role; shop: { slug: string; name: string } | null } | null;
+  user: {
+    id: number;
+    login: string;
+    name: string;
+    avatarUrl: string | null;
+    role: Role;
+    shop: { slug: string; name: string } | null;
+  } | null;
   csrfToken: string;
 };

@@ -4,7 +4,10 @@ const separators = /[^\p{L}\p{N}]+/u;
 
 /** Lower-case and strip accents: "Orsíno" → "orsino". */
 export function foldTerm(term: string): string {
-  return term.normalize('NFKD').replace(/\p{M}+/gu, '').toLowerCase();
+  return term
+    .normalize('NFKD')
+    .replace(/\p{M}+/gu, '')
+    .toLowerCase();
 }
 
 /** Part numbers compare without case or separators: `OV-355-104-L` → `ov355104l`. */

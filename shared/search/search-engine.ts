@@ -1,5 +1,14 @@
 import MiniSearch, { type Options, type Query, type SearchOptions } from 'minisearch';
-import { axles, categories, categoryLabels, machiningLevelLabels, machiningLevels, type Axle, type Category, type MachiningLevel } from '../schemas/enums';
+import {
+  axles,
+  categories,
+  categoryLabels,
+  machiningLevelLabels,
+  machiningLevels,
+  type Axle,
+  type Category,
+  type MachiningLevel,
+} from '../schemas/enums';
 import { parseQuery, processTerm, tokenize, chunkPieces } from './normalise';
 import type { SearchDocument } from './search-document';
 
@@ -32,7 +41,17 @@ export type SearchFilters = {
   cost?: CostBucket;
 };
 export type FilterKey = keyof SearchFilters;
-export const filterKeys = ['make', 'model', 'chassis', 'axle', 'category', 'wheel', 'machining', 'parkingBrake', 'cost'] as const satisfies readonly FilterKey[];
+export const filterKeys = [
+  'make',
+  'model',
+  'chassis',
+  'axle',
+  'category',
+  'wheel',
+  'machining',
+  'parkingBrake',
+  'cost',
+] as const satisfies readonly FilterKey[];
 
 export type SearchRequest = { q?: string; filters?: SearchFilters; sort?: SearchSort; offset?: number; limit?: number };
 export type FacetValue = { value: string; label: string; count: number };
@@ -400,7 +419,17 @@ class Scorer {
 // ---------------------------------------------------------------------------------------------
 // Facets: every facet value is a small integer per document (0 = not given), counted in typed arrays.
 
-const groups = ['make', 'model', 'chassis', 'axle', 'category', 'wheel', 'machining', 'parkingBrake', 'cost'] as const satisfies readonly FilterKey[];
+const groups = [
+  'make',
+  'model',
+  'chassis',
+  'axle',
+  'category',
+  'wheel',
+  'machining',
+  'parkingBrake',
+  'cost',
+] as const satisfies readonly FilterKey[];
 type Group = (typeof groups)[number];
 
 type Codes = { values: string[]; code: Map<string, number>; byDoc: Uint32Array };
@@ -466,21 +495,25 @@ export function costBucketOf(minMinor: number): CostBucket {
   return costBuckets.find((b) => minMinor >= b.minMinor && minMinor < b.maxMinor)!.value;
 }
 
-const newestFirst = (a: SearchDocument, b: SearchDocument) => (a.updatedAt < b.updatedAt ? 1 : a.updatedAt > b.updatedAt ? -1 : b.id - a.id);
+const newestFirst = (a: SearchDocument, b: SearchDocument) =>
+  a.updatedAt < b.updatedAt ? 1 : a.updatedAt > b.updatedAt ? -1 : b.id - a.id;
 const SEP = '\u0000';
 
 /** Orders, facet codes and labels around an index; `mini` is either freshly built or loaded from JSON. */
 function wrap(mini: MiniSearch<SearchDocument>, docs: SearchDocument[]): SearchIndex {
   const positions = docs.map((_, i) => i);
   const newest = Int32Array.from([...positions].sort((a, b) => newestFirst(docs[a], docs[b])));
-  const fitted = Int32Array.from([...positions].sort((a, b) => docs[b].fittedCount - docs[a].fittedCount || newestFirst(docs[a], docs[b])));
+  const fitted = Int32Array.from(
+    [...positions].sort((a, b) => docs[b].fittedCount - docs[a].fittedCount || newestFirst(docs[a], docs[b])),
+  );
   const newestRank = new Int32Array(docs.length);
   newest.forEach((p, rank) => (newestRank[p] = rank));
   const fittedRank = new Int32Array(docs.length);
   fitted.forEach((p, rank) => (fittedRank[p] = rank));
   const chassisLabels = new Map<string, { make: string; model: string; label: string }>();
   for (const { chassis: c } of docs) {
-    if (!chassisLabels.has(c.slug)) chassisLabels.set(c.slug, { make: c.make, model: c.model, label: `${c.code} (${c.yearFrom}–${c.yearTo ?? 'on'})` });
+    if (!chassisLabels.has(c.slug))
+      chassisLabels.set(c.slug, { make: c.make, model: c.model, label: `${c.code} (${c.yearFrom}–${c.yearTo ?? 'on'})` });
   }
   const wheelSizes = [...new Set(docs.map((d) => d.minWheelIn).filter((w): w is number => w !== null))].sort((a, b) => a - b);
   const position = new Map(docs.map((d, i) => [d.id, i]));
@@ -493,7 +526,11 @@ function wrap(mini: MiniSearch<SearchDocument>, docs: SearchDocument[]): SearchI
     wheel: encode(docs, (d) => (d.minWheelIn === null ? null : String(d.minWheelIn)), wheelSizes.map(String)),
     machining: encode(docs, (d) => d.machining, machiningLevels),
     parkingBrake: encode(docs, (d) => (d.parkingBrakeKept === null ? null : d.parkingBrakeKept ? 'yes' : 'no'), ['yes', 'no']),
-    cost: encode(docs, (d) => (d.cost ? costBucketOf(d.cost.min) : null), costBuckets.map((b) => b.value)),
+    cost: encode(
+      docs,
+      (d) => (d.cost ? costBucketOf(d.cost.min) : null),
+      costBuckets.map((b) => b.value),
+    ),
   };
   return {
     mini,
@@ -573,7 +610,17 @@ function topK(ids: ArrayLike<number>, k: number, better: (a: number, b: number) 
   return top;
 }
 
-const bit: Record<Group, number> = { make: 1, model: 2, chassis: 4, axle: 8, category: 16, wheel: 32, machining: 64, parkingBrake: 128, cost: 256 };
+const bit: Record<Group, number> = {
+  make: 1,
+  model: 2,
+  chassis: 4,
+  axle: 8,
+  category: 16,
+  wheel: 32,
+  machining: 64,
+  parkingBrake: 128,
+  cost: 256,
+};
 /** Filters a facet's own counts ignore: counts show what choosing another value would give. Make → model → chassis nest. */
 const ignoredBy: Record<Group, number> = {
   make: bit.make | bit.model | bit.chassis,
@@ -696,7 +743,11 @@ export function search(index: SearchIndex, request: SearchRequest = {}): SearchR
     if (matched) {
       const score = matched.hits.score;
       const newestRank = index.newestRank;
-      page = topK(passing, offset + limit, (a, b) => score[a] > score[b] || (score[a] === score[b] && newestRank[a] < newestRank[b]));
+      page = topK(
+        passing,
+        offset + limit,
+        (a, b) => score[a] > score[b] || (score[a] === score[b] && newestRank[a] < newestRank[b]),
+      );
     } else page = Array.from(passing.subarray(0, offset + limit));
   } else {
     const rank = sort === 'newest' ? index.newestRank : index.fittedRank;
@@ -720,16 +771,22 @@ function facetValues(index: SearchIndex, filters: SearchFilters, counts: Record<
   const list = (g: Group, label: (v: string) => string, keep: (v: string) => boolean = () => true) => {
     const { values } = index.codes[g];
     const out: FacetValue[] = [];
-    for (let c = 1; c < values.length; c++) if (counts[g][c] > 0 && keep(values[c])) out.push({ value: values[c], label: label(values[c]), count: counts[g][c] });
+    for (let c = 1; c < values.length; c++)
+      if (counts[g][c] > 0 && keep(values[c])) out.push({ value: values[c], label: label(values[c]), count: counts[g][c] });
     return out;
   };
   // plain code-unit order: localeCompare is slow enough to show in a keystroke's budget
-  const byCount = (xs: FacetValue[]) => xs.sort((a, b) => b.count - a.count || (a.label < b.label ? -1 : a.label > b.label ? 1 : 0));
+  const byCount = (xs: FacetValue[]) =>
+    xs.sort((a, b) => b.count - a.count || (a.label < b.label ? -1 : a.label > b.label ? 1 : 0));
 
   // the nested lists only open under a chosen make (models) and a chosen model or chassis (chassis)
   const modelCounts = new Map<string, number>();
   if (filters.make !== undefined) {
-    for (const m of list('model', (v) => v, (v) => v.startsWith(filters.make + SEP))) {
+    for (const m of list(
+      'model',
+      (v) => v,
+      (v) => v.startsWith(filters.make + SEP),
+    )) {
       const model = m.value.slice(m.value.indexOf(SEP) + 1);
       modelCounts.set(model, (modelCounts.get(model) ?? 0) + m.count);
     }
@@ -753,7 +810,8 @@ function facetValues(index: SearchIndex, filters: SearchFilters, counts: Record<
   return {
     make: byCount(list('make', (v) => v)),
     model: byCount([...modelCounts].map(([value, count]) => ({ value, label: value, count }))),
-    chassis: model === undefined ? [] : byCount(list('chassis', (slug) => index.chassisLabels.get(slug)?.label ?? slug, keepChassis)),
+    chassis:
+      model === undefined ? [] : byCount(list('chassis', (slug) => index.chassisLabels.get(slug)?.label ?? slug, keepChassis)),
     axle: list('axle', (a) => (a === 'front' ? 'Front axle' : 'Rear axle')),
     category: list('category', (c) => categoryLabels[c as Category]),
     wheel,

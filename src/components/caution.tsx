@@ -17,7 +17,13 @@ const lines: Record<CautionTopic, string[]> = {
 };
 
 /** The safety block shown wherever brakes, wheels or fasteners are concerned. */
-export function Caution({ topics = ['brakes', 'wheels', 'fasteners'], children }: { topics?: CautionTopic[]; children?: ReactNode }) {
+export function Caution({
+  topics = ['brakes', 'wheels', 'fasteners'],
+  children,
+}: {
+  topics?: CautionTopic[];
+  children?: ReactNode;
+}) {
   return (
     <aside
       role="note"
@@ -26,12 +32,14 @@ export function Caution({ topics = ['brakes', 'wheels', 'fasteners'], children }
     >
       <p className="font-bold text-oxide">Safety first</p>
       <ul className="mt-1 list-disc space-y-1 pl-5">
-        {topics.flatMap((t) => lines[t]).map((line) => (
-          <li key={line}>{line}</li>
-        ))}
+        {topics
+          .flatMap((t) => lines[t])
+          .map((line) => (
+            <li key={line}>{line}</li>
+          ))}
         <li>
-          Have the work inspected by a qualified technician. Many places require an inspection or approval of brake and
-          wheel modifications before road use; local rules and the manufacturers’ specifications always come first.
+          Have the work inspected by a qualified technician. Many places require an inspection or approval of brake and wheel
+          modifications before road use; local rules and the manufacturers’ specifications always come first.
         </li>
       </ul>
       {children}

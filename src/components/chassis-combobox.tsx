@@ -34,7 +34,15 @@ type Props = {
 };
 
 /** One text box over make, model, chassis code and years (ARIA combobox with a list box). */
-export function ChassisCombobox({ options, value, onChange, label = 'Chassis', hint, placeholder = 'Make, model, code or year', id }: Props) {
+export function ChassisCombobox({
+  options,
+  value,
+  onChange,
+  label = 'Chassis',
+  hint,
+  placeholder = 'Make, model, code or year',
+  id,
+}: Props) {
   const autoId = useId();
   const inputId = id ?? `${autoId}-input`;
   const listId = `${autoId}-list`;

@@ -33,8 +33,15 @@ export function Markdown({ children, className = '' }: { children: string; class
             ),
           // GFM task lists: a read-only box that says its state, since the item text is not its label
           input: ({ type, checked }) =>
-            type === 'checkbox' ? <input type="checkbox" checked={Boolean(checked)} disabled readOnly aria-label={checked ? 'Done' : 'Not done'} /> : null,
-          img: ({ src, alt }) => (typeof src === 'string' && src.startsWith('/media/') ? <img src={src} alt={alt ?? ''} loading="lazy" /> : <span>{alt}</span>),
+            type === 'checkbox' ? (
+              <input type="checkbox" checked={Boolean(checked)} disabled readOnly aria-label={checked ? 'Done' : 'Not done'} />
+            ) : null,
+          img: ({ src, alt }) =>
+            typeof src === 'string' && src.startsWith('/media/') ? (
+              <img src={src} alt={alt ?? ''} loading="lazy" />
+            ) : (
+              <span>{alt}</span>
+            ),
         }}
       >
         {children}

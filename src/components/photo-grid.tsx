@@ -12,7 +12,10 @@ export function PhotoGrid({ photos }: { photos: PhotoView[] }) {
     setOpen(i);
   };
   const close = useCallback(() => setOpen(null), []);
-  const step = useCallback((d: number) => setOpen((i) => (i === null ? i : (i + d + photos.length) % photos.length)), [photos.length]);
+  const step = useCallback(
+    (d: number) => setOpen((i) => (i === null ? i : (i + d + photos.length) % photos.length)),
+    [photos.length],
+  );
 
   useEffect(() => {
     const d = dialog.current;
@@ -32,8 +35,20 @@ export function PhotoGrid({ photos }: { photos: PhotoView[] }) {
         {photos.map((p, i) => (
           <li key={p.id}>
             <figure>
-              <button type="button" className="block w-full overflow-hidden rounded-lg bg-paper-deep" onClick={(e) => show(i, e.currentTarget)} aria-label={`Open photo ${i + 1}: ${p.caption || 'no caption'}`}>
-                <img src={p.thumbUrl} alt={p.caption} width={p.width} height={p.height} loading="lazy" className="aspect-[4/3] w-full object-cover transition-transform hover:scale-[1.02]" />
+              <button
+                type="button"
+                className="block w-full overflow-hidden rounded-lg bg-paper-deep"
+                onClick={(e) => show(i, e.currentTarget)}
+                aria-label={`Open photo ${i + 1}: ${p.caption || 'no caption'}`}
+              >
+                <img
+                  src={p.thumbUrl}
+                  alt={p.caption}
+                  width={p.width}
+                  height={p.height}
+                  loading="lazy"
+                  className="aspect-[4/3] w-full object-cover transition-transform hover:scale-[1.02]"
+                />
               </button>
               {p.caption && <figcaption className="mt-1 text-sm text-graphite-soft">{p.caption}</figcaption>}
             </figure>
@@ -61,10 +76,20 @@ export function PhotoGrid({ photos }: { photos: PhotoView[] }) {
                 {current.caption}
               </span>
               <span className="flex gap-2">
-                <button type="button" className="rounded border border-paper/30 px-3 py-1" onClick={() => step(-1)} aria-label="Previous photo">
+                <button
+                  type="button"
+                  className="rounded border border-paper/30 px-3 py-1"
+                  onClick={() => step(-1)}
+                  aria-label="Previous photo"
+                >
                   ←
                 </button>
-                <button type="button" className="rounded border border-paper/30 px-3 py-1" onClick={() => step(1)} aria-label="Next photo">
+                <button
+                  type="button"
+                  className="rounded border border-paper/30 px-3 py-1"
+                  onClick={() => step(1)}
+                  aria-label="Next photo"
+                >
                   →
                 </button>
                 <button type="button" className="rounded bg-paper px-3 py-1 font-bold text-graphite" onClick={close} autoFocus>

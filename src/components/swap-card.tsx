@@ -11,7 +11,14 @@ export function SwapCard({ swap }: { swap: SwapCardData }) {
   return (
     <article className="group relative flex flex-col overflow-hidden rounded-xl border border-ink/10 bg-paper-card shadow-sm transition-shadow hover:shadow-md">
       {swap.thumbUrl ? (
-        <img src={swap.thumbUrl} alt="" width={480} height={300} loading="lazy" className="aspect-[16/10] w-full bg-paper-deep object-cover" />
+        <img
+          src={swap.thumbUrl}
+          alt=""
+          width={480}
+          height={300}
+          loading="lazy"
+          className="aspect-[16/10] w-full bg-paper-deep object-cover"
+        />
       ) : (
         <div className="aspect-[16/10] w-full bg-paper-deep" aria-hidden />
       )}
@@ -36,7 +43,9 @@ export function SwapCard({ swap }: { swap: SwapCardData }) {
           )}
           <div className="flex gap-1">
             <dt>Fitted by</dt>
-            <dd className="font-bold text-graphite">{swap.fittedCount} {swap.fittedCount === 1 ? 'member' : 'members'}</dd>
+            <dd className="font-bold text-graphite">
+              {swap.fittedCount} {swap.fittedCount === 1 ? 'member' : 'members'}
+            </dd>
           </div>
           <div className="flex gap-1">
             <dt>Revision</dt>

@@ -21,7 +21,9 @@ export function Verdict({ label, ok, value, margin, rule, note, words }: Verdict
     <div className={`rounded-lg border p-3 ${tone}`} data-verdict={ok === null ? 'advisory' : ok ? 'pass' : 'fail'}>
       <div className="flex items-baseline justify-between gap-3">
         <p className="text-sm font-bold text-graphite">{label}</p>
-        <p className={`text-xs font-extrabold uppercase tracking-wide ${ok === null ? 'text-brass-deep' : ok ? 'text-ink' : 'text-oxide'}`}>
+        <p
+          className={`text-xs font-extrabold uppercase tracking-wide ${ok === null ? 'text-brass-deep' : ok ? 'text-ink' : 'text-oxide'}`}
+        >
           <span aria-hidden>{ok === null ? '◇ ' : ok ? '✓ ' : '✕ '}</span>
           {word}
         </p>

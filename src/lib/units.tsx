@@ -40,8 +40,7 @@ export function useUnits() {
   return {
     ...ctx,
     /** a length given in mm, shown in the chosen system */
-    length: (mm: number, digits = 1) =>
-      system === 'metric' ? `${round(mm, digits)} mm` : `${round(mmToIn(mm), digits + 2)} in`,
+    length: (mm: number, digits = 1) => (system === 'metric' ? `${round(mm, digits)} mm` : `${round(mmToIn(mm), digits + 2)} in`),
     torque: (nm: number) => (system === 'metric' ? `${round(nm, 0)} N·m` : `${round(nmToLbfFt(nm), 0)} lbf·ft`),
     pressure: (bar: number) => (system === 'metric' ? `${round(bar, 1)} bar` : `${round(barToPsi(bar), 0)} psi`),
     lengthUnit: system === 'metric' ? 'mm' : 'in',

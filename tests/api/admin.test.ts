@@ -33,7 +33,11 @@ afterAll(() => {
 });
 
 const idOf = (login: string) => t.db.select({ id: users.id }).from(users).where(eq(users.login, login)).get()!.id;
-const patchUser = (login: string, body: object) => admin.patch(`/api/admin/users/${idOf(login)}`).set('x-csrf-token', adminToken).send(body);
+const patchUser = (login: string, body: object) =>
+  admin
+    .patch(`/api/admin/users/${idOf(login)}`)
+    .set('x-csrf-token', adminToken)
+    .send(body);
 
 describe('who may open the admin routes', () => {
   it('when signed out, then the admin routes are 401', async () => {
@@ -48,7 +52,10 @@ describe('who may open the admin routes', () => {
     expect((await a.get('/api/admin/users')).status).toBe(403);
     expect((await a.get('/api/admin/shops')).status).toBe(403);
     const token = await csrfToken(a);
-    const res = await a.patch(`/api/admin/users/${idOf('rivet_rosa')}`).set('x-csrf-token', token).send({ role: 'admin' });
+    const res = await a
+      .patch(`/api/admin/users/${idOf('rivet_rosa')}`)
+      .set('x-csrf-token', token)
+      .send({ role: 'admin' });
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('forbidden');
     expect(t.db.select().from(users).where(eq(users.login, 'rivet_rosa')).get()!.role).toBe('member');
@@ -85,7 +92,12 @@ describe('changing roles, shops and suspension', () => {
     expect((await rosa.get('/api/me')).body.user.role).toBe('moderator');
 
     const changes = await admin.get(`/api/admin/users/${idOf('rivet_rosa')}/changes`);
-    expect(changes.body.changes[0]).toMatchObject({ field: 'role', from: 'member', to: 'moderator', actor: { login: 'ada_admin' } });
+    expect(changes.body.changes[0]).toMatchObject({
+      field: 'role',
+      from: 'member',
+      to: 'moderator',
+      actor: { login: 'ada_admin' },
+    });
     expect(Date.parse(changes.body.changes[0].at)).toBeGreaterThan(Date.now() - 60_000);
   });
 
@@ -104,12 +116,17 @@ describe('changing roles, shops and suspension', () => {
     expect(ok.body.user.shop).toEqual({ id: ridgeway.id, slug: 'ridgeway-performance', name: 'Ridgeway Performance' });
     const shopAgent = agent();
     await signIn(shopAgent, 'ridgeway_shop');
-    expect((await shopAgent.get('/api/me')).body.user).toMatchObject({ role: 'shop', shop: { slug: 'ridgeway-performance', name: 'Ridgeway Performance' } });
+    expect((await shopAgent.get('/api/me')).body.user).toMatchObject({
+      role: 'shop',
+      shop: { slug: 'ridgeway-performance', name: 'Ridgeway Performance' },
+    });
 
     // leaving the shop role drops the link, and both changes are recorded
     const back = await patchUser('ridgeway_shop', { role: 'member' });
     expect(back.body.user.shop).toBeNull();
-    const fields = (await admin.get(`/api/admin/users/${idOf('ridgeway_shop')}/changes`)).body.changes.map((c: { field: string; to: string | null }) => `${c.field}:${c.to}`);
+    const fields = (await admin.get(`/api/admin/users/${idOf('ridgeway_shop')}/changes`)).body.changes.map(
+      (c: { field: string; to: string | null }) => `${c.field}:${c.to}`,
+    );
     expect(fields).toEqual(expect.arrayContaining(['role:shop', 'shop:ridgeway-performance', 'role:member', 'shop:null']));
   });
 
@@ -135,7 +152,11 @@ describe('changing roles, shops and suspension', () => {
     const back = agent();
     await signIn(back, 'pistonpaul');
     expect((await back.get('/api/me')).body.user.login).toBe('pistonpaul');
-    const recorded = t.db.select().from(userChanges).where(and(eq(userChanges.userId, paulId), eq(userChanges.field, 'suspended'))).all();
+    const recorded = t.db
+      .select()
+      .from(userChanges)
+      .where(and(eq(userChanges.userId, paulId), eq(userChanges.field, 'suspended')))
+      .all();
     expect(recorded.map((c) => `${c.fromValue}->${c.toValue}`)).toEqual(['false->true', 'true->false']);
   });
 
@@ -175,7 +196,11 @@ describe('npm run user:role', () => {
     expect(res.status).toBe(0);
     expect(res.stdout).toMatch(/camber_kai .* is now Admin/);
     expect(t.db.select().from(users).where(eq(users.login, 'camber_kai')).get()!.role).toBe('admin');
-    const change = t.db.select().from(userChanges).where(eq(userChanges.userId, idOf('camber_kai'))).get()!;
+    const change = t.db
+      .select()
+      .from(userChanges)
+      .where(eq(userChanges.userId, idOf('camber_kai')))
+      .get()!;
     expect(change).toMatchObject({ field: 'role', fromValue: 'member', toValue: 'admin', actorId: null });
   });
 

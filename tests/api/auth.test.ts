@@ -63,7 +63,12 @@ describe('signing in through the real strategy and the fake provider', () => {
     const me = await a.get('/api/me');
     expect(me.body.user).toMatchObject({ login: 'lugnut_lee', role: 'member', name: 'lugnut_lee' });
     const row = t.db.select().from(users).where(eq(users.login, 'lugnut_lee')).get()!;
-    expect(row).toMatchObject({ provider: 'github', providerId: 'demo-lugnut_lee', email: 'lugnut_lee@members.swapyard.invalid', role: 'member' });
+    expect(row).toMatchObject({
+      provider: 'github',
+      providerId: 'demo-lugnut_lee',
+      email: 'lugnut_lee@members.swapyard.invalid',
+      role: 'member',
+    });
 
     // a second sign-in updates the same row instead of adding one
     await signIn(agent(), 'lugnut_lee');
@@ -100,7 +105,9 @@ describe('signing in through the real strategy and the fake provider', () => {
     const b = agent();
     const start = await b.get('/auth/github');
     const state = new URL(start.headers.location, 'http://x').searchParams.get('state')!;
-    const replay = await b.get(`/auth/github/callback?code=${first.back.searchParams.get('code')}&state=${encodeURIComponent(state)}`);
+    const replay = await b.get(
+      `/auth/github/callback?code=${first.back.searchParams.get('code')}&state=${encodeURIComponent(state)}`,
+    );
     expect(replay.headers.location).toBe('/signin-failed?reason=provider');
     expect((await b.get('/api/me')).body.user).toBeNull();
   });
@@ -226,7 +233,11 @@ describe('sign-out, CSRF and cross-site refusal', () => {
     const res = await a.patch('/api/me').set('x-csrf-token', token).set('sec-fetch-site', 'cross-site').send({ units: 'metric' });
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('cross_site');
-    const sameOrigin = await a.patch('/api/me').set('x-csrf-token', token).set('sec-fetch-site', 'same-origin').send({ units: 'metric' });
+    const sameOrigin = await a
+      .patch('/api/me')
+      .set('x-csrf-token', token)
+      .set('sec-fetch-site', 'same-origin')
+      .send({ units: 'metric' });
     expect(sameOrigin.status).toBe(200);
   });
 

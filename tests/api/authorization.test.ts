@@ -6,7 +6,15 @@ import { addShop, addUser, csrfToken, signIn, type Agent } from './support/auth-
 import { addChassis } from './support/swap-fixtures';
 import { addSwap } from './support/swap-rows';
 import { swapData } from './support/swap-rows';
-import { cars, fittedReports, flags, parts, revisionPhotos, reviewReasonTemplates, shopLinks } from '../../server/db/schema/index';
+import {
+  cars,
+  fittedReports,
+  flags,
+  parts,
+  revisionPhotos,
+  reviewReasonTemplates,
+  shopLinks,
+} from '../../server/db/schema/index';
 
 // Every route the Express app really has, checked for every kind of visitor against the table below.
 // A route that is added without a row here fails the first test, so none can be forgotten.
@@ -18,9 +26,35 @@ type Expect = 'ok' | 'any' | 401 | 403 | 404 | 'deny';
 type Row = Partial<Record<Actor, Expect>> & { all?: Expect };
 
 // owner = the member who wrote the swap, the draft, the review item, the car; shop = a user of the shop that owns the link
-const signedIn = (rest: Row = {}): Row => ({ anon: 401, member: 'ok', owner: 'ok', shop: 'ok', otherShop: 'ok', moderator: 'ok', admin: 'ok', ...rest });
-const reviewers = (rest: Row = {}): Row => ({ anon: 401, member: 403, owner: 403, shop: 403, otherShop: 403, moderator: 'ok', admin: 'ok', ...rest });
-const ownerOnly: Row = { anon: 401, member: 'deny', owner: 'ok', shop: 'deny', otherShop: 'deny', moderator: 'deny', admin: 'deny' };
+const signedIn = (rest: Row = {}): Row => ({
+  anon: 401,
+  member: 'ok',
+  owner: 'ok',
+  shop: 'ok',
+  otherShop: 'ok',
+  moderator: 'ok',
+  admin: 'ok',
+  ...rest,
+});
+const reviewers = (rest: Row = {}): Row => ({
+  anon: 401,
+  member: 403,
+  owner: 403,
+  shop: 403,
+  otherShop: 403,
+  moderator: 'ok',
+  admin: 'ok',
+  ...rest,
+});
+const ownerOnly: Row = {
+  anon: 401,
+  member: 'deny',
+  owner: 'ok',
+  shop: 'deny',
+  otherShop: 'deny',
+  moderator: 'deny',
+  admin: 'deny',
+};
 const admins: Row = { anon: 401, member: 403, owner: 403, shop: 403, otherShop: 403, moderator: 403, admin: 'ok' };
 const ownShop: Row = { anon: 401, member: 403, owner: 403, shop: 'ok', otherShop: 'deny', moderator: 403, admin: 403 };
 const publicRoute: Row = { all: 'ok' };
@@ -70,8 +104,22 @@ const table: Record<string, Row> = {
   'GET /api/swaps/:slug/fitted-reports': publicRoute,
   // the author cannot report their own swap
   'POST /api/swaps/:slug/fitted-reports': signedIn({ owner: 403 }),
-  'PATCH /api/swaps/:slug/fitted-reports/mine': signedIn({ member: 'any', owner: 'any', shop: 'any', otherShop: 'any', moderator: 'any', admin: 'any' }),
-  'DELETE /api/swaps/:slug/fitted-reports/mine': signedIn({ member: 'any', owner: 'any', shop: 'any', otherShop: 'any', moderator: 'any', admin: 'any' }),
+  'PATCH /api/swaps/:slug/fitted-reports/mine': signedIn({
+    member: 'any',
+    owner: 'any',
+    shop: 'any',
+    otherShop: 'any',
+    moderator: 'any',
+    admin: 'any',
+  }),
+  'DELETE /api/swaps/:slug/fitted-reports/mine': signedIn({
+    member: 'any',
+    owner: 'any',
+    shop: 'any',
+    otherShop: 'any',
+    moderator: 'any',
+    admin: 'any',
+  }),
   'POST /api/fitted-reports/:id/hide': reviewers(),
   'POST /api/fitted-reports/:id/unhide': reviewers(),
   'GET /api/cars': signedIn(),
@@ -101,7 +149,8 @@ function routesOf(app: Express): string[] {
   const walk = (stack: Layer[], prefix: string) => {
     for (const layer of stack) {
       if (layer.route) {
-        for (const m of Object.keys(layer.route.methods)) if (m !== '_all') out.push(`${m.toUpperCase()} ${prefix}${layer.route.path}`);
+        for (const m of Object.keys(layer.route.methods))
+          if (m !== '_all') out.push(`${m.toUpperCase()} ${prefix}${layer.route.path}`);
       } else if (layer.handle?.stack) {
         walk(layer.handle.stack, prefix + (typeof layer.rawPath === 'string' && layer.rawPath !== '/' ? layer.rawPath : ''));
       }
@@ -126,17 +175,102 @@ async function world() {
   };
   const c = addChassis(t.db);
   const now = new Date();
-  const part = t.db.insert(parts).values({ slug: 'ov-caliper', kind: 'caliper', name: 'Vela caliper', partNumbers: ['OV-355-104-L'], specs: {}, cameOn: [], createdAt: now, updatedAt: now }).returning().get();
-  const approved = addSwap(t.db, { slug: 'h31-vela-front', chassisId: c.id, authorId: users.owner.id, revisions: [{ status: 'approved' }] });
-  const inReview = addSwap(t.db, { slug: 'h31-review-item', chassisId: c.id, authorId: users.owner.id, revisions: [{ status: 'in_review' }] });
+  const part = t.db
+    .insert(parts)
+    .values({
+      slug: 'ov-caliper',
+      kind: 'caliper',
+      name: 'Vela caliper',
+      partNumbers: ['OV-355-104-L'],
+      specs: {},
+      cameOn: [],
+      createdAt: now,
+      updatedAt: now,
+    })
+    .returning()
+    .get();
+  const approved = addSwap(t.db, {
+    slug: 'h31-vela-front',
+    chassisId: c.id,
+    authorId: users.owner.id,
+    revisions: [{ status: 'approved' }],
+  });
+  const inReview = addSwap(t.db, {
+    slug: 'h31-review-item',
+    chassisId: c.id,
+    authorId: users.owner.id,
+    revisions: [{ status: 'in_review' }],
+  });
   const draft = addSwap(t.db, { slug: 'h31-draft', chassisId: c.id, authorId: users.owner.id, revisions: [{ status: 'draft' }] });
   await t.storage.put('abcdefghijklmnop', Buffer.from('RIFF0000WEBPVP8 '));
-  const photo = t.db.insert(revisionPhotos).values({ revisionId: draft.revisionIds[0], fileId: 'abcdefghijklmnop', width: 10, height: 10, bytes: 10, sha256: 'x', createdAt: now }).returning().get();
-  const link = t.db.insert(shopLinks).values({ code: 'rp-h31vela', shopId: shopA.id, swapId: approved.swapId, revisionId: approved.revisionIds[0], createdById: users.shop.id, createdAt: now, updatedAt: now }).returning().get();
-  const car = t.db.insert(cars).values({ userId: users.owner.id, chassisId: c.id, nickname: 'Daily', wheelDiameterIn: 16, wheelWidthIn: 7, wheelOffsetMm: 38, createdAt: now, updatedAt: now }).returning().get();
-  const report = t.db.insert(fittedReports).values({ swapId: approved.swapId, userId: users.member.id, revisionId: approved.revisionIds[0], wheel: { diameterIn: 16, widthIn: 7, offsetMm: 38, spacerMm: 10 }, createdAt: now, updatedAt: now }).returning().get();
-  const flag = t.db.insert(flags).values({ swapId: approved.swapId, reporterId: users.member.id, reason: 'Torque figure looks wrong', createdAt: now, updatedAt: now }).returning().get();
-  const template = t.db.insert(reviewReasonTemplates).values({ label: 'Photo', text: 'Add a photo', createdAt: now, updatedAt: now }).returning().get();
+  const photo = t.db
+    .insert(revisionPhotos)
+    .values({
+      revisionId: draft.revisionIds[0],
+      fileId: 'abcdefghijklmnop',
+      width: 10,
+      height: 10,
+      bytes: 10,
+      sha256: 'x',
+      createdAt: now,
+    })
+    .returning()
+    .get();
+  const link = t.db
+    .insert(shopLinks)
+    .values({
+      code: 'rp-h31vela',
+      shopId: shopA.id,
+      swapId: approved.swapId,
+      revisionId: approved.revisionIds[0],
+      createdById: users.shop.id,
+      createdAt: now,
+      updatedAt: now,
+    })
+    .returning()
+    .get();
+  const car = t.db
+    .insert(cars)
+    .values({
+      userId: users.owner.id,
+      chassisId: c.id,
+      nickname: 'Daily',
+      wheelDiameterIn: 16,
+      wheelWidthIn: 7,
+      wheelOffsetMm: 38,
+      createdAt: now,
+      updatedAt: now,
+    })
+    .returning()
+    .get();
+  const report = t.db
+    .insert(fittedReports)
+    .values({
+      swapId: approved.swapId,
+      userId: users.member.id,
+      revisionId: approved.revisionIds[0],
+      wheel: { diameterIn: 16, widthIn: 7, offsetMm: 38, spacerMm: 10 },
+      createdAt: now,
+      updatedAt: now,
+    })
+    .returning()
+    .get();
+  const flag = t.db
+    .insert(flags)
+    .values({
+      swapId: approved.swapId,
+      reporterId: users.member.id,
+      reason: 'Torque figure looks wrong',
+      createdAt: now,
+      updatedAt: now,
+    })
+    .returning()
+    .get();
+  const template = t.db
+    .insert(reviewReasonTemplates)
+    .values({ label: 'Photo', text: 'Add a photo', createdAt: now, updatedAt: now })
+    .returning()
+    .get();
   const params: Record<string, Record<string, string | number>> = {
     default: { slug: approved.slug, n: 1, revisionId: inReview.revisionIds[0], photoId: photo.fileId, code: link.code },
     chassis: { slug: c.slug },
@@ -163,7 +297,13 @@ function fill(route: string, params: Record<string, Record<string, string | numb
 const bodies: Record<string, object> = {
   'PATCH /api/me': { name: 'New name' },
   'PATCH /api/admin/users/:id': { role: 'member' },
-  'POST /api/submissions': { chassisId: 1, axle: 'front', category: 'brakes', data: swapData('A new draft from the matrix'), body: '' },
+  'POST /api/submissions': {
+    chassisId: 1,
+    axle: 'front',
+    category: 'brakes',
+    data: swapData('A new draft from the matrix'),
+    body: '',
+  },
   'PATCH /api/submissions/:id': { data: swapData('An edited draft title'), body: 'Edited' },
   'PATCH /api/submissions/:id/photos': { photos: [{ id: 'abcdefghijklmnop', caption: 'Caliper' }] },
   'POST /api/review/templates': { label: 'Torque', text: 'Add the torque figures' },
@@ -224,10 +364,15 @@ describe('authorization matrix', () => {
           const token = await csrfToken(agent);
           const [method] = route.split(' ');
           const url = fill(route, w.params);
-          const call = agent[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](url).set('x-csrf-token', token).redirects(0);
+          const call = agent[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](url)
+            .set('x-csrf-token', token)
+            .redirects(0);
           const res = method === 'GET' ? await call : await call.send(bodies[route] ?? {});
           checked++;
-          if (!judge(expected, res.status)) failures.push(`${route} as ${actor}: expected ${expected}, got ${res.status} ${JSON.stringify(res.body?.error?.code ?? '')}`);
+          if (!judge(expected, res.status))
+            failures.push(
+              `${route} as ${actor}: expected ${expected}, got ${res.status} ${JSON.stringify(res.body?.error?.code ?? '')}`,
+            );
         } finally {
           server.close();
           w.t.close();

@@ -30,7 +30,9 @@ describe('online backup', () => {
     writer.pragma('busy_timeout = 5000');
     let written = 0;
     const timer = setInterval(() => {
-      writer.prepare('insert into mail_outbox ("to", subject, text, html, created_at) values (?, ?, ?, ?, ?)').run('w@example.com', `w${written}`, filler, filler, Date.now());
+      writer
+        .prepare('insert into mail_outbox ("to", subject, text, html, created_at) values (?, ?, ?, ?, ?)')
+        .run('w@example.com', `w${written}`, filler, filler, Date.now());
       written++;
     }, 1);
 

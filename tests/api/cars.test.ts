@@ -15,7 +15,14 @@ let kai: { a: Agent; token: string };
 let h31: number;
 let h40: number;
 
-const greenCoupe = { nickname: 'Green coupe', wheelDiameterIn: 16, wheelWidthIn: 7, wheelOffsetMm: 38, tyre: '205/55R16', spacerMm: 10 };
+const greenCoupe = {
+  nickname: 'Green coupe',
+  wheelDiameterIn: 16,
+  wheelWidthIn: 7,
+  wheelOffsetMm: 38,
+  tyre: '205/55R16',
+  spacerMm: 10,
+};
 
 beforeAll(async () => {
   t = await makeTestApp();
@@ -46,7 +53,10 @@ describe('/api/cars', () => {
   });
 
   it('when a member adds a car, then it is listed with its chassis, and only for them', async () => {
-    const res = await rosa.a.post('/api/cars').set('x-csrf-token', rosa.token).send({ ...greenCoupe, chassisId: h31 });
+    const res = await rosa.a
+      .post('/api/cars')
+      .set('x-csrf-token', rosa.token)
+      .send({ ...greenCoupe, chassisId: h31 });
     expect(res.status).toBe(201);
     const car = res.body.car as CarView;
     expect(car).toMatchObject({ ...greenCoupe, chassis: { slug: 'halden-h31', code: 'H31' } });
@@ -66,7 +76,10 @@ describe('/api/cars', () => {
     expect(res.body.error.fields.tyre).toMatch(/not a tyre size/);
     expect(res.body.error.fields.wheelDiameterIn).toBe('Between 10 and 24 in');
     expect(res.body.error.fields.nickname).toBeDefined();
-    const unknownChassis = await rosa.a.post('/api/cars').set('x-csrf-token', rosa.token).send({ ...greenCoupe, chassisId: 9999 });
+    const unknownChassis = await rosa.a
+      .post('/api/cars')
+      .set('x-csrf-token', rosa.token)
+      .send({ ...greenCoupe, chassisId: 9999 });
     expect(unknownChassis.status).toBe(400);
     expect(unknownChassis.body.error.fields.chassisId).toMatch(/not in the catalogue/);
     expect(t.db.select().from(cars).all()).toHaveLength(before);
@@ -74,9 +87,18 @@ describe('/api/cars', () => {
 
   it('when the owner edits a car, then only the fields sent change', async () => {
     const [car] = (await rosa.a.get('/api/cars')).body.items as CarView[];
-    const res = await rosa.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', rosa.token).send({ chassisId: h40, wheelOffsetMm: 42 });
+    const res = await rosa.a
+      .patch(`/api/cars/${car!.id}`)
+      .set('x-csrf-token', rosa.token)
+      .send({ chassisId: h40, wheelOffsetMm: 42 });
     expect(res.status).toBe(200);
-    expect(res.body.car).toMatchObject({ chassis: { slug: 'halden-h40' }, wheelOffsetMm: 42, tyre: '205/55R16', spacerMm: 10, nickname: 'Green coupe' });
+    expect(res.body.car).toMatchObject({
+      chassis: { slug: 'halden-h40' },
+      wheelOffsetMm: 42,
+      tyre: '205/55R16',
+      spacerMm: 10,
+      nickname: 'Green coupe',
+    });
     const bad = await rosa.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', rosa.token).send({ tyre: 'fat ones' });
     expect(bad.status).toBe(400);
     expect(t.db.select().from(cars).where(eq(cars.id, car!.id)).get()!.tyre).toBe('205/55R16');

@@ -34,7 +34,10 @@ async function start(port: number): Promise<ChildProcess> {
     stdio: 'ignore',
   });
   for (let i = 0; i < 300; i++) {
-    const up = await fetch(`http://127.0.0.1:${port}/api/health`).then((r) => r.ok, () => false);
+    const up = await fetch(`http://127.0.0.1:${port}/api/health`).then(
+      (r) => r.ok,
+      () => false,
+    );
     if (up) return child;
     await new Promise((r) => setTimeout(r, 100));
   }
@@ -47,7 +50,11 @@ async function signedIn(base: string, login: string) {
   const jar = new Map<string, string>();
   const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
   const go = async (url: string, init: RequestInit = {}) => {
-    const res = await fetch(new URL(url, base), { ...init, redirect: 'manual', headers: { ...(init.headers as object), cookie: cookie() } });
+    const res = await fetch(new URL(url, base), {
+      ...init,
+      redirect: 'manual',
+      headers: { ...(init.headers as object), cookie: cookie() },
+    });
     for (const c of res.headers.getSetCookie()) {
       const [pair] = c.split(';');
       const i = pair.indexOf('=');

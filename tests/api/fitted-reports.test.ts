@@ -34,7 +34,10 @@ const indexCount = async (slug: string) => {
   expect(res.status).toBe(200);
   return (res.body as SearchIndexResponse).documents.find((d) => d.slug === slug)?.fittedCount;
 };
-const png = (w = 64, h = 48) => sharp({ create: { width: w, height: h, channels: 3, background: { r: 29, g: 77, b: 58 } } }).png().toBuffer();
+const png = (w = 64, h = 48) =>
+  sharp({ create: { width: w, height: h, channels: 3, background: { r: 29, g: 77, b: 58 } } })
+    .png()
+    .toBuffer();
 
 beforeAll(async () => {
   t = await makeTestApp();
@@ -43,7 +46,12 @@ beforeAll(async () => {
   for (const login of ['camber_kai', 'pistonpaul', 'lugnut_lee']) addUser(t.db, login);
   addUser(t.db, 'gauge_mo', 'moderator');
   const h31 = addChassis(t.db);
-  swapId = addSwap(t.db, { slug: 'h31-front-vela', chassisId: h31.id, authorId: author.id, revisions: [{ status: 'superseded' }, { status: 'approved' }] }).swapId;
+  swapId = addSwap(t.db, {
+    slug: 'h31-front-vela',
+    chassisId: h31.id,
+    authorId: author.id,
+    revisions: [{ status: 'superseded' }, { status: 'approved' }],
+  }).swapId;
   addSwap(t.db, { slug: 'h31-front-draft', chassisId: h31.id, authorId: author.id, revisions: [{ status: 'in_review' }] });
 });
 afterAll(() => {
@@ -67,7 +75,12 @@ describe('POST /api/swaps/:slug/fitted-reports', () => {
     expect(res.status).toBe(201);
     const view = res.body as FittedReportsView;
     expect(view.count).toBe(1);
-    expect(view.mine).toMatchObject({ revisionNumber: 2, wheel: { diameterIn: 16, widthIn: 7, offsetMm: 38, spacerMm: 10 }, note: wheel.note, hidden: false });
+    expect(view.mine).toMatchObject({
+      revisionNumber: 2,
+      wheel: { diameterIn: 16, widthIn: 7, offsetMm: 38, spacerMm: 10 },
+      note: wheel.note,
+      hidden: false,
+    });
     expect(fittedCount()).toBe(1);
     expect(await indexCount('h31-front-vela')).toBe(1);
 
@@ -83,7 +96,10 @@ describe('POST /api/swaps/:slug/fitted-reports', () => {
 
   it('when the same member reports the same swap again, then it is 409 and the count stays 1', async () => {
     const { a, token } = await as('camber_kai');
-    const res = await a.post('/api/swaps/h31-front-vela/fitted-reports').set('x-csrf-token', token).send({ ...wheel, offsetMm: 45 });
+    const res = await a
+      .post('/api/swaps/h31-front-vela/fitted-reports')
+      .set('x-csrf-token', token)
+      .send({ ...wheel, offsetMm: 45 });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('conflict');
     expect(fittedCount()).toBe(1);
@@ -109,18 +125,31 @@ describe('POST /api/swaps/:slug/fitted-reports', () => {
 
   it('when the wheel is out of range or missing, then it is 400 with a reason per field', async () => {
     const { a, token } = await as('pistonpaul');
-    const res = await a.post('/api/swaps/h31-front-vela/fitted-reports').set('x-csrf-token', token).send({ diameterIn: 30, offsetMm: 'wide' });
+    const res = await a
+      .post('/api/swaps/h31-front-vela/fitted-reports')
+      .set('x-csrf-token', token)
+      .send({ diameterIn: 30, offsetMm: 'wide' });
     expect(res.status).toBe(400);
-    expect(res.body.error.fields).toMatchObject({ diameterIn: 'Between 10 and 24 in', widthIn: 'Enter the wheel width', offsetMm: 'Enter the offset (ET)' });
+    expect(res.body.error.fields).toMatchObject({
+      diameterIn: 'Between 10 and 24 in',
+      widthIn: 'Enter the wheel width',
+      offsetMm: 'Enter the offset (ET)',
+    });
     expect(fittedCount()).toBe(1);
   });
 
   it('when the member names a revision they followed, then a superseded one is accepted and an unknown one is refused', async () => {
     const { a, token } = await as('pistonpaul');
-    const bad = await a.post('/api/swaps/h31-front-vela/fitted-reports').set('x-csrf-token', token).send({ ...wheel, revisionNumber: 7 });
+    const bad = await a
+      .post('/api/swaps/h31-front-vela/fitted-reports')
+      .set('x-csrf-token', token)
+      .send({ ...wheel, revisionNumber: 7 });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields.revisionNumber).toMatch(/Revision 7/);
-    const ok = await a.post('/api/swaps/h31-front-vela/fitted-reports').set('x-csrf-token', token).send({ ...wheel, revisionNumber: 1, note: '<b>Old</b> sheet, <script>x()</script>same result' });
+    const ok = await a
+      .post('/api/swaps/h31-front-vela/fitted-reports')
+      .set('x-csrf-token', token)
+      .send({ ...wheel, revisionNumber: 1, note: '<b>Old</b> sheet, <script>x()</script>same result' });
     expect(ok.status).toBe(201);
     expect(ok.body.mine.revisionNumber).toBe(1);
     expect(ok.body.mine.note).toBe('Old sheet, same result');
@@ -179,7 +208,9 @@ describe('editing, removing and hiding', () => {
 
   it('when a member without a report edits "mine", then it is 404', async () => {
     const { a, token } = await as('rivet_rosa');
-    expect((await a.patch('/api/swaps/h31-front-vela/fitted-reports/mine').set('x-csrf-token', token).send({ offsetMm: 40 })).status).toBe(404);
+    expect(
+      (await a.patch('/api/swaps/h31-front-vela/fitted-reports/mine').set('x-csrf-token', token).send({ offsetMm: 40 })).status,
+    ).toBe(404);
   });
 
   it('when a moderator hides a report, then the count drops everywhere, its photo is no longer public, and a member cannot hide', async () => {

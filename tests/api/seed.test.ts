@@ -61,7 +61,11 @@ describe('demo seed', () => {
     expect(result.counts.parts).toBeGreaterThanOrEqual(15);
     expect(result.counts.shops).toBe(2);
     expect(result.counts.users).toBe(6);
-    const roles = db.select({ role: t.users.role }).from(t.users).all().map((u) => u.role);
+    const roles = db
+      .select({ role: t.users.role })
+      .from(t.users)
+      .all()
+      .map((u) => u.role);
     expect(new Set(roles)).toEqual(new Set(['member', 'shop', 'moderator', 'admin']));
 
     const approvedSwaps = db
@@ -89,7 +93,7 @@ describe('demo seed', () => {
     expect(shop.slug).toBe('ridgeway-performance');
   });
 
-  it("points every swap at its latest approved revision, or at none when nothing is approved yet", () => {
+  it('points every swap at its latest approved revision, or at none when nothing is approved yet', () => {
     const swaps = db.select().from(t.swaps).all();
     for (const swap of swaps) {
       const revs = db.select().from(t.revisions).where(eq(t.revisions.swapId, swap.id)).all();
@@ -128,7 +132,13 @@ describe('demo seed', () => {
   });
 
   it('stores revision data that parses with the swap schema and refers to real catalogue parts', () => {
-    const partIds = new Set(db.select({ id: t.parts.id }).from(t.parts).all().map((p) => p.id));
+    const partIds = new Set(
+      db
+        .select({ id: t.parts.id })
+        .from(t.parts)
+        .all()
+        .map((p) => p.id),
+    );
     const revs = db.select().from(t.revisions).all();
     expect(revs.length).toBeGreaterThan(0);
     for (const rev of revs) {
@@ -136,7 +146,11 @@ describe('demo seed', () => {
       expect(parsed.success, `revision ${rev.id}: ${parsed.error?.message}`).toBe(true);
       for (const line of rev.data.parts) if (line.partId !== undefined) expect(partIds.has(line.partId)).toBe(true);
     }
-    const flagship = revs.find((r) => r.data.title.startsWith('Orsino Vela four-piston front calipers and 330 mm rotors on the Halden H31') && r.status === 'approved')!;
+    const flagship = revs.find(
+      (r) =>
+        r.data.title.startsWith('Orsino Vela four-piston front calipers and 330 mm rotors on the Halden H31') &&
+        r.status === 'approved',
+    )!;
     const vela = db.select().from(t.parts).where(eq(t.parts.slug, 'orsino-vela-front-caliper-left')).get()!;
     const line = flagship.data.parts.find((p) => p.partId === vela.id)!;
     expect(line.partNumbers).toEqual(['OV-355-104-L']);
@@ -189,7 +203,13 @@ describe('demo seed', () => {
     expect(result.seeded).toBe(true);
     expect(result.counts).toEqual(firstCounts);
     expect(db.select({ n: count() }).from(t.mailOutbox).get()!.n).toBe(0);
-    expect(db.select().from(t.swaps).all().some((s) => s.fittedCount === 99)).toBe(false);
+    expect(
+      db
+        .select()
+        .from(t.swaps)
+        .all()
+        .some((s) => s.fittedCount === 99),
+    ).toBe(false);
     expect(db.select({ id: t.users.id }).from(t.users).orderBy(t.users.id).get()!.id).toBe(1);
 
     const files = await storage.list();
@@ -199,8 +219,16 @@ describe('demo seed', () => {
   });
 
   it.each([
-    ['a part line with quantity 0', (s: string) => s.replace('role: "Front caliper, left", quantity: 1', 'role: "Front caliper, left", quantity: 0'), /quantity/],
-    ['an unknown catalogue part', (s: string) => s.replace('part: "orsino-vela-front-rotor-330"', 'part: "no-such-rotor"'), /no-such-rotor/],
+    [
+      'a part line with quantity 0',
+      (s: string) => s.replace('role: "Front caliper, left", quantity: 1', 'role: "Front caliper, left", quantity: 0'),
+      /quantity/,
+    ],
+    [
+      'an unknown catalogue part',
+      (s: string) => s.replace('part: "orsino-vela-front-rotor-330"', 'part: "no-such-rotor"'),
+      /no-such-rotor/,
+    ],
     ['a misspelt key', (s: string) => s.replace('installHours: 6', 'instalHours: 6'), /instalHours/],
   ])('when a swap file has %s, then it fails with the file name and changes nothing', async (_name, breakIt, reason) => {
     const broken = fs.mkdtempSync(path.join(os.tmpdir(), 'swapyard-content-'));

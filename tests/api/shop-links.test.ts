@@ -39,7 +39,12 @@ beforeAll(async () => {
   addUser(t.db, 'ada_admin', 'admin');
   addUser(t.db, 'gauge_mo', 'moderator');
   const h31 = addChassis(t.db);
-  swap = addSwap(t.db, { slug: 'h31-front-vela', chassisId: h31.id, authorId, revisions: [{ status: 'approved', data: rev1, body: 'Bleed twice.' }] });
+  swap = addSwap(t.db, {
+    slug: 'h31-front-vela',
+    chassisId: h31.id,
+    authorId,
+    revisions: [{ status: 'approved', data: rev1, body: 'Bleed twice.' }],
+  });
   addSwap(t.db, { slug: 'h31-pending', chassisId: h31.id, authorId, revisions: [{ status: 'in_review' }] });
 });
 afterAll(() => {
@@ -54,12 +59,21 @@ async function makeLink(login = 'ridgeway_shop', note = 'Our **fixed price** cov
 
 describe('making shop links', () => {
   it('when a shop user makes a link, then it gets a short code pinned to the current revision, with the note kept as markdown minus HTML', async () => {
-    const res = await makeLink('ridgeway_shop', 'Our **fixed price** <img src=x onerror=alert(1)>covers <script>steal()</script>spacers.');
+    const res = await makeLink(
+      'ridgeway_shop',
+      'Our **fixed price** <img src=x onerror=alert(1)>covers <script>steal()</script>spacers.',
+    );
     expect(res.status).toBe(201);
     const link = res.body.link as ShopLinkItem;
     expect(link.code).toMatch(/^[a-z2-9]{7}$/);
     expect(link.url).toBe(`${t.config.appUrl}/l/${link.code}`);
-    expect(link).toMatchObject({ revision: { number: 1 }, swap: { slug: 'h31-front-vela', title: rev1.title }, visits: 0, newerRevision: null, retiredAt: null });
+    expect(link).toMatchObject({
+      revision: { number: 1 },
+      swap: { slug: 'h31-front-vela', title: rev1.title },
+      visits: 0,
+      newerRevision: null,
+      retiredAt: null,
+    });
     expect(link.note).toBe('Our **fixed price** covers spacers.');
     const again = await makeLink();
     expect(again.body.link.code).not.toBe(link.code);
@@ -89,19 +103,28 @@ describe('editing and listing a shop’s links', () => {
   it('when another shop edits or retires Ridgeway’s link, then it is 403 and the link is unchanged; Ridgeway may', async () => {
     const code = (await makeLink()).body.link.code as string;
     const lathe = await as('lathe_shop');
-    expect((await lathe.a.patch(`/api/shop-links/${code}`).set('x-csrf-token', lathe.token).send({ note: 'Hijacked' })).status).toBe(403);
+    expect(
+      (await lathe.a.patch(`/api/shop-links/${code}`).set('x-csrf-token', lathe.token).send({ note: 'Hijacked' })).status,
+    ).toBe(403);
     expect((await lathe.a.post(`/api/shop-links/${code}/retire`).set('x-csrf-token', lathe.token)).status).toBe(403);
     const admin = await as('ada_admin');
-    expect((await admin.a.patch(`/api/shop-links/${code}`).set('x-csrf-token', admin.token).send({ note: 'Admin edit' })).status).toBe(403);
+    expect(
+      (await admin.a.patch(`/api/shop-links/${code}`).set('x-csrf-token', admin.token).send({ note: 'Admin edit' })).status,
+    ).toBe(403);
     const row = t.db.select().from(shopLinks).where(eq(shopLinks.code, code)).get()!;
     expect(row.note).toBe('Our **fixed price** covers spacers and bolts.');
     expect(row.retiredAt).toBeNull();
 
     const ridgeway = await as('ridgeway_shop');
-    const edit = await ridgeway.a.patch(`/api/shop-links/${code}`).set('x-csrf-token', ridgeway.token).send({ note: 'Price now includes *bed-in*.' });
+    const edit = await ridgeway.a
+      .patch(`/api/shop-links/${code}`)
+      .set('x-csrf-token', ridgeway.token)
+      .send({ note: 'Price now includes *bed-in*.' });
     expect(edit.status).toBe(200);
     expect(edit.body.link.note).toBe('Price now includes *bed-in*.');
-    expect((await ridgeway.a.patch('/api/shop-links/nosuchcode').set('x-csrf-token', ridgeway.token).send({ note: 'x' })).status).toBe(404);
+    expect(
+      (await ridgeway.a.patch('/api/shop-links/nosuchcode').set('x-csrf-token', ridgeway.token).send({ note: 'x' })).status,
+    ).toBe(404);
   });
 
   it('when each shop lists its links, then it sees only its own; an admin sees every shop’s but cannot manage them', async () => {
@@ -138,7 +161,13 @@ describe('following a shop link', () => {
 
   it('when revision 2 is approved later, then the link still shows revision 1, says a newer one exists and what changed, on the page and in the list', async () => {
     const code = (await makeLink('ridgeway_shop', 'Quoted on revision 1')).body.link.code as string;
-    approveNewRevision(t.db, swap.swapId, { ...rev1, installHours: 8, torque: [{ fastener: 'Caliper bracket bolts', nm: 95, notes: '' }] }, authorId, 'Bleed twice. Re-torque after 50 km.');
+    approveNewRevision(
+      t.db,
+      swap.swapId,
+      { ...rev1, installHours: 8, torque: [{ fastener: 'Caliper bracket bolts', nm: 95, notes: '' }] },
+      authorId,
+      'Bleed twice. Re-torque after 50 km.',
+    );
 
     expect((await request(server).get(`/l/${code}`)).headers.location).toBe(`/swaps/h31-front-vela/r/1?via=${code}`);
     const pinned = (await request(server).get(`/api/l/${code}`)).body as PinnedSheetView;
@@ -150,7 +179,9 @@ describe('following a shop link', () => {
     expect(pinned.shop.name).toBe('Ridgeway Performance');
     expect(pinned.newerRevision).toEqual({ number: 2, summary: 'Changed: torque specs, install time, write-up.' });
 
-    const item = ((await (await as('ridgeway_shop')).a.get('/api/shop-links')).body as ShopLinkList).items.find((l) => l.code === code)!;
+    const item = ((await (await as('ridgeway_shop')).a.get('/api/shop-links')).body as ShopLinkList).items.find(
+      (l) => l.code === code,
+    )!;
     expect(item.revision.number).toBe(1);
     expect(item.newerRevision).toEqual({ number: 2, summary: 'Changed: torque specs, install time, write-up.' });
     // a link made now pins revision 2 and has no notice
@@ -196,11 +227,14 @@ describe('QR codes and the shop page', () => {
     expect(pngRes.headers['content-type']).toBe('image/png');
     expect(pngRes.headers['content-disposition']).toBe(`attachment; filename="swapyard-link-${code}.png"`);
     expect((pngRes.body as Buffer).subarray(0, 8)).toEqual(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]));
-    const svgRes = await request(server).get(`/api/shop-links/${code}/qr.svg`).buffer(true).parse((res, cb) => {
-      let text = '';
-      res.on('data', (c: Buffer) => (text += c.toString()));
-      res.on('end', () => cb(null, text));
-    });
+    const svgRes = await request(server)
+      .get(`/api/shop-links/${code}/qr.svg`)
+      .buffer(true)
+      .parse((res, cb) => {
+        let text = '';
+        res.on('data', (c: Buffer) => (text += c.toString()));
+        res.on('end', () => cb(null, text));
+      });
     expect(svgRes.status).toBe(200);
     expect(svgRes.headers['content-type']).toMatch(/^image\/svg\+xml/);
     expect(svgRes.body as string).toMatch(/^<svg[^>]+viewBox/);
@@ -212,15 +246,25 @@ describe('QR codes and the shop page', () => {
     expect(page.shop.name).toBe('Ridgeway Performance');
     expect(page.swaps.map((s) => s.slug)).toEqual(['h31-front-vela']);
     expect(page.canEdit).toBe(false);
-    expect(((await (await as('ridgeway_shop')).a.get('/api/shops/ridgeway-performance')).body as ShopPageView).canEdit).toBe(true);
+    expect(((await (await as('ridgeway_shop')).a.get('/api/shops/ridgeway-performance')).body as ShopPageView).canEdit).toBe(
+      true,
+    );
 
     const lathe = await as('lathe_shop');
-    expect((await lathe.a.patch('/api/shops/ridgeway-performance').set('x-csrf-token', lathe.token).send({ about: 'Closed' })).status).toBe(403);
+    expect(
+      (await lathe.a.patch('/api/shops/ridgeway-performance').set('x-csrf-token', lathe.token).send({ about: 'Closed' })).status,
+    ).toBe(403);
     const own = await as('ridgeway_shop');
-    const bad = await own.a.patch('/api/shops/ridgeway-performance').set('x-csrf-token', own.token).send({ website: 'javascript:alert(1)' });
+    const bad = await own.a
+      .patch('/api/shops/ridgeway-performance')
+      .set('x-csrf-token', own.token)
+      .send({ website: 'javascript:alert(1)' });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields.website).toMatch(/http/);
-    const ok = await own.a.patch('/api/shops/ridgeway-performance').set('x-csrf-token', own.token).send({ town: 'Ashcombe Vale', about: 'Brakes <b>and</b> suspension.' });
+    const ok = await own.a
+      .patch('/api/shops/ridgeway-performance')
+      .set('x-csrf-token', own.token)
+      .send({ town: 'Ashcombe Vale', about: 'Brakes <b>and</b> suspension.' });
     expect(ok.status).toBe(200);
     expect(ok.body.shop).toMatchObject({ town: 'Ashcombe Vale', about: 'Brakes and suspension.', name: 'Ridgeway Performance' });
     expect((await request(server).get('/api/shops/no-such-shop')).status).toBe(404);

@@ -14,7 +14,12 @@ beforeAll(async () => {
   t = await makeTestApp();
   authorId = addUser(t.db, 'rivet_rosa').id;
   const c = addChassis(t.db);
-  swapId = addSwap(t.db, { slug: 'h31-vela-front', chassisId: c.id, authorId, revisions: [{ status: 'approved', data: swapData('Vela calipers on the H31, first write-up') }] }).swapId;
+  swapId = addSwap(t.db, {
+    slug: 'h31-vela-front',
+    chassisId: c.id,
+    authorId,
+    revisions: [{ status: 'approved', data: swapData('Vela calipers on the H31, first write-up') }],
+  }).swapId;
   addSwap(t.db, { slug: 'h31-only-draft', chassisId: c.id, authorId, revisions: [{ status: 'draft' }] });
 });
 afterAll(() => t.close());
@@ -66,7 +71,11 @@ describe('GET /api/swaps/:slug', () => {
     expect(old.body.revision.status).toBe('superseded');
     expect(old.body.currentNumber).toBe(2);
 
-    t.db.update(users).set({ name: 'Rosa R.', updatedAt: new Date(Date.now() + 1000) }).where(eq(users.id, authorId)).run();
+    t.db
+      .update(users)
+      .set({ name: 'Rosa R.', updatedAt: new Date(Date.now() + 1000) })
+      .where(eq(users.id, authorId))
+      .run();
     const renamed = await request(t.app).get('/api/swaps/h31-vela-front');
     expect(renamed.body.swap.author.name).toBe('Rosa R.');
 

@@ -19,7 +19,9 @@ beforeAll(async () => {
   contexts.anonymous = await watchedContext(browser);
   for (const login of ['rivet_rosa', 'gauge_mo']) contexts[login] = (await signInContext(browser, server.url, login)).context;
   const mo = contexts.gauge_mo!;
-  const queue = (await (await mo.request.get(`${server.url}/api/review/queue`)).json()) as { items: { revisionId: number; status: string }[] };
+  const queue = (await (await mo.request.get(`${server.url}/api/review/queue`)).json()) as {
+    items: { revisionId: number; status: string }[];
+  };
   reviewId = queue.items.find((i) => i.status === 'in_review')?.revisionId ?? 0;
 });
 afterAll(async () => {
@@ -55,11 +57,15 @@ describe('accessibility (axe-core)', () => {
       console.log(
         `axe: ${p.name}: ${Object.entries(byImpact)
           .map(([k, n]) => `${k} ${n}`)
-          .join(', ')} (${result.passes.length} rules passed${result.violations.length ? `; failed: ${result.violations.map((v) => `${v.id} [${v.impact}]`).join(', ')}` : ''})`,
+          .join(
+            ', ',
+          )} (${result.passes.length} rules passed${result.violations.length ? `; failed: ${result.violations.map((v) => `${v.id} [${v.impact}]`).join(', ')}` : ''})`,
       );
       // the design asks for no serious or critical findings; the pages are clean of the lesser ones too, so keep them so
-      const bad = result.violations
-        .map((v) => `${v.impact} ${v.id}: ${v.help}\n${v.nodes.map((n) => `  ${n.target.join(' ')} ${n.html.slice(0, 120)} — ${n.failureSummary?.split('\n').slice(1).join(' ')}`).join('\n')}`);
+      const bad = result.violations.map(
+        (v) =>
+          `${v.impact} ${v.id}: ${v.help}\n${v.nodes.map((n) => `  ${n.target.join(' ')} ${n.html.slice(0, 120)} — ${n.failureSummary?.split('\n').slice(1).join(' ')}`).join('\n')}`,
+      );
       if (bad.length) console.log(`axe: ${p.name}:\n${bad.join('\n')}`);
       expect(bad).toEqual([]);
       await page.close();

@@ -130,9 +130,9 @@ describe('calculators page', () => {
 
     // A pad taller than the rotor radius is refused at that field.
     await field(brakes.getByRole('group', { name: 'Swapped front' }), 'Pad height').fill('170');
-    await expect.poll(() => brakes.getByRole('group', { name: 'Swapped front' }).getByRole('alert').innerText()).toContain(
-      'less than the rotor radius',
-    );
+    await expect
+      .poll(() => brakes.getByRole('group', { name: 'Swapped front' }).getByRole('alert').innerText())
+      .toContain('less than the rotor radius');
     expect(await brakes.locator('[data-attention]').count()).toBe(0);
     expect(await brakes.getByRole('note', { name: 'Safety caution' }).count()).toBe(1);
     expect(errors).toEqual([]);

@@ -16,7 +16,8 @@ beforeAll(async () => {
   server = await startServer({ SEED_DEMO: 'auto' });
   browser = await launchBrowser();
   contexts.anonymous = await watchedContext(browser);
-  for (const login of ['rivet_rosa', 'gauge_mo', 'ada_admin', 'ridgeway_shop']) contexts[login] = (await signInContext(browser, server.url, login)).context;
+  for (const login of ['rivet_rosa', 'gauge_mo', 'ada_admin', 'ridgeway_shop'])
+    contexts[login] = (await signInContext(browser, server.url, login)).context;
 });
 afterAll(async () => {
   for (const c of Object.values(contexts)) await c.close();

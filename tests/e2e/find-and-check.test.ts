@@ -50,7 +50,10 @@ describe('find what fits', () => {
     expect(await page.inputValue('#search-q')).toBe('halden h3l');
     await expect.poll(() => results.first().textContent(), { timeout: 10_000 }).toContain('Halden H31');
 
-    await page.getByRole('button', { name: /^Front/ }).first().click();
+    await page
+      .getByRole('button', { name: /^Front/ })
+      .first()
+      .click();
     await expect.poll(() => new URL(page.url()).searchParams.get('axle')).toBe('front');
     const flagship = page.getByRole('link', { name: /Vela four-piston front calipers and 330 mm rotors on the Halden H31/ });
     await flagship.first().click();
@@ -63,7 +66,9 @@ describe('find what fits', () => {
     await panel.getByLabel('Spacer (mm)').fill('10');
     const radial = panel.locator('[data-verdict]', { hasText: /^Caliper to barrel/ });
     await expect.poll(() => radial.getAttribute('data-verdict')).toBe('fail');
-    await expect.poll(() => panel.locator('[data-verdict]', { hasText: /^Wheel diameter/ }).getAttribute('data-verdict')).toBe('fail');
+    await expect
+      .poll(() => panel.locator('[data-verdict]', { hasText: /^Wheel diameter/ }).getAttribute('data-verdict'))
+      .toBe('fail');
 
     await panel.getByLabel('Diameter (in)').fill('16');
     await panel.getByLabel('Width (in)').fill('7');

@@ -122,13 +122,27 @@ function swapInput(tag: string, chassisId: number, literalTitle?: string) {
         hardwareIncluded: [],
         notes: `${tag} adapter: ${joined('adapter notes', 2, ' ')}`,
       },
-      rotors: [{ diameterMm: 300, thicknessMm: 24, vented: true, partNumber: `R${one('rotor part number', short)}`, notes: `${tag} rotor ${one('rotor notes')}` }],
-      torque: [0, 1, 2].map((k) => ({ fastener: `${tag} fastener ${k} ${one('torque fastener')}`, nm: 80 + k, notes: `${tag} torque ${one('torque notes')}` })),
+      rotors: [
+        {
+          diameterMm: 300,
+          thicknessMm: 24,
+          vented: true,
+          partNumber: `R${one('rotor part number', short)}`,
+          notes: `${tag} rotor ${one('rotor notes')}`,
+        },
+      ],
+      torque: [0, 1, 2].map((k) => ({
+        fastener: `${tag} fastener ${k} ${one('torque fastener')}`,
+        nm: 80 + k,
+        notes: `${tag} torque ${one('torque notes')}`,
+      })),
       wheel: {
         minDiameterIn: 16,
         caliperRadialProjectionMm: 12,
         caliperOutboardMm: 30,
-        testedWheels: [{ diameterIn: 16, widthIn: 7, offsetMm: 35, spacerMm: 0, note: `${tag} wheel ${one('tested wheel note')}` }],
+        testedWheels: [
+          { diameterIn: 16, widthIn: 7, offsetMm: 35, spacerMm: 0, note: `${tag} wheel ${one('tested wheel note')}` },
+        ],
         notes: `${tag} wheel notes ${one('wheel notes')}`,
       },
     },
@@ -146,10 +160,12 @@ function injectedMarkup(): string[] {
       // eslint-disable-next-line no-control-regex -- browsers drop these inside a URL scheme
       const value = a.value.toLowerCase().replace(/[\s\u0000-\u001f]+/g, '');
       if (name.startsWith('on')) found.push(`<${tag} ${name}>`);
-      if (urlAttrs.includes(name) && /^(javascript|vbscript):|^data:text\/html/.test(value)) found.push(`<${tag} ${name}="${a.value}">`);
+      if (urlAttrs.includes(name) && /^(javascript|vbscript):|^data:text\/html/.test(value))
+        found.push(`<${tag} ${name}="${a.value}">`);
       if (name === 'style' && /javascript:|expression\(/.test(value)) found.push(`<${tag} style="${a.value}">`);
     }
-    if (tag === 'script' && !(el as HTMLScriptElement).src.startsWith(`${location.origin}/assets/`)) found.push(`<script> ${el.textContent?.slice(0, 60)}`);
+    if (tag === 'script' && !(el as HTMLScriptElement).src.startsWith(`${location.origin}/assets/`))
+      found.push(`<script> ${el.textContent?.slice(0, 60)}`);
     if (['object', 'embed', 'base', 'marquee', 'math', 'mglyph', 'template', 'noscript'].includes(tag)) found.push(`<${tag}>`);
     if (tag === 'meta' && el.hasAttribute('http-equiv')) found.push('<meta http-equiv>');
     if (tag === 'iframe' && !el.hasAttribute('sandbox')) found.push('<iframe> without sandbox');
@@ -170,7 +186,10 @@ async function checkPage(context: BrowserContext, check: PageCheck, extra?: (pag
   await page.waitForLoadState('networkidle');
   const body = page.locator('body');
   // the page has rendered what it is about before anything is judged
-  if (check.texts.length) await expect.poll(async () => squash((await body.textContent()) ?? ''), { timeout: 15_000 }).toContain(squash(check.texts[0]!));
+  if (check.texts.length)
+    await expect
+      .poll(async () => squash((await body.textContent()) ?? ''), { timeout: 15_000 })
+      .toContain(squash(check.texts[0]!));
   else await page.locator('main h1').first().waitFor();
   if (extra) await extra(page);
   await page.waitForTimeout(300);
@@ -181,7 +200,9 @@ async function checkPage(context: BrowserContext, check: PageCheck, extra?: (pag
     const frames: string[] = [];
     for (const frame of page.frames()) {
       try {
-        frames.push(...(await frame.evaluate(injectedMarkup)).map((m) => `${frame === page.mainFrame() ? 'page' : 'frame'}: ${m}`));
+        frames.push(
+          ...(await frame.evaluate(injectedMarkup)).map((m) => `${frame === page.mainFrame() ? 'page' : 'frame'}: ${m}`),
+        );
       } catch (err) {
         frames.push(`could not inspect a frame: ${(err as Error).message}`);
       }
@@ -219,7 +240,13 @@ describe('hostile input in a real browser', () => {
     for (const login of ['rivet_rosa', 'camber_kai', 'pistonpaul', 'gauge_mo', 'ridgeway_shop']) {
       people[login] = await signInContext(browser, server.url, login);
     }
-    const { rivet_rosa: rosa, camber_kai: kai, pistonpaul: paul, gauge_mo: mo, ridgeway_shop: shop } = people as Record<string, SignedIn>;
+    const {
+      rivet_rosa: rosa,
+      camber_kai: kai,
+      pistonpaul: paul,
+      gauge_mo: mo,
+      ridgeway_shop: shop,
+    } = people as Record<string, SignedIn>;
 
     // profile names, shown as authors, reporters and fitted-report members
     for (const who of [rosa, kai, paul]) {
@@ -233,10 +260,13 @@ describe('hostile input in a real browser', () => {
     const h31 = chassis.items.find((x) => x.slug === 'halden-h31')!;
     expect(h31).toBeDefined();
 
-    const create = async (who: SignedIn, input: ReturnType<typeof swapInput>) => (await who.api.send('POST', '/api/submissions', input)) as SwapView;
+    const create = async (who: SignedIn, input: ReturnType<typeof swapInput>) =>
+      (await who.api.send('POST', '/api/submissions', input)) as SwapView;
     const withPhotos = async (who: SignedIn, view: SwapView) => {
       for (const shade of [40, 200]) {
-        await who.api.send('POST', `/api/submissions/${view.id}/photos`, undefined, { photos: { name: `fitted-${shade}.png`, mimeType: 'image/png', buffer: await png(shade) } });
+        await who.api.send('POST', `/api/submissions/${view.id}/photos`, undefined, {
+          photos: { name: `fitted-${shade}.png`, mimeType: 'image/png', buffer: await png(shade) },
+        });
       }
       const current = (await who.api.get(`/api/submissions/${view.id}`)) as SwapView;
       expect(current.photos).toHaveLength(2);
@@ -271,7 +301,11 @@ describe('hostile input in a real browser', () => {
     await kai.api.send('POST', `/api/submissions/${b.id}/submit`);
     c = await create(rosa, swapInput('Charlie', h31.id));
     await rosa.api.send('POST', `/api/submissions/${c.id}/submit`);
-    c = ((await mo.api.send('POST', `/api/review/${c.id}/send-back`, { note: `Missing: ${joined('review note', 2)}` })) as { revision: SwapView }).revision;
+    c = (
+      (await mo.api.send('POST', `/api/review/${c.id}/send-back`, { note: `Missing: ${joined('review note', 2)}` })) as {
+        revision: SwapView;
+      }
+    ).revision;
     decisionNotes.push(c.reviewNote!);
 
     // fitted reports and flags on the public swap
@@ -284,14 +318,21 @@ describe('hostile input in a real browser', () => {
         note: `Fitted: ${joined('fitted-report note', 3)}`,
       })) as { mine: { note: string } };
       fitted.push(view.mine.note);
-      const flag = (await who.api.send('POST', `/api/swaps/${a.swapSlug}/flags`, { reason: `Wrong: ${joined('flag reason', 3)}` })) as { reason: string };
+      const flag = (await who.api.send('POST', `/api/swaps/${a.swapSlug}/flags`, {
+        reason: `Wrong: ${joined('flag reason', 3)}`,
+      })) as { reason: string };
       flags.push(flag.reason);
     }
 
     // the shop's link note and about text
-    const link = (await shop.api.send('POST', '/api/shop-links', { swapSlug: a.swapSlug, note: `Our quote: ${joined('shop-link note', 4, '\n\n')}` })) as { link: { code: string } };
+    const link = (await shop.api.send('POST', '/api/shop-links', {
+      swapSlug: a.swapSlug,
+      note: `Our quote: ${joined('shop-link note', 4, '\n\n')}`,
+    })) as { link: { code: string } };
     linkCode = link.link.code;
-    await shop.api.send('PATCH', '/api/shops/ridgeway-performance', { about: `We fit brakes.\n\n${joined('shop about', 4, '\n\n')}` });
+    await shop.api.send('PATCH', '/api/shops/ridgeway-performance', {
+      about: `We fit brakes.\n\n${joined('shop about', 4, '\n\n')}`,
+    });
 
     // car nicknames
     for (let k = 0; k < 3; k++) {
@@ -311,7 +352,9 @@ describe('hostile input in a real browser', () => {
     expect(missing, 'payloads that went through no field').toEqual([]);
     for (const [field, set] of usedIn) expect(set.size, `payloads through ${field}`).toBeGreaterThanOrEqual(2);
     const pairs = [...usedIn.values()].reduce((n, s) => n + s.size, 0);
-    console.log(`hostile input: ${xssPayloads.length} payloads through ${usedIn.size} fields, ${pairs} payload-field pairs written`);
+    console.log(
+      `hostile input: ${xssPayloads.length} payloads through ${usedIn.size} fields, ${pairs} payload-field pairs written`,
+    );
     console.log(`hostile input: per field ${[...usedIn].map(([f, set]) => `${f} ${set.size}`).join(', ')}`);
   });
 
@@ -333,22 +376,42 @@ describe('hostile input in a real browser', () => {
 
   it('when the moderator opens the review desk and review pages, then nothing runs', async () => {
     const { context } = people.gauge_mo!;
-    const desk = await checkPage(context, { name: 'review desk', url: '/review', texts: [b.data.title, names.camber_kai!, ...flags, names.pistonpaul!] });
+    const desk = await checkPage(context, {
+      name: 'review desk',
+      url: '/review',
+      texts: [b.data.title, names.camber_kai!, ...flags, names.pistonpaul!],
+    });
     await desk.page.close();
     const review = await checkPage(context, { name: 'review page (in review)', url: `/review/${b.id}`, texts: sheetTexts(b) });
     await review.page.close();
-    const history = await checkPage(context, { name: 'review page (approved, with history)', url: `/review/${a.id}`, texts: [a.data.title, ...decisionNotes.slice(0, 2)] });
+    const history = await checkPage(context, {
+      name: 'review page (approved, with history)',
+      url: `/review/${a.id}`,
+      texts: [a.data.title, ...decisionNotes.slice(0, 2)],
+    });
     await history.page.close();
   });
 
   it('when the shop page and a pinned sheet are opened, then nothing runs', async () => {
     const context = await watchedContext(browser);
-    const shopPage = await checkPage(context, { name: 'shop page', url: '/shops/ridgeway-performance', texts: ['We fit brakes.', a.data.title] });
+    const shopPage = await checkPage(context, {
+      name: 'shop page',
+      url: '/shops/ridgeway-performance',
+      texts: ['We fit brakes.', a.data.title],
+    });
     await shopPage.page.close();
-    const pinned = await checkPage(context, { name: 'pinned sheet via /l/', url: `/l/${linkCode}`, texts: ['Our quote:', ...sheetTexts(a)] });
+    const pinned = await checkPage(context, {
+      name: 'pinned sheet via /l/',
+      url: `/l/${linkCode}`,
+      texts: ['Our quote:', ...sheetTexts(a)],
+    });
     expect(new URL(pinned.page.url()).pathname).toBe(`/swaps/${a.swapSlug}/r/${a.number}`);
     await pinned.page.close();
-    const found = await checkPage(context, { name: 'search results', url: `/search?q=${encodeURIComponent('Vela calipers')}`, texts: [a.data.title] });
+    const found = await checkPage(context, {
+      name: 'search results',
+      url: `/search?q=${encodeURIComponent('Vela calipers')}`,
+      texts: [a.data.title],
+    });
     await found.page.close();
     await context.close();
   });
@@ -357,7 +420,11 @@ describe('hostile input in a real browser', () => {
     const { context } = people.gauge_mo!;
     // the messages quote a note line by line
     const noteLines = decisionNotes.flatMap((n) => n.split('\n')).filter((l) => l.trim() !== '');
-    const { page, assertClean } = await checkPage(context, { name: 'outbox', url: '/outbox', texts: [a.data.title, c.data.title, ...noteLines] });
+    const { page, assertClean } = await checkPage(context, {
+      name: 'outbox',
+      url: '/outbox',
+      texts: [a.data.title, c.data.title, ...noteLines],
+    });
     const summaries = page.locator('details > summary');
     const count = await summaries.count();
     expect(count).toBeGreaterThan(0);
@@ -371,9 +438,17 @@ describe('hostile input in a real browser', () => {
     const { context } = people.rivet_rosa!;
     const myCars = await checkPage(context, { name: 'my cars', url: '/me/cars', texts: cars });
     await myCars.page.close();
-    const mine = await checkPage(context, { name: 'my submissions', url: '/me/submissions', texts: [a.data.title, c.data.title, c.reviewNote!] });
+    const mine = await checkPage(context, {
+      name: 'my submissions',
+      url: '/me/submissions',
+      texts: [a.data.title, c.data.title, c.reviewNote!],
+    });
     await mine.page.close();
-    const form = await checkPage(context, { name: 'sent-back submission form', url: `/submissions/${c.id}/edit`, texts: [c.reviewNote!] });
+    const form = await checkPage(context, {
+      name: 'sent-back submission form',
+      url: `/submissions/${c.id}/edit`,
+      texts: [c.reviewNote!],
+    });
     await form.page.close();
     console.log(`hostile input: ${checked.length} page states checked: ${checked.join('; ')}`);
     for (const who of Object.values(people)) await who.context.close();

@@ -42,17 +42,25 @@ describe('shop links and my cars in the browser', () => {
     const { page, errors } = await signedInPage('ridgeway_shop', `/swaps/${sheetSlug}`);
     const panel = page.locator('#shop-link');
     await panel.getByRole('heading', { name: 'Make a shop link' }).waitFor();
-    await panel.getByRole('textbox', { name: 'Note to the customer' }).fill('Fixed price **includes** the 10 mm spacers. <script>bad()</script>Ask for Jo.');
+    await panel
+      .getByRole('textbox', { name: 'Note to the customer' })
+      .fill('Fixed price **includes** the 10 mm spacers. <script>bad()</script>Ask for Jo.');
     await panel.getByRole('button', { name: 'Make link' }).click();
     const url = await panel.getByTestId('shop-link-url').innerText();
     expect(url).toMatch(new RegExp(`^${server.url}/l/[a-z2-9]{7}$`));
     code = url.split('/l/')[1]!;
 
-    const [png] = await Promise.all([page.waitForEvent('download'), panel.getByRole('link', { name: 'Download QR (PNG)' }).click()]);
+    const [png] = await Promise.all([
+      page.waitForEvent('download'),
+      panel.getByRole('link', { name: 'Download QR (PNG)' }).click(),
+    ]);
     expect(png.suggestedFilename()).toBe(`swapyard-link-${code}.png`);
     const pngBytes = fs.readFileSync((await png.path())!);
     expect(pngBytes.subarray(0, 4)).toEqual(Buffer.from([0x89, 0x50, 0x4e, 0x47]));
-    const [svg] = await Promise.all([page.waitForEvent('download'), panel.getByRole('link', { name: 'Download QR (SVG)' }).click()]);
+    const [svg] = await Promise.all([
+      page.waitForEvent('download'),
+      panel.getByRole('link', { name: 'Download QR (SVG)' }).click(),
+    ]);
     expect(svg.suggestedFilename()).toBe(`swapyard-link-${code}.svg`);
     expect(fs.readFileSync((await svg.path())!, 'utf8')).toMatch(/^<svg/);
 
@@ -99,7 +107,10 @@ describe('shop links and my cars in the browser', () => {
     const { page, errors } = await signedInPage('rivet_rosa', '/me/cars');
     const form = page.getByRole('form', { name: 'Add a car' });
     await form.getByRole('combobox', { name: 'Chassis' }).fill('H31');
-    await form.getByRole('option', { name: /Halden H31/ }).first().click();
+    await form
+      .getByRole('option', { name: /Halden H31/ })
+      .first()
+      .click();
     await form.getByRole('textbox', { name: 'Nickname' }).fill('Track coupe');
     await form.getByRole('textbox', { name: /^Wheel diameter/ }).fill('17');
     await form.getByRole('textbox', { name: /^Wheel width/ }).fill('7.5');

@@ -117,9 +117,12 @@ describe('part-number normalisation (separators and case do not matter)', () => 
     expect(tokenize('Halden H31')).toEqual(['halden', 'h31']);
   });
 
-  it.each(['ov355104l', 'OV-355-104-L', 'ov-355', 'OV355', 'ov 355 104', 'Ov.355.104.L'])('"%s" finds the part OV-355-104-L', (q) => {
-    expect(slugs(q)[0]).toBe('vela-four-piston-calipers-on-the-front-axle');
-  });
+  it.each(['ov355104l', 'OV-355-104-L', 'ov-355', 'OV355', 'ov 355 104', 'Ov.355.104.L'])(
+    '"%s" finds the part OV-355-104-L',
+    (q) => {
+      expect(slugs(q)[0]).toBe('vela-four-piston-calipers-on-the-front-axle');
+    },
+  );
 
   it('does not treat a different part number as a match', () => {
     expect(slugs('OV-330-28')).toEqual(['big-rotor-conversion-with-machined-hubs']);
@@ -130,7 +133,10 @@ describe('part-number normalisation (separators and case do not matter)', () => 
 describe('ranking', () => {
   it('a chassis-code query ranks that chassis’s swaps above swaps that only mention it', () => {
     const found = slugs('H31');
-    expect(found.slice(0, 2).sort()).toEqual(['regent-rear-rotors-that-keep-the-drum-parking-brake', 'vela-four-piston-calipers-on-the-front-axle']);
+    expect(found.slice(0, 2).sort()).toEqual([
+      'regent-rear-rotors-that-keep-the-drum-parking-brake',
+      'vela-four-piston-calipers-on-the-front-axle',
+    ]);
     expect(found).toContain('early-saloon-calipers-on-the-successor');
     expect(found.indexOf('early-saloon-calipers-on-the-successor')).toBe(2);
   });
@@ -143,9 +149,14 @@ describe('ranking', () => {
 
   it('forgives a typo in a word and in a short chassis code', () => {
     expect(slugs('Haldan').length).toBeGreaterThan(0);
-    expect(slugs('Haldan').every((s) => index.docs.find((d) => d.slug === s)!.chassis.make === 'Halden' || s.includes('halden'))).toBe(true);
+    expect(
+      slugs('Haldan').every((s) => index.docs.find((d) => d.slug === s)!.chassis.make === 'Halden' || s.includes('halden')),
+    ).toBe(true);
     const codeTypo = slugs('halden h3l');
-    expect(codeTypo.slice(0, 2).sort()).toEqual(['regent-rear-rotors-that-keep-the-drum-parking-brake', 'vela-four-piston-calipers-on-the-front-axle']);
+    expect(codeTypo.slice(0, 2).sort()).toEqual([
+      'regent-rear-rotors-that-keep-the-drum-parking-brake',
+      'vela-four-piston-calipers-on-the-front-axle',
+    ]);
   });
 
   it('matches prefixes while typing', () => {

@@ -107,4 +107,3 @@ export const mailOutbox = sqliteTable('mail_outbox', {
   createdAt: timestamp('created_at').notNull(),
   sentAt: timestamp('sent_at'),
 });
-

@@ -27,7 +27,11 @@ export function adminRouter(deps: AdminDeps) {
     '/admin/users/:id',
     validated({ params: adminUserParamsSchema, body: adminUserPatchSchema }, ({ params, body }, req, res) => {
       const { user, changed, sessionsEnded } = updateUser(deps, { actorId: req.user!.id, userId: params.id, patch: body });
-      if (changed) req.log?.info({ event: 'user_changed', actorId: req.user!.id, userId: user.id, patch: body, sessionsEnded }, 'user changed by admin');
+      if (changed)
+        req.log?.info(
+          { event: 'user_changed', actorId: req.user!.id, userId: user.id, patch: body, sessionsEnded },
+          'user changed by admin',
+        );
       const out: AdminUserResponse = { user, sessionsEnded };
       res.json(out);
     }),

@@ -41,7 +41,10 @@ function toAdminUser(r: UserRow, viewerId: number | null): AdminUser {
     email: r.email,
     avatarUrl: r.avatarUrl,
     role: r.role,
-    shop: r.shopId !== null && r.shopSlug !== null && r.shopName !== null ? { id: r.shopId, slug: r.shopSlug, name: r.shopName } : null,
+    shop:
+      r.shopId !== null && r.shopSlug !== null && r.shopName !== null
+        ? { id: r.shopId, slug: r.shopSlug, name: r.shopName }
+        : null,
     suspended: r.suspendedAt !== null,
     lastSignInAt: r.lastSignInAt?.toISOString() ?? null,
     createdAt: r.createdAt.toISOString(),
@@ -59,9 +62,15 @@ export function listUsers(db: Db, q: string, viewerId: number | null = null): Ad
   const query = selectUsers(db);
   const pattern = `%${escapeLike(q.toLowerCase())}%`;
   const rows = q
-    ? query.where(or(sql`lower(${users.login}) like ${pattern} escape '\\'`, sql`lower(${users.name}) like ${pattern} escape '\\'`))
+    ? query.where(
+        or(sql`lower(${users.login}) like ${pattern} escape '\\'`, sql`lower(${users.name}) like ${pattern} escape '\\'`),
+      )
     : query;
-  return rows.orderBy(asc(users.login)).limit(listLimit).all().map((r) => toAdminUser(r, viewerId));
+  return rows
+    .orderBy(asc(users.login))
+    .limit(listLimit)
+    .all()
+    .map((r) => toAdminUser(r, viewerId));
 }
 
 export function getUser(db: Db, id: number, viewerId: number | null = null): AdminUser {
@@ -100,9 +109,15 @@ export function updateUser({ db, clock, endSessions }: AdminDeps, { actorId, use
     let shop: AdminShop | null = current.shop;
     if (patch.shopId !== undefined && patch.shopId !== null) {
       if (role !== 'shop') {
-        throw AppError.invalid('Only shop accounts are linked to a shop.', { shopId: 'Make this a shop account first, or leave the shop empty' });
+        throw AppError.invalid('Only shop accounts are linked to a shop.', {
+          shopId: 'Make this a shop account first, or leave the shop empty',
+        });
       }
-      const found = db.select({ id: shops.id, slug: shops.slug, name: shops.name }).from(shops).where(eq(shops.id, patch.shopId)).get();
+      const found = db
+        .select({ id: shops.id, slug: shops.slug, name: shops.name })
+        .from(shops)
+        .where(eq(shops.id, patch.shopId))
+        .get();
       if (!found) throw AppError.invalid('There is no such shop.', { shopId: 'Choose a shop from the list' });
       shop = found;
     } else if (patch.shopId === null || role !== 'shop') {
@@ -112,8 +127,10 @@ export function updateUser({ db, clock, endSessions }: AdminDeps, { actorId, use
 
     const changes: { field: UserChangeField; from: string | null; to: string | null }[] = [];
     if (role !== current.role) changes.push({ field: 'role', from: current.role, to: role });
-    if ((shop?.id ?? null) !== (current.shop?.id ?? null)) changes.push({ field: 'shop', from: current.shop?.slug ?? null, to: shop?.slug ?? null });
-    if (suspended !== current.suspended) changes.push({ field: 'suspended', from: String(current.suspended), to: String(suspended) });
+    if ((shop?.id ?? null) !== (current.shop?.id ?? null))
+      changes.push({ field: 'shop', from: current.shop?.slug ?? null, to: shop?.slug ?? null });
+    if (suspended !== current.suspended)
+      changes.push({ field: 'suspended', from: String(current.suspended), to: String(suspended) });
     if (changes.length === 0) return { changed: false, suspendedNow: false };
 
     db.update(users)
@@ -162,7 +179,11 @@ export function listChanges(db: Db, userId: number): UserChange[] {
 
 /** The shell's way to set a role (the first admin of a deployment): same rules and record, no actor. */
 export function setRoleByLogin(deps: AdminDeps, login: string, role: AdminUser['role']) {
-  const row = deps.db.select({ id: users.id }).from(users).where(eq(sql`lower(${users.login})`, login.toLowerCase())).get();
+  const row = deps.db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(sql`lower(${users.login})`, login.toLowerCase()))
+    .get();
   if (!row) throw AppError.notFound(`A user with the login "${login}"`);
   return updateUser(deps, { actorId: null, userId: row.id, patch: { role } });
 }

@@ -26,7 +26,8 @@ function carView(car: CarRow, c: ChassisRow): CarView {
 
 function knownChassis(db: Db, chassisId: number) {
   const row = db.select().from(chassis).where(eq(chassis.id, chassisId)).get();
-  if (!row || row.proposed) throw AppError.invalid('Pick a chassis from the catalogue.', { chassisId: 'That chassis is not in the catalogue' });
+  if (!row || row.proposed)
+    throw AppError.invalid('Pick a chassis from the catalogue.', { chassisId: 'That chassis is not in the catalogue' });
   return row;
 }
 

@@ -6,13 +6,22 @@ import type { ChassisPageView, PartPageView, ChassisView } from '../../../shared
 import { chassisView, swapCards } from '../swaps/swap-views';
 
 export function listChassis(db: Db): ChassisView[] {
-  return db.select().from(chassis).where(eq(chassis.proposed, false)).orderBy(chassis.make, chassis.model, chassis.yearFrom).all().map(chassisView);
+  return db
+    .select()
+    .from(chassis)
+    .where(eq(chassis.proposed, false))
+    .orderBy(chassis.make, chassis.model, chassis.yearFrom)
+    .all()
+    .map(chassisView);
 }
 
 export function getChassisPage(db: Db, slug: string): ChassisPageView {
   const row = db.select().from(chassis).where(eq(chassis.slug, slug)).get();
   if (!row) throw AppError.notFound('That chassis');
-  return { chassis: chassisView(row), swaps: swapCards(db, and(eq(swaps.chassisId, row.id), isNotNull(swaps.currentRevisionId))) };
+  return {
+    chassis: chassisView(row),
+    swaps: swapCards(db, and(eq(swaps.chassisId, row.id), isNotNull(swaps.currentRevisionId))),
+  };
 }
 
 export function getPartPage(db: Db, id: number): PartPageView {

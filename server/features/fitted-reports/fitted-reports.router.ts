@@ -57,7 +57,13 @@ export function fittedReportsRouter({ db, storage, clock }: AppDeps) {
     writeLimit,
     upload,
     validated({ params: slugParams, body: createFittedReportSchema }, async ({ params, body }, req, res) => {
-      const view = await createFittedReport(deps, params.slug, req.user!, body, req.file ? { buffer: req.file.buffer } : undefined);
+      const view = await createFittedReport(
+        deps,
+        params.slug,
+        req.user!,
+        body,
+        req.file ? { buffer: req.file.buffer } : undefined,
+      );
       res.status(201).json(view);
     }),
   );
@@ -90,7 +96,10 @@ export function fittedReportsRouter({ db, storage, clock }: AppDeps) {
       requirePermission('review'),
       validated({ params: z.object({ id: idParamSchema }) }, ({ params }, req, res) => {
         const result = setFittedReportHidden(deps, params.id, req.user!, hidden);
-        req.log?.info({ event: `fitted_report_${action}`, reportId: params.id, moderatorId: req.user!.id }, `fitted report ${action}`);
+        req.log?.info(
+          { event: `fitted_report_${action}`, reportId: params.id, moderatorId: req.user!.id },
+          `fitted report ${action}`,
+        );
         res.json(result);
       }),
     );

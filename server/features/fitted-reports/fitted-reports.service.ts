@@ -8,7 +8,12 @@ import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
 import type { SessionUser } from '../../middleware/require-role';
 import { can } from '../../../shared/roles';
-import type { CreateFittedReport, FittedReportView, FittedReportsView, UpdateFittedReport } from '../../../shared/schemas/fitted-reports';
+import type {
+  CreateFittedReport,
+  FittedReportView,
+  FittedReportsView,
+  UpdateFittedReport,
+} from '../../../shared/schemas/fitted-reports';
 import { processPhoto } from '../photos/photo-processing';
 import { thumbId } from '../photos/photo-files';
 import { personRef } from '../swaps/swap-views';
@@ -34,7 +39,10 @@ function followedRevision(db: Db, swap: typeof swaps.$inferSelect, number: numbe
           .from(revisions)
           .where(and(eq(revisions.swapId, swap.id), eq(revisions.number, number), inArray(revisions.status, [...publicStatuses])))
           .get();
-  if (!row) throw AppError.invalid('Pick a published revision of this swap.', { revisionNumber: `Revision ${number} is not a published revision of this swap` });
+  if (!row)
+    throw AppError.invalid('Pick a published revision of this swap.', {
+      revisionNumber: `Revision ${number} is not a published revision of this swap`,
+    });
   return row;
 }
 
@@ -52,7 +60,10 @@ function recount(db: Db, swapId: number) {
     .from(fittedReports)
     .where(and(eq(fittedReports.swapId, swapId), isNull(fittedReports.hiddenAt)))
     .get();
-  db.update(swaps).set({ fittedCount: row?.n ?? 0 }).where(eq(swaps.id, swapId)).run();
+  db.update(swaps)
+    .set({ fittedCount: row?.n ?? 0 })
+    .where(eq(swaps.id, swapId))
+    .run();
 }
 
 function photoOf(fileId: string | null): FittedReportView['photo'] {
@@ -119,7 +130,13 @@ export function listFittedReports(db: Db, slug: string, viewer: SessionUser | un
   };
 }
 
-export async function createFittedReport({ db, storage, clock }: Deps, slug: string, viewer: SessionUser, input: CreateFittedReport, upload: ReportPhotoUpload) {
+export async function createFittedReport(
+  { db, storage, clock }: Deps,
+  slug: string,
+  viewer: SessionUser,
+  input: CreateFittedReport,
+  upload: ReportPhotoUpload,
+) {
   const swap = approvedSwap(db, slug);
   const refusal = refusalFor(viewer, swap);
   if (refusal === 'author') throw AppError.forbidden('You wrote this swap; fitted reports come from other members.');
@@ -172,7 +189,13 @@ function myReport(db: Db, swapId: number, userId: number) {
   return row;
 }
 
-export async function updateFittedReport({ db, storage, clock }: Deps, slug: string, viewer: SessionUser, input: UpdateFittedReport, upload: ReportPhotoUpload) {
+export async function updateFittedReport(
+  { db, storage, clock }: Deps,
+  slug: string,
+  viewer: SessionUser,
+  input: UpdateFittedReport,
+  upload: ReportPhotoUpload,
+) {
   const swap = approvedSwap(db, slug);
   const report = myReport(db, swap.id, viewer.id);
   const revision = input.revisionNumber === undefined ? null : followedRevision(db, swap, input.revisionNumber);

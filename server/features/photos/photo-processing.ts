@@ -56,7 +56,13 @@ export async function processPhoto(input: Buffer, field = 'photos'): Promise<Pro
       .resize({ width: THUMB_EDGE_PX, height: THUMB_EDGE_PX, fit: 'inside', withoutEnlargement: true })
       .webp({ quality: 72 })
       .toBuffer();
-    return { full, thumb, width: info.width, height: info.height, sha256: crypto.createHash('sha256').update(full).digest('hex') };
+    return {
+      full,
+      thumb,
+      width: info.width,
+      height: info.height,
+      sha256: crypto.createHash('sha256').update(full).digest('hex'),
+    };
   } catch (err) {
     const message =
       err instanceof Error && /pixel limit/i.test(err.message) ? 'The image has too many pixels to process.' : unreadable;

@@ -62,7 +62,10 @@ export function reviewQueue(deps: ReviewDeps, filters: QueueFilters): ReviewQueu
     status: row.revision.status,
     number: row.revision.number,
     isCorrection: row.revision.number > 1,
-    chassis: { slug: row.chassis.slug, label: `${row.chassis.make} ${row.chassis.model}${row.chassis.code === row.chassis.model ? '' : ` (${row.chassis.code})`}` },
+    chassis: {
+      slug: row.chassis.slug,
+      label: `${row.chassis.make} ${row.chassis.model}${row.chassis.code === row.chassis.model ? '' : ` (${row.chassis.code})`}`,
+    },
     axle: row.swap.axle,
     failedChecks: checksFor(db, row, photos.get(row.revision.id) ?? 0).filter((c) => c.status === 'fail').length,
   }));

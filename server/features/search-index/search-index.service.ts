@@ -4,7 +4,6 @@ import type { Db } from '../../db/client';
 import { chassis, revisions, swaps } from '../../db/schema/index';
 import { toSearchDocument, type SearchDocument } from '../../../shared/search/search-document';
 
-
 const approvedCurrent = and(eq(revisions.id, swaps.currentRevisionId), eq(revisions.status, 'approved'));
 
 /** Every approved swap at its current revision, as search documents, oldest id first. */

@@ -81,7 +81,13 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
   router.get(
     '/shop-links/:code/qr.png',
     validated({ params: codeParams, query: qrQuery }, async ({ params, query }, _req, res) => {
-      const png = await QRCode.toBuffer(shopLinkUrl(db, appUrl, params.code), { type: 'png', width: 600, margin: 2, errorCorrectionLevel: 'M', color: qrColours });
+      const png = await QRCode.toBuffer(shopLinkUrl(db, appUrl, params.code), {
+        type: 'png',
+        width: 600,
+        margin: 2,
+        errorCorrectionLevel: 'M',
+        color: qrColours,
+      });
       res.set(qrHeaders('image/png', params.code, 'png', query.download === '1')).send(png);
     }),
   );
@@ -89,7 +95,12 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
   router.get(
     '/shop-links/:code/qr.svg',
     validated({ params: codeParams, query: qrQuery }, async ({ params, query }, _req, res) => {
-      const svg = await QRCode.toString(shopLinkUrl(db, appUrl, params.code), { type: 'svg', margin: 2, errorCorrectionLevel: 'M', color: qrColours });
+      const svg = await QRCode.toString(shopLinkUrl(db, appUrl, params.code), {
+        type: 'svg',
+        margin: 2,
+        errorCorrectionLevel: 'M',
+        color: qrColours,
+      });
       res.set(qrHeaders('image/svg+xml', params.code, 'svg', query.download === '1')).send(svg);
     }),
   );
@@ -122,7 +133,10 @@ export function shopLinkRedirectRouter({ db }: AppDeps) {
     res.set('Cache-Control', 'no-store');
     if (visit.kind === 'redirect') return res.redirect(302, visit.location);
     if (visit.kind === 'retired') return res.status(410).type('html').send(retiredLinkPage(visit.shopName, visit.swap));
-    res.status(404).type('html').send(unknownLinkPage(req.params.code.slice(0, 40)));
+    res
+      .status(404)
+      .type('html')
+      .send(unknownLinkPage(req.params.code.slice(0, 40)));
   });
   return router;
 }

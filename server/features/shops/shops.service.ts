@@ -8,14 +8,29 @@ import { stripHtml } from '../../lib/sanitize';
 import type { SessionUser } from '../../middleware/require-role';
 import { can } from '../../../shared/roles';
 import { diffSwapData, summariseChanges } from '../../../shared/revision-diff';
-import type { CreateShopLink, NewerRevision, PinnedSheetView, ShopLinkItem, ShopLinkList, ShopPageView, ShopView, UpdateShop } from '../../../shared/schemas/shops';
+import type {
+  CreateShopLink,
+  NewerRevision,
+  PinnedSheetView,
+  ShopLinkItem,
+  ShopLinkList,
+  ShopPageView,
+  ShopView,
+  UpdateShop,
+} from '../../../shared/schemas/shops';
 import { getSwapSheet } from '../swaps/swaps.service';
 import { swapCards } from '../swaps/swap-views';
 
 type ShopRow = typeof shops.$inferSelect;
 type LinkRow = typeof shopLinks.$inferSelect;
 
-export const shopView = (s: ShopRow): ShopView => ({ slug: s.slug, name: s.name, town: s.town, website: s.website, about: s.about });
+export const shopView = (s: ShopRow): ShopView => ({
+  slug: s.slug,
+  name: s.name,
+  town: s.town,
+  website: s.website,
+  about: s.about,
+});
 
 /** A shop user acts for their own shop only; everyone else (admins included) may at most look. */
 export const actsFor = (user: SessionUser | undefined, shopId: number) =>
@@ -69,43 +84,57 @@ function newCode(length = 7) {
 }
 
 /** "A newer revision exists" for a link pinned to `revisionId`, with one line on what changed; null while it is still current. */
-function newerRevisionOf(db: Db, swap: typeof swaps.$inferSelect, revisionId: number, cache = new Map<string, NewerRevision | null>()): NewerRevision | null {
+function newerRevisionOf(
+  db: Db,
+  swap: typeof swaps.$inferSelect,
+  revisionId: number,
+  cache = new Map<string, NewerRevision | null>(),
+): NewerRevision | null {
   if (swap.currentRevisionId === null || swap.currentRevisionId === revisionId) return null;
   const key = `${revisionId}:${swap.currentRevisionId}`;
   if (cache.has(key)) return cache.get(key)!;
-  const [pinned, current] = [revisionId, swap.currentRevisionId].map((id) => db.select().from(revisions).where(eq(revisions.id, id)).get()!);
+  const [pinned, current] = [revisionId, swap.currentRevisionId].map((id) =>
+    db.select().from(revisions).where(eq(revisions.id, id)).get()!,
+  );
   const result =
     current.number > pinned.number
-      ? { number: current.number, summary: summariseChanges(diffSwapData(pinned.data, current.data), pinned.body !== current.body) }
+      ? {
+          number: current.number,
+          summary: summariseChanges(diffSwapData(pinned.data, current.data), pinned.body !== current.body),
+        }
       : null;
   cache.set(key, result);
   return result;
 }
 
-function linkItems(db: Db, appUrl: string, rows: { link: LinkRow; shop: ShopRow; swap: typeof swaps.$inferSelect; revision: typeof revisions.$inferSelect }[]) {
+function linkItems(
+  db: Db,
+  appUrl: string,
+  rows: { link: LinkRow; shop: ShopRow; swap: typeof swaps.$inferSelect; revision: typeof revisions.$inferSelect }[],
+) {
   const cache = new Map<string, NewerRevision | null>();
   const titles = new Map<number, string>();
   const titleOf = (swap: typeof swaps.$inferSelect) => {
     if (!titles.has(swap.id)) {
-      const current = swap.currentRevisionId ? db.select({ data: revisions.data }).from(revisions).where(eq(revisions.id, swap.currentRevisionId)).get() : undefined;
+      const current = swap.currentRevisionId
+        ? db.select({ data: revisions.data }).from(revisions).where(eq(revisions.id, swap.currentRevisionId)).get()
+        : undefined;
       titles.set(swap.id, current?.data.title ?? swap.slug);
     }
     return titles.get(swap.id)!;
   };
-  return rows.map(
-    ({ link, shop, swap, revision }): ShopLinkItem => ({
-      code: link.code,
-      url: linkUrl(appUrl, link.code),
-      shop: { slug: shop.slug, name: shop.name },
-      swap: { slug: swap.slug, title: titleOf(swap) },
-      revision: { number: revision.number },
-      note: link.note,
-      visits: link.visits,
-      createdAt: link.createdAt.toISOString(),
-      retiredAt: link.retiredAt ? link.retiredAt.toISOString() : null,
-      newerRevision: newerRevisionOf(db, swap, link.revisionId, cache),
-    }),
-  );
+  return rows.map(({ link, shop, swap, revision }): ShopLinkItem => ({
+    code: link.code,
+    url: linkUrl(appUrl, link.code),
+    shop: { slug: shop.slug, name: shop.name },
+    swap: { slug: swap.slug, title: titleOf(swap) },
+    revision: { number: revision.number },
+    note: link.note,
+    visits: link.visits,
+    createdAt: link.createdAt.toISOString(),
+    retiredAt: link.retiredAt ? link.retiredAt.toISOString() : null,
+    newerRevision: newerRevisionOf(db, swap, link.revisionId, cache),
+  }));
 }
 
 function linkRows(db: Db, where: ReturnType<typeof eq> | undefined) {
@@ -175,9 +204,19 @@ function managedLink(db: Db, viewer: SessionUser, code: string) {
   return row;
 }
 
-export function updateShopLinkNote(db: Db, clock: Clock, appUrl: string, viewer: SessionUser, code: string, note: string): ShopLinkItem {
+export function updateShopLinkNote(
+  db: Db,
+  clock: Clock,
+  appUrl: string,
+  viewer: SessionUser,
+  code: string,
+  note: string,
+): ShopLinkItem {
   const row = managedLink(db, viewer, code);
-  db.update(shopLinks).set({ note: stripHtml(note).trim(), updatedAt: clock.now() }).where(eq(shopLinks.id, row.link.id)).run();
+  db.update(shopLinks)
+    .set({ note: stripHtml(note).trim(), updatedAt: clock.now() })
+    .where(eq(shopLinks.id, row.link.id))
+    .run();
   return linkItems(db, appUrl, [linkByCode(db, code)])[0]!;
 }
 
@@ -198,7 +237,8 @@ export function shopLinkUrl(db: Db, appUrl: string, code: string) {
 /** For the client: the shop's banner and note over the pinned revision, and whether a newer one exists. */
 export function getPinnedSheet(db: Db, appUrl: string, code: string): PinnedSheetView {
   const { link, shop, swap, revision } = linkByCode(db, code);
-  if (link.retiredAt) throw new AppError('link_retired', `${shop.name} has retired this link. The swap it pointed to is still on Swapyard.`, 410);
+  if (link.retiredAt)
+    throw new AppError('link_retired', `${shop.name} has retired this link. The swap it pointed to is still on Swapyard.`, 410);
   return {
     link: { code: link.code, url: linkUrl(appUrl, link.code), note: link.note, createdAt: link.createdAt.toISOString() },
     shop: shopView(shop),
@@ -224,8 +264,14 @@ export function visitShopLink(db: Db, code: string): LinkVisit {
     .get();
   if (!row) return { kind: 'unknown' };
   if (row.link.retiredAt) {
-    const current = row.swap.currentRevisionId ? db.select({ data: revisions.data }).from(revisions).where(eq(revisions.id, row.swap.currentRevisionId)).get() : undefined;
-    return { kind: 'retired', shopName: row.shop.name, swap: current ? { slug: row.swap.slug, title: current.data.title } : null };
+    const current = row.swap.currentRevisionId
+      ? db.select({ data: revisions.data }).from(revisions).where(eq(revisions.id, row.swap.currentRevisionId)).get()
+      : undefined;
+    return {
+      kind: 'retired',
+      shopName: row.shop.name,
+      swap: current ? { slug: row.swap.slug, title: current.data.title } : null,
+    };
   }
   db.update(shopLinks)
     .set({ visits: sql`${shopLinks.visits} + 1` })

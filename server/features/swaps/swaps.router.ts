@@ -22,7 +22,11 @@ export function swapsRouter({ db }: AppDeps) {
   const sendSheet = (req: Request, res: Response, slug: string, n?: number) => {
     const fingerprint = sheetFingerprint(db, slug);
     if (!fingerprint) throw AppError.notFound('That swap');
-    sendCachedJson(req, res, sheets(n === undefined ? slug : `${slug}/r/${n}`, fingerprint, () => getSwapSheet(db, slug, n)));
+    sendCachedJson(
+      req,
+      res,
+      sheets(n === undefined ? slug : `${slug}/r/${n}`, fingerprint, () => getSwapSheet(db, slug, n)),
+    );
   };
 
   router.get(

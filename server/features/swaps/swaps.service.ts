@@ -55,14 +55,12 @@ export function getSwapSheet(db: Db, slug: string, number?: number): SwapSheetVi
       photos: photosOf(db, [r.id]).get(r.id) ?? [],
     },
     currentNumber: current?.revision.number ?? null,
-    history: history.map(
-      (h): RevisionSummary => ({
-        number: h.revision.number,
-        status: h.revision.status,
-        approvedAt: iso(h.revision.reviewedAt),
-        author: personRef(h.author),
-      }),
-    ),
+    history: history.map((h): RevisionSummary => ({
+      number: h.revision.number,
+      status: h.revision.status,
+      approvedAt: iso(h.revision.reviewedAt),
+      author: personRef(h.author),
+    })),
   };
 }
 

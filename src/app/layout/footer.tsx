@@ -10,9 +10,21 @@ export function Footer() {
         </div>
         <nav aria-label="Footer">
           <ul className="space-y-1">
-            <li><Link className="hover:text-ink" to="/search">Find a swap</Link></li>
-            <li><Link className="hover:text-ink" to="/tools">Fitment calculators</Link></li>
-            <li><Link className="hover:text-ink" to="/submit">Record a swap you fitted</Link></li>
+            <li>
+              <Link className="hover:text-ink" to="/search">
+                Find a swap
+              </Link>
+            </li>
+            <li>
+              <Link className="hover:text-ink" to="/tools">
+                Fitment calculators
+              </Link>
+            </li>
+            <li>
+              <Link className="hover:text-ink" to="/submit">
+                Record a swap you fitted
+              </Link>
+            </li>
           </ul>
         </nav>
         <p>

@@ -31,7 +31,10 @@ export function Shell() {
     `rounded-md px-3 py-2 text-sm font-bold ${isActive ? 'bg-paper/15 text-paper' : 'text-paper/85 hover:text-paper'}`;
   return (
     <div className="flex min-h-screen flex-col">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-paper focus:px-3 focus:py-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-paper focus:px-3 focus:py-2"
+      >
         Skip to content
       </a>
       <header className="no-print bg-ink text-paper">
@@ -81,7 +84,13 @@ export function Shell() {
         )}
       </header>
       <main id="main" className="flex-1">
-        <Suspense fallback={<div className="mx-auto max-w-sheet px-4"><Loading /></div>}>
+        <Suspense
+          fallback={
+            <div className="mx-auto max-w-sheet px-4">
+              <Loading />
+            </div>
+          }
+        >
           <Outlet />
         </Suspense>
       </main>

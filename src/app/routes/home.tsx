@@ -15,7 +15,9 @@ export default function HomePage() {
       <section className="bg-ink text-paper">
         <div className="mx-auto max-w-sheet px-4 pb-12 pt-8 sm:px-6 sm:pb-16 sm:pt-12">
           <p className="text-sm font-bold uppercase tracking-widest text-brass-soft">Community fitment records</p>
-          <h1 className="mt-3 max-w-3xl text-3xl font-extrabold leading-tight sm:text-5xl">Will it fit, and what else does it need?</h1>
+          <h1 className="mt-3 max-w-3xl text-3xl font-extrabold leading-tight sm:text-5xl">
+            Will it fit, and what else does it need?
+          </h1>
           <p className="mt-4 max-w-2xl text-lg text-paper/85">
             Reviewed swaps for brakes, wheels and running gear: the donor parts, the adapter, the shims and spacers, the machining
             and the torque figures — checked against your own wheel before you buy a thing.
@@ -39,8 +41,13 @@ export default function HomePage() {
             <p className="mt-4 flex flex-wrap items-center gap-2 text-sm text-paper/80">
               <span>Browse by chassis:</span>
               {chassis.data.map((c) => (
-                <Link key={c.slug} to={paths.chassis(c.slug)} className="rounded-full border border-paper/30 px-3 py-1 font-bold hover:border-paper">
-                  {c.make} {c.model}{c.code === c.model ? '' : ` ${c.code}`}
+                <Link
+                  key={c.slug}
+                  to={paths.chassis(c.slug)}
+                  className="rounded-full border border-paper/30 px-3 py-1 font-bold hover:border-paper"
+                >
+                  {c.make} {c.model}
+                  {c.code === c.model ? '' : ` ${c.code}`}
                 </Link>
               ))}
             </p>
@@ -75,8 +82,14 @@ export default function HomePage() {
         </section>
         <section className="mt-12 grid gap-4 sm:grid-cols-3" aria-label="How Swapyard works">
           {[
-            ['Find', 'Search by chassis, donor car or part number. Every record lists the exact parts, adapter, shims and spacers.'],
-            ['Check', 'Enter your wheel and see the caliper clearance, new offset and wheel-bolt length — pass or fail, with the margin.'],
+            [
+              'Find',
+              'Search by chassis, donor car or part number. Every record lists the exact parts, adapter, shims and spacers.',
+            ],
+            [
+              'Check',
+              'Enter your wheel and see the caliper clearance, new offset and wheel-bolt length — pass or fail, with the margin.',
+            ],
             ['Record', 'Fitted a combination yourself? Write it up with photos; a moderator reviews it before it goes live.'],
           ].map(([title, text]) => (
             <div key={title} className="rounded-xl border border-ink/10 bg-paper-card p-5">

@@ -3,7 +3,11 @@ import { isRouteErrorResponse, useRouteError } from 'react-router';
 /** Shown when a page crashes or a route module fails to load (e.g. after a new release). */
 export function RouteError() {
   const error = useRouteError();
-  const message = isRouteErrorResponse(error) ? `${error.status} ${error.statusText}` : error instanceof Error ? error.message : 'Unknown error';
+  const message = isRouteErrorResponse(error)
+    ? `${error.status} ${error.statusText}`
+    : error instanceof Error
+      ? error.message
+      : 'Unknown error';
   return (
     <div className="mx-auto max-w-xl px-4 py-16">
       <h1 className="text-2xl font-extrabold text-ink">This page hit a snag</h1>

@@ -32,8 +32,18 @@ export default function SwapSheetRoute() {
   const qc = useQueryClient();
   const presets = useCarWheelPresets(sheet.data?.chassis.slug ?? '', Boolean(user));
 
-  if (sheet.isPending || (via && pinned.isPending)) return <Page title="Swap"><Loading label="Loading the swap sheet…" /></Page>;
-  if (sheet.isError) return <Page title="Swap not found"><ErrorNotice error={sheet.error} /></Page>;
+  if (sheet.isPending || (via && pinned.isPending))
+    return (
+      <Page title="Swap">
+        <Loading label="Loading the swap sheet…" />
+      </Page>
+    );
+  if (sheet.isError)
+    return (
+      <Page title="Swap not found">
+        <ErrorNotice error={sheet.error} />
+      </Page>
+    );
 
   const view = sheet.data;
   const pinnedView = pinned.data && pinned.data.sheet.swap.slug === view.swap.slug ? pinned.data : null;
@@ -53,9 +63,21 @@ export default function SwapSheetRoute() {
       presets={presets}
       extraSections={
         <>
-          <FittedReportsSection slug={view.swap.slug} revisions={view.history} shownNumber={view.revision.number} onChanged={refreshSheet} />
+          <FittedReportsSection
+            slug={view.swap.slug}
+            revisions={view.history}
+            shownNumber={view.revision.number}
+            onChanged={refreshSheet}
+          />
           <FlagSwapForm slug={view.swap.slug} signedIn={Boolean(user)} />
-          {shopName && <MakeShopLinkPanel swapSlug={view.swap.slug} shownNumber={view.revision.number} currentNumber={view.currentNumber} shopName={shopName} />}
+          {shopName && (
+            <MakeShopLinkPanel
+              swapSlug={view.swap.slug}
+              shownNumber={view.revision.number}
+              currentNumber={view.currentNumber}
+              shopName={shopName}
+            />
+          )}
         </>
       }
     />

@@ -3,7 +3,13 @@ import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttribu
 export const inputClass =
   'w-full rounded-md border border-graphite/25 bg-paper-card px-3 py-2 text-base text-graphite shadow-inner placeholder:text-graphite-soft/70 focus:border-ink aria-[invalid=true]:border-oxide';
 
-type FieldProps = { label: ReactNode; hint?: ReactNode; error?: string; children: (props: { id: string; 'aria-invalid': boolean; 'aria-describedby'?: string }) => ReactNode; className?: string };
+type FieldProps = {
+  label: ReactNode;
+  hint?: ReactNode;
+  error?: string;
+  children: (props: { id: string; 'aria-invalid': boolean; 'aria-describedby'?: string }) => ReactNode;
+  className?: string;
+};
 
 /** A label, the control, a hint and the field's error, wired together for screen readers. */
 export function Field({ label, hint, error, children, className = '' }: FieldProps) {
@@ -31,7 +37,13 @@ export function Field({ label, hint, error, children, className = '' }: FieldPro
   );
 }
 
-export function TextInput({ label, hint, error, className, ...props }: InputHTMLAttributes<HTMLInputElement> & { label: ReactNode; hint?: ReactNode; error?: string }) {
+export function TextInput({
+  label,
+  hint,
+  error,
+  className,
+  ...props
+}: InputHTMLAttributes<HTMLInputElement> & { label: ReactNode; hint?: ReactNode; error?: string }) {
   return (
     <Field label={label} hint={hint} error={error} className={className}>
       {(a11y) => <input className={inputClass} {...a11y} {...props} />}
@@ -39,7 +51,13 @@ export function TextInput({ label, hint, error, className, ...props }: InputHTML
   );
 }
 
-export function TextArea({ label, hint, error, className, ...props }: TextareaHTMLAttributes<HTMLTextAreaElement> & { label: ReactNode; hint?: ReactNode; error?: string }) {
+export function TextArea({
+  label,
+  hint,
+  error,
+  className,
+  ...props
+}: TextareaHTMLAttributes<HTMLTextAreaElement> & { label: ReactNode; hint?: ReactNode; error?: string }) {
   return (
     <Field label={label} hint={hint} error={error} className={className}>
       {(a11y) => <textarea className={inputClass} {...a11y} {...props} />}
@@ -47,7 +65,14 @@ export function TextArea({ label, hint, error, className, ...props }: TextareaHT
   );
 }
 
-export function Select({ label, hint, error, className, children, ...props }: SelectHTMLAttributes<HTMLSelectElement> & { label: ReactNode; hint?: ReactNode; error?: string }) {
+export function Select({
+  label,
+  hint,
+  error,
+  className,
+  children,
+  ...props
+}: SelectHTMLAttributes<HTMLSelectElement> & { label: ReactNode; hint?: ReactNode; error?: string }) {
   return (
     <Field label={label} hint={hint} error={error} className={className}>
       {(a11y) => (

@@ -1,7 +1,19 @@
 import { useEffect, type ReactNode } from 'react';
 
 /** Sets the document title and gives the page its heading and width. */
-export function Page({ title, heading, lead, actions, children }: { title: string; heading?: ReactNode; lead?: ReactNode; actions?: ReactNode; children: ReactNode }) {
+export function Page({
+  title,
+  heading,
+  lead,
+  actions,
+  children,
+}: {
+  title: string;
+  heading?: ReactNode;
+  lead?: ReactNode;
+  actions?: ReactNode;
+  children: ReactNode;
+}) {
   useEffect(() => {
     document.title = `${title} · Swapyard`;
   }, [title]);

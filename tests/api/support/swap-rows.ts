@@ -6,7 +6,6 @@ import type { RevisionStatus } from '../../../shared/schemas/enums';
 
 // Rows for tests that need approved swaps without going through the review desk.
 
-
 export function swapData(title: string, extra: Partial<SwapDataInput> = {}) {
   return swapDataSchema.parse({
     title,
@@ -34,26 +33,35 @@ export function addSwap(db: Db, opts: { slug: string; chassisId: number; authorI
   const at = new Date('2026-03-01T10:00:00Z');
   const swap = db
     .insert(swaps)
-    .values({ slug: opts.slug, chassisId: opts.chassisId, axle: 'front', category: 'brakes', authorId: opts.authorId, createdAt: at, updatedAt: at })
+    .values({
+      slug: opts.slug,
+      chassisId: opts.chassisId,
+      axle: 'front',
+      category: 'brakes',
+      authorId: opts.authorId,
+      createdAt: at,
+      updatedAt: at,
+    })
     .returning()
     .get();
-  const ids = opts.revisions.map((r, i) =>
-    db
-      .insert(revisions)
-      .values({
-        swapId: swap.id,
-        number: i + 1,
-        authorId: opts.authorId,
-        status: r.status,
-        data: r.data ?? swapData(`${opts.slug} revision ${i + 1}`),
-        body: r.body ?? '',
-        submittedAt: r.status === 'draft' ? null : at,
-        reviewedAt: ['approved', 'superseded', 'declined', 'sent_back'].includes(r.status) ? at : null,
-        createdAt: at,
-        updatedAt: at,
-      })
-      .returning({ id: revisions.id })
-      .get().id,
+  const ids = opts.revisions.map(
+    (r, i) =>
+      db
+        .insert(revisions)
+        .values({
+          swapId: swap.id,
+          number: i + 1,
+          authorId: opts.authorId,
+          status: r.status,
+          data: r.data ?? swapData(`${opts.slug} revision ${i + 1}`),
+          body: r.body ?? '',
+          submittedAt: r.status === 'draft' ? null : at,
+          reviewedAt: ['approved', 'superseded', 'declined', 'sent_back'].includes(r.status) ? at : null,
+          createdAt: at,
+          updatedAt: at,
+        })
+        .returning({ id: revisions.id })
+        .get().id,
   );
   const approved = opts.revisions.map((r) => r.status).lastIndexOf('approved');
   if (approved >= 0) db.update(swaps).set({ currentRevisionId: ids[approved] }).where(eq(swaps.id, swap.id)).run();
@@ -68,10 +76,22 @@ export function approveNewRevision(db: Db, swapId: number, data: ReturnType<type
   const now = new Date();
   const id = db
     .insert(revisions)
-    .values({ swapId, number, authorId, status: 'approved', data, body, submittedAt: now, reviewedAt: now, createdAt: now, updatedAt: now })
+    .values({
+      swapId,
+      number,
+      authorId,
+      status: 'approved',
+      data,
+      body,
+      submittedAt: now,
+      reviewedAt: now,
+      createdAt: now,
+      updatedAt: now,
+    })
     .returning({ id: revisions.id })
     .get().id;
-  if (swap.currentRevisionId) db.update(revisions).set({ status: 'superseded', updatedAt: now }).where(eq(revisions.id, swap.currentRevisionId)).run();
+  if (swap.currentRevisionId)
+    db.update(revisions).set({ status: 'superseded', updatedAt: now }).where(eq(revisions.id, swap.currentRevisionId)).run();
   db.update(swaps).set({ currentRevisionId: id, updatedAt: now }).where(eq(swaps.id, swapId)).run();
   return { revisionId: id, number };
 }

@@ -33,7 +33,10 @@ export async function signInContext(browser: Browser, baseUrl: string, login: st
   await page.waitForURL((u) => u.pathname === '/');
   await page.close();
 
-  const me = (await ok(await context.request.get(`${baseUrl}/api/me`), 'GET /api/me')) as { user: { login: string } | null; csrfToken: string };
+  const me = (await ok(await context.request.get(`${baseUrl}/api/me`), 'GET /api/me')) as {
+    user: { login: string } | null;
+    csrfToken: string;
+  };
   expect(me.user?.login).toBe(login);
   const headers = { 'x-csrf-token': me.csrfToken };
   return {

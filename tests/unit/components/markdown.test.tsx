@@ -14,13 +14,19 @@ describe('Markdown', () => {
   });
 
   it('when a write-up carries raw HTML, then none of it becomes an element', () => {
-    const { container } = render(<Markdown>{'Before <script>window.x=1</script> <img src=x onerror="alert(1)"> <b>bold</b> after'}</Markdown>);
+    const { container } = render(
+      <Markdown>{'Before <script>window.x=1</script> <img src=x onerror="alert(1)"> <b>bold</b> after'}</Markdown>,
+    );
     expect(container.querySelector('script, img, b')).toBeNull();
     expect(container.textContent).toContain('Before');
   });
 
   it('when links use other schemes than http(s) or mailto, then they lose their address', () => {
-    render(<Markdown>{'[a](javascript:alert(1)) [b](data:text/html,x) [c](https://example.com/x) [d](mailto:kai@example.com) [e](/swaps/h31)'}</Markdown>);
+    render(
+      <Markdown>
+        {'[a](javascript:alert(1)) [b](data:text/html,x) [c](https://example.com/x) [d](mailto:kai@example.com) [e](/swaps/h31)'}
+      </Markdown>,
+    );
     expect(screen.getByText('a').closest('a')).toBeNull();
     expect(screen.getByText('b').closest('a')).toBeNull();
     expect(screen.getByText('c').closest('a')?.getAttribute('href')).toBe('https://example.com/x');

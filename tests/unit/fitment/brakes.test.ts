@@ -146,9 +146,7 @@ describe('bad input', () => {
     );
     expect(() => brakeTorqueNm({ ...good, padMu: 0 })).toThrow(expect.objectContaining({ field: 'padMu' }));
     expect(() => brakeTorqueNm({ ...good, padMu: 1.4 })).toThrow(expect.objectContaining({ field: 'padMu' }));
-    expect(() => brakeTorqueNm({ ...good, linePressureBar: -50 })).toThrow(
-      expect.objectContaining({ field: 'linePressureBar' }),
-    );
+    expect(() => brakeTorqueNm({ ...good, linePressureBar: -50 })).toThrow(expect.objectContaining({ field: 'linePressureBar' }));
     expect(() => brakeTorqueNm({ ...good, rotorDiameterMm: Number.POSITIVE_INFINITY })).toThrow(
       expect.objectContaining({ field: 'rotorDiameterMm' }),
     );
@@ -158,9 +156,7 @@ describe('bad input', () => {
     expect(() => frontShare(stockFront, { ...rear, padHeightMm: -1 })).toThrow(
       expect.objectContaining({ field: 'rear.padHeightMm' }),
     );
-    expect(() => frontShare({ ...stockFront, padMu: 2 }, rear)).toThrow(
-      expect.objectContaining({ field: 'front.padMu' }),
-    );
+    expect(() => frontShare({ ...stockFront, padMu: 2 }, rear)).toThrow(expect.objectContaining({ field: 'front.padMu' }));
     expect(() => frontShare(stockFront, rear, 0)).toThrow(expect.objectContaining({ field: 'linePressureBar' }));
     expect(() =>
       balanceShift({ front: stockFront, rear }, { front: { ...swappedFront, pistonsPerSideMm: [Number.NaN] }, rear }),

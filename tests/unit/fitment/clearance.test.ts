@@ -1,14 +1,8 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
-import {
-  MIN_CLEARANCE_MM,
-  maxRotorRuleOfThumbMm,
-  radialClearance,
-  spokeClearance,
-} from '../../../shared/fitment/clearance';
+import { MIN_CLEARANCE_MM, maxRotorRuleOfThumbMm, radialClearance, spokeClearance } from '../../../shared/fitment/clearance';
 
-const within = (actual: number, expected: number, tol: number) =>
-  expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol);
+const within = (actual: number, expected: number, tol: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol);
 
 describe('radialClearance', () => {
   it('barrel radius minus rotor radius and caliper projection', () => {

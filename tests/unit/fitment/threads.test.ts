@@ -1,15 +1,9 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
-import {
-  boltLengthWithSpacer,
-  parseMetricThread,
-  threadBasics,
-  threadEngagement,
-} from '../../../shared/fitment/threads';
+import { boltLengthWithSpacer, parseMetricThread, threadBasics, threadEngagement } from '../../../shared/fitment/threads';
 import { FitmentInputError } from '../../../shared/fitment/errors';
 
-const within = (actual: number, expected: number, tol: number) =>
-  expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol);
+const within = (actual: number, expected: number, tol: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol);
 
 describe('threadBasics', () => {
   // ISO 724: d₂ = d − 0.649519P, d₁ = d − 1.082532P; ISO 898-1: A_s = π/4 (d − 0.938194P)²; tap drill ≈ d − P
@@ -128,13 +122,9 @@ describe('threadEngagement', () => {
 
   it('names the wrong field', () => {
     const good = { diameterMm: 12, pitchMm: 1.5, boltLengthMm: 42, clampedMm: 30, hubMaterial: 'steel' as const };
-    expect(() => threadEngagement({ ...good, diameterMm: -12 })).toThrow(
-      expect.objectContaining({ field: 'diameterMm' }),
-    );
+    expect(() => threadEngagement({ ...good, diameterMm: -12 })).toThrow(expect.objectContaining({ field: 'diameterMm' }));
     expect(() => threadEngagement({ ...good, pitchMm: 0 })).toThrow(expect.objectContaining({ field: 'pitchMm' }));
-    expect(() => threadEngagement({ ...good, boltLengthMm: 0 })).toThrow(
-      expect.objectContaining({ field: 'boltLengthMm' }),
-    );
+    expect(() => threadEngagement({ ...good, boltLengthMm: 0 })).toThrow(expect.objectContaining({ field: 'boltLengthMm' }));
     expect(() => threadEngagement({ ...good, clampedMm: -1 })).toThrow(expect.objectContaining({ field: 'clampedMm' }));
     expect(() => threadEngagement({ ...good, hubMaterial: 'titanium' as never })).toThrow(
       expect.objectContaining({ field: 'hubMaterial' }),

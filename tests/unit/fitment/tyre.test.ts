@@ -115,12 +115,8 @@ describe('tyreGeometry', () => {
   it('names the bad field of a parsed size', () => {
     const good = parseTyreSize('225/45R17');
     expect(() => tyreGeometry({ ...good, widthMm: 0 })).toThrow(expect.objectContaining({ field: 'widthMm' }));
-    expect(() => tyreGeometry({ ...good, aspectRatio: Number.NaN })).toThrow(
-      expect.objectContaining({ field: 'aspectRatio' }),
-    );
-    expect(() => tyreGeometry({ ...good, aspectRatio: 120 })).toThrow(
-      expect.objectContaining({ field: 'aspectRatio' }),
-    );
+    expect(() => tyreGeometry({ ...good, aspectRatio: Number.NaN })).toThrow(expect.objectContaining({ field: 'aspectRatio' }));
+    expect(() => tyreGeometry({ ...good, aspectRatio: 120 })).toThrow(expect.objectContaining({ field: 'aspectRatio' }));
     expect(() => tyreGeometry({ ...good, rimIn: -17 })).toThrow(expect.objectContaining({ field: 'rimIn' }));
     expect(() => tyreGeometry('nonsense')).toThrow(expect.objectContaining({ field: 'code' }));
   });

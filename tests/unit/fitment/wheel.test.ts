@@ -1,15 +1,9 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
-import {
-  adjacentStudSpacingMm,
-  backspacingMm,
-  pcdFromAdjacentStuds,
-  spacerEffect,
-} from '../../../shared/fitment/wheel';
+import { adjacentStudSpacingMm, backspacingMm, pcdFromAdjacentStuds, spacerEffect } from '../../../shared/fitment/wheel';
 import { FitmentInputError } from '../../../shared/fitment/errors';
 
-const within = (actual: number, expected: number, tol: number) =>
-  expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol);
+const within = (actual: number, expected: number, tol: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol);
 
 describe('backspacingMm', () => {
   it('17×8 ET45 → 6.2717 in (159.30 mm)', () => {
@@ -33,9 +27,7 @@ describe('backspacingMm', () => {
   it('rejects a zero or missing width and a non-finite offset', () => {
     expect(() => backspacingMm({ widthIn: 0, offsetMm: 45 })).toThrow(expect.objectContaining({ field: 'widthIn' }));
     expect(() => backspacingMm({ widthIn: -8, offsetMm: 45 })).toThrow(expect.objectContaining({ field: 'widthIn' }));
-    expect(() => backspacingMm({ widthIn: 8, offsetMm: Number.NaN })).toThrow(
-      expect.objectContaining({ field: 'offsetMm' }),
-    );
+    expect(() => backspacingMm({ widthIn: 8, offsetMm: Number.NaN })).toThrow(expect.objectContaining({ field: 'offsetMm' }));
     expect(() => backspacingMm({ widthIn: 8 } as never)).toThrow(FitmentInputError);
   });
 });

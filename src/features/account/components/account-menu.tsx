@@ -28,10 +28,15 @@ export function initialsOf(user: { name: string; login: string }) {
 export function Avatar({ user, size = 'h-8 w-8' }: { user: Pick<MeUser, 'name' | 'login' | 'avatarUrl'>; size?: string }) {
   const [broken, setBroken] = useState(false);
   if (user.avatarUrl && !broken) {
-    return <img src={user.avatarUrl} alt="" className={`${size} shrink-0 rounded-full object-cover`} onError={() => setBroken(true)} />;
+    return (
+      <img src={user.avatarUrl} alt="" className={`${size} shrink-0 rounded-full object-cover`} onError={() => setBroken(true)} />
+    );
   }
   return (
-    <span aria-hidden className={`${size} grid shrink-0 place-items-center rounded-full bg-brass-soft text-xs font-extrabold text-brass-deep`}>
+    <span
+      aria-hidden
+      className={`${size} grid shrink-0 place-items-center rounded-full bg-brass-soft text-xs font-extrabold text-brass-deep`}
+    >
       {initialsOf(user)}
     </span>
   );
@@ -120,7 +125,9 @@ function SignedInMenu({ user }: { user: MeUser }) {
               <p className="truncate font-bold text-ink">{user.name || user.login}</p>
               <p className="truncate text-xs text-graphite-soft">@{user.login}</p>
               <p className="mt-1 flex flex-wrap items-center gap-1">
-                <span className="inline-flex rounded-full bg-ink-faint px-2 py-0.5 text-xs font-bold text-ink">{roleLabels[user.role]}</span>
+                <span className="inline-flex rounded-full bg-ink-faint px-2 py-0.5 text-xs font-bold text-ink">
+                  {roleLabels[user.role]}
+                </span>
                 {user.shop && <span className="truncate text-xs text-graphite-soft">{user.shop.name}</span>}
               </p>
             </div>
@@ -129,7 +136,11 @@ function SignedInMenu({ user }: { user: MeUser }) {
             <ul className="py-1">
               {visible.map((l) => (
                 <li key={l.to}>
-                  <Link to={l.to} className="block rounded-md px-3 py-2 text-sm font-semibold hover:bg-ink-faint focus-visible:bg-ink-faint" onClick={() => setOpen(false)}>
+                  <Link
+                    to={l.to}
+                    className="block rounded-md px-3 py-2 text-sm font-semibold hover:bg-ink-faint focus-visible:bg-ink-faint"
+                    onClick={() => setOpen(false)}
+                  >
                     {l.label}
                   </Link>
                 </li>

@@ -35,7 +35,11 @@ export function RequireSignedIn({ children, permission, roles, what = 'this page
   if (error) return <ErrorNotice error={error} />;
   if (!user) {
     return (
-      <Page title="Sign in" heading="Sign in to continue" lead={`You need to be signed in to open ${what}. Taking you to sign-in…`}>
+      <Page
+        title="Sign in"
+        heading="Sign in to continue"
+        lead={`You need to be signed in to open ${what}. Taking you to sign-in…`}
+      >
         <a href={signInHref} className={buttonClass('primary')}>
           Sign in
         </a>

@@ -56,7 +56,10 @@ export default function AdminPage() {
       { userId: user.id, patch },
       {
         onSuccess: ({ sessionsEnded }) =>
-          setNotice({ tone: 'ok', text: sessionsEnded ? `${done} ${sessionsEnded} open session${sessionsEnded === 1 ? ' was' : 's were'} ended.` : done }),
+          setNotice({
+            tone: 'ok',
+            text: sessionsEnded ? `${done} ${sessionsEnded} open session${sessionsEnded === 1 ? ' was' : 's were'} ended.` : done,
+          }),
         onError: (err) => setNotice({ tone: 'error', text: `${user.login}: ${describeError(err)}` }),
       },
     );
@@ -106,7 +109,18 @@ export default function AdminPage() {
         header: 'Shop',
         cell: ({ row: { original: u } }) =>
           u.role === 'shop' ? (
-            <ShopSelect user={u} shops={shops.data?.shops ?? []} disabled={update.isPending} onPick={(shop) => change(u, { shopId: shop?.id ?? null }, shop ? `${u.login} now speaks for ${shop.name}.` : `${u.login} is no longer linked to a shop.`)} />
+            <ShopSelect
+              user={u}
+              shops={shops.data?.shops ?? []}
+              disabled={update.isPending}
+              onPick={(shop) =>
+                change(
+                  u,
+                  { shopId: shop?.id ?? null },
+                  shop ? `${u.login} now speaks for ${shop.name}.` : `${u.login} is no longer linked to a shop.`,
+                )
+              }
+            />
           ) : (
             <span className="text-xs text-graphite-soft">only for shop accounts</span>
           ),
@@ -118,7 +132,12 @@ export default function AdminPage() {
           <div className="flex flex-wrap items-center gap-2">
             {u.suspended ? <Badge tone="oxide">Suspended</Badge> : <Badge tone="ink">Active</Badge>}
             {u.isYou ? null : u.suspended ? (
-              <Button variant="secondary" className="!min-h-8 !px-3 !py-1" disabled={update.isPending} onClick={() => change(u, { suspended: false }, `${u.login} can sign in again.`)}>
+              <Button
+                variant="secondary"
+                className="!min-h-8 !px-3 !py-1"
+                disabled={update.isPending}
+                onClick={() => change(u, { suspended: false }, `${u.login} can sign in again.`)}
+              >
                 Restore
               </Button>
             ) : confirmSuspend === u.id ? (
@@ -170,22 +189,43 @@ export default function AdminPage() {
     [shops.data, update.isPending, historyFor, confirmSuspend],
   );
 
-  const table = useReactTable({ data: users.data?.users ?? [], columns, getCoreRowModel: getCoreRowModel(), getRowId: (u) => String(u.id) });
+  const table = useReactTable({
+    data: users.data?.users ?? [],
+    columns,
+    getCoreRowModel: getCoreRowModel(),
+    getRowId: (u) => String(u.id),
+  });
 
-  const accessError = users.error instanceof ApiError && (users.error.status === 401 || users.error.status === 403) ? users.error : null;
+  const accessError =
+    users.error instanceof ApiError && (users.error.status === 401 || users.error.status === 403) ? users.error : null;
 
   return (
-    <Page title="Admin" heading="Members and roles" lead="Change what each account may do, link shop accounts to their shop, and suspend accounts that misbehave. Every change is recorded with who made it.">
+    <Page
+      title="Admin"
+      heading="Members and roles"
+      lead="Change what each account may do, link shop accounts to their shop, and suspend accounts that misbehave. Every change is recorded with who made it."
+    >
       <div className="mb-4 max-w-md">
         <label htmlFor="admin-search" className="mb-1 block text-sm font-bold">
           Find a member
         </label>
-        <input id="admin-search" type="search" className={inputClass} placeholder="login or name" value={search} onChange={(e) => setSearch(e.target.value)} maxLength={80} />
+        <input
+          id="admin-search"
+          type="search"
+          className={inputClass}
+          placeholder="login or name"
+          value={search}
+          onChange={(e) => setSearch(e.target.value)}
+          maxLength={80}
+        />
       </div>
 
       <div aria-live="polite" className="min-h-6">
         {notice && (
-          <p role={notice.tone === 'error' ? 'alert' : 'status'} className={`mb-4 rounded-md px-4 py-2 text-sm font-semibold ${notice.tone === 'error' ? 'bg-oxide-soft text-oxide' : 'bg-ink-faint text-ink'}`}>
+          <p
+            role={notice.tone === 'error' ? 'alert' : 'status'}
+            className={`mb-4 rounded-md px-4 py-2 text-sm font-semibold ${notice.tone === 'error' ? 'bg-oxide-soft text-oxide' : 'bg-ink-faint text-ink'}`}
+          >
             {notice.text}
           </p>
         )}
@@ -193,7 +233,9 @@ export default function AdminPage() {
 
       {accessError ? (
         <p role="alert" className="rounded-lg border border-oxide/40 bg-paper-card p-6">
-          {accessError.status === 401 ? 'Sign in with an admin account to manage members.' : 'Your account cannot manage members; that is for admins.'}
+          {accessError.status === 401
+            ? 'Sign in with an admin account to manage members.'
+            : 'Your account cannot manage members; that is for admins.'}
         </p>
       ) : users.isPending ? (
         <Loading label="Loading members…" />
@@ -250,7 +292,17 @@ export default function AdminPage() {
   );
 }
 
-function ShopSelect({ user, shops, disabled, onPick }: { user: AdminUser; shops: AdminShop[]; disabled: boolean; onPick: (shop: AdminShop | null) => void }) {
+function ShopSelect({
+  user,
+  shops,
+  disabled,
+  onPick,
+}: {
+  user: AdminUser;
+  shops: AdminShop[];
+  disabled: boolean;
+  onPick: (shop: AdminShop | null) => void;
+}) {
   return (
     <select
       aria-label={`Shop of ${user.login}`}
@@ -280,7 +332,12 @@ const fieldLabels: Record<UserChange['field'], string> = { role: 'Role', shop: '
 function History({ userId }: { userId: number }) {
   const { data, isPending, error } = useUserChanges(userId);
   if (isPending) return <Loading label="Loading history…" />;
-  if (error) return <p role="alert" className="text-oxide">{describeError(error)}</p>;
+  if (error)
+    return (
+      <p role="alert" className="text-oxide">
+        {describeError(error)}
+      </p>
+    );
   if (data.changes.length === 0) return <p className="text-graphite-soft">No changes recorded yet.</p>;
   return (
     <ol className="space-y-1">

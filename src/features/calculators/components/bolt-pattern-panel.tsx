@@ -77,18 +77,10 @@ export function BoltPatternPanel({ params }: { params: CalcParams }) {
           <>
             <ResultGrid>
               {pcd !== null && (
-                <Figure
-                  label="Pitch circle diameter"
-                  value={length(pcd, 1)}
-                  note={`Bolt pattern ${pattern(pcd)} mm`}
-                />
+                <Figure label="Pitch circle diameter" value={length(pcd, 1)} note={`Bolt pattern ${pattern(pcd)} mm`} />
               )}
               {spacingFromPcd !== null && (
-                <Figure
-                  label="Adjacent stud spacing"
-                  value={length(spacingFromPcd, 2)}
-                  note={`for ${pattern(pcdGiven)} mm`}
-                />
+                <Figure label="Adjacent stud spacing" value={length(spacingFromPcd, 2)} note={`for ${pattern(pcdGiven)} mm`} />
               )}
             </ResultGrid>
             <p className="mt-3 text-xs text-graphite-soft">Rule: {CHORD_RULE}</p>

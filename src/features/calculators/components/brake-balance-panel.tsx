@@ -29,7 +29,8 @@ export const brakeKeys = [
 
 export const SHIFT_ATTENTION_POINTS = 5;
 const SHIFT_RULE = `A change of more than ${SHIFT_ATTENTION_POINTS} points in front share deserves a check of rear lock-up and proportioning (common practice, no source)`;
-const TORQUE_RULE = 'T = 2 μ p A r_eff, r_eff = (rotor Ø − pad height) / 2, equal line pressure front and rear (disc-brake textbook formula)';
+const TORQUE_RULE =
+  'T = 2 μ p A r_eff, r_eff = (rotor Ø − pad height) / 2, equal line pressure front and rear (disc-brake textbook formula)';
 
 type CornerResult = { corner: BrakeCorner; torqueNm: number } | null;
 
@@ -91,7 +92,15 @@ export function BrakeBalancePanel({ params }: { params: CalcParams }) {
           error={errors[pKey]}
         />
         <QuantityField params={params} name={rKey} label="Rotor Ø" quantity="length" placeholder="330" error={errors[rKey]} />
-        <QuantityField params={params} name={hKey} label="Pad height" quantity="length" placeholder="55" hint="Radial, at the pad" error={errors[hKey]} />
+        <QuantityField
+          params={params}
+          name={hKey}
+          label="Pad height"
+          quantity="length"
+          placeholder="55"
+          hint="Radial, at the pad"
+          error={errors[hKey]}
+        />
       </FieldGrid>
     );
   };
@@ -108,7 +117,8 @@ export function BrakeBalancePanel({ params }: { params: CalcParams }) {
       form={
         <div className="grid gap-4">
           <p className="text-xs text-graphite-soft">
-            Pistons on <em>one</em> side of the rotor: all pistons of a floating caliper, the pistons on one side of an opposed one.
+            Pistons on <em>one</em> side of the rotor: all pistons of a floating caliper, the pistons on one side of an opposed
+            one.
           </p>
           <Fieldset legend="Stock front">{cornerFields('b', 'f')}</Fieldset>
           <Fieldset legend="Stock rear">{cornerFields('b', 'r')}</Fieldset>
@@ -129,7 +139,9 @@ export function BrakeBalancePanel({ params }: { params: CalcParams }) {
               name="p"
               label="Line pressure"
               quantity="pressure"
-              placeholder={system === 'metric' ? String(DEFAULT_LINE_PRESSURE_BAR) : round(barToPsi(DEFAULT_LINE_PRESSURE_BAR), 0)}
+              placeholder={
+                system === 'metric' ? String(DEFAULT_LINE_PRESSURE_BAR) : round(barToPsi(DEFAULT_LINE_PRESSURE_BAR), 0)
+              }
               hint={`Empty: ${pressure(DEFAULT_LINE_PRESSURE_BAR)}; the share does not depend on it`}
               error={errors.p}
             />
@@ -151,19 +163,29 @@ export function BrakeBalancePanel({ params }: { params: CalcParams }) {
             <caption className="sr-only">Brake torque per corner</caption>
             <thead>
               <tr className="text-left text-graphite-soft">
-                <th scope="col" className="py-1 font-bold"><span className="sr-only">Corner</span></th>
-                <th scope="col" className="py-1 text-right font-bold">Stock</th>
-                <th scope="col" className="py-1 text-right font-bold">Swapped</th>
+                <th scope="col" className="py-1 font-bold">
+                  <span className="sr-only">Corner</span>
+                </th>
+                <th scope="col" className="py-1 text-right font-bold">
+                  Stock
+                </th>
+                <th scope="col" className="py-1 text-right font-bold">
+                  Swapped
+                </th>
               </tr>
             </thead>
             <tbody className="font-semibold">
               <tr className="border-t border-graphite/10">
-                <th scope="row" className="py-1.5 text-left font-bold">Front</th>
+                <th scope="row" className="py-1.5 text-left font-bold">
+                  Front
+                </th>
                 <td className="py-1.5 text-right">{torqueCell(bf.result)}</td>
                 <td className="py-1.5 text-right">{torqueCell(af.result)}</td>
               </tr>
               <tr className="border-t border-graphite/10">
-                <th scope="row" className="py-1.5 text-left font-bold">Rear</th>
+                <th scope="row" className="py-1.5 text-left font-bold">
+                  Rear
+                </th>
                 <td className="py-1.5 text-right">{torqueCell(br.result)}</td>
                 <td className="py-1.5 text-right">{torqueCell(ar.result)}</td>
               </tr>
@@ -197,9 +219,7 @@ export function BrakeBalancePanel({ params }: { params: CalcParams }) {
           ) : (
             <Waiting missing={missing} invalid={Object.keys(errors).length > 0} general={generalError} />
           )}
-          <p className="text-xs text-graphite-soft">
-            Formula: {TORQUE_RULE}.
-          </p>
+          <p className="text-xs text-graphite-soft">Formula: {TORQUE_RULE}.</p>
         </div>
       }
       caution={<Caution topics={['brakes']} />}

@@ -36,7 +36,12 @@ export function Panel({ id, title, lead, keys, wide, form, results, caution }: P
       </header>
       <div className={`grid gap-5 ${wide === 'results' ? 'lg:grid-cols-[2fr_3fr]' : wide ? 'lg:grid-cols-[3fr_2fr]' : ''}`}>
         <div className="min-w-0">{form}</div>
-        <div className={`min-w-0 ${wide ? 'lg:sticky lg:top-4 lg:self-start' : ''}`} aria-live="polite" aria-label={`${title} results`} role="region">
+        <div
+          className={`min-w-0 ${wide ? 'lg:sticky lg:top-4 lg:self-start' : ''}`}
+          aria-live="polite"
+          aria-label={`${title} results`}
+          role="region"
+        >
           <h3 className="sr-only">Results</h3>
           {results}
         </div>

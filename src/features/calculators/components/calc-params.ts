@@ -154,7 +154,10 @@ export function readable(error: FitmentInputError): string {
   let message = error.message;
   for (const prefix of [error.field, base]) {
     if (message.startsWith(prefix)) {
-      message = message.slice(prefix.length).replace(/^\s*\([^)]*\)/, '').trim();
+      message = message
+        .slice(prefix.length)
+        .replace(/^\s*\([^)]*\)/, '')
+        .trim();
       break;
     }
   }

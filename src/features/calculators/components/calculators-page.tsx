@@ -55,8 +55,8 @@ export default function CalculatorsPage() {
         </ul>
       </nav>
       <p className="mb-6 max-w-3xl text-sm text-graphite-soft">
-        Figures are nominal and computed from what you enter; they show which rule each check applies. Measure the real parts,
-        and let the manufacturers’ specifications and a qualified technician have the last word.
+        Figures are nominal and computed from what you enter; they show which rule each check applies. Measure the real parts, and
+        let the manufacturers’ specifications and a qualified technician have the last word.
       </p>
       <div className="grid items-start gap-6 lg:grid-cols-2">
         <TyrePanel params={params} />

@@ -1,4 +1,10 @@
-import { maxRotorRuleOfThumbMm, radialClearance, spokeClearance, MAX_ROTOR_RULE, type ClearanceResult } from '@shared/fitment/clearance';
+import {
+  maxRotorRuleOfThumbMm,
+  radialClearance,
+  spokeClearance,
+  MAX_ROTOR_RULE,
+  type ClearanceResult,
+} from '@shared/fitment/clearance';
 import { Caution } from '../../../components/caution';
 import { Verdict } from '../../../components/verdict';
 import { useUnits } from '../../../lib/units';
@@ -30,7 +36,10 @@ export function ClearancePanel({ params }: { params: CalcParams }) {
 
   const thumb = new Inputs(params);
   const wheelIn = thumb.number('wheel', 'wheel diameter');
-  const maxRotor = thumb.run(() => maxRotorRuleOfThumbMm(wheelIn), () => 'wheel');
+  const maxRotor = thumb.run(
+    () => maxRotorRuleOfThumbMm(wheelIn),
+    () => 'wheel',
+  );
   const rotorKnown = params.get('rotor') !== '' && !radial.error('rotor') && Number.isFinite(rotor);
 
   const check = (label: string, result: ClearanceResult) => (
@@ -54,8 +63,23 @@ export function ClearancePanel({ params }: { params: CalcParams }) {
         <div className="grid gap-4">
           <Fieldset legend="Barrel (radial)">
             <FieldGrid cols={3}>
-              <QuantityField params={params} name="barrel" label="Barrel inner Ø" quantity="length" placeholder="400" hint="At the caliper's plane" error={radial.error('barrel')} />
-              <QuantityField params={params} name="rotor" label="Rotor Ø" quantity="length" placeholder="330" error={radial.error('rotor')} />
+              <QuantityField
+                params={params}
+                name="barrel"
+                label="Barrel inner Ø"
+                quantity="length"
+                placeholder="400"
+                hint="At the caliper's plane"
+                error={radial.error('barrel')}
+              />
+              <QuantityField
+                params={params}
+                name="rotor"
+                label="Rotor Ø"
+                quantity="length"
+                placeholder="330"
+                error={radial.error('rotor')}
+              />
               <QuantityField
                 params={params}
                 name="proj"
@@ -89,12 +113,27 @@ export function ClearancePanel({ params }: { params: CalcParams }) {
                 hint="Outboard of the hub face"
                 error={spoke.error('cout')}
               />
-              <QuantityField params={params} name="cspacer" label="Spacer" quantity="length" placeholder="0" hint="Leave empty for none" error={spoke.error('cspacer')} />
+              <QuantityField
+                params={params}
+                name="cspacer"
+                label="Spacer"
+                quantity="length"
+                placeholder="0"
+                hint="Leave empty for none"
+                error={spoke.error('cspacer')}
+              />
             </FieldGrid>
           </Fieldset>
           <Fieldset legend="Rule of thumb">
             <FieldGrid>
-              <QuantityField params={params} name="wheel" label="Wheel diameter" unit="in" placeholder="17" error={thumb.error('wheel')} />
+              <QuantityField
+                params={params}
+                name="wheel"
+                label="Wheel diameter"
+                unit="in"
+                placeholder="17"
+                error={thumb.error('wheel')}
+              />
             </FieldGrid>
           </Fieldset>
         </div>
@@ -102,9 +141,17 @@ export function ClearancePanel({ params }: { params: CalcParams }) {
       results={
         <div className="grid gap-3">
           <SubHeading>Barrel</SubHeading>
-          {radialResult ? check('Radial clearance to the barrel', radialResult) : <Waiting missing={radial.missing} invalid={Object.keys(radial.errors).length > 0} />}
+          {radialResult ? (
+            check('Radial clearance to the barrel', radialResult)
+          ) : (
+            <Waiting missing={radial.missing} invalid={Object.keys(radial.errors).length > 0} />
+          )}
           <SubHeading>Spokes</SubHeading>
-          {spokeResult ? check('Clearance to the spokes', spokeResult) : <Waiting missing={spoke.missing} invalid={Object.keys(spoke.errors).length > 0} />}
+          {spokeResult ? (
+            check('Clearance to the spokes', spokeResult)
+          ) : (
+            <Waiting missing={spoke.missing} invalid={Object.keys(spoke.errors).length > 0} />
+          )}
           <SubHeading>Largest rotor (advisory)</SubHeading>
           {maxRotor !== null ? (
             <Verdict

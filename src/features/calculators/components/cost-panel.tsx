@@ -18,7 +18,11 @@ type Row = { route: CostRoute; amount: string; item: string };
 // One query entry per line: route|amount|item (the item last, so it may hold any text).
 const decode = (entry: string): Row => {
   const [route, amount = '', ...item] = entry.split('|');
-  return { route: (COST_ROUTES as readonly string[]).includes(route) ? (route as CostRoute) : 'new_kit', amount, item: item.join('|') };
+  return {
+    route: (COST_ROUTES as readonly string[]).includes(route) ? (route as CostRoute) : 'new_kit',
+    amount,
+    item: item.join('|'),
+  };
 };
 const encode = (row: Row) => `${row.route}|${row.amount}|${row.item}`;
 
@@ -79,15 +83,27 @@ export function CostPanel({ params }: { params: CalcParams }) {
       wide
       form={
         <div className="grid gap-3">
-          <Select label="Currency" value={currency} onChange={(e) => params.set('cur', e.target.value === 'EUR' ? '' : e.target.value)} className="max-w-40">
+          <Select
+            label="Currency"
+            value={currency}
+            onChange={(e) => params.set('cur', e.target.value === 'EUR' ? '' : e.target.value)}
+            className="max-w-40"
+          >
             {CURRENCIES.map((c) => (
               <option key={c}>{c}</option>
             ))}
           </Select>
           <ol className="grid gap-3">
             {rows.map((row, i) => (
-              <li key={i} className="grid grid-cols-2 gap-2 rounded-lg border border-graphite/15 p-3 sm:grid-cols-[9rem_1fr_8rem_auto] sm:items-start sm:border-0 sm:p-0">
-                <Select label={`Route, line ${i + 1}`} value={row.route} onChange={(e) => change(i, { route: e.target.value as CostRoute })}>
+              <li
+                key={i}
+                className="grid grid-cols-2 gap-2 rounded-lg border border-graphite/15 p-3 sm:grid-cols-[9rem_1fr_8rem_auto] sm:items-start sm:border-0 sm:p-0"
+              >
+                <Select
+                  label={`Route, line ${i + 1}`}
+                  value={row.route}
+                  onChange={(e) => change(i, { route: e.target.value as CostRoute })}
+                >
                   {COST_ROUTES.map((r) => (
                     <option key={r} value={r}>
                       {costRouteLabels[r]}
@@ -123,7 +139,10 @@ export function CostPanel({ params }: { params: CalcParams }) {
             ))}
           </ol>
           <div>
-            <Button variant="secondary" onClick={() => save([...rows, { route: rows[rows.length - 1]?.route ?? 'new_kit', amount: '', item: '' }])}>
+            <Button
+              variant="secondary"
+              onClick={() => save([...rows, { route: rows[rows.length - 1]?.route ?? 'new_kit', amount: '', item: '' }])}
+            >
               Add a line
             </Button>
           </div>
@@ -153,7 +172,9 @@ export function CostPanel({ params }: { params: CalcParams }) {
                 />
               );
             })}
-            <p className="text-xs text-graphite-soft">Amounts are added up in whole cents (pence, øre…), so the totals are exact.</p>
+            <p className="text-xs text-graphite-soft">
+              Amounts are added up in whole cents (pence, øre…), so the totals are exact.
+            </p>
           </div>
         ) : (
           <Waiting

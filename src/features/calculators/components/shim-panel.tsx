@@ -29,7 +29,14 @@ export function ShimPanel({ params }: { params: CalcParams }) {
       keys={shimKeys}
       form={
         <FieldGrid>
-          <QuantityField params={params} name="gap" label="Target gap" quantity="length" placeholder="2.3" error={inputs.error('gap')} />
+          <QuantityField
+            params={params}
+            name="gap"
+            label="Target gap"
+            quantity="length"
+            placeholder="2.3"
+            error={inputs.error('gap')}
+          />
           <Select
             label="At most"
             name="maxp"

@@ -1,4 +1,10 @@
-import { boltLengthWithSpacer, parseMetricThread, threadEngagement, ENGAGEMENT_FACTOR, type HubMaterial } from '@shared/fitment/threads';
+import {
+  boltLengthWithSpacer,
+  parseMetricThread,
+  threadEngagement,
+  ENGAGEMENT_FACTOR,
+  type HubMaterial,
+} from '@shared/fitment/threads';
 import { Caution } from '../../../components/caution';
 import { Select } from '../../../components/ui/field';
 import { Figure, Verdict } from '../../../components/verdict';
@@ -53,7 +59,12 @@ export function ThreadPanel({ params }: { params: CalcParams }) {
             hint="Metric with pitch, e.g. M12x1.5 or M14×1.5"
             error={inputs.error('thread')}
           />
-          <Select label="Hub material" name="hub" value={hub} onChange={(e) => params.set('hub', e.target.value === 'steel' ? '' : e.target.value)}>
+          <Select
+            label="Hub material"
+            name="hub"
+            value={hub}
+            onChange={(e) => params.set('hub', e.target.value === 'steel' ? '' : e.target.value)}
+          >
             <option value="steel">Steel</option>
             <option value="aluminium">Aluminium</option>
           </Select>
@@ -103,7 +114,9 @@ export function ThreadPanel({ params }: { params: CalcParams }) {
               <Figure
                 label={spacerMm > 0 ? 'Bolt needed with the spacer' : 'Bolt length (no spacer)'}
                 value={length(result.neededMm, 1)}
-                note={spacerMm > 0 ? `keeps the stock engagement: ${length(boltLengthMm, 1)} + ${length(spacerMm, 1)}` : undefined}
+                note={
+                  spacerMm > 0 ? `keeps the stock engagement: ${length(boltLengthMm, 1)} + ${length(spacerMm, 1)}` : undefined
+                }
               />
               <Figure
                 label="Shortest bolt for the rule"

@@ -13,14 +13,20 @@ export function TyrePanel({ params }: { params: CalcParams }) {
   const { length, system } = useUnits();
   const inputs = new Inputs(params);
   const code = inputs.text('tyre', 'a tyre size');
-  const geometry = inputs.run(() => tyreGeometry(parseTyreSize(code)), () => 'tyre');
+  const geometry = inputs.run(
+    () => tyreGeometry(parseTyreSize(code)),
+    () => 'tyre',
+  );
 
   const compareCode = params.get('tyre2').trim();
   let compare: TyreGeometry | null = null;
   let compareError: string | undefined;
   if (compareCode) {
     const second = new Inputs(params);
-    compare = second.run(() => tyreGeometry(parseTyreSize(compareCode)), () => 'tyre2');
+    compare = second.run(
+      () => tyreGeometry(parseTyreSize(compareCode)),
+      () => 'tyre2',
+    );
     compareError = second.error('tyre2');
   }
 
@@ -66,16 +72,12 @@ export function TyrePanel({ params }: { params: CalcParams }) {
                 label={system === 'metric' ? 'Revolutions per km' : 'Revolutions per mile'}
                 value={round(system === 'metric' ? geometry.revsPerKm : geometry.revsPerMile, 1)}
                 note={
-                  system === 'metric'
-                    ? `${round(geometry.revsPerMile, 1)} per mile`
-                    : `${round(geometry.revsPerKm, 1)} per km`
+                  system === 'metric' ? `${round(geometry.revsPerMile, 1)} per mile` : `${round(geometry.revsPerKm, 1)} per km`
                 }
               />
             </ResultGrid>
             <p className="mt-2 text-xs text-graphite-soft">Nominal, unloaded sizes; a loaded tyre rolls a little smaller.</p>
-            {compare && (
-              <Comparison before={geometry} after={compare} indicated={indicated} speedUnit={speedUnit} />
-            )}
+            {compare && <Comparison before={geometry} after={compare} indicated={indicated} speedUnit={speedUnit} />}
           </>
         ) : (
           <Waiting missing={inputs.missing} invalid={Boolean(inputs.error('tyre'))} />
@@ -84,10 +86,19 @@ export function TyrePanel({ params }: { params: CalcParams }) {
       caution={<Caution topics={['wheels']} />}
     />
   );
-
 }
 
-function Comparison({ before, after, indicated, speedUnit }: { before: TyreGeometry; after: TyreGeometry; indicated: number; speedUnit: string }) {
+function Comparison({
+  before,
+  after,
+  indicated,
+  speedUnit,
+}: {
+  before: TyreGeometry;
+  after: TyreGeometry;
+  indicated: number;
+  speedUnit: string;
+}) {
   const { length } = useUnits();
   const ratio = after.diameterMm / before.diameterMm;
   const differencePct = (ratio - 1) * 100;
@@ -96,7 +107,9 @@ function Comparison({ before, after, indicated, speedUnit }: { before: TyreGeome
   const readingPct = (1 - 1 / ratio) * 100;
   const within = Math.abs(differencePct) <= 3;
   const reading =
-    Math.abs(readingPct) < 0.05 ? 'reads the same' : `reads ${round(Math.abs(readingPct), 1)} % ${readingPct > 0 ? 'low' : 'high'}`;
+    Math.abs(readingPct) < 0.05
+      ? 'reads the same'
+      : `reads ${round(Math.abs(readingPct), 1)} % ${readingPct > 0 ? 'low' : 'high'}`;
   return (
     <>
       <SubHeading>Compared with the first size</SubHeading>

@@ -35,10 +35,14 @@ export function useChassisCarMarks(chassisSlug: string, signedIn: boolean) {
 function ChassisCarIntro({ cars }: { cars: CarView[] }) {
   return (
     <div role="note" className="mb-6 rounded-lg border border-ink/20 bg-ink-faint/50 p-4 text-sm text-graphite">
-      <p className="font-bold text-ink">Checked against your {cars.length === 1 ? 'car' : 'cars'}: {cars.map((c) => `${c.nickname} (${wheelLabel(c)})`).join(', ')}</p>
+      <p className="font-bold text-ink">
+        Checked against your {cars.length === 1 ? 'car' : 'cars'}:{' '}
+        {cars.map((c) => `${c.nickname} (${wheelLabel(c)})`).join(', ')}
+      </p>
       <p className="mt-1">
-        Rule used here: a swap is marked when its recorded minimum wheel diameter is no larger than your wheel’s. Caliper-to-barrel and spoke
-        clearance, offset and wheel-bolt length are checked on each swap’s sheet under “Check my wheel”.{' '}
+        Rule used here: a swap is marked when its recorded minimum wheel diameter is no larger than your wheel’s.
+        Caliper-to-barrel and spoke clearance, offset and wheel-bolt length are checked on each swap’s sheet under “Check my
+        wheel”.{' '}
         <Link to={paths.myCars()} className="font-bold text-ink underline">
           Edit my cars
         </Link>

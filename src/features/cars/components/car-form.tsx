@@ -11,7 +11,15 @@ import { useChassisOptions } from '../api/get-cars';
 
 type Form = Record<'chassisId' | 'nickname' | 'wheelDiameterIn' | 'wheelWidthIn' | 'wheelOffsetMm' | 'tyre' | 'spacer', string>;
 
-const blank: Form = { chassisId: '', nickname: '', wheelDiameterIn: '', wheelWidthIn: '', wheelOffsetMm: '', tyre: '', spacer: '0' };
+const blank: Form = {
+  chassisId: '',
+  nickname: '',
+  wheelDiameterIn: '',
+  wheelWidthIn: '',
+  wheelOffsetMm: '',
+  tyre: '',
+  spacer: '0',
+};
 
 const fromCar = (car: CarView, imperial: boolean): Form => ({
   chassisId: String(car.chassis.id),
@@ -24,14 +32,25 @@ const fromCar = (car: CarView, imperial: boolean): Form => ({
 });
 
 /** Add or edit one car. Checked with the same schema the server uses; server field reasons show beside the fields. */
-export function CarForm({ car, saving, onSave, onCancel }: { car?: CarView; saving: boolean; onSave: (input: CarInput) => Promise<unknown>; onCancel?: () => void }) {
+export function CarForm({
+  car,
+  saving,
+  onSave,
+  onCancel,
+}: {
+  car?: CarView;
+  saving: boolean;
+  onSave: (input: CarInput) => Promise<unknown>;
+  onCancel?: () => void;
+}) {
   const units = useUnits();
   const imperial = units.system === 'imperial';
   const chassisList = useChassisOptions();
   const [form, setForm] = useState<Form>(() => (car ? fromCar(car, imperial) : blank));
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [problem, setProblem] = useState<string | null>(null);
-  const set = (key: keyof Form) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setForm((f) => ({ ...f, [key]: e.target.value }));
+  const set = (key: keyof Form) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
+    setForm((f) => ({ ...f, [key]: e.target.value }));
 
   const submit = async (e: React.FormEvent) => {
     e.preventDefault();
@@ -57,12 +76,19 @@ export function CarForm({ car, saving, onSave, onCancel }: { car?: CarView; savi
   };
 
   return (
-    <form onSubmit={submit} noValidate aria-label={car ? `Edit ${car.nickname}` : 'Add a car'} className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+    <form
+      onSubmit={submit}
+      noValidate
+      aria-label={car ? `Edit ${car.nickname}` : 'Add a car'}
+      className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3"
+    >
       <div className="sm:col-span-2 lg:col-span-1">
         <ChassisCombobox
           options={chassisList.data ?? []}
           value={chassisList.data?.find((c) => String(c.id) === form.chassisId)?.slug ?? null}
-          onChange={(slug) => setForm((f) => ({ ...f, chassisId: String(chassisList.data?.find((c) => c.slug === slug)?.id ?? '') }))}
+          onChange={(slug) =>
+            setForm((f) => ({ ...f, chassisId: String(chassisList.data?.find((c) => c.slug === slug)?.id ?? '') }))
+          }
           placeholder={chassisList.isPending ? 'Loading chassis…' : 'Make, model, code or year'}
           hint="Type to pick, e.g. H31 or 1995"
         />
@@ -72,12 +98,54 @@ export function CarForm({ car, saving, onSave, onCancel }: { car?: CarView; savi
           </p>
         )}
       </div>
-      <TextInput label="Nickname" value={form.nickname} onChange={set('nickname')} error={errors.nickname} placeholder="Green coupe" maxLength={60} />
-      <TextInput label="Tyre size" value={form.tyre} onChange={set('tyre')} error={errors.tyre} placeholder="205/55R16" hint="As on the sidewall; optional" />
-      <TextInput label="Wheel diameter (in)" inputMode="decimal" value={form.wheelDiameterIn} onChange={set('wheelDiameterIn')} error={errors.wheelDiameterIn} placeholder="16" />
-      <TextInput label="Wheel width (in)" inputMode="decimal" value={form.wheelWidthIn} onChange={set('wheelWidthIn')} error={errors.wheelWidthIn} placeholder="7" />
-      <TextInput label="Offset ET (mm)" inputMode="decimal" value={form.wheelOffsetMm} onChange={set('wheelOffsetMm')} error={errors.wheelOffsetMm} placeholder="38" />
-      <TextInput label={`Spacer fitted (${units.lengthUnit})`} inputMode="decimal" value={form.spacer} onChange={set('spacer')} error={errors.spacerMm} hint="0 when none" />
+      <TextInput
+        label="Nickname"
+        value={form.nickname}
+        onChange={set('nickname')}
+        error={errors.nickname}
+        placeholder="Green coupe"
+        maxLength={60}
+      />
+      <TextInput
+        label="Tyre size"
+        value={form.tyre}
+        onChange={set('tyre')}
+        error={errors.tyre}
+        placeholder="205/55R16"
+        hint="As on the sidewall; optional"
+      />
+      <TextInput
+        label="Wheel diameter (in)"
+        inputMode="decimal"
+        value={form.wheelDiameterIn}
+        onChange={set('wheelDiameterIn')}
+        error={errors.wheelDiameterIn}
+        placeholder="16"
+      />
+      <TextInput
+        label="Wheel width (in)"
+        inputMode="decimal"
+        value={form.wheelWidthIn}
+        onChange={set('wheelWidthIn')}
+        error={errors.wheelWidthIn}
+        placeholder="7"
+      />
+      <TextInput
+        label="Offset ET (mm)"
+        inputMode="decimal"
+        value={form.wheelOffsetMm}
+        onChange={set('wheelOffsetMm')}
+        error={errors.wheelOffsetMm}
+        placeholder="38"
+      />
+      <TextInput
+        label={`Spacer fitted (${units.lengthUnit})`}
+        inputMode="decimal"
+        value={form.spacer}
+        onChange={set('spacer')}
+        error={errors.spacerMm}
+        hint="0 when none"
+      />
       <div className="flex flex-wrap items-end gap-2 sm:col-span-2 lg:col-span-3">
         <Button type="submit" disabled={saving}>
           {saving ? 'Saving…' : car ? 'Save changes' : 'Add car'}

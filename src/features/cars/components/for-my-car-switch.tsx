@@ -10,7 +10,9 @@ export function ForMyCarSwitch({ signedIn }: { signedIn: boolean }) {
   const cars = useMyCars(signedIn);
   const [params, setParams] = useSearchParams();
   if (!signedIn || !cars.data || cars.data.length === 0) return null;
-  const active = cars.data.find((c) => params.get('chassis') === c.chassis.slug && params.get('wheel') === String(c.wheelDiameterIn));
+  const active = cars.data.find(
+    (c) => params.get('chassis') === c.chassis.slug && params.get('wheel') === String(c.wheelDiameterIn),
+  );
 
   const choose = (id: string) => {
     const next = new URLSearchParams(params);

@@ -11,7 +11,8 @@ import { useMyCars } from '../api/get-cars';
 import { useCreateCar, useDeleteCar, useUpdateCar } from '../api/save-car';
 import { CarForm } from './car-form';
 
-export const wheelLabel = (w: { wheelDiameterIn: number; wheelWidthIn: number; wheelOffsetMm: number }) => `${w.wheelDiameterIn}×${w.wheelWidthIn} ET${w.wheelOffsetMm}`;
+export const wheelLabel = (w: { wheelDiameterIn: number; wheelWidthIn: number; wheelOffsetMm: number }) =>
+  `${w.wheelDiameterIn}×${w.wheelWidthIn} ET${w.wheelOffsetMm}`;
 
 export default function MyCarsPage() {
   const cars = useMyCars();
@@ -28,7 +29,9 @@ export default function MyCarsPage() {
         ) : cars.isError ? (
           <ErrorNotice error={cars.error} />
         ) : cars.data.length === 0 ? (
-          <p className="rounded-lg border border-dashed border-ink/25 bg-paper-card p-6 text-graphite">No cars yet. Add the first one below.</p>
+          <p className="rounded-lg border border-dashed border-ink/25 bg-paper-card p-6 text-graphite">
+            No cars yet. Add the first one below.
+          </p>
         ) : (
           <ul className="grid gap-4 md:grid-cols-2" aria-label="Your cars">
             {cars.data.map((car) => (
@@ -59,7 +62,12 @@ function CarCard({ car }: { car: CarView }) {
   if (editing) {
     return (
       <div className="rounded-xl border border-ink/30 bg-paper-card p-4">
-        <CarForm car={car} saving={update.isPending} onSave={(input) => update.mutateAsync({ id: car.id, input }).then(() => setEditing(false))} onCancel={() => setEditing(false)} />
+        <CarForm
+          car={car}
+          saving={update.isPending}
+          onSave={(input) => update.mutateAsync({ id: car.id, input }).then(() => setEditing(false))}
+          onCancel={() => setEditing(false)}
+        />
       </div>
     );
   }
@@ -104,7 +112,10 @@ function CarCard({ car }: { car: CarView }) {
             Remove
           </Button>
         )}
-        <Link to={paths.search(`chassis=${car.chassis.slug}&wheel=${car.wheelDiameterIn}`)} className="ml-auto text-sm font-bold text-ink underline">
+        <Link
+          to={paths.search(`chassis=${car.chassis.slug}&wheel=${car.wheelDiameterIn}`)}
+          className="ml-auto text-sm font-bold text-ink underline"
+        >
           Swaps for this car
         </Link>
       </div>

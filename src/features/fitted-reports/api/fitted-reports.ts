@@ -8,12 +8,23 @@ export const fittedKeys = {
 };
 
 export const fittedReportsQueryOptions = (slug: string) =>
-  queryOptions({ queryKey: fittedKeys.forSwap(slug), queryFn: () => api<FittedReportsView>(`/api/swaps/${slug}/fitted-reports`) });
+  queryOptions({
+    queryKey: fittedKeys.forSwap(slug),
+    queryFn: () => api<FittedReportsView>(`/api/swaps/${slug}/fitted-reports`),
+  });
 
 export const useFittedReports = (slug: string) => useQuery(fittedReportsQueryOptions(slug));
 
 /** Fields as the form has them; sent as multipart when a photo comes along, JSON otherwise. */
-export type ReportFields = { revisionNumber: number; diameterIn: string; widthIn: string; offsetMm: string; spacerMm: number; note: string; removePhoto?: boolean };
+export type ReportFields = {
+  revisionNumber: number;
+  diameterIn: string;
+  widthIn: string;
+  offsetMm: string;
+  spacerMm: number;
+  note: string;
+  removePhoto?: boolean;
+};
 
 function payload(fields: ReportFields, photo: File | null) {
   if (!photo) return fields;
@@ -53,7 +64,8 @@ export const useDeleteFittedReport = (slug: string, onChanged?: () => void) => {
 export const useHideFittedReport = (slug: string, onChanged?: () => void) => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, hidden }: { id: number; hidden: boolean }) => api<{ id: number; hidden: boolean }>(`/api/fitted-reports/${id}/${hidden ? 'hide' : 'unhide'}`, { method: 'POST' }),
+    mutationFn: ({ id, hidden }: { id: number; hidden: boolean }) =>
+      api<{ id: number; hidden: boolean }>(`/api/fitted-reports/${id}/${hidden ? 'hide' : 'unhide'}`, { method: 'POST' }),
     onSuccess: () => {
       void qc.invalidateQueries({ queryKey: fittedKeys.forSwap(slug) });
       onChanged?.();

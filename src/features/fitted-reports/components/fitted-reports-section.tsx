@@ -10,7 +10,13 @@ import { Loading } from '../../../components/ui/query-state';
 import { ApiError } from '../../../lib/api-client';
 import { useUnits } from '../../../lib/units';
 import { paths } from '../../../config/paths';
-import { useDeleteFittedReport, useFittedReports, useHideFittedReport, useSaveFittedReport, type ReportFields } from '../api/fitted-reports';
+import {
+  useDeleteFittedReport,
+  useFittedReports,
+  useHideFittedReport,
+  useSaveFittedReport,
+  type ReportFields,
+} from '../api/fitted-reports';
 
 type Props = {
   slug: string;
@@ -24,7 +30,8 @@ const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: '
 
 export function useWheelText() {
   const units = useUnits();
-  return (w: FittedWheelView) => `${w.diameterIn}×${w.widthIn} ET${w.offsetMm}${w.spacerMm > 0 ? ` + ${units.length(w.spacerMm)} spacer` : ''}`;
+  return (w: FittedWheelView) =>
+    `${w.diameterIn}×${w.widthIn} ET${w.offsetMm}${w.spacerMm > 0 ? ` + ${units.length(w.spacerMm)} spacer` : ''}`;
 }
 
 /** "Fitted by members": the count, the wheels people run, how far the record is verified, and the member's own report. */
@@ -65,11 +72,15 @@ function FittedReportsBody({ view, slug, revisions, shownNumber, onChanged }: Pr
           <h3 className="text-sm font-bold uppercase tracking-wide text-graphite-soft">How far this record is verified</h3>
           <ul className="mt-2 space-y-1.5 text-sm" aria-label="Verification">
             <li>
-              <span aria-hidden className="font-bold text-ink">✓ </span>
+              <span aria-hidden className="font-bold text-ink">
+                ✓{' '}
+              </span>
               <strong>Reviewed by a moderator</strong> before it was published.
             </li>
             <li>
-              <span aria-hidden className={`font-bold ${v.fittedBy > 0 ? 'text-ink' : 'text-graphite-soft'}`}>{v.fittedBy > 0 ? '✓ ' : '○ '}</span>
+              <span aria-hidden className={`font-bold ${v.fittedBy > 0 ? 'text-ink' : 'text-graphite-soft'}`}>
+                {v.fittedBy > 0 ? '✓ ' : '○ '}
+              </span>
               {v.fittedBy > 0 ? (
                 <>
                   <strong>
@@ -82,10 +93,13 @@ function FittedReportsBody({ view, slug, revisions, shownNumber, onChanged }: Pr
               )}
             </li>
             <li>
-              <span aria-hidden className={`font-bold ${v.withPhotos > 0 ? 'text-ink' : 'text-graphite-soft'}`}>{v.withPhotos > 0 ? '✓ ' : '○ '}</span>
+              <span aria-hidden className={`font-bold ${v.withPhotos > 0 ? 'text-ink' : 'text-graphite-soft'}`}>
+                {v.withPhotos > 0 ? '✓ ' : '○ '}
+              </span>
               {v.withPhotos > 0 ? (
                 <>
-                  <strong>With photos:</strong> {v.withPhotos} {v.withPhotos === 1 ? 'report shows' : 'reports show'} the parts on the car.
+                  <strong>With photos:</strong> {v.withPhotos} {v.withPhotos === 1 ? 'report shows' : 'reports show'} the parts on
+                  the car.
                 </>
               ) : (
                 'No report has a photo yet.'
@@ -129,25 +143,50 @@ function FittedReportsBody({ view, slug, revisions, shownNumber, onChanged }: Pr
   );
 }
 
-function ReportCard({ report, slug, canModerate, onChanged }: { report: FittedReportView; slug: string; canModerate: boolean; onChanged?: () => void }) {
+function ReportCard({
+  report,
+  slug,
+  canModerate,
+  onChanged,
+}: {
+  report: FittedReportView;
+  slug: string;
+  canModerate: boolean;
+  onChanged?: () => void;
+}) {
   const wheelText = useWheelText();
   const hide = useHideFittedReport(slug, onChanged);
   return (
-    <article className={`flex h-full gap-3 rounded-lg border p-3 ${report.hidden ? 'border-oxide/40 bg-oxide-soft/40' : 'border-ink/10 bg-paper-card'}`}>
+    <article
+      className={`flex h-full gap-3 rounded-lg border p-3 ${report.hidden ? 'border-oxide/40 bg-oxide-soft/40' : 'border-ink/10 bg-paper-card'}`}
+    >
       {report.photo && (
         <a href={report.photo.url} target="_blank" rel="noopener" className="shrink-0">
-          <img src={report.photo.thumbUrl} alt={`Photo from ${report.member.name}`} loading="lazy" className="h-20 w-20 rounded-md bg-paper-deep object-cover" />
+          <img
+            src={report.photo.thumbUrl}
+            alt={`Photo from ${report.member.name}`}
+            loading="lazy"
+            className="h-20 w-20 rounded-md bg-paper-deep object-cover"
+          />
         </a>
       )}
       <div className="min-w-0 flex-1 text-sm">
         <p>
-          <strong className="text-ink">{report.member.name}</strong> <span className="text-graphite-soft">· revision {report.revisionNumber} · {date(report.createdAt)}</span>
+          <strong className="text-ink">{report.member.name}</strong>{' '}
+          <span className="text-graphite-soft">
+            · revision {report.revisionNumber} · {date(report.createdAt)}
+          </span>
         </p>
         <p className="tabular font-bold">{wheelText(report.wheel)}</p>
         {report.note && <p className="mt-1 whitespace-pre-line text-graphite">{report.note}</p>}
         {report.hidden && <p className="mt-1 text-xs font-bold text-oxide">Hidden by a moderator</p>}
         {canModerate && (
-          <Button variant="quiet" className="mt-1 !min-h-8 !px-2 text-xs" disabled={hide.isPending} onClick={() => hide.mutate({ id: report.id, hidden: !report.hidden })}>
+          <Button
+            variant="quiet"
+            className="mt-1 !min-h-8 !px-2 text-xs"
+            disabled={hide.isPending}
+            onClick={() => hide.mutate({ id: report.id, hidden: !report.hidden })}
+          >
             {report.hidden ? 'Show again' : 'Hide report'}
           </Button>
         )}
@@ -196,12 +235,29 @@ function MyReport({ view, slug, revisions, shownNumber, onChanged }: Props & { v
       </p>
     );
   }
-  if (view.cannotReport === 'author') return <p className="text-sm text-graphite-soft">You wrote this swap; fitted reports come from other members.</p>;
+  if (view.cannotReport === 'author')
+    return <p className="text-sm text-graphite-soft">You wrote this swap; fitted reports come from other members.</p>;
   if (view.cannotReport) return null;
-  return <ReportForm view={view} slug={slug} revisions={revisions} shownNumber={shownNumber} onChanged={onChanged} onDone={() => setEditing(false)} />;
+  return (
+    <ReportForm
+      view={view}
+      slug={slug}
+      revisions={revisions}
+      shownNumber={shownNumber}
+      onChanged={onChanged}
+      onDone={() => setEditing(false)}
+    />
+  );
 }
 
-function ReportForm({ view, slug, revisions, shownNumber, onChanged, onDone }: Props & { view: FittedReportsView; onDone: () => void }) {
+function ReportForm({
+  view,
+  slug,
+  revisions,
+  shownNumber,
+  onChanged,
+  onDone,
+}: Props & { view: FittedReportsView; onDone: () => void }) {
   const units = useUnits();
   const imperial = units.system === 'imperial';
   const mine = view.mine;
@@ -217,13 +273,22 @@ function ReportForm({ view, slug, revisions, shownNumber, onChanged, onDone }: P
   const [photo, setPhoto] = useState<File | null>(null);
   const [removePhoto, setRemovePhoto] = useState(false);
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement | HTMLTextAreaElement | HTMLSelectElement>) => setForm((f) => ({ ...f, [k]: e.target.value }));
+  const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement | HTMLTextAreaElement | HTMLSelectElement>) =>
+    setForm((f) => ({ ...f, [k]: e.target.value }));
 
   const submit = async (e: React.FormEvent) => {
     e.preventDefault();
     const raw = form.spacer.trim().replace(',', '.');
     const spacerMm = raw === '' ? 0 : imperial ? Math.round(inToMm(Number(raw)) * 10) / 10 : Number(raw);
-    const fields: ReportFields = { revisionNumber: Number(form.revisionNumber), diameterIn: form.diameterIn, widthIn: form.widthIn, offsetMm: form.offsetMm, spacerMm, note: form.note, ...(removePhoto ? { removePhoto } : {}) };
+    const fields: ReportFields = {
+      revisionNumber: Number(form.revisionNumber),
+      diameterIn: form.diameterIn,
+      widthIn: form.widthIn,
+      offsetMm: form.offsetMm,
+      spacerMm,
+      note: form.note,
+      ...(removePhoto ? { removePhoto } : {}),
+    };
     const parsed = createFittedReportSchema.safeParse(fields);
     if (!parsed.success) return setErrors(fieldErrors(parsed.error.issues));
     setErrors({});
@@ -237,22 +302,71 @@ function ReportForm({ view, slug, revisions, shownNumber, onChanged, onDone }: P
   };
 
   return (
-    <form onSubmit={submit} noValidate aria-label={mine ? 'Edit my fitted report' : 'I fitted this too'} className="rounded-xl border border-ink/15 bg-paper-card p-4">
+    <form
+      onSubmit={submit}
+      noValidate
+      aria-label={mine ? 'Edit my fitted report' : 'I fitted this too'}
+      className="rounded-xl border border-ink/15 bg-paper-card p-4"
+    >
       <h3 className="text-base font-extrabold text-ink">{mine ? 'Edit my fitted report' : 'I fitted this too'}</h3>
-      <p className="mt-1 text-sm text-graphite-soft">Say which revision you followed and the wheel you run with it. One report per member; you can change or remove it later.</p>
+      <p className="mt-1 text-sm text-graphite-soft">
+        Say which revision you followed and the wheel you run with it. One report per member; you can change or remove it later.
+      </p>
       <div className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-5">
-        <Select label="Revision followed" value={form.revisionNumber} onChange={set('revisionNumber')} error={errors.revisionNumber} className="col-span-2 sm:col-span-1">
+        <Select
+          label="Revision followed"
+          value={form.revisionNumber}
+          onChange={set('revisionNumber')}
+          error={errors.revisionNumber}
+          className="col-span-2 sm:col-span-1"
+        >
           {revisions.map((r) => (
             <option key={r.number} value={r.number}>
               Revision {r.number}
             </option>
           ))}
         </Select>
-        <TextInput label="Diameter (in)" inputMode="decimal" value={form.diameterIn} onChange={set('diameterIn')} error={errors.diameterIn} placeholder="16" />
-        <TextInput label="Width (in)" inputMode="decimal" value={form.widthIn} onChange={set('widthIn')} error={errors.widthIn} placeholder="7" />
-        <TextInput label="Offset ET (mm)" inputMode="decimal" value={form.offsetMm} onChange={set('offsetMm')} error={errors.offsetMm} placeholder="38" />
-        <TextInput label={`Spacer (${units.lengthUnit})`} inputMode="decimal" value={form.spacer} onChange={set('spacer')} error={errors.spacerMm} />
-        <TextArea label="Note" rows={2} value={form.note} onChange={set('note')} error={errors.note} maxLength={1000} hint="What you would tell the next person (optional)" className="col-span-2 sm:col-span-3" />
+        <TextInput
+          label="Diameter (in)"
+          inputMode="decimal"
+          value={form.diameterIn}
+          onChange={set('diameterIn')}
+          error={errors.diameterIn}
+          placeholder="16"
+        />
+        <TextInput
+          label="Width (in)"
+          inputMode="decimal"
+          value={form.widthIn}
+          onChange={set('widthIn')}
+          error={errors.widthIn}
+          placeholder="7"
+        />
+        <TextInput
+          label="Offset ET (mm)"
+          inputMode="decimal"
+          value={form.offsetMm}
+          onChange={set('offsetMm')}
+          error={errors.offsetMm}
+          placeholder="38"
+        />
+        <TextInput
+          label={`Spacer (${units.lengthUnit})`}
+          inputMode="decimal"
+          value={form.spacer}
+          onChange={set('spacer')}
+          error={errors.spacerMm}
+        />
+        <TextArea
+          label="Note"
+          rows={2}
+          value={form.note}
+          onChange={set('note')}
+          error={errors.note}
+          maxLength={1000}
+          hint="What you would tell the next person (optional)"
+          className="col-span-2 sm:col-span-3"
+        />
         <div className="col-span-2 flex flex-col gap-1">
           <label htmlFor="fitted-photo" className="text-sm font-bold text-graphite">
             Photo (optional)
@@ -273,7 +387,8 @@ function ReportForm({ view, slug, revisions, shownNumber, onChanged, onDone }: P
           )}
           {mine?.photo && !photo && (
             <label className="flex items-center gap-2 text-sm">
-              <input type="checkbox" checked={removePhoto} onChange={(e) => setRemovePhoto(e.target.checked)} /> Remove my current photo
+              <input type="checkbox" checked={removePhoto} onChange={(e) => setRemovePhoto(e.target.checked)} /> Remove my current
+              photo
             </label>
           )}
         </div>

@@ -8,7 +8,8 @@ export const searchKeys = {
   query: (version: number, request: SearchRequest) => ['search-index', 'query', version, request] as const,
 };
 
-export type SearchIndexFetch = { status: 'unchanged' } | { status: 'fresh'; etag: string | null; documents: SearchIndexResponse['documents'] };
+export type SearchIndexFetch =
+  { status: 'unchanged' } | { status: 'fresh'; etag: string | null; documents: SearchIndexResponse['documents'] };
 
 /**
  * Reads the index, revalidating with the ETag the caller holds. Runs inside the search worker, so the

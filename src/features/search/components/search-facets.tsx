@@ -1,5 +1,11 @@
 import type { ReactNode } from 'react';
-import { costBuckets, type FacetValue, type FilterKey, type SearchFacets, type SearchFilters } from '@shared/search/search-engine';
+import {
+  costBuckets,
+  type FacetValue,
+  type FilterKey,
+  type SearchFacets,
+  type SearchFilters,
+} from '@shared/search/search-engine';
 import { ChassisCombobox, type ChassisOption } from '../../../components/chassis-combobox';
 import { formatMoney } from '../../../lib/money';
 
@@ -31,7 +37,17 @@ function Group({ title, children, hint }: { title: string; children: ReactNode; 
   );
 }
 
-function Options({ values, selected, onPick, label = (v) => v.label }: { values: FacetValue[]; selected: string | undefined; onPick: (v: string | undefined) => void; label?: (v: FacetValue) => string }) {
+function Options({
+  values,
+  selected,
+  onPick,
+  label = (v) => v.label,
+}: {
+  values: FacetValue[];
+  selected: string | undefined;
+  onPick: (v: string | undefined) => void;
+  label?: (v: FacetValue) => string;
+}) {
   if (values.length === 0) return <p className="text-sm text-graphite-soft">None in these results.</p>;
   return (
     <ul className="flex flex-col gap-0.5">
@@ -48,7 +64,9 @@ function Options({ values, selected, onPick, label = (v) => v.label }: { values:
               }`}
             >
               <span>{label(v)}</span>
-              <span className={`tabular text-xs font-bold ${on ? 'text-paper/80' : 'text-graphite-soft'}`}>{v.count.toLocaleString('en-GB')}</span>
+              <span className={`tabular text-xs font-bold ${on ? 'text-paper/80' : 'text-graphite-soft'}`}>
+                {v.count.toLocaleString('en-GB')}
+              </span>
             </button>
           </li>
         );
@@ -100,7 +118,11 @@ export function SearchFacetsPanel({ facets, filters, chassis, currency, onChange
         <Options values={facets.category} selected={filters.category} onPick={pick('category')} />
       </Group>
       <Group title="Fits my wheel" hint="Swaps whose minimum wheel diameter is at most yours.">
-        <Options values={facets.wheel} selected={filters.wheel === undefined ? undefined : String(filters.wheel)} onPick={pick('wheel')} />
+        <Options
+          values={facets.wheel}
+          selected={filters.wheel === undefined ? undefined : String(filters.wheel)}
+          onPick={pick('wheel')}
+        />
       </Group>
       <Group title="Machining">
         <Options values={facets.machining} selected={filters.machining} onPick={pick('machining')} />
@@ -109,7 +131,12 @@ export function SearchFacetsPanel({ facets, filters, chassis, currency, onChange
         <Options values={facets.parkingBrake} selected={filters.parkingBrake} onPick={pick('parkingBrake')} />
       </Group>
       <Group title="Cheapest route">
-        <Options values={facets.cost} selected={filters.cost} onPick={pick('cost')} label={(v) => costBucketLabel(v.value, currency)} />
+        <Options
+          values={facets.cost}
+          selected={filters.cost}
+          onPick={pick('cost')}
+          label={(v) => costBucketLabel(v.value, currency)}
+        />
       </Group>
     </div>
   );

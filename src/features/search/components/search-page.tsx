@@ -75,7 +75,8 @@ export default function SearchPage() {
   }, []);
 
   const go = (next: SearchState, replace = false) => setParams(writeState(next), { replace, preventScrollReset: replace });
-  const setFilter = (key: FilterKey, value: string | number | undefined) => go({ ...state, filters: withFilter(state.filters, key, value), page: 1 });
+  const setFilter = (key: FilterKey, value: string | number | undefined) =>
+    go({ ...state, filters: withFilter(state.filters, key, value), page: 1 });
 
   const onType = (value: string) => {
     setText(value);
@@ -139,7 +140,10 @@ export default function SearchPage() {
             placeholder="Chassis code, car or part number — H31, Vela caliper, OV-355-104-L"
             className="min-h-12 w-full rounded-lg border border-ink/25 bg-paper-card px-4 pr-12 text-base text-graphite shadow-inner placeholder:text-graphite-soft/70 focus:border-ink"
           />
-          <kbd className="pointer-events-none absolute right-3 top-1/2 hidden -translate-y-1/2 rounded border border-graphite/25 px-1.5 text-xs text-graphite-soft sm:block" aria-hidden>
+          <kbd
+            className="pointer-events-none absolute right-3 top-1/2 hidden -translate-y-1/2 rounded border border-graphite/25 px-1.5 text-xs text-graphite-soft sm:block"
+            aria-hidden
+          >
             /
           </kbd>
         </div>
@@ -168,7 +172,10 @@ export default function SearchPage() {
             >
               {filtersOpen ? 'Hide filters' : `Filters${activeFilters.length ? ` (${activeFilters.length})` : ''}`}
             </Button>
-            <div id="search-facets" className={`${filtersOpen ? 'mt-4 block' : 'hidden'} rounded-xl border border-ink/10 bg-paper-card p-4 lg:mt-0 lg:block lg:border-0 lg:bg-transparent lg:p-0`}>
+            <div
+              id="search-facets"
+              className={`${filtersOpen ? 'mt-4 block' : 'hidden'} rounded-xl border border-ink/10 bg-paper-card p-4 lg:mt-0 lg:block lg:border-0 lg:bg-transparent lg:p-0`}
+            >
               <SearchFacetsPanel
                 facets={data.facets}
                 filters={state.filters}
@@ -225,13 +232,23 @@ export default function SearchPage() {
             )}
 
             {data.relaxed && (
-              <p role="status" className="mb-4 rounded-lg border-l-4 border-brass bg-brass-soft/50 px-4 py-3 text-sm text-graphite">
-                No swap matches every word of “{state.q}”. These match some of them — check the spelling of a code or part number, or drop a word.
+              <p
+                role="status"
+                className="mb-4 rounded-lg border-l-4 border-brass bg-brass-soft/50 px-4 py-3 text-sm text-graphite"
+              >
+                No swap matches every word of “{state.q}”. These match some of them — check the spelling of a code or part number,
+                or drop a word.
               </p>
             )}
 
             {data.total === 0 ? (
-              <NoResults state={state} data={data} info={info} onRemove={(k) => setFilter(k, undefined)} onClearQuery={() => onType('')} />
+              <NoResults
+                state={state}
+                data={data}
+                info={info}
+                onRemove={(k) => setFilter(k, undefined)}
+                onClearQuery={() => onType('')}
+              />
             ) : (
               <>
                 <ol id="search-results" ref={listRef} onKeyDown={onListKey} className="flex flex-col gap-3" aria-label="Results">
@@ -249,7 +266,11 @@ export default function SearchPage() {
                     <span className="tabular text-sm text-graphite-soft">
                       Page {state.page} of {pages}
                     </span>
-                    <Button variant="secondary" disabled={state.page >= pages} onClick={() => go({ ...state, page: state.page + 1 })}>
+                    <Button
+                      variant="secondary"
+                      disabled={state.page >= pages}
+                      onClick={() => go({ ...state, page: state.page + 1 })}
+                    >
                       Next
                     </Button>
                   </nav>

@@ -6,12 +6,13 @@ import { chassisLabel } from '../../../components/swap-card';
 import { paths } from '../../../config/paths';
 import { formatMoney } from '../../../lib/money';
 
-
 const wholeMoney = (minor: number, currency: string) => formatMoney(minor, currency, { whole: true });
 
 export function costText(cost: SearchDocument['cost']) {
   if (!cost) return null;
-  return cost.min === cost.max ? wholeMoney(cost.min, cost.currency) : `${wholeMoney(cost.min, cost.currency)} – ${wholeMoney(cost.max, cost.currency)}`;
+  return cost.min === cost.max
+    ? wholeMoney(cost.min, cost.currency)
+    : `${wholeMoney(cost.min, cost.currency)} – ${wholeMoney(cost.max, cost.currency)}`;
 }
 
 /** One result: title, chassis, the specs people filter by, and the parts that make it up. */
@@ -23,7 +24,9 @@ export function SearchResult({ doc }: { doc: SearchDocument }) {
       <div className="flex flex-wrap items-center gap-1.5">
         <Badge tone="ink">{doc.axle === 'front' ? 'Front axle' : 'Rear axle'}</Badge>
         <Badge tone="plain">{categoryLabels[doc.category]}</Badge>
-        {doc.machining !== 'none' && <Badge tone={doc.machining === 'major' ? 'oxide' : 'brass'}>{machiningLevelLabels[doc.machining]}</Badge>}
+        {doc.machining !== 'none' && (
+          <Badge tone={doc.machining === 'major' ? 'oxide' : 'brass'}>{machiningLevelLabels[doc.machining]}</Badge>
+        )}
       </div>
       <h3 className="mt-2 text-lg font-extrabold leading-snug text-ink">
         <Link to={paths.swap(doc.slug)} data-result-link className="after:absolute after:inset-0 focus:outline-none">
@@ -69,7 +72,9 @@ export function SearchResult({ doc }: { doc: SearchDocument }) {
         <div className="flex gap-1">
           <dt>Approved</dt>
           <dd className="font-bold text-graphite">
-            <time dateTime={doc.updatedAt}>{new Date(doc.updatedAt).toLocaleDateString('en-GB', { year: 'numeric', month: 'short', day: 'numeric' })}</time>
+            <time dateTime={doc.updatedAt}>
+              {new Date(doc.updatedAt).toLocaleDateString('en-GB', { year: 'numeric', month: 'short', day: 'numeric' })}
+            </time>
           </dd>
         </div>
       </dl>

@@ -1,4 +1,11 @@
-import { cleanFilters, filterKeys, searchSorts, type FilterKey, type SearchFilters, type SearchSort } from '@shared/search/search-engine';
+import {
+  cleanFilters,
+  filterKeys,
+  searchSorts,
+  type FilterKey,
+  type SearchFilters,
+  type SearchSort,
+} from '@shared/search/search-engine';
 
 // The whole search lives in the address: ?q=&make=&model=&chassis=&axle=&category=&wheel=&machining=&pb=&cost=&sort=&page=
 

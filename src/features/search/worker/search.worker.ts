@@ -29,7 +29,9 @@ async function load(): Promise<IndexInfo> {
     version: (info?.version ?? 0) + 1,
     documentCount: got.documents.length,
     buildMs: Math.round(performance.now() - t0),
-    chassis: [...chassis.values()].sort((a, b) => `${a.make} ${a.model} ${a.code}`.localeCompare(`${b.make} ${b.model} ${b.code}`)),
+    chassis: [...chassis.values()].sort((a, b) =>
+      `${a.make} ${a.model} ${a.code}`.localeCompare(`${b.make} ${b.model} ${b.code}`),
+    ),
     currency: currencies.size === 1 ? [...currencies][0] : null,
   };
   return info;

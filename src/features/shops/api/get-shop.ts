@@ -11,7 +11,8 @@ export const useShopPage = (slug: string) => useQuery(shopPageQueryOptions(slug)
 export const useUpdateShop = (slug: string) => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: UpdateShop) => api<{ shop: ShopView }>(`/api/shops/${slug}`, { method: 'PATCH', body: input }).then((r) => r.shop),
+    mutationFn: (input: UpdateShop) =>
+      api<{ shop: ShopView }>(`/api/shops/${slug}`, { method: 'PATCH', body: input }).then((r) => r.shop),
     onSuccess: () => qc.invalidateQueries({ queryKey: shopKeys.page(slug) }),
   });
 };

@@ -9,16 +9,23 @@ export const shopLinksQueryOptions = () =>
 export const useShopLinks = () => useQuery(shopLinksQueryOptions());
 
 export const pinnedSheetQueryOptions = (code: string) =>
-  queryOptions({ queryKey: shopKeys.pinned(code), queryFn: () => api<PinnedSheetView>(`/api/l/${encodeURIComponent(code)}`), retry: false });
+  queryOptions({
+    queryKey: shopKeys.pinned(code),
+    queryFn: () => api<PinnedSheetView>(`/api/l/${encodeURIComponent(code)}`),
+    retry: false,
+  });
 
-export const usePinnedSheet = (code: string | null) => useQuery({ ...pinnedSheetQueryOptions(code ?? ''), enabled: Boolean(code) });
+export const usePinnedSheet = (code: string | null) =>
+  useQuery({ ...pinnedSheetQueryOptions(code ?? ''), enabled: Boolean(code) });
 
-export const qrUrl = (code: string, type: 'png' | 'svg', download = false) => `/api/shop-links/${code}/qr.${type}${download ? '?download=1' : ''}`;
+export const qrUrl = (code: string, type: 'png' | 'svg', download = false) =>
+  `/api/shop-links/${code}/qr.${type}${download ? '?download=1' : ''}`;
 
 export const useCreateShopLink = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: CreateShopLink) => api<{ link: ShopLinkItem }>('/api/shop-links', { method: 'POST', body: input }).then((r) => r.link),
+    mutationFn: (input: CreateShopLink) =>
+      api<{ link: ShopLinkItem }>('/api/shop-links', { method: 'POST', body: input }).then((r) => r.link),
     onSuccess: () => qc.invalidateQueries({ queryKey: shopKeys.all }),
   });
 };
@@ -35,7 +42,8 @@ export const useUpdateShopLink = () => {
 export const useRetireShopLink = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (code: string) => api<{ link: ShopLinkItem }>(`/api/shop-links/${code}/retire`, { method: 'POST' }).then((r) => r.link),
+    mutationFn: (code: string) =>
+      api<{ link: ShopLinkItem }>(`/api/shop-links/${code}/retire`, { method: 'POST' }).then((r) => r.link),
     onSuccess: () => qc.invalidateQueries({ queryKey: shopKeys.all }),
   });
 };

@@ -9,21 +9,37 @@ import { useCreateShopLink } from '../api/shop-links';
 import { QrDownloads } from './qr-downloads';
 
 /** On a swap sheet, for shop accounts: a short link pinned to the swap's current revision, with a note to the customer. */
-export function MakeShopLinkPanel({ swapSlug, shownNumber, currentNumber, shopName }: { swapSlug: string; shownNumber: number; currentNumber: number | null; shopName: string }) {
+export function MakeShopLinkPanel({
+  swapSlug,
+  shownNumber,
+  currentNumber,
+  shopName,
+}: {
+  swapSlug: string;
+  shownNumber: number;
+  currentNumber: number | null;
+  shopName: string;
+}) {
   const create = useCreateShopLink();
   const [note, setNote] = useState('');
   const [made, setMade] = useState<ShopLinkItem | null>(null);
   const [copied, setCopied] = useState(false);
 
   return (
-    <section id="shop-link" aria-labelledby="shop-link-h" className="no-print rounded-xl border border-brass/60 bg-brass-soft/25 p-4 sm:p-5">
+    <section
+      id="shop-link"
+      aria-labelledby="shop-link-h"
+      className="no-print rounded-xl border border-brass/60 bg-brass-soft/25 p-4 sm:p-5"
+    >
       <h2 id="shop-link-h" className="text-lg font-extrabold text-ink">
         Make a shop link
       </h2>
       <p className="mt-1 text-sm text-graphite">
         A short link for {shopName}’s customers, pinned to revision {currentNumber ?? shownNumber}
-        {currentNumber !== null && currentNumber !== shownNumber ? ' (the current one, not the older revision you are reading)' : ', the current one'}. It keeps
-        showing that revision even after newer ones are approved, with a notice that says so.
+        {currentNumber !== null && currentNumber !== shownNumber
+          ? ' (the current one, not the older revision you are reading)'
+          : ', the current one'}
+        . It keeps showing that revision even after newer ones are approved, with a notice that says so.
       </p>
       {made ? (
         <div className="mt-4 grid gap-3" role="status">
@@ -35,7 +51,12 @@ export function MakeShopLinkPanel({ swapSlug, shownNumber, currentNumber, shopNa
             <button
               type="button"
               className="ml-1 text-sm font-bold text-ink underline"
-              onClick={() => navigator.clipboard?.writeText(made.url).then(() => setCopied(true), () => setCopied(false))}
+              onClick={() =>
+                navigator.clipboard?.writeText(made.url).then(
+                  () => setCopied(true),
+                  () => setCopied(false),
+                )
+              }
             >
               {copied ? 'Copied' : 'Copy'}
             </button>

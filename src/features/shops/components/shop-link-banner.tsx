@@ -4,13 +4,17 @@ import { Markdown } from '../../../components/markdown';
 import { paths } from '../../../config/paths';
 import { qrUrl } from '../api/shop-links';
 
-const date = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—');
+const date = (iso: string | null) =>
+  iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—';
 
 /** Above a sheet opened through a shop link: who sent it, their note, and whether the record moved on since. */
 export function ShopLinkBanner({ pinned }: { pinned: PinnedSheetView }) {
   const { shop, link, sheet, newerRevision } = pinned;
   return (
-    <aside aria-label={`Note from ${shop.name}`} className="print-break-avoid mb-6 rounded-xl border-2 border-brass bg-paper-card p-4 shadow-sm sm:p-5">
+    <aside
+      aria-label={`Note from ${shop.name}`}
+      className="print-break-avoid mb-6 rounded-xl border-2 border-brass bg-paper-card p-4 shadow-sm sm:p-5"
+    >
       <div className="flex flex-wrap items-start justify-between gap-4">
         <div className="min-w-0 flex-1">
           <p className="text-xs font-bold uppercase tracking-wide text-brass-deep">Shared by a shop</p>
@@ -26,7 +30,8 @@ export function ShopLinkBanner({ pinned }: { pinned: PinnedSheetView }) {
             </div>
           )}
           <p className="mt-3 text-sm text-graphite">
-            This is the revision {shop.name} quoted: <strong>revision {sheet.revision.number}</strong>, approved {date(sheet.revision.approvedAt)}.
+            This is the revision {shop.name} quoted: <strong>revision {sheet.revision.number}</strong>, approved{' '}
+            {date(sheet.revision.approvedAt)}.
           </p>
         </div>
         {/* the printed sheet carries the link back to this page */}
@@ -40,7 +45,10 @@ export function ShopLinkBanner({ pinned }: { pinned: PinnedSheetView }) {
           <p className="font-bold text-brass-deep">A newer revision of this swap exists (revision {newerRevision.number}).</p>
           <p className="mt-0.5">What changed since the shop’s quote: {newerRevision.summary.replace(/^Changed: /, '')}</p>
           <p className="no-print mt-1">
-            <Link to={paths.swapCompare(sheet.swap.slug, sheet.revision.number, newerRevision.number)} className="font-bold text-ink underline">
+            <Link
+              to={paths.swapCompare(sheet.swap.slug, sheet.revision.number, newerRevision.number)}
+              className="font-bold text-ink underline"
+            >
               Compare the two revisions
             </Link>{' '}
             ·{' '}
@@ -60,7 +68,9 @@ export function RetiredLinkBanner({ message }: { message: string }) {
   return (
     <aside role="status" className="mb-6 rounded-xl border border-graphite/20 bg-paper-card p-4 text-sm text-graphite">
       <p className="font-bold text-ink">This shop link has been retired</p>
-      <p className="mt-1">{message} You are reading the revision it pointed to; check the revision history for the current one.</p>
+      <p className="mt-1">
+        {message} You are reading the revision it pointed to; check the revision history for the current one.
+      </p>
     </aside>
   );
 }

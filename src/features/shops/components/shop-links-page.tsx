@@ -35,16 +35,28 @@ export default function ShopLinksPage() {
         </p>
       ) : (
         <>
-          {!query.data.canManage && <p className="mb-4 text-sm text-graphite-soft">You are viewing every shop’s links as an admin; only each shop can change its own.</p>}
+          {!query.data.canManage && (
+            <p className="mb-4 text-sm text-graphite-soft">
+              You are viewing every shop’s links as an admin; only each shop can change its own.
+            </p>
+          )}
           {query.data.canManage && shopName && <p className="mb-4 text-sm text-graphite-soft">Links of {shopName}.</p>}
           <table className="w-full border-collapse text-left text-sm">
             <caption className="sr-only">Shop links</caption>
             <thead className="hidden border-b border-graphite/20 text-xs uppercase tracking-wide text-graphite-soft md:table-header-group">
               <tr>
-                <th scope="col" className="px-2 py-2">Swap and note</th>
-                <th scope="col" className="px-2 py-2">Revision</th>
-                <th scope="col" className="px-2 py-2 text-right">Visits</th>
-                <th scope="col" className="px-2 py-2">Created</th>
+                <th scope="col" className="px-2 py-2">
+                  Swap and note
+                </th>
+                <th scope="col" className="px-2 py-2">
+                  Revision
+                </th>
+                <th scope="col" className="px-2 py-2 text-right">
+                  Visits
+                </th>
+                <th scope="col" className="px-2 py-2">
+                  Created
+                </th>
                 <th scope="col" className="px-2 py-2">
                   <span className="sr-only">Actions</span>
                 </th>
@@ -87,7 +99,10 @@ function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }
       className={`block rounded-xl border border-ink/10 bg-paper-card p-3 shadow-sm md:table-row md:rounded-none md:border-0 md:border-b md:border-graphite/10 md:bg-transparent md:p-0 md:shadow-none ${retired ? 'opacity-70' : ''}`}
     >
       <td className={`${cell} md:w-[45%]`}>
-        <Link to={paths.swapRevision(link.swap.slug, link.revision.number)} className="font-extrabold text-ink underline decoration-brass underline-offset-2">
+        <Link
+          to={paths.swapRevision(link.swap.slug, link.revision.number)}
+          className="font-extrabold text-ink underline decoration-brass underline-offset-2"
+        >
           {link.swap.title}
         </Link>
         <p className="tabular mt-0.5 text-xs text-graphite-soft">
@@ -107,7 +122,14 @@ function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }
               setEditing(false);
             }}
           >
-            <TextArea label="Note to the customer" rows={4} value={note} onChange={(e) => setNote(e.target.value)} error={update.error?.message} hint="Markdown; HTML is removed." />
+            <TextArea
+              label="Note to the customer"
+              rows={4}
+              value={note}
+              onChange={(e) => setNote(e.target.value)}
+              error={update.error?.message}
+              hint="Markdown; HTML is removed."
+            />
             <div className="flex gap-2">
               <Button type="submit" disabled={update.isPending}>
                 {update.isPending ? 'Saving…' : 'Save note'}
@@ -132,7 +154,10 @@ function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }
           <div role="status" className="mt-1 max-w-xs rounded-md border border-brass bg-brass-soft/50 p-2 text-xs">
             <p className="font-bold text-brass-deep">Revision {link.newerRevision.number} is newer</p>
             <p>{link.newerRevision.summary}</p>
-            <Link to={paths.swapCompare(link.swap.slug, link.revision.number, link.newerRevision.number)} className="font-bold text-ink underline">
+            <Link
+              to={paths.swapCompare(link.swap.slug, link.revision.number, link.newerRevision.number)}
+              className="font-bold text-ink underline"
+            >
               Compare
             </Link>
           </div>

@@ -16,8 +16,18 @@ export default function ShopPage() {
   const { slug = '' } = useParams();
   const query = useShopPage(slug);
   const [editing, setEditing] = useState(false);
-  if (query.isPending) return <Page title="Shop"><Loading label="Loading the shop…" /></Page>;
-  if (query.isError) return <Page title="Shop not found"><ErrorNotice error={query.error} /></Page>;
+  if (query.isPending)
+    return (
+      <Page title="Shop">
+        <Loading label="Loading the shop…" />
+      </Page>
+    );
+  if (query.isError)
+    return (
+      <Page title="Shop not found">
+        <ErrorNotice error={query.error} />
+      </Page>
+    );
   const { shop, swaps, canEdit } = query.data;
   const host = hostOf(shop.website);
 
@@ -42,7 +52,11 @@ export default function ShopPage() {
       ) : (
         <div className="grid gap-6 md:grid-cols-[2fr_1fr]">
           <section aria-label="About the shop" className="rounded-xl border border-ink/10 bg-paper-card p-5">
-            {shop.about ? <Markdown>{shop.about}</Markdown> : <p className="text-graphite-soft">The shop has not written about itself yet.</p>}
+            {shop.about ? (
+              <Markdown>{shop.about}</Markdown>
+            ) : (
+              <p className="text-graphite-soft">The shop has not written about itself yet.</p>
+            )}
           </section>
           <aside className="rounded-xl border border-ink/10 bg-paper-card p-5 text-sm">
             <dl className="space-y-3">
@@ -56,7 +70,12 @@ export default function ShopPage() {
                 <div>
                   <dt className="text-xs font-bold uppercase tracking-wide text-graphite-soft">Website</dt>
                   <dd>
-                    <a href={shop.website} rel="nofollow noopener noreferrer" target="_blank" className="font-bold text-ink underline decoration-brass underline-offset-2">
+                    <a
+                      href={shop.website}
+                      rel="nofollow noopener noreferrer"
+                      target="_blank"
+                      className="font-bold text-ink underline decoration-brass underline-offset-2"
+                    >
                       {host}
                     </a>
                   </dd>
@@ -103,7 +122,8 @@ function ShopEditor({ shop, onDone }: { shop: ShopView; onDone: () => void }) {
   const update = useUpdateShop(shop.slug);
   const [form, setForm] = useState({ name: shop.name, town: shop.town, website: shop.website, about: shop.about });
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement | HTMLTextAreaElement>) => setForm((f) => ({ ...f, [k]: e.target.value }));
+  const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement | HTMLTextAreaElement>) =>
+    setForm((f) => ({ ...f, [k]: e.target.value }));
   const submit = async (e: React.FormEvent) => {
     e.preventDefault();
     const parsed = updateShopSchema.safeParse(form);
@@ -116,11 +136,31 @@ function ShopEditor({ shop, onDone }: { shop: ShopView; onDone: () => void }) {
     }
   };
   return (
-    <form onSubmit={submit} noValidate aria-label="Edit shop page" className="grid gap-4 rounded-xl border border-ink/20 bg-paper-card p-5 md:grid-cols-2">
+    <form
+      onSubmit={submit}
+      noValidate
+      aria-label="Edit shop page"
+      className="grid gap-4 rounded-xl border border-ink/20 bg-paper-card p-5 md:grid-cols-2"
+    >
       <TextInput label="Shop name" value={form.name} onChange={set('name')} error={errors.name} />
       <TextInput label="Town" value={form.town} onChange={set('town')} error={errors.town} />
-      <TextInput label="Website" value={form.website} onChange={set('website')} error={errors.website} placeholder="https://…" className="md:col-span-2" />
-      <TextArea label="About" rows={6} value={form.about} onChange={set('about')} error={errors.about} hint="Markdown: **bold**, lists, links. HTML is removed." className="md:col-span-2" />
+      <TextInput
+        label="Website"
+        value={form.website}
+        onChange={set('website')}
+        error={errors.website}
+        placeholder="https://…"
+        className="md:col-span-2"
+      />
+      <TextArea
+        label="About"
+        rows={6}
+        value={form.about}
+        onChange={set('about')}
+        error={errors.about}
+        hint="Markdown: **bold**, lists, links. HTML is removed."
+        className="md:col-span-2"
+      />
       <div className="flex flex-wrap items-center gap-2 md:col-span-2">
         <Button type="submit" disabled={update.isPending}>
           {update.isPending ? 'Saving…' : 'Save shop page'}

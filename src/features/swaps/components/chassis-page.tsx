@@ -20,20 +20,56 @@ export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) 
   const { slug = '' } = useParams();
   const query = useChassisPage(slug);
   const { length } = useUnits();
-  if (query.isPending) return <Page title="Chassis"><Loading /></Page>;
-  if (query.isError) return <Page title="Chassis not found"><ErrorNotice error={query.error} /></Page>;
+  if (query.isPending)
+    return (
+      <Page title="Chassis">
+        <Loading />
+      </Page>
+    );
+  if (query.isError)
+    return (
+      <Page title="Chassis not found">
+        <ErrorNotice error={query.error} />
+      </Page>
+    );
   const { chassis: c, swaps } = query.data;
   const corner = (k: 'front' | 'rear') => c.stockBrakes[k];
   return (
-    <Page title={chassisLabel(c)} heading={c.code === c.model ? `${c.make} ${c.model}` : `${c.make} ${c.model} · ${c.code}`} lead={`${c.body} · ${c.yearFrom}–${c.yearTo ?? 'on'}${c.notes ? ` · ${c.notes}` : ''}`}
-      actions={<ButtonLink to={paths.search(`chassis=${c.slug}`)} variant="secondary">Search within this chassis</ButtonLink>}>
+    <Page
+      title={chassisLabel(c)}
+      heading={c.code === c.model ? `${c.make} ${c.model}` : `${c.make} ${c.model} · ${c.code}`}
+      lead={`${c.body} · ${c.yearFrom}–${c.yearTo ?? 'on'}${c.notes ? ` · ${c.notes}` : ''}`}
+      actions={
+        <ButtonLink to={paths.search(`chassis=${c.slug}`)} variant="secondary">
+          Search within this chassis
+        </ButtonLink>
+      }
+    >
       <section aria-labelledby="hub-h" className="grid gap-4 md:grid-cols-3">
-        <h2 id="hub-h" className="sr-only">Hub and stock specs</h2>
-        <SpecCard title="Hub" rows={[['Bolt pattern', `${c.lugCount}×${c.pcdMm}`], ['Centre bore', length(c.centreBoreMm)], ['Wheel bolts', c.wheelBoltThread]]} />
-        <SpecCard title="Stock wheel" rows={[['Size', `${c.stockWheel.diameterIn}×${c.stockWheel.widthIn} ET${c.stockWheel.offsetMm}`], ['Tyre', c.stockWheel.tyre]]} />
+        <h2 id="hub-h" className="sr-only">
+          Hub and stock specs
+        </h2>
+        <SpecCard
+          title="Hub"
+          rows={[
+            ['Bolt pattern', `${c.lugCount}×${c.pcdMm}`],
+            ['Centre bore', length(c.centreBoreMm)],
+            ['Wheel bolts', c.wheelBoltThread],
+          ]}
+        />
+        <SpecCard
+          title="Stock wheel"
+          rows={[
+            ['Size', `${c.stockWheel.diameterIn}×${c.stockWheel.widthIn} ET${c.stockWheel.offsetMm}`],
+            ['Tyre', c.stockWheel.tyre],
+          ]}
+        />
         <SpecCard
           title="Stock brakes"
-          rows={(['front', 'rear'] as const).map((k) => [k === 'front' ? 'Front' : 'Rear', `${corner(k).description}${corner(k).kind === 'disc' ? `, ${length(corner(k).rotorDiameterMm, 0)}` : ''}`])}
+          rows={(['front', 'rear'] as const).map((k) => [
+            k === 'front' ? 'Front' : 'Rear',
+            `${corner(k).description}${corner(k).kind === 'disc' ? `, ${length(corner(k).rotorDiameterMm, 0)}` : ''}`,
+          ])}
         />
       </section>
       <div className="mt-10 space-y-10">
@@ -44,7 +80,9 @@ export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) 
           if (forAxle.length === 0) return null;
           return (
             <section key={axle} aria-labelledby={`axle-${axle}`}>
-              <h2 id={`axle-${axle}`} className="mb-4 text-xl font-extrabold text-ink">{axle === 'front' ? 'Front axle' : 'Rear axle'}</h2>
+              <h2 id={`axle-${axle}`} className="mb-4 text-xl font-extrabold text-ink">
+                {axle === 'front' ? 'Front axle' : 'Rear axle'}
+              </h2>
               {categories.map((cat) => {
                 const group = forAxle.filter((s) => s.category === cat);
                 if (group.length === 0) return null;
@@ -53,7 +91,10 @@ export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) 
                     <h3 className="mb-2 text-sm font-bold uppercase tracking-wide text-graphite-soft">{categoryLabels[cat]}</h3>
                     <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
                       {group.map((s) => (
-                        <li key={s.slug} className={cardNote ? 'flex flex-col' : 'flex'}><SwapCard swap={s} />{cardNote?.(s)}</li>
+                        <li key={s.slug} className={cardNote ? 'flex flex-col' : 'flex'}>
+                          <SwapCard swap={s} />
+                          {cardNote?.(s)}
+                        </li>
                       ))}
                     </ul>
                   </div>

@@ -15,9 +15,14 @@ export function CostRoutesSection({ data }: { data: SwapData }) {
           const total = totals[route];
           const saving = savings[route];
           return (
-            <div key={route} className={`rounded-lg border p-4 print:p-2 ${route === 'new_kit' ? 'border-brass/50 bg-brass-soft/30' : 'border-ink/10 bg-paper-card'}`}>
+            <div
+              key={route}
+              className={`rounded-lg border p-4 print:p-2 ${route === 'new_kit' ? 'border-brass/50 bg-brass-soft/30' : 'border-ink/10 bg-paper-card'}`}
+            >
               <h3 className="text-sm font-bold uppercase tracking-wide text-graphite-soft">{costRouteLabels[route]}</h3>
-              <p className="tabular mt-1 text-2xl font-extrabold text-graphite">{total === null ? '—' : formatMoney(total, currency)}</p>
+              <p className="tabular mt-1 text-2xl font-extrabold text-graphite">
+                {total === null ? '—' : formatMoney(total, currency)}
+              </p>
               {route !== 'new_kit' && saving && saving.amountMinor !== 0 && (
                 <p className={`tabular text-sm font-bold ${saving.amountMinor > 0 ? 'text-ink' : 'text-oxide'}`}>
                   {saving.amountMinor > 0 ? 'Saves ' : 'Costs '}

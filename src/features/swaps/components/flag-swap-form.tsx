@@ -37,7 +37,10 @@ export function FlagSwapForm({ slug, signedIn }: { slug: string; signedIn: boole
           <Button variant="secondary" onClick={() => setOpen(true)}>
             Flag a problem
           </Button>
-          <a href={`${paths.submit()}?swap=${slug}`} className="inline-flex min-h-10 items-center rounded-md px-4 text-sm font-bold text-ink hover:bg-ink-faint">
+          <a
+            href={`${paths.submit()}?swap=${slug}`}
+            className="inline-flex min-h-10 items-center rounded-md px-4 text-sm font-bold text-ink hover:bg-ink-faint"
+          >
             Propose a correction
           </a>
         </div>
@@ -51,11 +54,21 @@ export function FlagSwapForm({ slug, signedIn }: { slug: string; signedIn: boole
             setError(undefined);
             flag.mutate(
               { slug, reason: parsed.data.reason },
-              { onError: (err) => setError(err instanceof ApiError ? (err.fields.reason ?? err.message) : 'Could not send the flag.') },
+              {
+                onError: (err) =>
+                  setError(err instanceof ApiError ? (err.fields.reason ?? err.message) : 'Could not send the flag.'),
+              },
             );
           }}
         >
-          <TextArea label="What is wrong?" hint="A wrong torque figure, a part number that does not match, a safety concern…" rows={3} value={reason} onChange={(e) => setReason(e.target.value)} error={error} />
+          <TextArea
+            label="What is wrong?"
+            hint="A wrong torque figure, a part number that does not match, a safety concern…"
+            rows={3}
+            value={reason}
+            onChange={(e) => setReason(e.target.value)}
+            error={error}
+          />
           <div className="flex gap-2">
             <Button type="submit" disabled={flag.isPending}>
               {flag.isPending ? 'Sending…' : 'Send to the moderators'}

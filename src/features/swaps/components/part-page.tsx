@@ -29,8 +29,18 @@ export default function PartPage() {
   const { id } = useParams();
   const query = usePartPage(Number(id));
   const { length } = useUnits();
-  if (query.isPending) return <Page title="Part"><Loading /></Page>;
-  if (query.isError) return <Page title="Part not found"><ErrorNotice error={query.error} /></Page>;
+  if (query.isPending)
+    return (
+      <Page title="Part">
+        <Loading />
+      </Page>
+    );
+  if (query.isError)
+    return (
+      <Page title="Part not found">
+        <ErrorNotice error={query.error} />
+      </Page>
+    );
   const { part, swaps } = query.data;
   const show = (key: string, v: unknown): string => {
     if (typeof v === 'boolean') return v ? 'Yes' : 'No';
@@ -39,10 +49,22 @@ export default function PartPage() {
     return String(v);
   };
   return (
-    <Page title={part.name} heading={part.name} lead={<span className="flex flex-wrap items-center gap-2"><Badge tone="ink">{part.kind}</Badge>{part.maker}</span>}>
+    <Page
+      title={part.name}
+      heading={part.name}
+      lead={
+        <span className="flex flex-wrap items-center gap-2">
+          <Badge tone="ink">{part.kind}</Badge>
+          {part.maker}
+        </span>
+      }
+    >
       <div className="grid gap-4 md:grid-cols-3">
         <SpecCard title="Specs" rows={Object.entries(part.specs).map(([k, v]) => [specLabels[k] ?? k, show(k, v)])} />
-        <SpecCard title="Part numbers" rows={part.partNumbers.map((pn, i) => [i === 0 ? 'Number' : 'Also', <span className="font-mono">{pn}</span>])} />
+        <SpecCard
+          title="Part numbers"
+          rows={part.partNumbers.map((pn, i) => [i === 0 ? 'Number' : 'Also', <span className="font-mono">{pn}</span>])}
+        />
         <div className="rounded-xl border border-ink/10 bg-paper-card p-4">
           <h3 className="font-extrabold text-ink">Came on</h3>
           <ul className="mt-2 list-disc pl-5 text-sm">
@@ -57,7 +79,9 @@ export default function PartPage() {
       ) : (
         <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
           {swaps.map((s) => (
-            <li key={s.slug} className="flex"><SwapCard swap={s} /></li>
+            <li key={s.slug} className="flex">
+              <SwapCard swap={s} />
+            </li>
           ))}
         </ul>
       )}

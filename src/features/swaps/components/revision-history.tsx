@@ -15,7 +15,11 @@ export function RevisionHistory({ slug, history, shown }: { slug: string; histor
       <ol className="space-y-1 text-sm">
         {history.map((h) => (
           <li key={h.number} className="flex flex-wrap gap-x-2">
-            <Link to={paths.swapRevision(slug, h.number)} className={`font-bold underline ${h.number === shown ? 'text-brass-deep' : 'text-ink'}`} aria-current={h.number === shown ? 'page' : undefined}>
+            <Link
+              to={paths.swapRevision(slug, h.number)}
+              className={`font-bold underline ${h.number === shown ? 'text-brass-deep' : 'text-ink'}`}
+              aria-current={h.number === shown ? 'page' : undefined}
+            >
               Revision {h.number}
             </Link>
             <span className="text-graphite-soft">
@@ -35,17 +39,29 @@ export function RevisionHistory({ slug, history, shown }: { slug: string; histor
         >
           <label className="flex flex-col">
             <span className="font-bold">Compare</span>
-            <select className="rounded border border-graphite/25 bg-paper-card px-2 py-1" value={a} onChange={(e) => setA(Number(e.target.value))}>
+            <select
+              className="rounded border border-graphite/25 bg-paper-card px-2 py-1"
+              value={a}
+              onChange={(e) => setA(Number(e.target.value))}
+            >
               {numbers.map((n) => (
-                <option key={n} value={n}>Revision {n}</option>
+                <option key={n} value={n}>
+                  Revision {n}
+                </option>
               ))}
             </select>
           </label>
           <label className="flex flex-col">
             <span className="font-bold">with</span>
-            <select className="rounded border border-graphite/25 bg-paper-card px-2 py-1" value={b} onChange={(e) => setB(Number(e.target.value))}>
+            <select
+              className="rounded border border-graphite/25 bg-paper-card px-2 py-1"
+              value={b}
+              onChange={(e) => setB(Number(e.target.value))}
+            >
               {numbers.map((n) => (
-                <option key={n} value={n}>Revision {n}</option>
+                <option key={n} value={n}>
+                  Revision {n}
+                </option>
               ))}
             </select>
           </label>

@@ -78,7 +78,9 @@ export function ShimsSpacersSection({ data }: { data: SwapData }) {
             />
           )}
           {data.shimTargetMm !== null && (
-            <p className="mt-1 text-xs text-graphite-soft">Measured centring gap: {length(data.shimTargetMm, 2)} per mounting point.</p>
+            <p className="mt-1 text-xs text-graphite-soft">
+              Measured centring gap: {length(data.shimTargetMm, 2)} per mounting point.
+            </p>
           )}
         </div>
         <div>
@@ -133,7 +135,9 @@ export function MachiningSection({ steps }: { steps: SwapData['machining'] }) {
         <ol className="space-y-2">
           {steps.map((s, i) => (
             <li key={i} className="flex gap-3 rounded-lg border border-ink/10 bg-paper-card p-3 print:p-1.5">
-              <span className="tabular flex h-7 w-7 shrink-0 items-center justify-center rounded-full bg-ink text-sm font-bold text-paper">{i + 1}</span>
+              <span className="tabular flex h-7 w-7 shrink-0 items-center justify-center rounded-full bg-ink text-sm font-bold text-paper">
+                {i + 1}
+              </span>
               <div>
                 <p className="font-bold">
                   {operationLabels[s.operation]}: {s.where}{' '}
@@ -161,7 +165,12 @@ export function TorqueSection({ torque }: { torque: SwapData['torque'] }) {
         <SpecTable
           caption="Torque specs"
           head={['Fastener', 'Torque', system === 'metric' ? 'lbf·ft' : 'N·m', 'Notes']}
-          rows={torque.map((t) => [t.fastener, <span className="font-extrabold">{primary(t.nm)}</span>, secondary(t.nm), t.notes || dash])}
+          rows={torque.map((t) => [
+            t.fastener,
+            <span className="font-extrabold">{primary(t.nm)}</span>,
+            secondary(t.nm),
+            t.notes || dash,
+          ])}
         />
       )}
     </SheetSection>

@@ -1,6 +1,16 @@
 import type { ReactNode } from 'react';
 
-export function SheetSection({ id, title, children, aside }: { id: string; title: string; children: ReactNode; aside?: ReactNode }) {
+export function SheetSection({
+  id,
+  title,
+  children,
+  aside,
+}: {
+  id: string;
+  title: string;
+  children: ReactNode;
+  aside?: ReactNode;
+}) {
   return (
     <section id={id} aria-labelledby={`${id}-h`} className="scroll-mt-20">
       <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2 border-b border-ink/15 pb-1">

@@ -13,14 +13,32 @@ export default function SwapComparePage() {
   const b = Number(params.get('b'));
   const [before, after] = useQueries({ queries: [swapQueryOptions(slug, a), swapQueryOptions(slug, b)] });
   if (!Number.isInteger(a) || !Number.isInteger(b) || a < 1 || b < 1)
-    return <Page title="Compare"><ErrorNotice error={new Error('Pick two revision numbers to compare.')} /></Page>;
-  if (before.isPending || after.isPending) return <Page title="Compare"><Loading /></Page>;
-  if (before.isError || after.isError) return <Page title="Compare"><ErrorNotice error={before.error ?? after.error} /></Page>;
+    return (
+      <Page title="Compare">
+        <ErrorNotice error={new Error('Pick two revision numbers to compare.')} />
+      </Page>
+    );
+  if (before.isPending || after.isPending)
+    return (
+      <Page title="Compare">
+        <Loading />
+      </Page>
+    );
+  if (before.isError || after.isError)
+    return (
+      <Page title="Compare">
+        <ErrorNotice error={before.error ?? after.error} />
+      </Page>
+    );
   return (
     <Page
       title={`Revisions ${a} and ${b}`}
       heading={`What changed: revision ${a} → ${b}`}
-      lead={<Link to={paths.swap(slug)} className="font-bold text-ink underline">{after.data.revision.data.title}</Link>}
+      lead={
+        <Link to={paths.swap(slug)} className="font-bold text-ink underline">
+          {after.data.revision.data.title}
+        </Link>
+      }
     >
       <RevisionDiff
         before={{ data: before.data.revision.data, body: before.data.revision.body }}

@@ -20,14 +20,25 @@ import { BrakeBalanceSection } from './brake-balance';
 import { WheelCheckPanel, type WheelPreset } from './wheel-check-panel';
 import { RevisionHistory } from './revision-history';
 
-const date = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—');
+const date = (iso: string | null) =>
+  iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—';
 
 export default function SwapSheetPage() {
   const { slug = '', n } = useParams();
   const number = n === undefined ? undefined : Number(n);
   const query = useSwap(slug, Number.isInteger(number) ? number : undefined);
-  if (query.isPending) return <Page title="Swap"><Loading label="Loading the swap sheet…" /></Page>;
-  if (query.isError) return <Page title="Swap not found"><ErrorNotice error={query.error} /></Page>;
+  if (query.isPending)
+    return (
+      <Page title="Swap">
+        <Loading label="Loading the swap sheet…" />
+      </Page>
+    );
+  if (query.isError)
+    return (
+      <Page title="Swap not found">
+        <ErrorNotice error={query.error} />
+      </Page>
+    );
   return <SwapSheet view={query.data} />;
 }
 
@@ -65,25 +76,30 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
         </div>
       )}
       <header className="mb-8 print:mb-3">
-          <p className="hidden text-xs text-graphite-soft print:block">
-            Build sheet printed from Swapyard · {data.title} · revision {revision.number} approved {date(revision.approvedAt)} ·{' '}
-            {typeof window === 'undefined' ? '' : `${window.location.origin}${paths.swapRevision(swap.slug, revision.number)}`}
-          </p>
+        <p className="hidden text-xs text-graphite-soft print:block">
+          Build sheet printed from Swapyard · {data.title} · revision {revision.number} approved {date(revision.approvedAt)} ·{' '}
+          {typeof window === 'undefined' ? '' : `${window.location.origin}${paths.swapRevision(swap.slug, revision.number)}`}
+        </p>
         <div className="flex flex-wrap gap-2">
           <Badge tone="ink">{swap.axle === 'front' ? 'Front axle' : 'Rear axle'}</Badge>
           <Badge>{categoryLabels[swap.category]}</Badge>
-          <Badge tone={level === 'major' ? 'oxide' : level === 'minor' ? 'brass' : 'plain'}>
-            {machiningLevelLabels[level]}
-          </Badge>
-          {data.parkingBrakeKept !== null && <Badge tone={data.parkingBrakeKept ? 'ink' : 'oxide'}>{data.parkingBrakeKept ? 'Parking brake kept' : 'Parking brake lost'}</Badge>}
+          <Badge tone={level === 'major' ? 'oxide' : level === 'minor' ? 'brass' : 'plain'}>{machiningLevelLabels[level]}</Badge>
+          {data.parkingBrakeKept !== null && (
+            <Badge tone={data.parkingBrakeKept ? 'ink' : 'oxide'}>
+              {data.parkingBrakeKept ? 'Parking brake kept' : 'Parking brake lost'}
+            </Badge>
+          )}
         </div>
-        <h1 className="mt-3 text-2xl font-extrabold leading-tight tracking-tight text-ink sm:text-4xl print:text-2xl">{data.title}</h1>
+        <h1 className="mt-3 text-2xl font-extrabold leading-tight tracking-tight text-ink sm:text-4xl print:text-2xl">
+          {data.title}
+        </h1>
         <p className="mt-2 text-graphite">
           For the{' '}
           <Link to={paths.chassis(chassis.slug)} className="font-bold text-ink underline decoration-brass underline-offset-2">
             {chassisLabel(chassis)}
           </Link>
-          , {swap.axle} axle · {chassis.lugCount}×{chassis.pcdMm} PCD · centre bore {length(chassis.centreBoreMm)} · wheel bolts {chassis.wheelBoltThread}
+          , {swap.axle} axle · {chassis.lugCount}×{chassis.pcdMm} PCD · centre bore {length(chassis.centreBoreMm)} · wheel bolts{' '}
+          {chassis.wheelBoltThread}
         </p>
         {data.summary && <p className="mt-3 max-w-3xl text-lg text-graphite">{data.summary}</p>}
         <dl className="tabular mt-4 grid grid-cols-2 gap-3 text-sm sm:grid-cols-5">
@@ -95,13 +111,17 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
         </dl>
         <p className="mt-3 text-sm text-graphite-soft">
           Written by {revision.author.name}
-          {revision.author.login !== swap.author.login && ` (correction to ${swap.author.name}’s record)`} · reviewed by a moderator before publication.
+          {revision.author.login !== swap.author.login && ` (correction to ${swap.author.name}’s record)`} · reviewed by a
+          moderator before publication.
         </p>
         <div className="no-print mt-4 flex flex-wrap gap-2">
           <Button variant="secondary" onClick={() => window.print()}>
             Print build sheet
           </Button>
-          <a href="#check" className="inline-flex min-h-10 items-center rounded-md px-4 text-sm font-bold text-ink hover:bg-ink-faint">
+          <a
+            href="#check"
+            className="inline-flex min-h-10 items-center rounded-md px-4 text-sm font-bold text-ink hover:bg-ink-faint"
+          >
             Check my wheel ↓
           </a>
         </div>
@@ -119,7 +139,9 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
           <SheetSection id="wheel" title="Wheel requirement">
             <dl className="tabular grid grid-cols-2 gap-3 text-sm sm:grid-cols-4">
               <Fact label="Minimum wheel" value={`${data.wheel.minDiameterIn}″`} />
-              {data.wheel.barrelInnerDiameterMm && <Fact label="Barrel inner Ø needed" value={length(data.wheel.barrelInnerDiameterMm)} />}
+              {data.wheel.barrelInnerDiameterMm && (
+                <Fact label="Barrel inner Ø needed" value={length(data.wheel.barrelInnerDiameterMm)} />
+              )}
               <Fact label="Caliper beyond rotor edge" value={length(data.wheel.caliperRadialProjectionMm)} />
               <Fact label="Caliper face outboard of hub" value={length(data.wheel.caliperOutboardMm)} />
             </dl>
@@ -127,7 +149,10 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
               <ul className="tabular mt-3 space-y-1 text-sm">
                 {data.wheel.testedWheels.map((w, i) => (
                   <li key={i}>
-                    Tested: <strong>{w.diameterIn}×{w.widthIn} ET{w.offsetMm}</strong>
+                    Tested:{' '}
+                    <strong>
+                      {w.diameterIn}×{w.widthIn} ET{w.offsetMm}
+                    </strong>
                     {w.spacerMm > 0 && ` + ${length(w.spacerMm)} spacer`}
                     {w.radialClearanceMm !== undefined && ` · radial ${length(w.radialClearanceMm)}`}
                     {w.spokeClearanceMm !== undefined && ` · spokes ${length(w.spokeClearanceMm)}`}

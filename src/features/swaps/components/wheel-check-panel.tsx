@@ -14,7 +14,16 @@ export type WheelPreset = { label: string; wheel: { diameterIn: number; widthIn:
 
 type Form = Record<'diameterIn' | 'widthIn' | 'offsetMm' | 'spacer' | 'barrel' | 'spokeInset' | 'boltLength' | 'seat', string>;
 
-const empty: Form = { diameterIn: '', widthIn: '', offsetMm: '', spacer: '0', barrel: '', spokeInset: '', boltLength: '', seat: '' };
+const empty: Form = {
+  diameterIn: '',
+  widthIn: '',
+  offsetMm: '',
+  spacer: '0',
+  barrel: '',
+  spokeInset: '',
+  boltLength: '',
+  seat: '',
+};
 
 function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors: Partial<Record<keyof Form, string>> } {
   const errors: Partial<Record<keyof Form, string>> = {};
@@ -40,15 +49,35 @@ function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors:
   const spokeInset = len(num('spokeInset', { min: -100, max: 200 }));
   const boltLength = len(num('boltLength', { min: 0, max: imperial ? 4 : 100 }));
   const seat = len(num('seat', { min: 0, max: imperial ? 2 : 50 }));
-  if (Object.keys(errors).length || diameterIn === undefined || widthIn === undefined || offsetMm === undefined) return { errors };
+  if (Object.keys(errors).length || diameterIn === undefined || widthIn === undefined || offsetMm === undefined)
+    return { errors };
   return {
     errors,
-    wheel: { diameterIn, widthIn, offsetMm, spacerMm: spacer, barrelInnerDiameterMm: barrel, spokeInsetMm: spokeInset, boltLengthMm: boltLength, seatThicknessMm: seat },
+    wheel: {
+      diameterIn,
+      widthIn,
+      offsetMm,
+      spacerMm: spacer,
+      barrelInnerDiameterMm: barrel,
+      spokeInsetMm: spokeInset,
+      boltLengthMm: boltLength,
+      seatThicknessMm: seat,
+    },
   };
 }
 
 /** "Check my wheel": the reader's wheel against this swap's measurements, each verdict with its margin and rule. */
-export function WheelCheckPanel({ data, axle, wheelBoltThread, presets = [] }: { data: SwapData; axle: Axle; wheelBoltThread: string; presets?: WheelPreset[] }) {
+export function WheelCheckPanel({
+  data,
+  axle,
+  wheelBoltThread,
+  presets = [],
+}: {
+  data: SwapData;
+  axle: Axle;
+  wheelBoltThread: string;
+  presets?: WheelPreset[];
+}) {
   const units = useUnits();
   const imperial = units.system === 'imperial';
   const [form, setForm] = useState<Form>(empty);
@@ -90,20 +119,79 @@ export function WheelCheckPanel({ data, axle, wheelBoltThread, presets = [] }: {
           </div>
         )}
         <form className="grid grid-cols-2 gap-3 sm:grid-cols-4" onSubmit={(e) => e.preventDefault()} aria-label="Your wheel">
-          <TextInput label="Diameter (in)" inputMode="decimal" value={form.diameterIn} onChange={set('diameterIn')} error={errors.diameterIn} placeholder="16" />
-          <TextInput label="Width (in)" inputMode="decimal" value={form.widthIn} onChange={set('widthIn')} error={errors.widthIn} placeholder="7" />
-          <TextInput label="Offset ET (mm)" inputMode="decimal" value={form.offsetMm} onChange={set('offsetMm')} error={errors.offsetMm} placeholder="35" />
-          <TextInput label={`Spacer (${u})`} inputMode="decimal" value={form.spacer} onChange={set('spacer')} error={errors.spacer} />
+          <TextInput
+            label="Diameter (in)"
+            inputMode="decimal"
+            value={form.diameterIn}
+            onChange={set('diameterIn')}
+            error={errors.diameterIn}
+            placeholder="16"
+          />
+          <TextInput
+            label="Width (in)"
+            inputMode="decimal"
+            value={form.widthIn}
+            onChange={set('widthIn')}
+            error={errors.widthIn}
+            placeholder="7"
+          />
+          <TextInput
+            label="Offset ET (mm)"
+            inputMode="decimal"
+            value={form.offsetMm}
+            onChange={set('offsetMm')}
+            error={errors.offsetMm}
+            placeholder="35"
+          />
+          <TextInput
+            label={`Spacer (${u})`}
+            inputMode="decimal"
+            value={form.spacer}
+            onChange={set('spacer')}
+            error={errors.spacer}
+          />
           {showMeasured && (
             <>
-              <TextInput label={`Barrel inner Ø (${u})`} hint="At the caliper" inputMode="decimal" value={form.barrel} onChange={set('barrel')} error={errors.barrel} />
-              <TextInput label={`Spoke inset (${u})`} hint="Spoke back face outboard of the hub face" inputMode="decimal" value={form.spokeInset} onChange={set('spokeInset')} error={errors.spokeInset} />
-              <TextInput label={`Wheel-bolt length (${u})`} inputMode="decimal" value={form.boltLength} onChange={set('boltLength')} error={errors.boltLength} />
-              <TextInput label={`Wheel seat thickness (${u})`} hint="Mounting pad of the wheel" inputMode="decimal" value={form.seat} onChange={set('seat')} error={errors.seat} />
+              <TextInput
+                label={`Barrel inner Ø (${u})`}
+                hint="At the caliper"
+                inputMode="decimal"
+                value={form.barrel}
+                onChange={set('barrel')}
+                error={errors.barrel}
+              />
+              <TextInput
+                label={`Spoke inset (${u})`}
+                hint="Spoke back face outboard of the hub face"
+                inputMode="decimal"
+                value={form.spokeInset}
+                onChange={set('spokeInset')}
+                error={errors.spokeInset}
+              />
+              <TextInput
+                label={`Wheel-bolt length (${u})`}
+                inputMode="decimal"
+                value={form.boltLength}
+                onChange={set('boltLength')}
+                error={errors.boltLength}
+              />
+              <TextInput
+                label={`Wheel seat thickness (${u})`}
+                hint="Mounting pad of the wheel"
+                inputMode="decimal"
+                value={form.seat}
+                onChange={set('seat')}
+                error={errors.seat}
+              />
             </>
           )}
         </form>
-        <button type="button" className="mt-3 text-sm font-bold text-ink underline" aria-expanded={showMeasured} onClick={() => setShowMeasured((s) => !s)}>
+        <button
+          type="button"
+          className="mt-3 text-sm font-bold text-ink underline"
+          aria-expanded={showMeasured}
+          onClick={() => setShowMeasured((s) => !s)}
+        >
           {showMeasured ? 'Hide my measurements' : 'I have measured my wheel and bolts'}
         </button>
       </div>
@@ -147,7 +235,11 @@ export function WheelCheckPanel({ data, axle, wheelBoltThread, presets = [] }: {
                 note={result.check.spoke.basisNote}
               />
             ) : (
-              <Figure label="Caliper to spokes (face)" value="Measure it" note="No tested wheel to estimate from: enter your spoke inset under ‘I have measured’." />
+              <Figure
+                label="Caliper to spokes (face)"
+                value="Measure it"
+                note="No tested wheel to estimate from: enter your spoke inset under ‘I have measured’."
+              />
             )}
             <Figure
               label="New offset"
@@ -163,14 +255,26 @@ export function WheelCheckPanel({ data, axle, wheelBoltThread, presets = [] }: {
                 rule={result.check.engagement.rule}
               />
             ) : (
-              <Figure label="Wheel-bolt length" value={form.spacer && Number(form.spacer) > 0 ? `Stock + ${units.length(result.check.offset.outboardMm)}` : 'Stock length'} note={result.check.boltNote} />
+              <Figure
+                label="Wheel-bolt length"
+                value={
+                  form.spacer && Number(form.spacer) > 0
+                    ? `Stock + ${units.length(result.check.offset.outboardMm)}`
+                    : 'Stock length'
+                }
+                note={result.check.boltNote}
+              />
             )}
             {result.check.maxRotor && (
               <Verdict
                 label="Rotor size rule of thumb"
                 ok={null}
                 value={`${units.length(result.check.maxRotor.rotorMm, 0)} rotor, rule allows ≈ ${units.length(result.check.maxRotor.maxRotorMm, 0)}`}
-                note={result.check.maxRotor.withinRule ? 'Within the rule of thumb.' : 'Larger than the rule of thumb suggests; the measured clearance above governs.'}
+                note={
+                  result.check.maxRotor.withinRule
+                    ? 'Within the rule of thumb.'
+                    : 'Larger than the rule of thumb suggests; the measured clearance above governs.'
+                }
                 rule={result.check.maxRotor.rule}
               />
             )}
