@@ -205,7 +205,7 @@ for (const n of sizes) {
 }
 
 const budget = (ok: boolean) => (ok ? 'ok' : 'OVER');
-log('budgets (DESIGN §9):');
+log('budgets:');
 if (summary['10000'])
   log(`  p95 ≤ 1 ms at 10,000: ${summary['10000'].queryP95Ms} ms ${budget(summary['10000'].queryP95Ms <= 1)}`);
 if (summary['50000'])

@@ -5,7 +5,7 @@ import zlib from 'node:zlib';
 
 // Deterministic: reads the build that `npm run test:e2e` makes first.
 const dist = path.resolve(import.meta.dirname, '../../dist');
-const budgetBytes = 180 * 1024; // DESIGN.md §9: home page initial JS ≤ 180 KB gzipped
+const budgetBytes = 180 * 1024; // the budget: home page initial JS ≤ 180 KB gzipped
 
 function initialScripts(): string[] {
   const html = fs.readFileSync(path.join(dist, 'index.html'), 'utf8');

@@ -49,7 +49,7 @@ describe('calculators page', () => {
     expect(await tyreInput.getAttribute('aria-invalid')).toBe('true');
     expect(await tyre.locator('[data-waiting]').innerText()).toContain('Fix the marked field');
 
-    // Tyre code convention (REFERENCES.md): 225/45R17 → sidewall 101.25 mm, overall Ø 634.30 mm, circumference 1992.71 mm.
+    // Tyre code convention: 225/45R17 → sidewall 101.25 mm, overall Ø 634.30 mm, circumference 1992.71 mm.
     await tyreInput.fill('225/45R17');
     await expect.poll(() => figure(tyre, 'Sidewall height')).toBe('101.25 mm');
     await expect.poll(() => figure(tyre, 'Overall diameter')).toBe('634.3 mm');
@@ -57,7 +57,7 @@ describe('calculators page', () => {
     expect(await tyreInput.getAttribute('aria-invalid')).toBe('false');
     expect(await tyre.getByRole('alert').count()).toBe(0);
 
-    // Common practice, no source (REFERENCES.md): 17×8 ET45 + 15 mm spacer → ET30, backspacing 5.6811 in (144.30 mm), track + 30 mm.
+    // Common practice, no source: 17×8 ET45 + 15 mm spacer → ET30, backspacing 5.6811 in (144.30 mm), track + 30 mm.
     await field(offset, 'Rim width').fill('8');
     await field(offset, 'Offset ET').fill('45');
     await field(offset, 'Spacer').fill('15');
@@ -113,7 +113,7 @@ describe('calculators page', () => {
       await field(group, 'Rotor Ø').fill(rotor);
       await field(group, 'Pad height').fill(pad);
     };
-    // Disc-brake textbook formula (REFERENCES.md): 50 bar, μ 0.40; stock 1 × 54 mm, 280/50; rear 1 × 38 mm, 280/40; swap 40 + 44 mm, 330/55.
+    // Disc-brake textbook formula: 50 bar, μ 0.40; stock 1 × 54 mm, 280/50; rear 1 × 38 mm, 280/40; swap 40 + 44 mm, 330/55.
     await corner('Stock front', '54', '280', '50');
     expect(await brakes.locator('[data-waiting]').innerText()).toContain('stock rear pistons');
     await corner('Stock rear', '38', '280', '40');
@@ -141,7 +141,7 @@ describe('calculators page', () => {
 
   it('when a bolt is too short for its spacer, then thread engagement fails with its margin and the rule applied', async () => {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    // Common practice, no source (REFERENCES.md): M12×1.5 in steel needs 1.0 × d = 12 mm = 8 turns.
+    // Common practice, no source: M12×1.5 in steel needs 1.0 × d = 12 mm = 8 turns.
     const { page, errors } = await openTools(context, '?thread=M12x1.5&bolt=28&clamp=14&tspacer=5#thread');
     const thread = page.locator('#thread');
     const topOf = (id: string) => page.evaluate((el) => document.getElementById(el)!.getBoundingClientRect().top, id);

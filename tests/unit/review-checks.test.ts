@@ -19,7 +19,7 @@ const caliper = {
   quantity: 1,
 };
 
-// REFERENCES.md, brakes (textbook disc-brake torque): stock front 1 × 54 mm on 280/50, swapped front 40 + 44 mm per side
+// Textbook disc-brake torque: stock front 1 × 54 mm on 280/50, swapped front 40 + 44 mm per side
 // on 330/55, rear 1 × 38 mm on 280/40 → front share 65.93 % → 73.72 %, a shift of 7.79 points.
 const referenceBrakes = {
   before: {
@@ -225,7 +225,7 @@ describe('automaticChecks', () => {
   });
 
   describe('brake balance', () => {
-    it('when the front share moves 7.79 points (REFERENCES.md brake chain), then it is flagged for attention', () => {
+    it('when the front share moves 7.79 points (the textbook brake chain), then it is flagged for attention', () => {
       const r = run({ extra: { brakes: referenceBrakes } });
       expect(r.balance.status).toBe('attention');
       expect(r.balance.detail).toContain('65.9 % → 73.7 %');

@@ -2,7 +2,7 @@ import type { Db } from '../../../server/db/client';
 import { chassis, parts } from '../../../server/db/schema/index';
 import type { SwapDataInput } from '../../../shared/schemas/swap-data';
 
-// Invented catalogue rows and records (DESIGN.md §3) that each test file inserts for itself.
+// Invented catalogue rows and records that each test file inserts for itself.
 
 export function addChassis(db: Db, slug = 'halden-h31', extra: Partial<typeof chassis.$inferInsert> = {}) {
   const now = new Date();
