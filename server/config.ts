@@ -24,7 +24,7 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SEED_DEMO: z.enum(['auto', 'never']).default('auto'),
   /** vite: dev server with hot reload; dist: the built client (default in production) */
-  SERVE_CLIENT: z.enum(['vite', 'dist']).optional(),
+  SERVE_CLIENT: z.enum(['vite', 'dist', 'none']).optional(),
 });
 
 export type Config = {
@@ -41,7 +41,7 @@ export type Config = {
   mailFrom: string;
   logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
   seedDemo: boolean;
-  serveClient: 'vite' | 'dist';
+  serveClient: 'vite' | 'dist' | 'none';
 };
 
 export class ConfigError extends Error {}

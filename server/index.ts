@@ -32,7 +32,7 @@ async function main() {
   const mailer = createMailer({ db, clock, smtpUrl: config.smtpUrl, from: config.mailFrom });
 
   const vite = config.serveClient === 'vite' ? await viteClient() : null;
-  const client = vite ? vite.handlers : staticClient();
+  const client = vite ? vite.handlers : config.serveClient === 'dist' ? staticClient() : undefined;
   const app = createApp({ db, mailer, storage, clock, config, logger, client });
 
   const server = app.listen(config.port, config.host, () => {
