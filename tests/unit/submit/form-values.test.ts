@@ -2,8 +2,12 @@ import { describe, expect, it } from 'vitest';
 import {
   emptyValues,
   formPathOf,
+  heldListText,
+  heldText,
   liveDataOf,
   parsePayload,
+  shownListText,
+  shownText,
   toPayload,
   valuesFromData,
   type FormValues,
@@ -113,5 +117,72 @@ describe('submission form values', () => {
     expect(costSummaryOf(live).totals.as_built).toBe(24050);
     v.data.brakes.after.front.rotorDiameterMm = '';
     expect(liveDataOf(v.data).brakes).toBeNull();
+  });
+
+  describe('inputs in the units the toggle names', () => {
+    it('when a length is typed in inches, then the form holds mm and the record stores mm', () => {
+      expect(heldText('13', 'length', 'imperial')).toBe('330.2'); // NIST SP 811 B.8: 1 in = 25.4 mm exactly
+      expect(heldText('4,5', 'length', 'imperial')).toBe('114.3'); // NIST SP 811 B.8: 4.5 in = 114.3 mm
+      const v = filled();
+      v.data.rotors = [
+        { diameterMm: heldText('13', 'length', 'imperial'), thicknessMm: '', vented: true, partNumber: '', notes: '' },
+      ];
+      v.data.rotors[0].thicknessMm = heldText('1.1', 'length', 'imperial');
+      const r = parsePayload(v, null);
+      expect(r.ok && r.payload.data.rotors[0]).toMatchObject({ diameterMm: 330.2, thicknessMm: 27.94 }); // NIST SP 811 B.8
+    });
+
+    it('when torque and pressure are typed in lbf·ft and psi, then N·m and bar are held', () => {
+      expect(heldText('80', 'torque', 'imperial')).toBe('108.4654'); // NIST SP 811 B.9: 1 lbf·ft = 1.355818 N·m
+      expect(heldText('725', 'pressure', 'imperial')).toBe('49.987'); // NIST SP 811 B.9: 1 psi = 6.894757 kPa; 1 bar = 100 kPa
+    });
+
+    it('when held metric values are shown in imperial, then they read in in, lbf·ft and psi', () => {
+      expect(shownText('330.2', 'length', 'imperial')).toBe('13'); // NIST SP 811 B.8
+      expect(shownText('330', 'length', 'imperial')).toBe('12.9921'); // NIST SP 811 B.8: 330 / 25.4
+      expect(shownText('85', 'torque', 'imperial')).toBe('62.69'); // NIST SP 811 B.9: 85 / 1.355818
+      expect(shownText('50', 'pressure', 'imperial')).toBe('725.19'); // NIST SP 811 B.9: 5000 kPa / 6.894757
+      expect(shownListText('38, 42', 'length', 'imperial')).toBe('1.4961, 1.6535'); // NIST SP 811 B.8
+      expect(heldListText('1.5, 1.65', 'length', 'imperial')).toBe('38.1, 41.91'); // NIST SP 811 B.8
+    });
+
+    it('when the system is metric, then the text passes through untouched, half-typed or not', () => {
+      for (const t of ['', '12,', '330.25', 'abc']) {
+        expect(heldText(t, 'length', 'metric')).toBe(t);
+        expect(shownText(t, 'length', 'metric')).toBe(t);
+      }
+    });
+
+    it('when the input is empty or unreadable, then it stays so and the schema names the field', () => {
+      expect(heldText('', 'length', 'imperial')).toBe('');
+      expect(heldText('  ', 'torque', 'imperial')).toBe('');
+      expect(heldText('thirteen', 'length', 'imperial')).toBe('thirteen');
+      const v = filled();
+      v.data.torque[0].nm = heldText('lots', 'torque', 'imperial');
+      const r = parsePayload(v, null);
+      expect(r.ok).toBe(false);
+      if (!r.ok) expect(r.issues.map((i) => i.path)).toContain('data.torque.0.nm');
+    });
+
+    it('when a value typed in imperial is shown again, then it reads exactly as typed', () => {
+      for (let i = 1; i <= 4000; i++) {
+        const inches = (i * 0.0037).toFixed(4);
+        expect(shownText(heldText(inches, 'length', 'imperial'), 'length', 'imperial')).toBe(String(Number(inches)));
+        const lbfFt = (i * 0.13).toFixed(2);
+        expect(shownText(heldText(lbfFt, 'torque', 'imperial'), 'torque', 'imperial')).toBe(String(Number(lbfFt)));
+        const psi = (i * 1.07).toFixed(2);
+        expect(shownText(heldText(psi, 'pressure', 'imperial'), 'pressure', 'imperial')).toBe(String(Number(psi)));
+      }
+    });
+
+    it('when a shown imperial value is typed back as shown, then it moves by under 0.00005 in once and never again', () => {
+      for (const mm of ['330', '12.7', '85.5', '0.35', '66.6', '114.3']) {
+        const once = heldText(shownText(mm, 'length', 'imperial'), 'length', 'imperial');
+        expect(Math.abs(Number(once) - Number(mm))).toBeLessThan(0.00005 * 25.4 + 0.00005); // shown to 0.0001 in, held to 0.0001 mm
+        let again = once;
+        for (let k = 0; k < 5; k++) again = heldText(shownText(again, 'length', 'imperial'), 'length', 'imperial');
+        expect(again).toBe(once);
+      }
+    });
   });
 });

@@ -76,8 +76,8 @@ export function ChassisSection({ fixed }: { fixed: { chassis: ChassisView; axle:
           <FNum name="newChassis.yearTo" label="Last year" hint="Empty if still built" />
           <FText name="newChassis.body" label="Body" placeholder="saloon, coupe…" />
           <FNum name="newChassis.lugCount" label="Wheel bolts per hub" />
-          <FNum name="newChassis.pcdMm" label="Bolt circle (PCD)" unit="mm" />
-          <FNum name="newChassis.centreBoreMm" label="Centre bore" unit="mm" />
+          <FNum name="newChassis.pcdMm" label="Bolt circle (PCD)" quantity="length" />
+          <FNum name="newChassis.centreBoreMm" label="Centre bore" quantity="length" />
           <FText name="newChassis.wheelBoltThread" label="Wheel-bolt thread" placeholder="M12x1.5" />
           <p className="text-sm text-graphite-soft sm:col-span-3">The stock wheel, if you know it:</p>
           <FNum name="newChassis.stockWheel.diameterIn" label="Stock wheel diameter" unit="in" />

@@ -5,7 +5,7 @@ import type { ChassisView } from '@shared/schemas/views';
 import { Markdown } from '../../../components/markdown';
 import { Button } from '../../../components/ui/button';
 import { stockCorner, type FormValues } from '../lib/form-values';
-import { AddButton, FArea, FCheck, FNum, FSelect, FText, FormSection, ListRow } from './form-controls';
+import { AddButton, FArea, FCheck, FLengthList, FNum, FSelect, FText, FormSection, ListRow } from './form-controls';
 
 export function WheelSection() {
   const { control } = useFormContext<FormValues>();
@@ -25,11 +25,11 @@ export function WheelSection() {
             <FNum
               name="data.wheel.barrelInnerDiameterMm"
               label="Barrel inner diameter at the caliper"
-              unit="mm"
+              quantity="length"
               hint="Measured on that smallest wheel"
             />
-            <FNum name="data.wheel.caliperRadialProjectionMm" label="Caliper reach beyond the rotor edge" unit="mm" />
-            <FNum name="data.wheel.caliperOutboardMm" label="Caliper face outboard of the hub face" unit="mm" />
+            <FNum name="data.wheel.caliperRadialProjectionMm" label="Caliper reach beyond the rotor edge" quantity="length" />
+            <FNum name="data.wheel.caliperOutboardMm" label="Caliper face outboard of the hub face" quantity="length" />
             <FArea name="data.wheel.notes" label="Notes" rows={2} className="sm:col-span-2" />
           </div>
           <h3 className="pt-2 text-sm font-extrabold text-ink">Wheels you tried</h3>
@@ -40,17 +40,17 @@ export function WheelSection() {
                 <FNum name={`data.wheel.testedWheels.${i}.widthIn`} label="Width" unit="in" />
                 <FNum name={`data.wheel.testedWheels.${i}.offsetMm`} label="Offset" unit="ET" />
               </div>
-              <FNum name={`data.wheel.testedWheels.${i}.spacerMm`} label="Spacer used" unit="mm" />
+              <FNum name={`data.wheel.testedWheels.${i}.spacerMm`} label="Spacer used" quantity="length" />
               <FNum
                 name={`data.wheel.testedWheels.${i}.radialClearanceMm`}
                 label="Measured radial clearance"
-                unit="mm"
+                quantity="length"
                 hint="Caliper to barrel"
               />
               <FNum
                 name={`data.wheel.testedWheels.${i}.spokeClearanceMm`}
                 label="Measured spoke clearance"
-                unit="mm"
+                quantity="length"
                 hint="Caliper face to spokes"
               />
               <FText name={`data.wheel.testedWheels.${i}.note`} label="Note" />
@@ -82,10 +82,14 @@ function CornerFields({ prefix, title }: { prefix: `data.brakes.${'before' | 'af
     <fieldset className="rounded-lg border border-graphite/15 bg-paper p-3">
       <legend className="px-1 text-sm font-bold text-ink">{title}</legend>
       <div className="grid gap-2">
-        <FText name={`${prefix}.pistonsPerSideMm`} label="Piston diameters, one side" hint="mm, separated by commas: “38, 42”" />
+        <FLengthList
+          name={`${prefix}.pistonsPerSideMm`}
+          label="Piston diameters, one side"
+          hint={(unit) => `${unit}, separated by commas: ${unit === 'mm' ? '“38, 42”' : '“1.5, 1.65”'}`}
+        />
         <div className="grid grid-cols-2 gap-2">
-          <FNum name={`${prefix}.rotorDiameterMm`} label="Rotor Ø" unit="mm" />
-          <FNum name={`${prefix}.padHeightMm`} label="Pad height" unit="mm" />
+          <FNum name={`${prefix}.rotorDiameterMm`} label="Rotor Ø" quantity="length" />
+          <FNum name={`${prefix}.padHeightMm`} label="Pad height" quantity="length" />
         </div>
       </div>
     </fieldset>
@@ -111,7 +115,7 @@ export function BrakesSection({ chassis }: { chassis: ChassisView | null }) {
       {hasBrakes && (
         <>
           <div className="grid gap-3 sm:grid-cols-2">
-            <FNum name="data.brakes.linePressureBar" label="Line pressure for the comparison" unit="bar" />
+            <FNum name="data.brakes.linePressureBar" label="Line pressure for the comparison" quantity="pressure" />
             <FNum name="data.brakes.padMu" label="Pad friction μ" />
           </div>
           {chassis && (

@@ -1,8 +1,19 @@
-import type { ReactNode } from 'react';
-import { useFormContext, useFormState, type Path } from 'react-hook-form';
+import { useState, type ChangeEvent, type ReactNode } from 'react';
+import { useController, useFormContext, useFormState, type Path } from 'react-hook-form';
+import type { UnitSystem } from '@shared/schemas/enums';
 import { Field, inputClass } from '../../../components/ui/field';
 import { Button } from '../../../components/ui/button';
-import { messageAt, type FormValues } from '../lib/form-values';
+import { useUnits } from '../../../lib/units';
+import {
+  heldListText,
+  heldText,
+  messageAt,
+  shownListText,
+  shownText,
+  unitOf,
+  type FormValues,
+  type Quantity,
+} from '../lib/form-values';
 
 // Inputs bound to the submission form by name; each shows its own error beside it.
 
@@ -42,8 +53,52 @@ export function FText({
   );
 }
 
+/**
+ * The input of a measured value: the form holds it in mm / N·m / bar, the person sees and types
+ * it in the system the units toggle names. What is being typed stays as typed until the field
+ * is left or the toggle is switched; then the text is derived again from the held value.
+ */
+function useMeasure(name: Name, quantity: Quantity, list = false) {
+  const { system } = useUnits();
+  const { field } = useController<FormValues>({ name });
+  const [draft, setDraft] = useState<{ text: string; system: UnitSystem } | null>(null);
+  const held = typeof field.value === 'string' ? field.value : '';
+  const shown = list ? shownListText : shownText;
+  const toHeld = list ? heldListText : heldText;
+  return {
+    unit: unitOf(quantity, system),
+    input: {
+      name: field.name,
+      ref: field.ref,
+      value: draft && draft.system === system ? draft.text : shown(held, quantity, system),
+      onChange: (e: ChangeEvent<HTMLInputElement>) => {
+        setDraft({ text: e.target.value, system });
+        field.onChange(toHeld(e.target.value, quantity, system));
+      },
+      onBlur: () => {
+        setDraft(null);
+        field.onBlur();
+      },
+    },
+  };
+}
+
 /** A number typed as text: decimal keypad on phones, comma or point, the unit beside it. */
-export function FNum({
+export function FNum(props: Common & { unit?: string; placeholder?: string; quantity?: Quantity }) {
+  return props.quantity ? <MeasureNum {...props} quantity={props.quantity} /> : <PlainNum {...props} />;
+}
+
+function PlainNum(props: Common & { unit?: string; placeholder?: string }) {
+  const { register } = useFormContext<FormValues>();
+  return <NumInput {...props} input={register(props.name)} />;
+}
+
+function MeasureNum(props: Common & { placeholder?: string; quantity: Quantity }) {
+  const { unit, input } = useMeasure(props.name, props.quantity);
+  return <NumInput {...props} unit={unit} input={input} />;
+}
+
+function NumInput({
   name,
   label,
   hint,
@@ -51,8 +106,8 @@ export function FNum({
   disabled,
   unit,
   placeholder,
-}: Common & { unit?: string; placeholder?: string }) {
-  const { register } = useFormContext<FormValues>();
+  input,
+}: Common & { unit?: string; placeholder?: string; input: object }) {
   const error = useFieldError(name);
   return (
     <Field label={label} hint={hint} error={error} className={className}>
@@ -63,7 +118,7 @@ export function FNum({
             inputMode="decimal"
             autoComplete="off"
             {...a11y}
-            {...register(name)}
+            {...input}
             placeholder={placeholder}
             disabled={disabled}
           />
@@ -77,6 +132,23 @@ export function FNum({
           )}
         </div>
       )}
+    </Field>
+  );
+}
+
+/** A comma-separated list of lengths (piston diameters), in the toggle's length unit. */
+export function FLengthList({
+  name,
+  label,
+  hint,
+  className,
+  disabled,
+}: Omit<Common, 'hint'> & { hint: (unit: string) => ReactNode }) {
+  const { unit, input } = useMeasure(name, 'length', true);
+  const error = useFieldError(name);
+  return (
+    <Field label={label} hint={hint(unit)} error={error} className={className}>
+      {(a11y) => <input className={inputClass} autoComplete="off" {...a11y} {...input} disabled={disabled} />}
     </Field>
   );
 }

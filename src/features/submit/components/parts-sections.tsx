@@ -1,6 +1,7 @@
 import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import { machiningOperations, partKinds } from '@shared/schemas/enums';
-import { emptyPart, type FormValues } from '../lib/form-values';
+import { useUnits } from '../../../lib/units';
+import { emptyPart, unitOf, type FormValues } from '../lib/form-values';
 import { AddButton, FArea, FCheck, FNum, FSelect, FText, FormSection, ListError, ListRow } from './form-controls';
 
 const kindLabels: Record<(typeof partKinds)[number], string> = {
@@ -103,14 +104,14 @@ export function ShimsSpacersSection() {
       <FNum
         name="data.shimTargetMm"
         label="Centring gap the shims fill"
-        unit="mm"
+        quantity="length"
         hint="If you measured it"
         className="sm:max-w-xs"
       />
       {shims.fields.map((f, i) => (
         <ListRow key={f.id} label={`Shim ${i + 1}`} onRemove={() => shims.remove(i)}>
           <FText name={`data.shims.${i}.location`} label="Where it goes" className="sm:col-span-2" />
-          <FNum name={`data.shims.${i}.thicknessMm`} label="Thickness" unit="mm" />
+          <FNum name={`data.shims.${i}.thicknessMm`} label="Thickness" quantity="length" />
           <FNum name={`data.shims.${i}.quantity`} label="Quantity" />
         </ListRow>
       ))}
@@ -118,7 +119,7 @@ export function ShimsSpacersSection() {
       <h3 className="border-t border-graphite/10 pt-4 text-sm font-extrabold text-ink">Wheel spacers</h3>
       {spacers.fields.map((f, i) => (
         <ListRow key={f.id} label={`Wheel spacer ${i + 1}`} onRemove={() => spacers.remove(i)}>
-          <FNum name={`data.spacers.${i}.thicknessMm`} label="Thickness" unit="mm" />
+          <FNum name={`data.spacers.${i}.thicknessMm`} label="Thickness" quantity="length" />
           <FNum name={`data.spacers.${i}.quantity`} label="Quantity" />
           <FSelect
             name={`data.spacers.${i}.mounting`}
@@ -149,8 +150,8 @@ export function RotorsSection() {
     <FormSection id="rotors" title="Rotors">
       {fields.map((f, i) => (
         <ListRow key={f.id} label={`Rotor ${i + 1}`} onRemove={() => remove(i)}>
-          <FNum name={`data.rotors.${i}.diameterMm`} label="Diameter" unit="mm" />
-          <FNum name={`data.rotors.${i}.thicknessMm`} label="Thickness" unit="mm" />
+          <FNum name={`data.rotors.${i}.diameterMm`} label="Diameter" quantity="length" />
+          <FNum name={`data.rotors.${i}.thicknessMm`} label="Thickness" quantity="length" />
           <FText name={`data.rotors.${i}.partNumber`} label="Part number" />
           <FCheck name={`data.rotors.${i}.vented`} label="Vented" className="sm:pt-6" />
           <FText name={`data.rotors.${i}.notes`} label="Notes" className="sm:col-span-2" />
@@ -201,17 +202,18 @@ export function MachiningSection() {
 
 export function TorqueSection() {
   const { control } = useFormContext<FormValues>();
+  const { system } = useUnits();
   const { fields, append, remove } = useFieldArray({ control, name: 'data.torque' });
   return (
     <FormSection
       id="torque"
       title="Torque specs"
-      lead="One line per fastener the install touches, in N·m. Reviewers check every fastener has a value."
+      lead={`One line per fastener the install touches, in ${unitOf('torque', system)}. Reviewers check every fastener has a value.`}
     >
       {fields.map((f, i) => (
         <ListRow key={f.id} label={`Fastener ${i + 1}`} onRemove={() => remove(i)}>
           <FText name={`data.torque.${i}.fastener`} label="Fastener" placeholder="caliper to adapter" />
-          <FNum name={`data.torque.${i}.nm`} label="Torque" unit="N·m" />
+          <FNum name={`data.torque.${i}.nm`} label="Torque" quantity="torque" />
           <FText
             name={`data.torque.${i}.notes`}
             label="Notes"

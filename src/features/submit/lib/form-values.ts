@@ -15,7 +15,8 @@ import {
   type SwapData,
 } from '@shared/schemas/swap-data';
 import { createSubmissionSchema, type CreateSubmission, type NewChassis } from '@shared/schemas/submissions';
-import type { Axle, Category, CostRoute, PartKind } from '@shared/schemas/enums';
+import type { Axle, Category, CostRoute, PartKind, UnitSystem } from '@shared/schemas/enums';
+import { barToPsi, inToMm, lbfFtToNm, mmToIn, nmToLbfFt, psiToBar } from '@shared/fitment/units';
 import type { ChassisView } from '@shared/schemas/views';
 
 // What the inputs hold. Numbers stay text while typed (a half-typed "12," must not vanish),
@@ -206,6 +207,65 @@ const cornerValues = (c: { pistonsPerSideMm: number[]; rotorDiameterMm: number; 
   rotorDiameterMm: str(c.rotorDiameterMm),
   padHeightMm: str(c.padHeightMm),
 });
+
+// ---------- the units toggle ----------
+// The form always holds lengths in mm, torque in N·m and pressure in bar, exactly as stored;
+// an input in imperial shows a text derived from that and converts what is typed back at once.
+// Switching the toggle re-derives the text and never rewrites the held value, so nothing drifts.
+
+export type Quantity = 'length' | 'torque' | 'pressure';
+
+const unitNames: Record<Quantity, Record<UnitSystem, string>> = {
+  length: { metric: 'mm', imperial: 'in' },
+  torque: { metric: 'N·m', imperial: 'lbf·ft' },
+  pressure: { metric: 'bar', imperial: 'psi' },
+};
+const toImperial: Record<Quantity, (v: number) => number> = { length: mmToIn, torque: nmToLbfFt, pressure: barToPsi };
+const fromImperial: Record<Quantity, (v: number) => number> = { length: inToMm, torque: lbfFtToNm, pressure: psiToBar };
+// Shown: 0.0001 in, 0.01 lbf·ft, 0.01 psi. Held: 0.0001 of the metric unit, fine enough that a
+// value typed in imperial (to the shown places) reads back exactly as typed.
+const shownPlaces: Record<Quantity, number> = { length: 4, torque: 2, pressure: 2 };
+const heldPlaces = 4;
+
+export const unitOf = (q: Quantity, system: UnitSystem) => unitNames[q][system];
+
+const fixed = (v: number, places: number) => {
+  const r = Number(v.toFixed(places));
+  return String(Object.is(r, -0) ? 0 : r);
+};
+
+function convertText(text: string, convert: (v: number) => number, places: number): string {
+  const v = num(text);
+  // empty stays empty; unreadable text is kept as typed so the schema names the field
+  if (v === undefined || !Number.isFinite(v)) return v === undefined ? '' : text;
+  return fixed(convert(v), places);
+}
+
+/** The text an input shows for a held metric value. */
+export function shownText(held: string, q: Quantity, system: UnitSystem): string {
+  return system === 'metric' ? held : convertText(held, toImperial[q], shownPlaces[q]);
+}
+
+/** The metric text the form holds for what was typed in the chosen system. */
+export function heldText(typed: string, q: Quantity, system: UnitSystem): string {
+  return system === 'metric' ? typed : convertText(typed, fromImperial[q], heldPlaces);
+}
+
+/** The same for a comma-separated list of lengths (piston diameters). */
+export function shownListText(held: string, q: Quantity, system: UnitSystem): string {
+  return system === 'metric'
+    ? held
+    : splitWords(held)
+        .map((p) => shownText(p, q, system))
+        .join(', ');
+}
+export function heldListText(typed: string, q: Quantity, system: UnitSystem): string {
+  return system === 'metric'
+    ? typed
+    : splitWords(typed)
+        .map((p) => heldText(p, q, system))
+        .join(', ');
+}
 
 /** Only the amount is typed in major units (12.50); the record keeps integer minor units. */
 const toMinor = (text: string) => {
