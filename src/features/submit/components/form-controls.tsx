@@ -118,14 +118,16 @@ function NumInput({
             inputMode="decimal"
             autoComplete="off"
             {...a11y}
+            // the unit is read out with the field, as its description
+            aria-describedby={[unit ? `${a11y.id}-unit` : null, a11y['aria-describedby']].filter(Boolean).join(' ') || undefined}
             {...input}
             placeholder={placeholder}
             disabled={disabled}
           />
           {unit && (
             <span
+              id={`${a11y.id}-unit`}
               className="flex min-w-10 items-center justify-center rounded-r-md border border-l-0 border-graphite/25 bg-paper-deep px-2 text-sm text-graphite-soft"
-              aria-hidden
             >
               {unit}
             </span>
