@@ -107,7 +107,8 @@ export function createApp(deps: AppDeps) {
 }
 
 function contentSecurityPolicy(config: Config) {
-  const dev = config.env === 'development';
+  // only Vite's dev server needs the looser rules; the built client runs under the strict ones
+  const dev = config.serveClient === 'vite';
   return {
     defaultSrc: ["'self'"],
     // Vite's dev server injects an inline module preamble and a websocket for hot reload

@@ -40,3 +40,16 @@ describe('health and unknown routes', () => {
     expect(applied.n).toBe(files.length);
   });
 });
+
+describe('security headers', () => {
+  it('when any answer goes out, then it carries the strict content security policy and nosniff', async () => {
+    const res = await request(t.app).get('/api/health');
+    const csp = res.headers['content-security-policy'];
+    expect(csp).toContain("script-src 'self'");
+    expect(csp).toMatch(/script-src 'self'(;|$)/);
+    expect(csp).toContain("object-src 'none'");
+    expect(csp).toContain("base-uri 'none'");
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(res.headers['x-content-type-options']).toBe('nosniff');
+  });
+});

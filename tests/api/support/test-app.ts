@@ -26,6 +26,7 @@ export async function makeTestApp(env: Record<string, string> = {}, clock?: Cloc
     UPLOAD_DIR: path.join(dir, 'uploads'),
     SESSION_SECRET: 'test-secret-test-secret-test-secret-000',
     LOG_LEVEL: 'silent',
+    SERVE_CLIENT: 'none',
     ...env,
   });
   const db: Db = openDb(config.databaseUrl);
