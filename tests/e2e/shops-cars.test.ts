@@ -1,8 +1,9 @@
 import fs from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { startServer, type RunningServer } from './support/server';
 import { launchBrowser } from './support/browser';
+import { signedInPage } from './support/sign-in';
 
 // The demo seed loads into the server's empty database: Ridgeway Performance, its shop account, and rivet_rosa.
 const sheetSlug = 'h31-front-vela-four-piston-330';
@@ -21,25 +22,16 @@ afterAll(async () => {
 });
 
 /** Signs in through the real strategy and the fake provider's page, the way a person does, and lands on `returnTo`. */
-async function signedInPage(login: string, returnTo: string): Promise<{ page: Page; errors: string[] }> {
+async function signedInAs(login: string, returnTo: string) {
   const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
-  const page = await context.newPage();
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
-  await page.goto(`${server.url}/auth/github?returnTo=${encodeURIComponent(returnTo)}`);
-  const authorize = new URL(page.url());
-  expect(authorize.pathname).toBe('/auth/fake/authorize');
-  authorize.searchParams.set('login', login);
-  await page.goto(authorize.toString());
-  await page.waitForURL((u) => u.pathname === returnTo.split('?')[0]);
-  return { page, errors };
+  return signedInPage(context, server.url, login, returnTo);
 }
 
 describe('shop links and my cars in the browser', () => {
   let code = '';
 
   it('when a shop user makes a link from a swap sheet, then it gets a short address and its QR downloads as PNG and SVG', async () => {
-    const { page, errors } = await signedInPage('ridgeway_shop', `/swaps/${sheetSlug}`);
+    const { page, errors } = await signedInAs('ridgeway_shop', `/swaps/${sheetSlug}`);
     const panel = page.locator('#shop-link');
     await panel.getByRole('heading', { name: 'Make a shop link' }).waitFor();
     await panel
@@ -96,7 +88,7 @@ describe('shop links and my cars in the browser', () => {
     expect(errors).toEqual([]);
     await context.close();
 
-    const shop = await signedInPage('ridgeway_shop', '/shop/links');
+    const shop = await signedInAs('ridgeway_shop', '/shop/links');
     const row = shop.page.locator(`tr[data-link-code="${code}"]`);
     await row.waitFor();
     expect(await row.locator('td').nth(2).innerText()).toMatch(/\b1$/);
@@ -104,7 +96,7 @@ describe('shop links and my cars in the browser', () => {
   });
 
   it('when a member saves a car, then the swap sheet’s wheel check fills from it in one click and shows its verdicts', async () => {
-    const { page, errors } = await signedInPage('rivet_rosa', '/me/cars');
+    const { page, errors } = await signedInAs('rivet_rosa', '/me/cars');
     const form = page.getByRole('form', { name: 'Add a car' });
     await form.getByRole('combobox', { name: 'Chassis' }).fill('H31');
     await form

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { startServer, type RunningServer } from './support/server';
 import { launchBrowser } from './support/browser';
+import { signedInPage } from './support/sign-in';
 
 // The first save of a new swap moves the form from /submit to the draft's own address. The
 // form being left stays on screen until the draft's page has loaded; whatever is typed there,
@@ -22,15 +23,7 @@ afterAll(async () => {
 
 async function openForm(login: string) {
   const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await context.newPage();
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
-  await page.goto(`${server.url}/auth/github?returnTo=${encodeURIComponent('/submit')}`);
-  await page.waitForURL(/\/auth\/fake\/authorize/);
-  const authorize = new URL(page.url());
-  authorize.searchParams.set('login', login);
-  await page.goto(authorize.toString());
-  await page.waitForURL((u) => u.pathname === '/submit');
+  const { page, errors } = await signedInPage(context, server.url, login, '/submit');
   await page.getByRole('heading', { level: 1, name: 'Record a swap' }).waitFor();
   return { context, page, errors };
 }

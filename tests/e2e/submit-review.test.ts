@@ -3,9 +3,10 @@ import path from 'node:path';
 import { promisify } from 'node:util';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, BrowserContext } from 'playwright-core';
 import { startServer, type RunningServer } from './support/server';
 import { launchBrowser } from './support/browser';
+import { signedInPage } from './support/sign-in';
 
 // The community loop in a real browser against the real server on an empty database:
 // a member records a swap with a photo and sends it; a moderator checks and approves it;
@@ -27,18 +28,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function signIn(context: BrowserContext, login: string, returnTo: string): Promise<{ page: Page; errors: string[] }> {
-  const page = await context.newPage();
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
-  await page.goto(`${server.url}/auth/github?returnTo=${encodeURIComponent(returnTo)}`);
-  await page.waitForURL(/\/auth\/fake\/authorize/);
-  const authorize = new URL(page.url());
-  authorize.searchParams.set('login', login);
-  await page.goto(authorize.toString());
-  await page.waitForURL((u) => u.pathname === returnTo);
-  return { page, errors };
-}
+const signIn = (context: BrowserContext, login: string, returnTo: string) => signedInPage(context, server.url, login, returnTo);
 
 /** the role command an operator runs; it changes the database the server is using */
 async function setRole(login: string, role: string) {
