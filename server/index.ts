@@ -26,7 +26,7 @@ async function main() {
   const storage = createDiskStorage(config.uploadDir);
   const clock = systemClock;
   if (config.seedDemo && isDatabaseEmpty(db)) {
-    const counts = await seedDemo(db, { storage, clock }, {});
+    const counts = await seedDemo(db, { storage, clock }, { appUrl: config.appUrl });
     logger.info({ counts }, 'demo scenario loaded into an empty database');
   }
   const mailer = createMailer({ db, clock, smtpUrl: config.smtpUrl, from: config.mailFrom });

@@ -10,7 +10,14 @@ const uploadDir = path.resolve(process.env.UPLOAD_DIR ?? './data/uploads');
 const db = openDb(file);
 try {
   migrateDb(db);
-  const { counts } = await seedDemo(db, { storage: createDiskStorage(uploadDir), clock: systemClock }, { reset: true });
+  const { counts } = await seedDemo(
+    db,
+    { storage: createDiskStorage(uploadDir), clock: systemClock },
+    {
+      reset: true,
+      appUrl: process.env.APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`,
+    },
+  );
   console.log(`Demo scenario loaded into ${path.resolve(file)} (photos in ${uploadDir}):`);
   for (const [table, n] of Object.entries(counts)) console.log(`  ${table.padEnd(22)} ${n}`);
 } catch (err) {

@@ -30,6 +30,7 @@ import {
 import { can, roleSchema } from '../../shared/roles';
 import { newFileId, type Storage } from '../storage/disk-storage';
 import type { Clock } from '../lib/clock';
+import { submissionReceived, submissionSentBack, type BuiltMessage } from '../mail/messages';
 import { processPhoto } from '../features/photos/photo-processing';
 import { thumbId } from '../features/photos/photo-files';
 
@@ -640,7 +641,7 @@ function storedFileIds(db: Db): string[] {
 
 type StoredPhoto = { fileId: string; file: string };
 
-function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, StoredPhoto[]>, now: Date) {
+function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, StoredPhoto[]>, now: Date, appUrl: string) {
   const stamp = (at: Date = now) => ({ createdAt: at, updatedAt: at });
 
   const shopIds = new Map<string, number>();
@@ -784,6 +785,20 @@ function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, St
         const by = nextApproval(i)!;
         event('superseded', by.reviewer!, by.reviewedAt!, `Replaced by revision ${by.number}`);
       }
+
+      // the messages the review loop would have sent, so the demo outbox is not empty
+      const author = content.users.find((u) => u.login === rev.author);
+      const mail = (at: Date, m: BuiltMessage) =>
+        author?.email &&
+        tx
+          .insert(t.mailOutbox)
+          .values({ to: author.email, ...m, createdAt: at, sentAt: null })
+          .run();
+      const who = { appUrl, name: author?.name ?? rev.author, title: rev.data.title };
+      if (rev.status === 'in_review')
+        mail(rev.submittedAt!, submissionReceived({ ...who, revisionId: revRow.id, number: rev.number }));
+      if (rev.status === 'sent_back')
+        mail(rev.reviewedAt!, submissionSentBack({ ...who, revisionId: revRow.id, reasons: rev.reviewNote ?? '' }));
     });
 
     const current = revisions.find((r) => r.status === 'approved');
@@ -844,7 +859,11 @@ function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, St
 export async function seedDemo(
   db: Db,
   { storage, clock }: { storage: Storage; clock: Clock },
-  { reset = false, contentDir = defaultContentDir }: { reset?: boolean; contentDir?: string } = {},
+  {
+    reset = false,
+    contentDir = defaultContentDir,
+    appUrl = 'http://localhost:3000',
+  }: { reset?: boolean; contentDir?: string; /** links in the demo's e-mails */ appUrl?: string } = {},
 ): Promise<SeedResult> {
   if (!reset && !isDatabaseEmpty(db)) return { seeded: false, counts: countRows(db) };
 
@@ -871,7 +890,7 @@ export async function seedDemo(
     const now = clock.now();
     db.transaction((tx) => {
       if (reset) clearAll(tx);
-      insertContent(tx, content, stored, now);
+      insertContent(tx, content, stored, now, appUrl);
     });
   } catch (err) {
     await Promise.all(written.map((id) => storage.remove(id).catch(() => undefined)));

@@ -127,6 +127,8 @@ describe('submit and review journey', () => {
     await page.waitForURL(/\/submissions\/\d+\/edit$/, { timeout: 15_000 });
     await expect.poll(() => page.locator('[data-save-state]').getAttribute('data-save-state'), { timeout: 15_000 }).toBe('saved');
     const revisionId = Number(/submissions\/(\d+)\/edit/.exec(page.url())![1]);
+    // the draft's own page is in place (only it offers to delete the draft); the hand-over itself is tested in submit-handoff
+    await page.getByRole('button', { name: 'Delete draft' }).waitFor();
 
     // a refused save keeps the input, shows the server's reason beside its field, and the next save goes through
     const saveState = () => page.locator('[data-save-state]').getAttribute('data-save-state');
