@@ -1,5 +1,5 @@
-import type { SearchDocument } from '../shared/search/search-document';
-import { axles, categories, machiningLevels } from '../shared/schemas/enums';
+import type { SearchDocument } from '../../shared/search/search-document';
+import { axles, categories, machiningLevels } from '../../shared/schemas/enums';
 
 // Synthetic, invented search documents shaped like approved swaps, and queries people type.
 // Seeded so every run measures the same data.

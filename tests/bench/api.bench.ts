@@ -1,7 +1,7 @@
 import autocannon from 'autocannon';
 import os from 'node:os';
 import { spawn } from 'node:child_process';
-import { freePort, startServer } from '../tests/e2e/support/server';
+import { freePort, startServer } from '../e2e/support/server';
 
 // HTTP throughput of the built server against a bare Express route measured in the same run.
 // Run with `npm run bench:api` (builds the client first).
@@ -16,7 +16,7 @@ async function run(url: string, connections: number): Promise<Result> {
 }
 
 const barePort = await freePort();
-const bare = spawn(process.execPath, ['--import', 'tsx', 'bench/support/bare-server.ts'], {
+const bare = spawn(process.execPath, ['--import', 'tsx', 'tests/bench/support/bare-server.ts'], {
   env: { ...process.env, PORT: String(barePort) },
   stdio: ['ignore', 'ignore', 'inherit'],
 });

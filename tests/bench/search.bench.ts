@@ -11,9 +11,9 @@ import {
   search,
   searchOptions,
   type SearchIndex,
-} from '../shared/search/search-engine';
-import { normalisePartNumber, parseQuery, tokenize } from '../shared/search/normalise';
-import type { SearchDocument } from '../shared/search/search-document';
+} from '../../shared/search/search-engine';
+import { normalisePartNumber, parseQuery, tokenize } from '../../shared/search/normalise';
+import type { SearchDocument } from '../../shared/search/search-document';
 import { makeDocuments, makeQueries, makeWorld } from './search-fixtures';
 
 // npm run bench:search — client-side search at 1k / 10k / 50k approved swaps, beside a linear scan

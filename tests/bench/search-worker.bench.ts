@@ -1,7 +1,7 @@
 import { chromium } from 'playwright-core';
 import { makeDocuments, makeWorld } from './search-fixtures';
 
-// node --import tsx bench/search-worker.bench.ts [http://localhost:3000] [50000]
+// node --import tsx tests/bench/search-worker.bench.ts [http://localhost:3000] [50000]
 // Opens the built search page in Chromium with the index answered by N synthetic documents and records
 // every main-thread long task (> 50 ms) from navigation until the page shows the document count.
 
