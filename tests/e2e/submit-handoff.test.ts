@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { startServer, type RunningServer } from './support/server';
 import { launchBrowser } from './support/browser';
-import { signedInPage } from './support/sign-in';
+import { openSubmitForm } from './support/sign-in';
 
 // The first save of a new swap moves the form from /submit to the draft's own address. The
 // form being left stays on screen until the draft's page has loaded; whatever is typed there,
@@ -21,12 +21,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function openForm(login: string) {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const { page, errors } = await signedInPage(context, server.url, login, '/submit');
-  await page.getByRole('heading', { level: 1, name: 'Record a swap' }).waitFor();
-  return { context, page, errors };
-}
+const openForm = (login: string) => openSubmitForm(browser, server.url, login);
 
 const text = (page: Page, name: string) => page.getByRole('textbox', { name, exact: true });
 

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { startServer, type RunningServer } from './support/server';
 import { launchBrowser } from './support/browser';
-import { signedInPage } from './support/sign-in';
+import { openSubmitForm } from './support/sign-in';
 
 // The form's inputs follow the units toggle while the record keeps mm, N·m and bar.
 // Conversions per NIST SP 811 B.8/B.9: 1 in = 25.4 mm, 1 lbf·ft = 1.355818 N·m.
@@ -20,12 +20,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function openForm(login: string) {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const { page, errors } = await signedInPage(context, server.url, login, '/submit');
-  await page.getByRole('heading', { level: 1, name: 'Record a swap' }).waitFor();
-  return { context, page, errors };
-}
+const openForm = (login: string) => openSubmitForm(browser, server.url, login);
 
 const text = (page: Page, name: string) => page.getByRole('textbox', { name, exact: true });
 const units = (page: Page, choice: 'mm · N·m' | 'in · lbf·ft') =>

@@ -1,4 +1,4 @@
-import type { BrowserContext, Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 
 /**
  * Signs in the way a person does — through the real strategy and the local provider's page — and
@@ -20,4 +20,12 @@ export async function signedInPage(
   await page.goto(authorize.toString());
   await page.waitForURL((u) => u.pathname === returnTo.split('?')[0]);
   return { page, errors };
+}
+
+/** A member's fresh browser context on an empty submission form. */
+export async function openSubmitForm(browser: Browser, baseUrl: string, login: string) {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const { page, errors } = await signedInPage(context, baseUrl, login, '/submit');
+  await page.getByRole('heading', { level: 1, name: 'Record a swap' }).waitFor();
+  return { context, page, errors };
 }

@@ -37,39 +37,42 @@ export function RevisionHistory({ slug, history, shown }: { slug: string; histor
             navigate(paths.swapCompare(slug, a, b));
           }}
         >
-          <label className="flex flex-col">
-            <span className="font-bold">Compare</span>
-            <select
-              className="rounded border border-graphite/25 bg-paper-card px-2 py-1"
-              value={a}
-              onChange={(e) => setA(Number(e.target.value))}
-            >
-              {numbers.map((n) => (
-                <option key={n} value={n}>
-                  Revision {n}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="flex flex-col">
-            <span className="font-bold">with</span>
-            <select
-              className="rounded border border-graphite/25 bg-paper-card px-2 py-1"
-              value={b}
-              onChange={(e) => setB(Number(e.target.value))}
-            >
-              {numbers.map((n) => (
-                <option key={n} value={n}>
-                  Revision {n}
-                </option>
-              ))}
-            </select>
-          </label>
+          <RevisionPicker label="Compare" numbers={numbers} value={a} onChange={setA} />
+          <RevisionPicker label="with" numbers={numbers} value={b} onChange={setB} />
           <Button type="submit" variant="secondary" disabled={a === b}>
             Show changes
           </Button>
         </form>
       )}
     </SheetSection>
+  );
+}
+
+function RevisionPicker({
+  label,
+  numbers,
+  value,
+  onChange,
+}: {
+  label: string;
+  numbers: number[];
+  value: number;
+  onChange: (n: number) => void;
+}) {
+  return (
+    <label className="flex flex-col">
+      <span className="font-bold">{label}</span>
+      <select
+        className="rounded border border-graphite/25 bg-paper-card px-2 py-1"
+        value={value}
+        onChange={(e) => onChange(Number(e.target.value))}
+      >
+        {numbers.map((n) => (
+          <option key={n} value={n}>
+            Revision {n}
+          </option>
+        ))}
+      </select>
+    </label>
   );
 }
