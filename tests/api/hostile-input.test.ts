@@ -9,7 +9,7 @@ import request from 'supertest';
 import sharp from 'sharp';
 import { eq, sql } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
-import { addUser, csrfToken, listen, sessionCookieOf, signIn, type Agent } from './support/auth-helpers';
+import { addUser, csrfToken, listen, sessionCookieOf, signIn, type Agent, createDraft } from './support/auth-helpers';
 import { addChassis, swapRecord } from './support/swap-fixtures';
 import { addSwap } from './support/swap-rows';
 import { multipartBody } from './support/hostile-files';
@@ -105,11 +105,7 @@ const countOf = (table: typeof swaps | typeof revisions | typeof users | typeof 
     .get()!.n;
 const settle = (ms = 50) => new Promise((r) => setTimeout(r, ms));
 
-async function newDraft(m: Member = rosa, data = swapRecord()): Promise<number> {
-  const res = await post(m, '/api/submissions').send({ chassisId, axle: 'front', category: 'brakes', data });
-  expect(res.status).toBe(201);
-  return res.body.id;
-}
+const newDraft = (m: Member = rosa, data: unknown = swapRecord()) => createDraft(m, chassisId, data);
 
 let jpeg: Buffer;
 let approvedSlug: string;

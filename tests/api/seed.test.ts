@@ -205,9 +205,15 @@ describe('demo seed', () => {
     // the stray message is gone; what is left is the demo's own: one per revision waiting on the desk or sent back
     const mails = db.select().from(t.mailOutbox).all();
     expect(mails.map((m) => m.to)).not.toContain('x@example.com');
-    const waiting = db.select().from(t.revisions).all().filter((r) => r.status === 'in_review' || r.status === 'sent_back');
+    const waiting = db
+      .select()
+      .from(t.revisions)
+      .all()
+      .filter((r) => r.status === 'in_review' || r.status === 'sent_back');
     expect(mails).toHaveLength(waiting.length);
-    expect(mails.filter((m) => m.subject.startsWith('Changes requested:'))).toHaveLength(waiting.filter((r) => r.status === 'sent_back').length);
+    expect(mails.filter((m) => m.subject.startsWith('Changes requested:'))).toHaveLength(
+      waiting.filter((r) => r.status === 'sent_back').length,
+    );
     expect(
       db
         .select()

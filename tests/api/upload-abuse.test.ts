@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import sharp from 'sharp';
 import { makeTestApp, type TestApp } from './support/test-app';
-import { type Agent, type Member, addUser, csrfToken, listen, signIn, signedInMember } from './support/auth-helpers';
+import { type Agent, type Member, addUser, csrfToken, listen, signIn, signedInMember, createDraft } from './support/auth-helpers';
 import { addChassis, swapRecord } from './support/swap-fixtures';
 import { addSwap } from './support/swap-rows';
 import {
@@ -43,14 +43,7 @@ let kai: Member;
 
 const member = (login: string) => signedInMember(t.db, agent, login);
 
-async function newDraft(m: Member = rosa): Promise<number> {
-  const res = await m.agent
-    .post('/api/submissions')
-    .set('x-csrf-token', m.token)
-    .send({ chassisId, axle: 'front', category: 'brakes', data: swapRecord() });
-  expect(res.status).toBe(201);
-  return res.body.id;
-}
+const newDraft = (m: Member = rosa) => createDraft(m, chassisId, swapRecord());
 
 const upload = (m: Member, id: number) => m.agent.post(`/api/submissions/${id}/photos`).set('x-csrf-token', m.token);
 const uploadRaw = (m: Member, id: number, parts: Parameters<typeof multipartBody>[0]) => {

@@ -6,7 +6,7 @@ import request from 'supertest';
 import sharp from 'sharp';
 import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
-import { type Agent, type Member, addUser, csrfToken, listen, signIn, signedInMember } from './support/auth-helpers';
+import { type Agent, type Member, addUser, csrfToken, listen, signIn, signedInMember, createDraft } from './support/auth-helpers';
 import { addChassis, swapRecord } from './support/swap-fixtures';
 import { revisionPhotos } from '../../server/db/schema/index';
 
@@ -21,14 +21,7 @@ let mo: Member;
 
 const member = (login: string, role: 'member' | 'moderator' = 'member') => signedInMember(t.db, agent, login, role);
 
-async function newDraft(m: Member = rosa): Promise<number> {
-  const res = await m.agent
-    .post('/api/submissions')
-    .set('x-csrf-token', m.token)
-    .send({ chassisId, axle: 'front', category: 'brakes', data: swapRecord() });
-  expect(res.status).toBe(201);
-  return res.body.id;
-}
+const newDraft = (m: Member = rosa) => createDraft(m, chassisId, swapRecord());
 
 const upload = (m: Member, id: number) => m.agent.post(`/api/submissions/${id}/photos`).set('x-csrf-token', m.token);
 

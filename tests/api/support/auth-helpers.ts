@@ -84,3 +84,13 @@ export async function signedInMember(
   await signIn(agent, login);
   return { agent, token: await csrfToken(agent), id, login };
 }
+
+/** A new draft swap by `member` on the given chassis, through the API; returns its revision id. */
+export async function createDraft(member: Member, chassisId: number, data: unknown): Promise<number> {
+  const res = await member.agent
+    .post('/api/submissions')
+    .set('x-csrf-token', member.token)
+    .send({ chassisId, axle: 'front', category: 'brakes', data });
+  expect(res.status).toBe(201);
+  return res.body.id as number;
+}
