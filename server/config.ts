@@ -21,6 +21,11 @@ const envSchema = z.object({
   UPLOAD_RATE_LIMIT: z.coerce.number().int().min(1).default(120),
   SMTP_URL: z.string().min(1).optional(),
   MAIL_FROM: z.string().default('Swapyard <no-reply@swapyard.invalid>'),
+  /** the longest the sender waits for the mail server to connect, greet or answer */
+  SMTP_TIMEOUT_MS: z.coerce.number().int().min(100).max(120_000).default(10_000),
+  /** tries before a message is marked failed; the wait after a failed try doubles from MAIL_RETRY_MS up to an hour */
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(10),
+  MAIL_RETRY_MS: z.coerce.number().int().min(10).default(30_000),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SEED_DEMO: z.enum(['auto', 'never']).default('auto'),
   /** vite: dev server with hot reload; dist: the built client (default in production) */
@@ -39,6 +44,7 @@ export type Config = {
   rateLimits: { submissionsPerHour: number; uploadsPerHour: number };
   smtpUrl?: string;
   mailFrom: string;
+  mailDelivery: { timeoutMs: number; maxAttempts: number; retryMs: number };
   logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
   seedDemo: boolean;
   serveClient: 'vite' | 'dist' | 'none';
@@ -85,6 +91,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     rateLimits: { submissionsPerHour: e.SUBMISSION_RATE_LIMIT, uploadsPerHour: e.UPLOAD_RATE_LIMIT },
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
+    mailDelivery: { timeoutMs: e.SMTP_TIMEOUT_MS, maxAttempts: e.MAIL_MAX_ATTEMPTS, retryMs: e.MAIL_RETRY_MS },
     logLevel: e.LOG_LEVEL,
     seedDemo: e.SEED_DEMO === 'auto',
     serveClient: e.SERVE_CLIENT ?? (production ? 'dist' : 'vite'),

@@ -29,7 +29,7 @@ async function main() {
     const counts = await seedDemo(db, { storage, clock }, { appUrl: config.appUrl });
     logger.info({ counts }, 'demo scenario loaded into an empty database');
   }
-  const mailer = createMailer({ db, clock, smtpUrl: config.smtpUrl, from: config.mailFrom });
+  const mailer = createMailer({ db, clock, logger, config });
 
   const vite = config.serveClient === 'vite' ? await viteClient() : null;
   const client = vite ? vite.handlers : config.serveClient === 'dist' ? staticClient() : undefined;

@@ -6,6 +6,8 @@ import path from 'node:path';
 import * as schema from './schema/index';
 
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
+/** The handle a `db.transaction(...)` callback receives. */
+export type DbTransaction = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 const migrationsFolder = path.resolve(import.meta.dirname, '../../drizzle');
 

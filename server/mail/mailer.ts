@@ -1,31 +1,80 @@
 import nodemailer from 'nodemailer';
-import type { Db } from '../db/client';
+import type { Db, DbTransaction } from '../db/client';
 import { mailOutbox } from '../db/schema/index';
 import type { Clock } from '../lib/clock';
+import type { Logger } from '../lib/logger';
+import type { Config } from '../config';
+import type { BuiltMessage } from './messages';
+import { newMessageId } from './message-id';
+import { createSender } from './sender';
 
-export type OutgoingMessage = { to: string; subject: string; text: string; html: string };
-export type Mailer = { send: (message: OutgoingMessage) => Promise<void> };
+export type Recipient = { id: number; email: string | null };
+
+export type Mailer = {
+  /**
+   * Writes the message into the outbox inside the caller's transaction, so it exists exactly when the
+   * change it reports does. Members without an e-mail address are skipped. Delivery starts after the commit.
+   */
+  queue: (tx: DbTransaction, to: Recipient, message: BuiltMessage) => void;
+  /** Stops delivering; waits for a delivery in progress so its result is recorded. */
+  stop: () => Promise<void>;
+};
 
 /**
- * nodemailer builds every message. With SMTP_URL it is sent through that server; without it the
- * built message is kept in the mail_outbox table, which moderators read at /outbox.
- * Every message is recorded in the outbox either way, with sent_at set once SMTP accepted it.
+ * nodemailer builds and sends every message. With SMTP_URL the sender in this process delivers the
+ * outbox with short timeouts and retries; without it messages are `kept` in the outbox, which staff
+ * read at /outbox. No request ever waits for the mail server.
  */
-export function createMailer({ db, clock, smtpUrl, from }: { db: Db; clock: Clock; smtpUrl?: string; from: string }): Mailer {
-  const transport = smtpUrl ? nodemailer.createTransport(smtpUrl) : nodemailer.createTransport({ jsonTransport: true });
+export function createMailer({
+  db,
+  clock,
+  logger,
+  config,
+}: {
+  db: Db;
+  clock: Clock;
+  logger: Logger;
+  config: Pick<Config, 'smtpUrl' | 'mailFrom' | 'appUrl' | 'mailDelivery'>;
+}): Mailer {
+  const domain = new URL(config.appUrl).hostname || 'swapyard.invalid';
+  const { timeoutMs } = config.mailDelivery;
+  const sender = config.smtpUrl
+    ? createSender({
+        db,
+        clock,
+        logger,
+        from: config.mailFrom,
+        domain,
+        options: config.mailDelivery,
+        transport: nodemailer.createTransport({
+          url: config.smtpUrl,
+          connectionTimeout: timeoutMs,
+          greetingTimeout: timeoutMs,
+          socketTimeout: timeoutMs,
+          dnsTimeout: timeoutMs,
+        }),
+      })
+    : null;
+  if (sender) setImmediate(sender.wake); // messages left from before a restart
+
   return {
-    async send(message) {
-      const info = await transport.sendMail({ from, ...message });
-      db.insert(mailOutbox)
+    queue(tx, to, message) {
+      if (!to.email) return;
+      const now = clock.now();
+      tx.insert(mailOutbox)
         .values({
-          to: message.to,
-          subject: message.subject,
-          text: message.text,
-          html: message.html,
-          createdAt: clock.now(),
-          sentAt: smtpUrl && info.accepted?.length ? clock.now() : null,
+          userId: to.id,
+          to: to.email,
+          ...message,
+          messageId: newMessageId(domain),
+          status: sender ? 'pending' : 'kept',
+          nextAttemptAt: sender ? now : null,
+          createdAt: now,
         })
         .run();
+      // runs after the synchronous transaction has committed (or finds nothing if it rolled back)
+      if (sender) setImmediate(sender.wake);
     },
+    stop: async () => sender?.stop(),
   };
 }

@@ -52,3 +52,18 @@ export const machiningLevelLabels: Record<MachiningLevel, string> = {
 export const unitSystems = ['metric', 'imperial'] as const;
 export const unitSystemSchema = z.enum(unitSystems);
 export type UnitSystem = z.infer<typeof unitSystemSchema>;
+
+/**
+ * Delivery of one outbox message: `kept` (no mail server configured: it stays in the outbox),
+ * `pending` (not tried yet), `sending`, `retrying` (failed, tried again later), `sent`, `failed` (given up).
+ */
+export const mailStatuses = ['kept', 'pending', 'sending', 'retrying', 'sent', 'failed'] as const;
+export type MailStatus = (typeof mailStatuses)[number];
+export const mailStatusLabels: Record<MailStatus, string> = {
+  kept: 'Kept here (no mail server)',
+  pending: 'Waiting to be sent',
+  sending: 'Being sent',
+  retrying: 'Will try again',
+  sent: 'Sent',
+  failed: 'Not delivered',
+};

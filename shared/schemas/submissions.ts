@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { axleSchema, categorySchema, type Axle, type Category, type RevisionStatus } from './enums';
+import { axleSchema, categorySchema, type Axle, type Category, type MailStatus, type RevisionStatus } from './enums';
 import { swapDataSchema, type SwapData } from './swap-data';
 import type { PersonRef, PhotoView, ChassisView } from './views';
 
@@ -167,15 +167,24 @@ export type ReasonTemplate = { id: number; label: string; text: string };
 export const flagSchema = z.object({ reason: z.string().trim().min(5, 'Say what is wrong (at least 5 characters)').max(2000) });
 export const resolveFlagSchema = z.object({ note: z.string().trim().min(3, 'Say what was done').max(2000) });
 
+/** One message of `GET /api/outbox`; `to` and `delivery` are filled for admins only. */
 export type OutboxMessage = {
   id: number;
-  to: string;
+  /** the member's login (null when the account is gone) */
+  recipient: string | null;
+  /** the address it was sent to: admins only */
+  to: string | null;
   subject: string;
   text: string;
   html: string;
   createdAt: string;
+  status: MailStatus;
   sentAt: string | null;
+  /** admins only: the delivery's details (the mail server's last answer may quote the address) */
+  delivery: { messageId: string | null; attempts: number; lastError: string | null; nextAttemptAt: string | null } | null;
 };
+/** `GET /api/outbox`; `delivering` is false when no mail server is configured and messages are kept here. */
+export type OutboxResponse = { items: OutboxMessage[]; delivering: boolean };
 
 /** POST /api/review/:revisionId/{approve|send-back|decline} */
 export type DecisionResponse = { revision: SubmissionView };

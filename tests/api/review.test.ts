@@ -11,7 +11,7 @@ import { type Agent, type Member, csrfToken, listen, signIn, signedInMember } fr
 import { addChassis, swapRecord } from './support/swap-fixtures';
 import { chassis, flags, mailOutbox, parts, reviewEvents, revisions, swaps, users } from '../../server/db/schema/index';
 import type { SwapDataInput } from '../../shared/schemas/swap-data';
-import type { ReviewDetail, ReviewQueue, SubmissionView } from '../../shared/schemas/submissions';
+import type { OutboxMessage, ReviewDetail, ReviewQueue, SubmissionView } from '../../shared/schemas/submissions';
 
 let t: TestApp;
 let server: Server;
@@ -493,23 +493,36 @@ describe('flags', () => {
 });
 
 describe('GET /api/outbox', () => {
-  it('moderators and admins read it newest first; members get 403, visitors 401', async () => {
+  it('when moderators and admins read it, then it is newest first with each delivery state; members get 403, visitors 401', async () => {
     const res = await mo.agent.get('/api/outbox');
     expect(res.status).toBe(200);
+    expect(res.body.delivering).toBe(false);
     const ids = res.body.items.map((m: { id: number }) => m.id);
     expect(ids).toEqual([...ids].sort((a, b) => b - a));
     expect(res.body.items[0]).toEqual(
       expect.objectContaining({
-        to: expect.any(String),
+        recipient: expect.any(String),
         subject: expect.any(String),
         text: expect.any(String),
         html: expect.any(String),
+        status: 'kept',
         sentAt: null,
       }),
     );
     expect((await ada.agent.get('/api/outbox')).status).toBe(200);
     expect((await kai.agent.get('/api/outbox')).status).toBe(403);
     expect((await request(server).get('/api/outbox')).status).toBe(401);
+  });
+
+  it('when a moderator reads it, then they see which member a message went to but never an address; an admin sees the address', async () => {
+    const asModerator = (await mo.agent.get('/api/outbox')).body.items as OutboxMessage[];
+    const asAdmin = (await ada.agent.get('/api/outbox')).body.items as OutboxMessage[];
+    expect(asModerator.length).toBeGreaterThan(0);
+    expect(asModerator.map((m) => m.recipient)).toEqual(asAdmin.map((m) => m.recipient));
+    expect(JSON.stringify(asModerator)).not.toContain('@members.swapyard.invalid');
+    expect(asModerator.every((m) => m.to === null && m.delivery === null)).toBe(true);
+    expect(asAdmin.every((m) => m.to === `${m.recipient}@members.swapyard.invalid`)).toBe(true);
+    expect(asAdmin[0].delivery).toEqual(expect.objectContaining({ attempts: 0, lastError: null }));
   });
 });
 

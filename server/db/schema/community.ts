@@ -3,6 +3,8 @@ import { timestamp, timestamps } from './columns';
 import { users, shops } from './users';
 import { swaps, revisions } from './swaps';
 import { chassis } from './catalogue';
+import { mailStatuses } from '../../../shared/schemas/enums';
+import { newMessageId } from '../../mail/message-id';
 
 export const fittedReports = sqliteTable(
   'fitted_reports',
@@ -98,12 +100,31 @@ export const cars = sqliteTable(
   (t) => [index('cars_user_idx').on(t.userId)],
 );
 
-export const mailOutbox = sqliteTable('mail_outbox', {
-  id: integer('id').primaryKey({ autoIncrement: true }),
-  to: text('to').notNull(),
-  subject: text('subject').notNull(),
-  text: text('text').notNull(),
-  html: text('html').notNull(),
-  createdAt: timestamp('created_at').notNull(),
-  sentAt: timestamp('sent_at'),
-});
+/**
+ * Every e-mail, written in the same transaction as the change it reports; the sender in the server
+ * process delivers it later. `kept` messages stay here (no mail server is configured).
+ */
+export const mailOutbox = sqliteTable(
+  'mail_outbox',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    /** the member it is for; the address below is theirs at the time of writing */
+    userId: integer('user_id').references(() => users.id, { onDelete: 'set null' }),
+    to: text('to').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    html: text('html').notNull(),
+    /** the same on every attempt, so a receiver can drop a repeat */
+    messageId: text('message_id')
+      .unique()
+      .$defaultFn(() => newMessageId()),
+    status: text('status', { enum: mailStatuses }).notNull().default('kept'),
+    attempts: integer('attempts').notNull().default(0),
+    lastError: text('last_error'),
+    /** when the next attempt is due; while `sending`, when the claim lapses */
+    nextAttemptAt: timestamp('next_attempt_at'),
+    createdAt: timestamp('created_at').notNull(),
+    sentAt: timestamp('sent_at'),
+  },
+  (t) => [index('mail_outbox_due_idx').on(t.status, t.nextAttemptAt)],
+);

@@ -59,5 +59,9 @@ export const sessions = sqliteTable(
     expiresAt: integer('expires_at').notNull(),
     createdAt: integer('created_at').notNull(),
   },
-  (t) => [index('sessions_expires_idx').on(t.expiresAt), index('sessions_user_idx').on(t.userId)],
+  (t) => [
+    index('sessions_expires_idx').on(t.expiresAt),
+    index('sessions_created_idx').on(t.createdAt),
+    index('sessions_user_idx').on(t.userId),
+  ],
 );

@@ -81,8 +81,8 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
   router.post(
     '/review/bulk-decline',
     review,
-    validated({ body: bulkDeclineSchema }, async ({ body }, req, res) => {
-      const declined = await bulkDecline(deps, req.user!, body.revisionIds, body.note);
+    validated({ body: bulkDeclineSchema }, ({ body }, req, res) => {
+      const declined = bulkDecline(deps, req.user!, body.revisionIds, body.note);
       for (const id of declined) logDecision(req, id, 'declined');
       res.json({ declined });
     }),
@@ -91,8 +91,8 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
   router.post(
     '/review/flags/:id/resolve',
     review,
-    validated({ params: idParams, body: resolveFlagSchema }, async ({ params, body }, req, res) => {
-      const flag = await resolveFlag(deps, req.user!, params.id, body.note);
+    validated({ params: idParams, body: resolveFlagSchema }, ({ params, body }, req, res) => {
+      const flag = resolveFlag(deps, req.user!, params.id, body.note);
       req.log.info({ event: 'flag_resolved', flagId: flag.id, actorId: req.user!.id }, 'flag resolved');
       res.json(flag);
     }),
@@ -109,8 +109,8 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
   router.post(
     '/review/:revisionId/approve',
     review,
-    validated({ params: revisionParams, body: decisionNoteSchema }, async ({ params, body }, req, res) => {
-      const revision = await approve(deps, req.user!, params.revisionId, body.note);
+    validated({ params: revisionParams, body: decisionNoteSchema }, ({ params, body }, req, res) => {
+      const revision = approve(deps, req.user!, params.revisionId, body.note);
       logDecision(req, params.revisionId, 'approved');
       res.json({ revision });
     }),
@@ -123,8 +123,8 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
     router.post(
       `/review/:revisionId/${path}`,
       review,
-      validated({ params: revisionParams, body: requiredReasonSchema }, async ({ params, body }, req, res) => {
-        const revision = await sendBackOrDecline(deps, req.user!, params.revisionId, action, body.note);
+      validated({ params: revisionParams, body: requiredReasonSchema }, ({ params, body }, req, res) => {
+        const revision = sendBackOrDecline(deps, req.user!, params.revisionId, action, body.note);
         logDecision(req, params.revisionId, action);
         res.json({ revision });
       }),

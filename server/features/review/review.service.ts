@@ -1,9 +1,8 @@
 import { and, asc, eq, lt, sql, type SQL } from 'drizzle-orm';
-import type { Db } from '../../db/client';
+import type { Db, DbTransaction } from '../../db/client';
 import { chassis, flags, parts, reviewEvents, reviewReasonTemplates, revisions, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
-import { notify } from '../../mail/notify';
 import {
   correctionApproved,
   flagResolved,
@@ -27,7 +26,7 @@ import { slugify, uniqueSlug, type SubmissionDeps } from '../submissions/submiss
 
 export type ReviewDeps = SubmissionDeps;
 export type Decision = 'approved' | 'sent_back' | 'declined';
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+type Tx = DbTransaction;
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
@@ -171,7 +170,40 @@ function addNewParts(tx: Tx, now: Date, data: SwapData): SwapData {
   return { ...data, parts: lines };
 }
 
-export async function approve(deps: ReviewDeps, actor: SessionUser, revisionId: number, note: string): Promise<SubmissionView> {
+/** The author hears of the approval; when it was a correction, the swap's original author too. */
+function tellApproved(deps: ReviewDeps, tx: Tx, row: LoadedRevision, note: string) {
+  const title = row.revision.data.title;
+  const { author } = row;
+  deps.mailer.queue(
+    tx,
+    author,
+    submissionApproved({
+      appUrl: deps.appUrl,
+      name: author.name || author.login,
+      title,
+      slug: row.swap.slug,
+      number: row.revision.number,
+      note,
+    }),
+  );
+  if (row.swap.authorId === author.id) return;
+  const original = tx.select().from(users).where(eq(users.id, row.swap.authorId)).get();
+  if (!original) return;
+  deps.mailer.queue(
+    tx,
+    original,
+    correctionApproved({
+      appUrl: deps.appUrl,
+      name: original.name || original.login,
+      title,
+      slug: row.swap.slug,
+      number: row.revision.number,
+      correctedBy: author.name || author.login,
+    }),
+  );
+}
+
+export function approve(deps: ReviewDeps, actor: SessionUser, revisionId: number, note: string): SubmissionView {
   const { db, clock } = deps;
   const row = reviewable(db, revisionId);
   assertDecidable(actor, row);
@@ -219,41 +251,8 @@ export async function approve(deps: ReviewDeps, actor: SessionUser, revisionId: 
       .where(and(eq(chassis.id, swap.chassisId), eq(chassis.proposed, true)))
       .run();
     tx.insert(reviewEvents).values({ revisionId, actorId: actor.id, action: 'approved', note: cleanNote, at: now }).run();
+    tellApproved(deps, tx, row, cleanNote);
   });
-
-  const title = row.revision.data.title;
-  const { author } = row;
-  await notify(
-    deps.mailer,
-    deps.logger,
-    author,
-    submissionApproved({
-      appUrl: deps.appUrl,
-      name: author.name || author.login,
-      title,
-      slug: row.swap.slug,
-      number: row.revision.number,
-      note: cleanNote,
-    }),
-  );
-  if (row.swap.authorId !== author.id) {
-    const original = db.select().from(users).where(eq(users.id, row.swap.authorId)).get();
-    if (original) {
-      await notify(
-        deps.mailer,
-        deps.logger,
-        original,
-        correctionApproved({
-          appUrl: deps.appUrl,
-          name: original.name || original.login,
-          title,
-          slug: row.swap.slug,
-          number: row.revision.number,
-          correctedBy: author.name || author.login,
-        }),
-      );
-    }
-  }
   return submissionView(db, loadRevision(db, revisionId)!, actor);
 }
 
@@ -267,31 +266,32 @@ function refuse(tx: Tx, actor: SessionUser, revisionId: number, action: 'sent_ba
   tx.insert(reviewEvents).values({ revisionId, actorId: actor.id, action, note, at: now }).run();
 }
 
-async function tellRefused(deps: ReviewDeps, row: LoadedRevision, action: 'sent_back' | 'declined', reasons: string) {
+function tellRefused(deps: ReviewDeps, tx: Tx, row: LoadedRevision, action: 'sent_back' | 'declined', reasons: string) {
   const { author } = row;
   const base = { appUrl: deps.appUrl, name: author.name || author.login, title: row.revision.data.title, reasons };
-  await notify(
-    deps.mailer,
-    deps.logger,
+  deps.mailer.queue(
+    tx,
     author,
     action === 'sent_back' ? submissionSentBack({ ...base, revisionId: row.revision.id }) : submissionDeclined(base),
   );
 }
 
 /** Send back (changes requested) or decline; both need the reason the member will read. */
-export async function sendBackOrDecline(
+export function sendBackOrDecline(
   deps: ReviewDeps,
   actor: SessionUser,
   revisionId: number,
   action: 'sent_back' | 'declined',
   note: string,
-): Promise<SubmissionView> {
+): SubmissionView {
   const { db, clock } = deps;
   const row = reviewable(db, revisionId);
   assertDecidable(actor, row);
   const reasons = requireReason(note);
-  db.transaction((tx) => refuse(tx, actor, revisionId, action, reasons, clock.now()));
-  await tellRefused(deps, row, action, reasons);
+  db.transaction((tx) => {
+    refuse(tx, actor, revisionId, action, reasons, clock.now());
+    tellRefused(deps, tx, row, action, reasons);
+  });
   return submissionView(db, loadRevision(db, revisionId)!, actor);
 }
 
@@ -303,7 +303,7 @@ function requireReason(note: string): string {
 }
 
 /** Several obvious spam submissions declined at once with one reason: all of them or none. */
-export async function bulkDecline(deps: ReviewDeps, actor: SessionUser, revisionIds: number[], note: string): Promise<number[]> {
+export function bulkDecline(deps: ReviewDeps, actor: SessionUser, revisionIds: number[], note: string): number[] {
   const { db, clock } = deps;
   const ids = [...new Set(revisionIds)];
   const reasons = requireReason(note);
@@ -320,9 +320,11 @@ export async function bulkDecline(deps: ReviewDeps, actor: SessionUser, revision
     throw new AppError('not_decidable', 'Some of these revisions cannot be declined; nothing was changed.', 409, fields);
   const now = clock.now();
   db.transaction((tx) => {
-    for (const id of ids) refuse(tx, actor, id, 'declined', reasons, now);
+    for (const [i, id] of ids.entries()) {
+      refuse(tx, actor, id, 'declined', reasons, now);
+      tellRefused(deps, tx, rows[i]!, 'declined', reasons);
+    }
   });
-  for (const row of rows) await tellRefused(deps, row!, 'declined', reasons);
   return ids;
 }
 
@@ -368,7 +370,7 @@ export function deleteTemplate(db: Db, id: number) {
 
 // --- flags ---
 
-function listFlags(db: Db, status: 'open' | 'resolved', id?: number): FlagItem[] {
+function listFlags(db: Db | Tx, status: 'open' | 'resolved', id?: number): FlagItem[] {
   return db
     .select({
       flag: flags,
@@ -414,35 +416,36 @@ export function createFlag(deps: ReviewDeps, user: SessionUser, slug: string, re
   return listFlags(db, 'open', id)[0];
 }
 
-export async function resolveFlag(deps: ReviewDeps, actor: SessionUser, id: number, note: string): Promise<FlagItem> {
+export function resolveFlag(deps: ReviewDeps, actor: SessionUser, id: number, note: string): FlagItem {
   const { db, clock } = deps;
   const clean = stripHtml(note).trim();
   if (clean.length < 3) throw AppError.invalid('Say what was done.', { note: 'Say what was done.' });
   const now = clock.now();
   const flag = db.select().from(flags).where(eq(flags.id, id)).get();
   if (!flag) throw AppError.notFound('That flag');
-  const changed = db
-    .update(flags)
-    .set({ status: 'resolved', resolutionNote: clean, resolvedById: actor.id, resolvedAt: now, updatedAt: now })
-    .where(and(eq(flags.id, id), eq(flags.status, 'open')))
-    .run().changes;
-  if (!changed) throw AppError.conflict('This flag was already resolved.');
-  const item = listFlags(db, 'resolved', id)[0];
-  const reporter = db.select().from(users).where(eq(users.id, flag.reporterId)).get();
-  if (reporter) {
-    await notify(
-      deps.mailer,
-      deps.logger,
-      reporter,
-      flagResolved({
-        appUrl: deps.appUrl,
-        name: reporter.name || reporter.login,
-        title: item.title,
-        slug: item.swapSlug,
-        reason: flag.reason,
-        note: clean,
-      }),
-    );
-  }
-  return item;
+  return db.transaction((tx) => {
+    const changed = tx
+      .update(flags)
+      .set({ status: 'resolved', resolutionNote: clean, resolvedById: actor.id, resolvedAt: now, updatedAt: now })
+      .where(and(eq(flags.id, id), eq(flags.status, 'open')))
+      .run().changes;
+    if (!changed) throw AppError.conflict('This flag was already resolved.');
+    const item = listFlags(tx, 'resolved', id)[0];
+    const reporter = tx.select().from(users).where(eq(users.id, flag.reporterId)).get();
+    if (reporter) {
+      deps.mailer.queue(
+        tx,
+        reporter,
+        flagResolved({
+          appUrl: deps.appUrl,
+          name: reporter.name || reporter.login,
+          title: item.title,
+          slug: item.swapSlug,
+          reason: flag.reason,
+          note: clean,
+        }),
+      );
+    }
+    return item;
+  });
 }

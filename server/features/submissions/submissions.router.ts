@@ -103,8 +103,8 @@ export function submissionsRouter({ db, clock, mailer, storage, logger, config }
     '/submissions/:id/submit',
     requirePermission('submit'),
     submitLimit,
-    validated({ params: idParams }, async ({ params }, req, res) => {
-      res.json(await submitForReview(deps, req.user!, params.id));
+    validated({ params: idParams }, ({ params }, req, res) => {
+      res.json(submitForReview(deps, req.user!, params.id));
     }),
   );
 

@@ -9,7 +9,6 @@ import type { Mailer } from '../../mail/mailer';
 import { newFileId, type Storage } from '../../storage/disk-storage';
 import { AppError } from '../../lib/app-error';
 import { stripHtml, stripHtmlDeep } from '../../lib/sanitize';
-import { notify } from '../../mail/notify';
 import { submissionReceived } from '../../mail/messages';
 import type { SessionUser } from '../../middleware/require-role';
 import { swapDataSchema, type SwapData } from '../../../shared/schemas/swap-data';
@@ -341,7 +340,7 @@ export function updateSubmission(deps: SubmissionDeps, user: SessionUser, id: nu
 }
 
 /** POST /api/submissions/:id/submit: a draft or sent-back revision goes to the review desk. */
-export async function submitForReview(deps: SubmissionDeps, user: SessionUser, id: number): Promise<SubmissionView> {
+export function submitForReview(deps: SubmissionDeps, user: SessionUser, id: number): SubmissionView {
   const { db, clock } = deps;
   const row = revisionFor(db, user, id);
   assertEditable(user, row);
@@ -352,19 +351,18 @@ export async function submitForReview(deps: SubmissionDeps, user: SessionUser, i
       .where(eq(revisions.id, id))
       .run();
     tx.insert(reviewEvents).values({ revisionId: id, actorId: user.id, action: 'submitted', note: '', at: now }).run();
+    deps.mailer.queue(
+      tx,
+      row.author,
+      submissionReceived({
+        appUrl: deps.appUrl,
+        name: row.author.name || row.author.login,
+        title: row.revision.data.title,
+        revisionId: id,
+        number: row.revision.number,
+      }),
+    );
   });
-  await notify(
-    deps.mailer,
-    deps.logger,
-    row.author,
-    submissionReceived({
-      appUrl: deps.appUrl,
-      name: row.author.name || row.author.login,
-      title: row.revision.data.title,
-      revisionId: id,
-      number: row.revision.number,
-    }),
-  );
   return viewOf(db, id, user);
 }
 

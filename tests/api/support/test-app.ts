@@ -33,8 +33,8 @@ export async function makeTestApp(env: Record<string, string> = {}, clock?: Cloc
   migrateDb(db);
   const storage = createDiskStorage(config.uploadDir);
   const theClock = clock ?? { now: () => new Date() };
-  const mailer = createMailer({ db, clock: theClock, from: config.mailFrom });
   const logger = options.logDestination ? createLogger('info', options.logDestination) : createLogger('silent');
+  const mailer = createMailer({ db, clock: theClock, logger, config });
   const app = createApp({ db, mailer, storage, clock: theClock, config, logger });
   return {
     app,
@@ -44,7 +44,8 @@ export async function makeTestApp(env: Record<string, string> = {}, clock?: Cloc
     config,
     logger,
     dir,
-    close() {
+    async close() {
+      await mailer.stop();
       closeDb(db);
       fs.rmSync(dir, { recursive: true, force: true });
     },

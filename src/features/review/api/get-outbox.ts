@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { OutboxMessage } from '@shared/schemas/submissions';
+import type { OutboxResponse } from '@shared/schemas/submissions';
 import { api } from '../../../lib/api-client';
 import { reviewKeys } from './review-keys';
 
@@ -7,9 +7,10 @@ export const outboxQueryOptions = () =>
   queryOptions({
     queryKey: reviewKeys.outbox(),
     queryFn: () =>
-      api<{ items: OutboxMessage[] }>('/api/outbox').then((r) =>
-        [...r.items].sort((a, b) => Date.parse(b.createdAt) - Date.parse(a.createdAt) || b.id - a.id),
-      ),
+      api<OutboxResponse>('/api/outbox').then((r) => ({
+        ...r,
+        items: [...r.items].sort((a, b) => Date.parse(b.createdAt) - Date.parse(a.createdAt) || b.id - a.id),
+      })),
     staleTime: 5_000,
   });
 
