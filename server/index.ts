@@ -49,6 +49,7 @@ async function main() {
     logger.info({ signal }, 'shutting down');
     server.close(async () => {
       await vite?.close();
+      await mailer.stop();
       closeDb(db);
       process.exit(0);
     });
