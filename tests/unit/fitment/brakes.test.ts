@@ -3,6 +3,10 @@ import fc from 'fast-check';
 import {
   balanceShift,
   brakeTorqueNm,
+  cornerTorqueNm,
+  drumBrakeTorqueNm,
+  DRUM_BRAKE_FACTORS,
+  type DrumCorner,
   effectiveRadiusMm,
   frontShare,
   padForceN,
@@ -162,5 +166,95 @@ describe('bad input', () => {
       balanceShift({ front: stockFront, rear }, { front: { ...swappedFront, pistonsPerSideMm: [Number.NaN] }, rear }),
     ).toThrow(expect.objectContaining({ field: 'after.front.pistonsPerSideMm.0' }));
     expect(() => pistonAreaPerSideMm2('54' as never)).toThrow(FitmentInputError);
+  });
+});
+
+describe('drum corners (Limpert, Brake Design and Safety: T = p × A_wc × C* × r_drum)', () => {
+  // written out independently: A_wc = π/4 d², p in N/mm² = bar / 10, r = D/2, N·mm → N·m
+  const limpertForm = (boreMm: number, drumMm: number, factor: number, bar: number) =>
+    ((bar / 10) * ((Math.PI / 4) * boreMm * boreMm) * factor * (drumMm / 2)) / 1000;
+
+  it('when a 20.64 mm wheel cylinder works a 203.2 mm drum at C* 2.2 and 40 bar, then the torque is 299.15 N·m', () => {
+    // REFERENCES.md drum example, recomputed: A = 334.58 mm², F = 1338.3 N, × 2.2 × 101.6 mm = 299.14 N·m
+    const t = drumBrakeTorqueNm({ wheelCylinderBoreMm: 20.64, drumDiameterMm: 203.2, brakeFactor: 2.2, linePressureBar: 40 });
+    relWithin(t, limpertForm(20.64, 203.2, 2.2, 40), 1e-12);
+    relWithin(t, 299.15, 0.001);
+  });
+
+  it('torque is linear in pressure, brake factor and drum diameter', () => {
+    // Limpert's drum form is a product
+    fc.assert(
+      fc.property(
+        fc.double({ min: 15, max: 30, noNaN: true }),
+        fc.double({ min: 180, max: 300, noNaN: true }),
+        fc.double({ min: 0.5, max: 10, noNaN: true }),
+        fc.double({ min: 5, max: 120, noNaN: true }),
+        (bore, drum, factor, bar) => {
+          const t = drumBrakeTorqueNm({
+            wheelCylinderBoreMm: bore,
+            drumDiameterMm: drum,
+            brakeFactor: factor,
+            linePressureBar: bar,
+          });
+          relWithin(t, limpertForm(bore, drum, factor, bar), 1e-12);
+          relWithin(
+            drumBrakeTorqueNm({ wheelCylinderBoreMm: bore, drumDiameterMm: drum, brakeFactor: factor, linePressureBar: 2 * bar }),
+            2 * t,
+            1e-12,
+          );
+        },
+      ),
+    );
+  });
+
+  it('the brake factors per shoe arrangement say where they come from, and rise with self-servo', () => {
+    // Limpert, Brake Design and Safety: leading/trailing < twin leading < duo-servo (values from memory)
+    const { leading_trailing: lt, twin_leading: tl, duo_servo: ds } = DRUM_BRAKE_FACTORS;
+    expect(lt.brakeFactor).toBeLessThan(tl.brakeFactor);
+    expect(tl.brakeFactor).toBeLessThan(ds.brakeFactor);
+    for (const f of [lt, tl, ds]) expect(f.source).toMatch(/Limpert.*from memory/);
+  });
+
+  it('when the rear corner is a drum, then the front share uses the drum torque, not a disc estimate', () => {
+    // a 9 in (228.6 mm) leading/trailing drum with a 19.05 mm wheel cylinder, written out with the drum form
+    const drum: DrumCorner = { kind: 'drum', wheelCylinderBoreMm: 19.05, drumDiameterMm: 228.6, brakeFactor: 2.0 };
+    const front = textbookTorque(stockFront);
+    const back = limpertForm(19.05, 228.6, 2.0, 50);
+    relWithin(cornerTorqueNm(drum, 50), back, 1e-12);
+    relWithin(frontShare(stockFront, drum, 50), front / (front + back), 1e-12);
+    // the same drum computed as a disc of the drum's size (2 μ instead of C*, r = (D − h)/2 with a 40 mm shoe)
+    // comes out about a third of the drum form: the error the drum corner removes
+    const asDisc = textbookTorque({ pistonsPerSideMm: [19.05], rotorDiameterMm: 228.6, padHeightMm: 40 });
+    expect(back / asDisc).toBeGreaterThan(2.5);
+  });
+
+  it('when a disc corner carries an effective radius from the real pad position, then the torque uses it', () => {
+    // the disc-brake textbook formula with r_eff given
+    const t = brakeTorqueNm({ ...stockFront, effectiveRadiusMm: 110, padMu: 0.4, linePressureBar: 50 });
+    relWithin(t, textbookTorque(stockFront) * (110 / 115), 1e-12);
+    expect(() => brakeTorqueNm({ ...stockFront, effectiveRadiusMm: 140, padMu: 0.4, linePressureBar: 50 })).toThrow(
+      expect.objectContaining({ field: 'effectiveRadiusMm' }),
+    );
+  });
+
+  it('when a drum input is impossible, then the field is named (with the corner in a share)', () => {
+    const good = { wheelCylinderBoreMm: 20.64, drumDiameterMm: 203.2, brakeFactor: 2.2, linePressureBar: 40 };
+    expect(() => drumBrakeTorqueNm({ ...good, wheelCylinderBoreMm: 0 })).toThrow(
+      expect.objectContaining({ field: 'wheelCylinderBoreMm' }),
+    );
+    expect(() => drumBrakeTorqueNm({ ...good, drumDiameterMm: -1 })).toThrow(
+      expect.objectContaining({ field: 'drumDiameterMm' }),
+    );
+    expect(() => drumBrakeTorqueNm({ ...good, brakeFactor: 0 })).toThrow(expect.objectContaining({ field: 'brakeFactor' }));
+    expect(() => drumBrakeTorqueNm({ ...good, brakeFactor: 40 })).toThrow(expect.objectContaining({ field: 'brakeFactor' }));
+    expect(() => drumBrakeTorqueNm({ ...good, linePressureBar: Number.NaN })).toThrow(
+      expect.objectContaining({ field: 'linePressureBar' }),
+    );
+    expect(() => drumBrakeTorqueNm({ ...good, wheelCylinderBoreMm: 250 })).toThrow(
+      expect.objectContaining({ field: 'wheelCylinderBoreMm' }),
+    );
+    const drum: DrumCorner = { kind: 'drum', ...good, brakeFactor: -2 };
+    expect(() => frontShare(stockFront, drum)).toThrow(expect.objectContaining({ field: 'rear.brakeFactor' }));
+    expect(() => drumBrakeTorqueNm(null as never)).toThrow(FitmentInputError);
   });
 });

@@ -1,6 +1,13 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
-import { boltLengthWithSpacer, parseMetricThread, threadBasics, threadEngagement } from '../../../shared/fitment/threads';
+import {
+  boltLengthWithSpacer,
+  parseMetricThread,
+  parseThread,
+  threadBasics,
+  threadEngagement,
+  unifiedThreadBasics,
+} from '../../../shared/fitment/threads';
 import { FitmentInputError } from '../../../shared/fitment/errors';
 
 const within = (actual: number, expected: number, tol: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol);
@@ -142,5 +149,175 @@ describe('boltLengthWithSpacer', () => {
   it('rejects impossible lengths', () => {
     expect(() => boltLengthWithSpacer(0, 10)).toThrow(expect.objectContaining({ field: 'stockLengthMm' }));
     expect(() => boltLengthWithSpacer(45, -3)).toThrow(expect.objectContaining({ field: 'spacerMm' }));
+  });
+});
+
+describe('parseThread', () => {
+  it.each([
+    ['M12x1.5', 12, 1.5, 'M12×1.5'],
+    ['M14 × 1.25', 14, 1.25, 'M14×1.25'],
+    ['m12 x 1,5', 12, 1.5, 'M12×1.5'],
+    ['M10*1.25', 10, 1.25, 'M10×1.25'],
+    ['M12x1.5-6g', 12, 1.5, 'M12×1.5'],
+  ])('when given %j, then it reads a metric thread (ISO 724 designation M d × P)', (text, d, p, label) => {
+    const t = parseThread(text);
+    expect(t).toEqual({ system: 'metric', diameterMm: d, pitchMm: p, label });
+    expect(t.tpi).toBeUndefined();
+  });
+
+  it.each([
+    ['1/2-20 UNF', 0.5, 20, '1/2-20 UNF'],
+    ['7/16-20', 0.4375, 20, '7/16-20 UNF'],
+    ['9/16"-18 UNF-2A', 0.5625, 18, '9/16-18 UNF'],
+    ['1/2 - 13 unc', 0.5, 13, '1/2-13 UNC'],
+    ['0,5-20', 0.5, 20, '1/2-20 UNF'],
+    ['1 1/8-12', 1.125, 12, '1.125-12'],
+    ['1/2-24 UN', 0.5, 24, '1/2-24 UN'],
+  ])(
+    'when given %j, then it reads a unified thread in mm (ASME B1.1 designation D-n, 25.4 mm per inch)',
+    (text, dIn, tpi, label) => {
+      const t = parseThread(text);
+      expect(t.system).toBe('unified');
+      expect(t.tpi).toBe(tpi);
+      expect(t.label).toBe(label);
+      // NIST SP 811: 1 in = 25.4 mm exactly; pitch = 25.4 / n
+      expect(t.diameterMm).toBeCloseTo(dIn * 25.4, 12);
+      expect(t.pitchMm).toBeCloseTo(25.4 / tpi, 12);
+    },
+  );
+
+  it('when a series does not match the ASME B1.1 table, then it is refused and the right pitch is named', () => {
+    // ASME B1.1: 1/2 in is 13 UNC, 20 UNF, 28 UNEF
+    expect(() => parseThread('1/2-13 UNF')).toThrow(/1\/2-20/);
+    expect(() => parseThread('1/2-13 UNF')).toThrow(expect.objectContaining({ field: 'thread' }));
+  });
+
+  it.each(['', 'M12', '12x1.5', 'M12x12', 'M0x1', '1/2', '1/2-0', '1/2-1', '1/2-200 UNF', 'UNF 1/2-20', '1/0-20', 'wheel bolt'])(
+    'when given %j, then it is refused with field "thread"',
+    (text) => {
+      expect(() => parseThread(text)).toThrow(FitmentInputError);
+      expect(() => parseThread(text)).toThrow(expect.objectContaining({ field: 'thread' }));
+    },
+  );
+
+  it('when given a non-string, then it is refused with field "thread"', () => {
+    expect(() => parseThread(12 as unknown as string)).toThrow(expect.objectContaining({ field: 'thread' }));
+  });
+
+  it('when a metric designation parses, then parseMetricThread agrees with it', () => {
+    // one parser for both: today's callers keep their result
+    fc.assert(
+      fc.property(fc.constantFrom(8, 10, 12, 14, 16), fc.constantFrom(1, 1.25, 1.5), fc.boolean(), (d, p, comma) => {
+        const text = `M${d}x${comma ? String(p).replace('.', ',') : p}`;
+        const t = parseThread(text);
+        expect(parseMetricThread(text)).toEqual({ diameterMm: t.diameterMm, pitchMm: t.pitchMm });
+      }),
+    );
+  });
+});
+
+describe('unifiedThreadBasics', () => {
+  // ASME B1.1 Table 2A (basic dimensions and tensile stress areas, UNF series):
+  // E = D − 0.649519/n, A_s = 0.7854 (D − 0.9743/n)²
+  const rows = [
+    { name: '1/2-20 UNF', d: 0.5, n: 20, e: 0.4675, as: 0.1599 },
+    { name: '7/16-20 UNF', d: 0.4375, n: 20, e: 0.405, as: 0.1187 },
+    { name: '9/16-18 UNF', d: 0.5625, n: 18, e: 0.5264, as: 0.203 },
+    { name: '3/8-24 UNF', d: 0.375, n: 24, e: 0.3479, as: 0.0878 },
+  ];
+  for (const row of rows) {
+    it(`when computing ${row.name}, then it matches ASME B1.1`, () => {
+      const t = unifiedThreadBasics(row.d, row.n);
+      // recomputed from the printed formulas
+      within(t.pitchDiameterIn, row.d - 0.649519 / row.n, 1e-12);
+      within(t.stressAreaIn2, 0.7854 * (row.d - 0.9743 / row.n) ** 2, 1e-12);
+      // printed table: E to its last digit; A_s within one unit of its last digit, because 1/2-20 recomputes to
+      // 0.159953 in² where the table prints 0.1599 (other published charts print 0.160)
+      within(t.pitchDiameterIn, row.e, 0.00005);
+      within(t.stressAreaIn2, row.as, 0.0001);
+    });
+  }
+
+  it('when the pitch is too coarse or an input is impossible, then the field is named', () => {
+    expect(() => unifiedThreadBasics(0, 20)).toThrow(expect.objectContaining({ field: 'diameterIn' }));
+    expect(() => unifiedThreadBasics(0.5, 0)).toThrow(expect.objectContaining({ field: 'tpi' }));
+    expect(() => unifiedThreadBasics(0.05, 10)).toThrow(expect.objectContaining({ field: 'tpi' }));
+    expect(() => unifiedThreadBasics(Number.NaN, 20)).toThrow(expect.objectContaining({ field: 'diameterIn' }));
+  });
+});
+
+describe('threadEngagement with hub thread depth and hole kind', () => {
+  const base = { diameterMm: 12, pitchMm: 1.5, clampedMm: 20, hubMaterial: 'steel' as const };
+
+  it('when the bolt reaches past the hub thread of a through hole, then engagement is the thread depth and limitedBy says so', () => {
+    // plane geometry: thread beyond the hub's depth engages nothing
+    const r = threadEngagement({ ...base, boltLengthMm: 45, hubThreadDepthMm: 14, hole: 'through' });
+    expect(r.reachMm).toBe(25);
+    expect(r.engagementMm).toBe(14);
+    expect(r.limitedBy).toBe('hub_thread');
+    expect(r.bottomsOut).toBe(false);
+    expect(r.ok).toBe(true);
+  });
+
+  it('when the bolt reaches the bottom of a blind hole, then it bottoms out and fails whatever its engagement', () => {
+    // plane geometry: a bolt stopped by the bottom of its hole clamps nothing
+    const r = threadEngagement({ ...base, boltLengthMm: 45, hubThreadDepthMm: 24, hole: 'blind' });
+    expect(r.bottomsOut).toBe(true);
+    expect(r.engagementMm).toBe(24);
+    expect(r.marginMm).toBe(12);
+    expect(r.ok).toBe(false);
+    expect(r.rule).toMatch(/bottom of a blind hole/);
+  });
+
+  it('when the bolt stops short of the bottom, then the bolt limits the engagement', () => {
+    // plane geometry
+    const r = threadEngagement({ ...base, boltLengthMm: 40, hubThreadDepthMm: 24, hole: 'blind' });
+    expect(r.limitedBy).toBe('bolt');
+    expect(r.bottomsOut).toBe(false);
+    expect(r.engagementMm).toBe(20);
+    expect(r.ok).toBe(true);
+  });
+
+  it('when a unified 1/2-20 bolt is in steel, then it needs 12.7 mm (1.0 × d, common practice, no source)', () => {
+    const t = parseThread('1/2-20 UNF');
+    const r = threadEngagement({
+      diameterMm: t.diameterMm,
+      pitchMm: t.pitchMm,
+      boltLengthMm: 32,
+      clampedMm: 20,
+      hubMaterial: 'steel',
+    });
+    within(r.requiredMm, 12.7, 1e-9);
+    within(r.marginMm, -0.7, 1e-9);
+    // ASME B1.1: one turn advances 1/n in
+    within(r.turns, 12 / (25.4 / 20), 1e-9);
+    expect(r.ok).toBe(false);
+  });
+
+  it('engagement never exceeds reach or thread depth, and a blind hole bottoms out exactly when reach ≥ depth', () => {
+    // plane geometry
+    fc.assert(
+      fc.property(
+        fc.double({ min: 20, max: 100, noNaN: true }),
+        fc.double({ min: 0, max: 60, noNaN: true }),
+        fc.double({ min: 5, max: 40, noNaN: true }),
+        fc.constantFrom('blind' as const, 'through' as const),
+        (boltLengthMm, clampedMm, hubThreadDepthMm, hole) => {
+          const r = threadEngagement({ ...base, boltLengthMm, clampedMm, hubThreadDepthMm, hole });
+          expect(r.engagementMm).toBeLessThanOrEqual(Math.min(r.reachMm, hubThreadDepthMm) + 1e-9);
+          expect(r.bottomsOut).toBe(hole === 'blind' && r.reachMm >= hubThreadDepthMm - 1e-9);
+          if (r.bottomsOut) expect(r.ok).toBe(false);
+        },
+      ),
+    );
+  });
+
+  it('when depth or hole are impossible, then the field is named', () => {
+    expect(() => threadEngagement({ ...base, boltLengthMm: 40, hubThreadDepthMm: 0 })).toThrow(
+      expect.objectContaining({ field: 'hubThreadDepthMm' }),
+    );
+    expect(() => threadEngagement({ ...base, boltLengthMm: 40, hole: 'open' as never })).toThrow(
+      expect.objectContaining({ field: 'hole' }),
+    );
   });
 });
