@@ -7,6 +7,7 @@ export const M_PER_FT = 0.3048;
 export const NM_PER_LBF_FT = N_PER_LBF * M_PER_FT;
 export const PA_PER_PSI = 6894.757293168;
 export const PA_PER_BAR = 1e5;
+export const KG_PER_LB = 0.45359237;
 
 export function inToMm(inches: number): number {
   return requireFinite(inches, 'in') * MM_PER_IN;
@@ -30,4 +31,12 @@ export function psiToBar(psi: number): number {
 
 export function barToPsi(bar: number): number {
   return (requireFinite(bar, 'bar') * PA_PER_BAR) / PA_PER_PSI;
+}
+
+export function lbToKg(lb: number): number {
+  return requireFinite(lb, 'lb') * KG_PER_LB;
+}
+
+export function kgToLb(kg: number): number {
+  return requireFinite(kg, 'kg') / KG_PER_LB;
 }

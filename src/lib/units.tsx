@@ -1,6 +1,6 @@
 import { createContext, useCallback, useContext, useMemo, useState, type ReactNode } from 'react';
 import type { UnitSystem } from '@shared/schemas/enums';
-import { mmToIn, nmToLbfFt, barToPsi } from '@shared/fitment/units';
+import { mmToIn, nmToLbfFt, barToPsi, kgToLb, MM_PER_IN, N_PER_LBF } from '@shared/fitment/units';
 
 const storageKey = 'swapyard.units';
 
@@ -43,6 +43,10 @@ export function useUnits() {
     length: (mm: number, digits = 1) => (system === 'metric' ? `${round(mm, digits)} mm` : `${round(mmToIn(mm), digits + 2)} in`),
     torque: (nm: number) => (system === 'metric' ? `${round(nm, 0)} N·m` : `${round(nmToLbfFt(nm), 0)} lbf·ft`),
     pressure: (bar: number) => (system === 'metric' ? `${round(bar, 1)} bar` : `${round(barToPsi(bar), 0)} psi`),
+    mass: (kg: number) => (system === 'metric' ? `${round(kg, 0)} kg` : `${round(kgToLb(kg), 0)} lb`),
+    force: (n: number) => (system === 'metric' ? `${round(n, 0)} N` : `${round(n / N_PER_LBF, 0)} lbf`),
+    /** a volume given in mm³, shown as cm³ or cubic inches */
+    volume: (mm3: number) => (system === 'metric' ? `${round(mm3 / 1000, 2)} cm³` : `${round(mm3 / MM_PER_IN ** 3, 3)} in³`),
     lengthUnit: system === 'metric' ? 'mm' : 'in',
   };
 }

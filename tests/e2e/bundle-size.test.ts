@@ -25,10 +25,10 @@ describe('bundle size', () => {
     expect(total).toBeLessThanOrEqual(budgetBytes);
   });
 
-  it('when the build is made, then the submission form, review desk and calculators are separate lazy chunks', () => {
+  it('when the build is made, then the submission form, review desk, calculators and the chart drawing are separate lazy chunks', () => {
     const initial = initialScripts();
     const assets = fs.readdirSync(path.join(dist, 'assets'));
-    for (const chunk of ['submit-page', 'review-desk-page', 'calculators-page']) {
+    for (const chunk of ['submit-page', 'review-desk-page', 'calculators-page', 'adhesion-chart-drawing']) {
       const file = assets.find((a) => a.startsWith(chunk) && a.endsWith('.js'));
       expect(file, `${chunk} should be its own chunk`).toBeDefined();
       expect(initial.some((s) => s.endsWith(file!))).toBe(false);

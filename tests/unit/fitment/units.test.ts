@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
-import { barToPsi, inToMm, lbfFtToNm, mmToIn, nmToLbfFt, psiToBar } from '../../../shared/fitment/units';
+import { barToPsi, inToMm, kgToLb, lbfFtToNm, lbToKg, mmToIn, nmToLbfFt, psiToBar } from '../../../shared/fitment/units';
 import { FitmentInputError } from '../../../shared/fitment/errors';
 
 const relClose = (actual: number, expected: number, rel = 1e-9) =>
@@ -42,12 +42,21 @@ describe('pressure', () => {
   });
 });
 
+describe('mass', () => {
+  it('uses 1 lb = 0.45359237 kg exactly', () => {
+    relClose(lbToKg(3000), 3000 * 0.45359237); // NIST SP 811 B.8: pound (avoirdupois)
+    expect(lbToKg(3000)).toBeCloseTo(1360.77711, 5); // NIST SP 811 B.8, recomputed
+    expect(kgToLb(1450)).toBeCloseTo(3196.7028, 4); // 1450 / 0.45359237
+  });
+});
+
 describe('round trips', () => {
   const value = fc.double({ min: -1e6, max: 1e6, noNaN: true, noDefaultInfinity: true });
   const pairs: [string, (x: number) => number, (x: number) => number][] = [
     ['in/mm', inToMm, mmToIn],
     ['lbf·ft/N·m', lbfFtToNm, nmToLbfFt],
     ['psi/bar', psiToBar, barToPsi],
+    ['lb/kg', lbToKg, kgToLb],
   ];
   for (const [name, there, back] of pairs) {
     it(`${name} there and back returns the value within 1e-9 relative`, () => {

@@ -1,11 +1,11 @@
 import { useCallback } from 'react';
 import { useSearchParams } from 'react-router';
 import { FitmentInputError } from '@shared/fitment/errors';
-import { MM_PER_IN, psiToBar, barToPsi } from '@shared/fitment/units';
+import { MM_PER_IN, psiToBar, barToPsi, kgToLb, lbToKg } from '@shared/fitment/units';
 import type { UnitSystem } from '@shared/schemas/enums';
 
 /** How an input's text relates to the value kept in the URL (always mm / bar, so a shared link means the same to everyone). */
-export type Quantity = 'length' | 'pressure' | 'plain';
+export type Quantity = 'length' | 'pressure' | 'mass' | 'plain';
 
 export type CalcParams = {
   get: (key: string) => string;
@@ -62,6 +62,7 @@ function convertNumber(text: string, quantity: Quantity, system: UnitSystem, toC
   const n = Number(trimmed.replace(',', '.'));
   if (!Number.isFinite(n)) return text;
   if (quantity === 'length') return toCanonical ? clean(n * MM_PER_IN, 6) : clean(n / MM_PER_IN, 4);
+  if (quantity === 'mass') return toCanonical ? clean(lbToKg(n), 6) : clean(kgToLb(n), 1);
   return toCanonical ? clean(psiToBar(n), 6) : clean(barToPsi(n), 1);
 }
 
@@ -80,6 +81,7 @@ export const toDisplay = (canonical: string, q: Quantity, s: UnitSystem, list = 
 export function unitLabel(quantity: Quantity, system: UnitSystem): string | null {
   if (quantity === 'length') return system === 'metric' ? 'mm' : 'in';
   if (quantity === 'pressure') return system === 'metric' ? 'bar' : 'psi';
+  if (quantity === 'mass') return system === 'metric' ? 'kg' : 'lb';
   return null;
 }
 

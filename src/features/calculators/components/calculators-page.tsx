@@ -9,6 +9,7 @@ import { BoltPatternPanel } from './bolt-pattern-panel';
 import { ThreadPanel } from './thread-panel';
 import { ClearancePanel } from './clearance-panel';
 import { BrakeBalancePanel } from './brake-balance-panel';
+import { DistributionPanel } from './distribution-panel';
 import { ShimPanel } from './shim-panel';
 import { CostPanel } from './cost-panel';
 
@@ -20,6 +21,7 @@ const panels = [
   { id: 'shims', label: 'Shim stack' },
   { id: 'clearance', label: 'Wheel clearance' },
   { id: 'brakes', label: 'Brake balance' },
+  { id: 'distribution', label: 'Brake distribution' },
   { id: 'costs', label: 'Cost routes' },
 ];
 
@@ -66,6 +68,7 @@ export default function CalculatorsPage() {
         <ShimPanel params={params} />
         <ClearancePanel params={params} />
         <BrakeBalancePanel params={params} />
+        <DistributionPanel params={params} />
         <CostPanel params={params} />
       </div>
     </Page>
