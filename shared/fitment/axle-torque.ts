@@ -1,28 +1,21 @@
-import { brakeTorqueNm, DEFAULT_PAD_MU, type BrakeCorner } from './brakes';
+import { cornerTorqueNm, type AnyBrakeCorner } from './brakes';
 import { FitmentInputError, requirePositive } from './errors';
 
 /**
- * One axle's brakes as the distribution analysis takes them: a description of one wheel's brake (the axle has
- * two), or the whole axle's torque per bar when it is known from elsewhere (a drum, a maker's figure).
+ * One axle's brakes as the distribution analysis takes them: one wheel's disc or drum corner (the axle has
+ * two), or the whole axle's torque per bar when it is known from elsewhere (a maker's figure, a measurement).
  */
-export type AxleBrakes = ({ type: 'disc' } & BrakeCorner) | { type: 'torque-per-bar'; axleTorqueNmPerBar: number };
+export type AxleBrakes = AnyBrakeCorner | { kind: 'torque-per-bar'; axleTorqueNmPerBar: number };
 
 const WHEELS_PER_AXLE = 2;
 
 /** Brake torque of both wheels of an axle per bar of line pressure, N·m/bar. The one place a corner becomes a torque. */
 export function axleTorqueNmPerBar(axle: AxleBrakes, prefix = ''): number {
-  switch (axle?.type) {
-    case 'disc':
-      // Disc torque is proportional to line pressure, so its value at 1 bar is the torque per bar.
-      return (
-        WHEELS_PER_AXLE *
-        withPrefix(prefix, () => brakeTorqueNm({ ...axle, padMu: axle.padMu ?? DEFAULT_PAD_MU, linePressureBar: 1 }))
-      );
-    case 'torque-per-bar':
-      return requirePositive(axle.axleTorqueNmPerBar, `${prefix}axleTorqueNmPerBar`);
-    default:
-      throw new FitmentInputError(`${prefix}type`, `${prefix}type must be 'disc' or 'torque-per-bar'`);
-  }
+  if (typeof axle !== 'object' || axle === null)
+    throw new FitmentInputError(`${prefix}kind`, `${prefix.replace(/\.$/, '')} is required`);
+  if (axle.kind === 'torque-per-bar') return requirePositive(axle.axleTorqueNmPerBar, `${prefix}axleTorqueNmPerBar`);
+  // Corner torque is proportional to line pressure, so its value at 1 bar is the torque per bar.
+  return WHEELS_PER_AXLE * withPrefix(prefix, () => cornerTorqueNm(axle, 1));
 }
 
 function withPrefix<T>(prefix: string, compute: () => T): T {

@@ -14,11 +14,11 @@ export type Axle = 'front' | 'rear';
 
 /** What stands between the master cylinder and the rear brakes. */
 export type RearPressureLaw =
-  | { type: 'none' }
-  | { type: 'proportioning'; kneeBar: number; slope: number }
+  | { kind: 'none' }
+  | { kind: 'proportioning'; kneeBar: number; slope: number }
   /** a load-sensing valve moves its knee with the load on the rear axle: one knee per load state */
-  | { type: 'load-sensing'; kneeBarUnladen: number; kneeBarLaden: number; slope: number }
-  | { type: 'electronic' };
+  | { kind: 'load-sensing'; kneeBarUnladen: number; kneeBarLaden: number; slope: number }
+  | { kind: 'electronic' };
 
 export interface BrakeSetup {
   front: AxleBrakes;
@@ -102,7 +102,7 @@ export interface SetupAnalysis {
   /** front share of brake force at equal line pressure (below any valve knee) */
   hydraulicFrontShare: number;
   states: StateAnalysis[];
-  /** fluid the calipers take per mm of pad travel; null when an axle is given as a torque only */
+  /** fluid the calipers take per mm of pad travel; null when an axle is a drum or given as a torque only */
   fluid: { mm3PerMmPadTravel: number; pedalTravelMmPerMmPadTravel: number | null } | null;
 }
 
@@ -194,7 +194,7 @@ function checkValve(valve: RearPressureLaw, prefix: string): RearPressureLaw {
       throw new FitmentInputError(`${prefix}rearValve.slope`, `${prefix}rearValve.slope must be between 0 and 1 (got ${s})`);
   };
   const knee = (value: number, name: string) => requirePositive(value, `${prefix}rearValve.${name}`);
-  switch (valve?.type) {
+  switch (valve?.kind) {
     case 'none':
     case 'electronic':
       return valve;
@@ -209,15 +209,15 @@ function checkValve(valve: RearPressureLaw, prefix: string): RearPressureLaw {
       return valve;
     default:
       throw new FitmentInputError(
-        `${prefix}rearValve.type`,
-        `${prefix}rearValve.type must be 'none', 'proportioning', 'load-sensing' or 'electronic'`,
+        `${prefix}rearValve.kind`,
+        `${prefix}rearValve.kind must be 'none', 'proportioning', 'load-sensing' or 'electronic'`,
       );
   }
 }
 
 function kneeFor(valve: RearPressureLaw, state: LoadState): { kneeBar: number; slope: number } | null {
-  if (valve.type === 'proportioning') return { kneeBar: valve.kneeBar, slope: valve.slope };
-  if (valve.type === 'load-sensing') {
+  if (valve.kind === 'proportioning') return { kneeBar: valve.kneeBar, slope: valve.slope };
+  if (valve.kind === 'load-sensing') {
     return { kneeBar: state === 'laden' ? valve.kneeBarLaden : valve.kneeBarUnladen, slope: valve.slope };
   }
   return null;
@@ -242,7 +242,7 @@ function operatingPoint(
   } else {
     frontShare = rates.front / (rates.front + rates.rear);
   }
-  if (valve.type === 'electronic') frontShare = Math.max(frontShare, idealFrontShare(vehicle, z));
+  if (valve.kind === 'electronic') frontShare = Math.max(frontShare, idealFrontShare(vehicle, z));
   return {
     frontShare,
     frontBar: (frontShare * needed) / rates.front,
@@ -405,9 +405,11 @@ function checkPedal(pedal: PedalInput | undefined): PedalInput | undefined {
  * (a floating caliper's pistons travel both pads' distance; an opposed caliper's two sides travel one each).
  */
 function fluidPerMm(setup: BrakeSetup): number | null {
-  if (setup.front.type !== 'disc' || setup.rear.type !== 'disc') return null;
-  const perWheel = (axle: AxleBrakes & { type: 'disc' }) => 2 * pistonAreaPerSideMm2(axle.pistonsPerSideMm);
-  return 2 * perWheel(setup.front) + 2 * perWheel(setup.rear);
+  const perWheel = (axle: AxleBrakes) =>
+    axle.kind === undefined || axle.kind === 'disc' ? 2 * pistonAreaPerSideMm2(axle.pistonsPerSideMm) : null;
+  const front = perWheel(setup.front);
+  const rear = perWheel(setup.rear);
+  return front === null || rear === null ? null : 2 * front + 2 * rear;
 }
 
 function analyseSetup(
@@ -463,9 +465,9 @@ function advice(before: BrakeSetup, after: BrakeSetup, beforeSetup: SetupAnalysi
   const rearGrew = afterSetup.rearAxleNPerBar > beforeSetup.rearAxleNPerBar * 1.005;
   const frontShrank = afterSetup.frontAxleNPerBar < beforeSetup.frontAxleNPerBar * 0.995;
   const valveFix =
-    after.rearValve.type === 'proportioning' || after.rearValve.type === 'load-sensing'
+    after.rearValve.kind === 'proportioning' || after.rearValve.kind === 'load-sensing'
       ? "lower the rear valve's knee"
-      : before.rearValve.type !== 'none' && before.rearValve.type !== after.rearValve.type
+      : before.rearValve.kind !== 'none' && before.rearValve.kind !== after.rearValve.kind
         ? 'refit the rear valve'
         : 'fit a proportioning valve';
   if (rearGrew) return `${valveFix} or keep the stock rear brakes`;
@@ -546,12 +548,12 @@ export function analyseBrakeDistribution(input: DistributionInput): Distribution
     'Axle loads are the static loads plus the load transfer m g z h / L; aerodynamic forces, rolling resistance and engine braking are left out.',
     'The loaded tyre radius is taken as entered and does not change while braking.',
   ];
-  if (valves.some((v) => v?.type === 'electronic')) {
+  if (valves.some((v) => v?.kind === 'electronic')) {
     assumptions.push(
       "Electronic brake-force distribution is modelled as keeping the rear axle's adhesion utilisation at or below the front's; a real system works from measured wheel slip, with thresholds only its maker knows.",
     );
   }
-  if (valves.some((v) => v?.type === 'load-sensing')) {
+  if (valves.some((v) => v?.kind === 'load-sensing')) {
     assumptions.push("A load-sensing valve's knee is taken as entered for each load state.");
   }
 

@@ -103,6 +103,27 @@ describe('brake distribution calculator', () => {
     expect(query.get('d_m')).toBe('1450');
     expect(query.get('d_afp')).toBe('40, 44');
 
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('when a figure is impossible or the units change, then the field says why and the address keeps metric values', async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    const query = new URLSearchParams({ d_m: '1450', d_fs: '58', d_h: '520', d_wb: '2700', d_rf: '300', d_rr: '300' });
+    for (const [axle, [pistons, rotor, pad]] of Object.entries({ bf: ['54', '280', '50'], br: ['38', '280', '40'] })) {
+      query.set(`d_${axle}p`, pistons);
+      query.set(`d_${axle}r`, rotor);
+      query.set(`d_${axle}h`, pad);
+    }
+    await page.goto(`${server.url}/tools?${query}#distribution`);
+    const panel = page.locator('#distribution');
+    await summaryOf(panel).waitFor({ timeout: 15_000 });
+    await expect.poll(() => summaryOf(panel).innerText()).toContain('The rear locks first above 0.41 g when unladen');
+    const car = panel.getByRole('group', { name: 'The car, unladen' });
+
     // A share outside 0–100 % is refused beside its field, and the results say what to fix.
     await field(car, 'Weight on the front axle').fill('120');
     await expect.poll(() => car.getByRole('alert').innerText()).toBe('Enter a share between 0 and 100 %');
@@ -147,6 +168,7 @@ describe('brake distribution calculator', () => {
     });
     await page.goto(`${server.url}/tools?${query}#distribution`);
     const panel = page.locator('#distribution');
+    await summaryOf(panel).waitFor({ timeout: 15_000 });
     // Φ 0.64 after: unladen (0.64 − 0.58) / 0.192593 = 0.31 g; laden (0.64 − 0.52) / 0.207407 = 0.58 g.
     await expect
       .poll(() => summaryOf(panel).innerText())

@@ -48,9 +48,9 @@ const textbook = {
   lockTogether: (v: DistributionVehicle, phi: number) => (phi - v.frontStaticFraction) / chi(v),
 };
 
-const torqueAxles = (front: number, rear: number, rearValve: BrakeSetup['rearValve'] = { type: 'none' }): BrakeSetup => ({
-  front: { type: 'torque-per-bar', axleTorqueNmPerBar: front },
-  rear: { type: 'torque-per-bar', axleTorqueNmPerBar: rear },
+const torqueAxles = (front: number, rear: number, rearValve: BrakeSetup['rearValve'] = { kind: 'none' }): BrakeSetup => ({
+  front: { kind: 'torque-per-bar', axleTorqueNmPerBar: front },
+  rear: { kind: 'torque-per-bar', axleTorqueNmPerBar: rear },
   rearValve,
 });
 const sameTyres = { front: 300, rear: 300 };
@@ -141,7 +141,7 @@ describe('proportioning valve', () => {
     const analysis = analyseBrakeDistribution({
       unladen: car,
       tyreLoadedRadiusMm: { front: 300, rear: 290 },
-      before: torqueAxles(70, 40, { type: 'proportioning', kneeBar: knee, slope }),
+      before: torqueAxles(70, 40, { kind: 'proportioning', kneeBar: knee, slope }),
     });
     const setup = analysis.before;
     // axle force per bar = torque per bar / loaded radius (m)
@@ -173,7 +173,7 @@ describe('proportioning valve', () => {
       unladen: car,
       laden: ladenCar,
       tyreLoadedRadiusMm: sameTyres,
-      before: torqueAxles(70, 40, { type: 'load-sensing', kneeBarUnladen: 20, kneeBarLaden: 45, slope: 0.3 }),
+      before: torqueAxles(70, 40, { kind: 'load-sensing', kneeBarUnladen: 20, kneeBarLaden: 45, slope: 0.3 }),
     });
     const kneeSeen = (state: StateAnalysis) => {
       const above = state.curve.find((p) => p.rearBar < p.frontBar - 1e-9)!;
@@ -190,8 +190,8 @@ describe('proportioning valve', () => {
       tyreLoadedRadiusMm: sameTyres,
       before: torqueAxles(60, 40, rearValve),
     });
-    const ebd = analyseBrakeDistribution(input({ type: 'electronic' }));
-    const plain = analyseBrakeDistribution(input({ type: 'none' }));
+    const ebd = analyseBrakeDistribution(input({ kind: 'electronic' }));
+    const plain = analyseBrakeDistribution(input({ kind: 'none' }));
     const crossing = plain.before.states[0].lockTogetherG!; // (0.6 − 0.58) / χ = 0.103846 g
     relWithin(crossing, 0.02 / chi(car), 1e-6);
     for (const [i, p] of ebd.before.states[0].curve.entries()) {
@@ -207,19 +207,36 @@ describe('before and after a swap, with disc corners from the brake-chain refere
   // REFERENCES (disc-brake textbook formula): stock front 1 × 54 mm 280/50, rear 1 × 38 mm 280/40,
   // swapped front 40 + 44 mm 330/55; front share 65.93 % → 73.72 % at equal pressure and μ 0.40.
   const stock: BrakeSetup = {
-    front: { type: 'disc', pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50 },
-    rear: { type: 'disc', pistonsPerSideMm: [38], rotorDiameterMm: 280, padHeightMm: 40 },
-    rearValve: { type: 'none' },
+    front: { kind: 'disc', pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50 },
+    rear: { kind: 'disc', pistonsPerSideMm: [38], rotorDiameterMm: 280, padHeightMm: 40 },
+    rearValve: { kind: 'none' },
   };
   const swapped: BrakeSetup = {
     ...stock,
-    front: { type: 'disc', pistonsPerSideMm: [40, 44], rotorDiameterMm: 330, padHeightMm: 55 },
+    front: { kind: 'disc', pistonsPerSideMm: [40, 44], rotorDiameterMm: 330, padHeightMm: 55 },
   };
 
   it('when a corner is described, then the adapter gives twice its torque at 1 bar (1053.50 N·m at 50 bar per stock front wheel)', () => {
     relWithin(axleTorqueNmPerBar(stock.front), (2 * 1053.5) / 50, 1e-5);
     relWithin(axleTorqueNmPerBar(swapped.front), (2 * 1527.44) / 50, 1e-5);
-    relWithin(axleTorqueNmPerBar({ type: 'torque-per-bar', axleTorqueNmPerBar: 12.5 }), 12.5, 0);
+    relWithin(axleTorqueNmPerBar({ kind: 'torque-per-bar', axleTorqueNmPerBar: 12.5 }), 12.5, 0);
+  });
+
+  it('when the rear has drums, then the adapter takes the drum formula: 20.64 mm, 203.2 mm, C* 2.2 give 299.15 N·m per wheel at 40 bar', () => {
+    // REFERENCES, drum brakes (Limpert, Brake Design and Safety, from memory): T = p × A_wc × C* × r_drum
+    const drum = { kind: 'drum', wheelCylinderBoreMm: 20.64, drumDiameterMm: 203.2, brakeFactor: 2.2 } as const;
+    relWithin(axleTorqueNmPerBar(drum), (2 * 299.15) / 40, 1e-4);
+    relWithin(axleTorqueNmPerBar(drum), (2 * 0.1 * (Math.PI / 4) * 20.64 ** 2 * 2.2 * 101.6) / 1000, 1e-12);
+    const analysis = analyseBrakeDistribution({ unladen: car, tyreLoadedRadiusMm: sameTyres, before: { ...stock, rear: drum } });
+    relWithin(analysis.before.rearAxleNPerBar, (axleTorqueNmPerBar(drum) * 1000) / 300, 1e-12);
+    // a drum's shoes take fluid in a way the piston area alone does not tell
+    expect(analysis.before.fluid).toBeNull();
+    const tooWide = { ...drum, wheelCylinderBoreMm: 210 };
+    expect(
+      fieldOf(() =>
+        analyseBrakeDistribution({ unladen: car, tyreLoadedRadiusMm: sameTyres, before: { ...stock, rear: tooWide } }),
+      ),
+    ).toBe('before.rear.wheelCylinderBoreMm');
   });
 
   it('when the bigger front calipers go on, then the balance moves to the front, the crossing moves from 0.41 g to 0.82 g and the sentence says so', () => {
@@ -342,7 +359,7 @@ describe('the sentence on a rear-biased swap', () => {
   });
 
   it('when the car already has a proportioning valve, then the advice is to lower its knee', () => {
-    const valve = { type: 'proportioning', kneeBar: 60, slope: 0.3 } as const;
+    const valve = { kind: 'proportioning', kneeBar: 60, slope: 0.3 } as const;
     const analysis = analyseBrakeDistribution({
       unladen: car,
       tyreLoadedRadiusMm: sameTyres,
@@ -384,13 +401,13 @@ describe('impossible input is refused with the field named', () => {
       fieldOf(() =>
         analyseBrakeDistribution({
           ...base,
-          after: { ...torqueAxles(70, 30), rear: { type: 'disc', pistonsPerSideMm: [38], rotorDiameterMm: 60, padHeightMm: 40 } },
+          after: { ...torqueAxles(70, 30), rear: { kind: 'disc', pistonsPerSideMm: [38], rotorDiameterMm: 60, padHeightMm: 40 } },
         }),
       ),
     ).toBe('after.rear.padHeightMm');
     expect(
       fieldOf(() =>
-        analyseBrakeDistribution({ ...base, before: torqueAxles(70, 30, { type: 'proportioning', kneeBar: 30, slope: 2 }) }),
+        analyseBrakeDistribution({ ...base, before: torqueAxles(70, 30, { kind: 'proportioning', kneeBar: 30, slope: 2 }) }),
       ),
     ).toBe('before.rearValve.slope');
     expect(fieldOf(() => analyseBrakeDistribution({ ...base, before: torqueAxles(70, 0) }))).toBe(
@@ -424,9 +441,9 @@ describe('properties', () => {
 
   it('when rear torque is added behind any rear valve, then the analysed crossing never rises', () => {
     const valves = fc.constantFrom<BrakeSetup['rearValve']>(
-      { type: 'none' },
-      { type: 'proportioning', kneeBar: 30, slope: 0.3 },
-      { type: 'load-sensing', kneeBarUnladen: 25, kneeBarLaden: 50, slope: 0.25 },
+      { kind: 'none' },
+      { kind: 'proportioning', kneeBar: 30, slope: 0.3 },
+      { kind: 'load-sensing', kneeBarUnladen: 25, kneeBarLaden: 50, slope: 0.25 },
     );
     fc.assert(
       fc.property(

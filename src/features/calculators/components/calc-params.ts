@@ -1,4 +1,4 @@
-import { useCallback } from 'react';
+import { useCallback, useEffect, useRef } from 'react';
 import { useSearchParams } from 'react-router';
 import { FitmentInputError } from '@shared/fitment/errors';
 import { MM_PER_IN, psiToBar, barToPsi, kgToLb, lbToKg } from '@shared/fitment/units';
@@ -17,16 +17,22 @@ export type CalcParams = {
 /** Calculator inputs live in the query string; typing replaces the entry so Back leaves the page instead of undoing keystrokes. */
 export function useCalcParams(): CalcParams {
   const [params, setParams] = useSearchParams();
+  // setSearchParams' updater starts from the params of the last render: two edits before the router renders
+  // again (a fast typist, autofill, a slow phone) would both start there and the first would be lost. So each
+  // edit starts from the newest state asked for, until the router has caught up with it.
+  const pending = useRef<URLSearchParams | null>(null);
+  const rendered = useRef(params);
+  useEffect(() => {
+    rendered.current = params;
+    if (pending.current?.toString() === params.toString()) pending.current = null;
+  }, [params]);
   const update = useCallback(
-    (change: (next: URLSearchParams) => void) =>
-      setParams(
-        (prev) => {
-          const next = new URLSearchParams(prev);
-          change(next);
-          return next;
-        },
-        { replace: true, preventScrollReset: true },
-      ),
+    (change: (next: URLSearchParams) => void) => {
+      const next = new URLSearchParams(pending.current ?? rendered.current);
+      change(next);
+      pending.current = next;
+      setParams(next, { replace: true, preventScrollReset: true });
+    },
     [setParams],
   );
   return {

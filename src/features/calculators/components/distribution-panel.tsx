@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { DEFAULT_PAD_MU } from '@shared/fitment/brakes';
+import { DEFAULT_PAD_MU, DRUM_BRAKE_FACTORS } from '@shared/fitment/brakes';
 import type { AxleBrakes } from '@shared/fitment/axle-torque';
 import {
   analyseBrakeDistribution,
@@ -20,7 +20,8 @@ const STAGE_NAME = { b: 'before', a: 'after' } as const;
 const AXLE_NAME = { f: 'front', r: 'rear' } as const;
 
 const k = (name: string) => `d_${name}`;
-const axleKeys = (stage: Stage, axle: AxleKey) => ['t', 'p', 'r', 'h', 'q'].map((part) => k(`${stage}${axle}${part}`));
+const axleKeys = (stage: Stage, axle: AxleKey) =>
+  ['t', 'p', 'r', 'h', 'q', 'wc', 'dd', 'bf'].map((part) => k(`${stage}${axle}${part}`));
 const valveKeys = (stage: Stage) => ['v', 'vk', 'vs', 'vku', 'vkl'].map((part) => k(`${stage}${part}`));
 
 export const distributionKeys = [
@@ -58,6 +59,9 @@ function fieldKeys(): Record<string, string> {
       map[`${at}.padHeightMm`] = k(`${stage}${axle}h`);
       map[`${at}.padMu`] = k('mu');
       map[`${at}.axleTorqueNmPerBar`] = k(`${stage}${axle}q`);
+      map[`${at}.wheelCylinderBoreMm`] = k(`${stage}${axle}wc`);
+      map[`${at}.drumDiameterMm`] = k(`${stage}${axle}dd`);
+      map[`${at}.brakeFactor`] = k(`${stage}${axle}bf`);
     }
     const valve = `${STAGE_NAME[stage]}.rearValve`;
     map[`${valve}.kneeBar`] = k(`${stage}vk`);
@@ -74,10 +78,18 @@ function readAxle(inputs: Inputs, params: CalcParams, stage: Stage, axle: AxleKe
   const label = `${STAGE_LABEL[stage]} ${AXLE_NAME[axle]}`;
   const key = (part: string) => k(`${stage}${axle}${part}`);
   if (params.get(key('t')) === 'tpb') {
-    return { type: 'torque-per-bar', axleTorqueNmPerBar: inputs.number(key('q'), `${label} torque per bar`) };
+    return { kind: 'torque-per-bar', axleTorqueNmPerBar: inputs.number(key('q'), `${label} torque per bar`) };
+  }
+  if (params.get(key('t')) === 'drum') {
+    return {
+      kind: 'drum',
+      wheelCylinderBoreMm: inputs.number(key('wc'), `${label} wheel cylinder bore`),
+      drumDiameterMm: inputs.number(key('dd'), `${label} drum Ø`),
+      brakeFactor: inputs.number(key('bf'), `${label} brake factor`),
+    };
   }
   return {
-    type: 'disc',
+    kind: 'disc',
     pistonsPerSideMm: inputs.list(key('p'), `${label} pistons`),
     rotorDiameterMm: inputs.number(key('r'), `${label} rotor Ø`),
     padHeightMm: inputs.number(key('h'), `${label} pad height`),
@@ -91,21 +103,21 @@ function readValve(inputs: Inputs, params: CalcParams, stage: Stage): RearPressu
   switch (params.get(key('v'))) {
     case 'prop':
       return {
-        type: 'proportioning',
+        kind: 'proportioning',
         kneeBar: inputs.number(key('vk'), `${label} knee`),
         slope: inputs.number(key('vs'), `${label} slope`),
       };
     case 'ls':
       return {
-        type: 'load-sensing',
+        kind: 'load-sensing',
         kneeBarUnladen: inputs.number(key('vku'), `${label} knee unladen`),
         kneeBarLaden: inputs.number(key('vkl'), `${label} knee laden`),
         slope: inputs.number(key('vs'), `${label} slope`),
       };
     case 'ebd':
-      return { type: 'electronic' };
+      return { kind: 'electronic' };
     default:
-      return { type: 'none' };
+      return { kind: 'none' };
   }
 }
 
@@ -190,19 +202,18 @@ export function DistributionPanel({ params }: { params: CalcParams }) {
 
   const axleFields = (stage: Stage, axle: AxleKey) => {
     const key = (part: string) => k(`${stage}${axle}${part}`);
-    const byTorque = params.get(key('t')) === 'tpb';
+    const given = params.get(key('t'));
+    const drumFactors = Object.values(DRUM_BRAKE_FACTORS)
+      .map((f) => `${f.label.toLowerCase()} about ${f.brakeFactor}`)
+      .join(', ');
     return (
       <div className="grid gap-3">
-        <Select
-          label="Given as"
-          name={key('t')}
-          value={byTorque ? 'tpb' : ''}
-          onChange={(e) => params.set(key('t'), e.target.value)}
-        >
+        <Select label="Given as" name={key('t')} value={given} onChange={(e) => params.set(key('t'), e.target.value)}>
           <option value="">Disc caliper and rotor</option>
-          <option value="tpb">Torque per bar (drum or known figure)</option>
+          <option value="drum">Drum</option>
+          <option value="tpb">Axle torque per bar (a known figure)</option>
         </Select>
-        {byTorque ? (
+        {given === 'tpb' ? (
           <QuantityField
             params={params}
             name={key('q')}
@@ -212,6 +223,33 @@ export function DistributionPanel({ params }: { params: CalcParams }) {
             hint="Both wheels together"
             error={errors[key('q')]}
           />
+        ) : given === 'drum' ? (
+          <FieldGrid cols={3}>
+            <QuantityField
+              params={params}
+              name={key('wc')}
+              label="Wheel cylinder bore"
+              quantity="length"
+              placeholder="20.64"
+              error={errors[key('wc')]}
+            />
+            <QuantityField
+              params={params}
+              name={key('dd')}
+              label="Drum Ø"
+              quantity="length"
+              placeholder="203.2"
+              error={errors[key('dd')]}
+            />
+            <QuantityField
+              params={params}
+              name={key('bf')}
+              label="Brake factor C*"
+              placeholder="2.0"
+              hint={`Typical: ${drumFactors} (from memory; a measured figure is better)`}
+              error={errors[key('bf')]}
+            />
+          </FieldGrid>
         ) : (
           <FieldGrid cols={3}>
             <QuantityField
