@@ -28,3 +28,16 @@ export function can(role: Role | null | undefined, permission: Permission): bool
 export function permissionsOf(role: Role): readonly Permission[] {
   return grants[role];
 }
+
+/**
+ * Who may read a revision that is not public. Its author always; reviewers only once it has been sent to
+ * review: a never-submitted draft (and its photos) is private to its author, even from the review desk.
+ */
+export function canSeeUnpublishedRevision(
+  viewer: { id: number; role: Role } | null | undefined,
+  revision: { authorId: number; status: string },
+): boolean {
+  if (!viewer) return false;
+  if (viewer.id === revision.authorId) return true;
+  return revision.status !== 'draft' && can(viewer.role, 'review');
+}

@@ -79,8 +79,9 @@ const table: Record<string, Row> = {
   'GET /api/parts/:id': publicRoute,
   'GET /api/search-index': publicRoute,
   'POST /api/submissions': signedIn(),
-  // reviewers may read any revision; other members cannot even tell it exists
-  'GET /api/submissions/:id': { ...ownerOnly, moderator: 'ok', admin: 'ok' },
+  // the world's revision is a never-submitted draft: private to its author, even from the review desk
+  // (reviewers read a revision once it is sent to review; tests/api/drafts-private.test.ts)
+  'GET /api/submissions/:id': ownerOnly,
   'PATCH /api/submissions/:id': ownerOnly,
   'POST /api/submissions/:id/submit': ownerOnly,
   'DELETE /api/submissions/:id': ownerOnly,
@@ -136,8 +137,8 @@ const table: Record<string, Row> = {
   'GET /api/shop-links/:code/qr.png': publicRoute,
   'GET /api/shop-links/:code/qr.svg': publicRoute,
   'GET /api/l/:code': publicRoute,
-  // the photo in the world belongs to the owner's draft: only its author and reviewers may see it
-  'GET /media/:id': { anon: 404, member: 404, owner: 'ok', shop: 404, otherShop: 404, moderator: 'ok', admin: 'ok' },
+  // the photo in the world belongs to the owner's never-submitted draft: only its author may see it
+  'GET /media/:id': { anon: 404, member: 404, owner: 'ok', shop: 404, otherShop: 404, moderator: 404, admin: 404 },
   'GET /l/:code': publicRoute,
 };
 

@@ -65,7 +65,7 @@ afterAll(() => {
 });
 
 describe('POST /api/submissions/:id/photos — accepted', () => {
-  it('when the author uploads a JPEG, then it is re-encoded to WebP under a random id with a thumbnail, and only they and reviewers can fetch it', async () => {
+  it('when the author uploads a JPEG, then it is re-encoded to WebP under a random id with a thumbnail, and only they can fetch it while it is a draft', async () => {
     const id = await newDraft();
     const res = await upload(rosa, id)
       .attach('photos', jpeg, 'caliper.jpg')
@@ -91,7 +91,7 @@ describe('POST /api/submissions/:id/photos — accepted', () => {
     expect(own.status).toBe(200);
     expect(own.headers['content-type']).toBe('image/webp');
     expect(own.headers['x-content-type-options']).toBe('nosniff');
-    expect((await mo.agent.get(p.url)).status).toBe(200);
+    expect((await mo.agent.get(p.url)).status).toBe(404);
     expect((await kai.agent.get(p.url)).status).toBe(404);
     expect((await request(server).get(p.url)).status).toBe(404);
   });
@@ -256,7 +256,7 @@ describe('POST /api/submissions/:id/photos — refused, and nothing changes', ()
   it('when someone else uploads, or the revision is in review, then it is refused', async () => {
     const id = await newDraft();
     await expectNothingStored(() => upload(kai, id).attach('photos', jpeg, 'a.jpg'), 404);
-    await expectNothingStored(() => upload(mo, id).attach('photos', jpeg, 'a.jpg'), 403);
+    await expectNothingStored(() => upload(mo, id).attach('photos', jpeg, 'a.jpg'), 404);
     await expectNothingStored(() => request(server).post(`/api/submissions/${id}/photos`).attach('photos', jpeg, 'a.jpg'), 403);
     expect((await rosa.agent.post(`/api/submissions/${id}/submit`).set('x-csrf-token', rosa.token)).status).toBe(200);
     const res = await expectNothingStored(() => upload(rosa, id).attach('photos', jpeg, 'a.jpg'), 409);

@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { fittedReports, revisionPhotos, revisions } from '../../db/schema/index';
-import { can } from '../../../shared/roles';
+import { can, canSeeUnpublishedRevision } from '../../../shared/roles';
 import type { SessionUser } from '../../middleware/require-role';
 import { AppError } from '../../lib/app-error';
 
@@ -19,7 +19,7 @@ export function resolveMedia(db: Db, fileId: string, viewer: SessionUser | undef
     .where(eq(revisionPhotos.fileId, fileId))
     .get();
   if (!row) return resolveFittedReportPhoto(db, fileId, viewer);
-  const visible = publicStatuses.has(row.status) || (viewer && (viewer.id === row.authorId || can(viewer.role, 'review')));
+  const visible = publicStatuses.has(row.status) || canSeeUnpublishedRevision(viewer, row);
   if (!visible) throw AppError.notFound('That photo');
   return { fileId: row.photo.fileId, public: publicStatuses.has(row.status) };
 }

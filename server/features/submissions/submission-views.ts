@@ -2,7 +2,7 @@ import { and, eq, inArray, ne } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { chassis, revisions, revisionPhotos, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
-import { can } from '../../../shared/roles';
+import { canSeeUnpublishedRevision } from '../../../shared/roles';
 import type { SessionUser } from '../../middleware/require-role';
 import type { SubmissionView, CheckResult } from '../../../shared/schemas/submissions';
 import type { RevisionStatus } from '../../../shared/schemas/enums';
@@ -34,12 +34,10 @@ export function loadRevision(db: Db, id: number): LoadedRevision | null {
   );
 }
 
-const mayView = (user: SessionUser, r: RevisionRow) => user.id === r.authorId || can(user.role, 'review');
-
-/** The revision, if the user is its author or a reviewer; everyone else gets the same 404 as for a missing one. */
+/** The revision, if the user is its author or (once it was sent to review) a reviewer; everyone else gets the same 404 as for a missing one. */
 export function revisionFor(db: Db, user: SessionUser, id: number): LoadedRevision {
   const row = loadRevision(db, id);
-  if (!row || !mayView(user, row.revision)) throw AppError.notFound('That submission');
+  if (!row || !canSeeUnpublishedRevision(user, row.revision)) throw AppError.notFound('That submission');
   return row;
 }
 
