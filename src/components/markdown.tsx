@@ -1,14 +1,41 @@
 import ReactMarkdown, { defaultUrlTransform } from 'react-markdown';
 import remarkGfm from 'remark-gfm';
+import { photoIdPattern } from '@shared/schemas/params';
 
 const allowedSchemes = /^(https?:|mailto:)/i;
+// only a stand-in origin to resolve relative addresses against; never requested
+const base = 'https://swapyard.invalid';
 
-/** Only http(s) and mailto links survive; relative links stay; everything else becomes inert. */
+/**
+ * Only http(s) and mailto links survive; everything else becomes inert. A relative address is resolved
+ * the way a browser will resolve it (dot segments, backslashes, `//host`), so what is checked and shown
+ * is where it really goes: `/media/../l/x` becomes `/l/x`, `//host/x` becomes `https://host/x`.
+ */
 export function safeUrl(url: string): string {
   const cleaned = defaultUrlTransform(url);
   if (!cleaned) return '';
-  if (/^[a-z][a-z0-9+.-]*:/i.test(cleaned) && !allowedSchemes.test(cleaned)) return '';
-  return cleaned;
+  if (/^[a-z][a-z0-9+.-]*:/i.test(cleaned)) return allowedSchemes.test(cleaned) ? cleaned : '';
+  if (cleaned.startsWith('#') || cleaned.startsWith('?')) return cleaned;
+  let resolved: URL;
+  try {
+    resolved = new URL(cleaned, `${base}/`);
+  } catch {
+    return '';
+  }
+  if (resolved.origin !== base) return resolved.protocol === 'https:' || resolved.protocol === 'http:' ? resolved.href : '';
+  return resolved.pathname + resolved.search + resolved.hash;
+}
+
+const mediaSrc = /^\/media\/([^/?#]+)(?:\?size=(?:thumb|full))?$/;
+
+/**
+ * Images load without a click, so they are limited to our own stored photos, written exactly
+ * (`/media/<id>`, optionally `?size=thumb`): nothing a browser would normalise to another address.
+ */
+export function mediaImageSrc(src: unknown): string | null {
+  if (typeof src !== 'string') return null;
+  const m = mediaSrc.exec(src);
+  return m && photoIdPattern.test(m[1]) ? src : null;
 }
 
 /**
@@ -36,12 +63,10 @@ export function Markdown({ children, className = '' }: { children: string; class
             type === 'checkbox' ? (
               <input type="checkbox" checked={Boolean(checked)} disabled readOnly aria-label={checked ? 'Done' : 'Not done'} />
             ) : null,
-          img: ({ src, alt }) =>
-            typeof src === 'string' && src.startsWith('/media/') ? (
-              <img src={src} alt={alt ?? ''} loading="lazy" />
-            ) : (
-              <span>{alt}</span>
-            ),
+          img: ({ src, alt }) => {
+            const own = mediaImageSrc(src);
+            return own ? <img src={own} alt={alt ?? ''} loading="lazy" /> : <span>{alt}</span>;
+          },
         }}
       >
         {children}

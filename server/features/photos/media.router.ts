@@ -2,10 +2,11 @@ import { Router } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../../app';
 import { validated } from '../../middleware/validate';
+import { photoIdSchema } from '../../../shared/schemas/params';
 import { resolveMedia } from './media.service';
 import { storedType, thumbId } from './photo-files';
 
-const params = z.object({ id: z.string().regex(/^[a-z0-9]{12,40}$/, 'Not a photo id') });
+const params = z.object({ id: photoIdSchema });
 const query = z.object({ size: z.enum(['full', 'thumb']).default('full') });
 
 /** GET /media/:id — stored photos are served only through here, never from a public folder. */

@@ -6,7 +6,7 @@ import type { AppDeps } from '../../app';
 import { AppError } from '../../lib/app-error';
 import { validated } from '../../middleware/validate';
 import { requirePermission, requireUser } from '../../middleware/require-role';
-import { idParamSchema } from '../../../shared/schemas/params';
+import { idParamSchema, photoIdSchema } from '../../../shared/schemas/params';
 import { createSubmissionSchema, photoOrderSchema, updateSubmissionSchema } from '../../../shared/schemas/submissions';
 import { MAX_PHOTO_BYTES } from '../photos/photo-processing';
 import { readUpload } from '../photos/photo-upload';
@@ -29,7 +29,7 @@ import {
 } from './submission-photos.service';
 
 const idParams = z.object({ id: idParamSchema });
-const photoParams = z.object({ id: idParamSchema, photoId: z.string().regex(/^[a-z0-9]{12,40}$/, 'Not a photo id') });
+const photoParams = z.object({ id: idParamSchema, photoId: photoIdSchema });
 
 /** Per signed-in member (the routes behind it all require one), counted over an hour. */
 function perUserLimit(limit: number, what: string): RequestHandler {

@@ -40,3 +40,42 @@ describe('Markdown', () => {
     expect(safeUrl('https://example.com')).toBe('https://example.com');
   });
 });
+
+describe('Markdown image and link addresses', () => {
+  it('when an image path climbs out of /media/ with dot segments or encodings, then no image is requested', () => {
+    const sources = [
+      '/media/../l/k7mpq2x',
+      '/media/%2e%2e/l/k7mpq2x',
+      '/media/./../l/k7mpq2x',
+      '/media/..%2fl/k7mpq2x',
+      '/media/abcdefghijklmnop/../../l/k7mpq2x',
+      '/media\\..\\l\\k7mpq2x',
+      '//media/abcdefghijklmnop',
+      '/media/abcdefghijklmnop?size=thumb&x=/../l/k7mpq2x',
+    ];
+    const { container } = render(<Markdown>{sources.map((s, i) => `![p${i}](${s})`).join('\n\n')}</Markdown>);
+    expect(container.querySelectorAll('img')).toHaveLength(0);
+    for (let i = 0; i < sources.length; i++) expect(container.textContent).toContain(`p${i}`);
+  });
+
+  it('when an image is one of our stored photos, then it renders at that exact address', () => {
+    const { container } = render(<Markdown>{'![caliper](/media/abcdefghijklmnop) ![thumb](/media/abcdefghijklmnop?size=thumb)'}</Markdown>);
+    expect([...container.querySelectorAll('img')].map((i) => i.getAttribute('src'))).toEqual([
+      '/media/abcdefghijklmnop',
+      '/media/abcdefghijklmnop?size=thumb',
+    ]);
+  });
+
+  it('when a relative link has dot segments or starts with two slashes, then its address is the one it really points to', () => {
+    render(<Markdown>{'[a](/media/../l/k7mpq2x) [b](//elsewhere.example/x) [c](/\\elsewhere.example/y)'}</Markdown>);
+    expect(screen.getByText('a').closest('a')?.getAttribute('href')).toBe('/l/k7mpq2x');
+    const b = screen.getByText('b').closest('a')!;
+    expect(b.getAttribute('href')).toBe('https://elsewhere.example/x');
+    expect(b.getAttribute('target')).toBe('_blank');
+    // the markdown parser percent-encodes the backslash, so this one stays a path on our own site
+    expect(new URL(screen.getByText('c').closest('a')!.getAttribute('href')!, 'https://swapyard.invalid').origin).toBe(
+      'https://swapyard.invalid',
+    );
+    expect(safeUrl('/\\elsewhere.example/y')).toBe('https://elsewhere.example/y');
+  });
+});
