@@ -3,6 +3,7 @@ import type { Db } from '../db/client';
 import { users } from '../db/schema/users';
 import type { Clock } from '../lib/clock';
 import type { SessionUser } from '../middleware/require-role';
+import { neutraliseSingleLine } from '../../shared/schemas/text';
 
 /** What the provider tells us about the person signing in. */
 export type ProviderProfile = {
@@ -54,6 +55,8 @@ function freeLogin(db: Db, wanted: string, exceptId: number | null): string {
  */
 export function signInFromProfile(db: Db, clock: Clock, profile: ProviderProfile): SignInResult {
   const now = clock.now();
+  // the provider's display name is written by its holder like any other field here
+  const providerName = profile.name ? neutraliseSingleLine(profile.name).trim() : '';
   // better-sqlite3 runs the transaction on the one connection, so plain `db` calls inside belong to it
   return db.transaction(() => {
     const existing = db
@@ -66,7 +69,7 @@ export function signInFromProfile(db: Db, clock: Clock, profile: ProviderProfile
       db.update(users)
         .set({
           login: freeLogin(db, profile.login, existing.id),
-          name: existing.name || profile.name || profile.login,
+          name: existing.name || providerName || profile.login,
           ...(profile.email ? { email: profile.email } : {}),
           avatarUrl: profile.avatarUrl,
           lastSignInAt: now,
@@ -82,7 +85,7 @@ export function signInFromProfile(db: Db, clock: Clock, profile: ProviderProfile
         provider: profile.provider,
         providerId: profile.providerId,
         login: freeLogin(db, profile.login, null),
-        name: profile.name || profile.login,
+        name: providerName || profile.login,
         email: profile.email,
         avatarUrl: profile.avatarUrl,
         role: 'member',

@@ -1,3 +1,5 @@
+import { neutraliseSingleLine } from '../../shared/schemas/text';
+
 // Builders of the messages the community loop sends. Each returns plain text and HTML; every string
 // that came from a member (titles, reasons, notes, names) is HTML-escaped in the HTML part.
 
@@ -7,12 +9,8 @@ export function escapeHtml(s: string): string {
   return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
 }
 
-/** subjects are one line: no line breaks from user text can start a new header */
-const oneLine = (s: string) =>
-  s
-    .replace(/[\r\n\t]+/g, ' ')
-    .trim()
-    .slice(0, 140);
+/** subjects are one line: no line breaks from user text can start a new header, no bidi control can reverse it */
+const oneLine = (s: string) => neutraliseSingleLine(s).replace(/\s+/g, ' ').trim().slice(0, 140);
 
 type Block = { text: string } | { quote: string } | { link: string; label: string };
 

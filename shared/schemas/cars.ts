@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { singleLine } from './text';
 import { parseTyreSize } from '../fitment/tyre';
 import { FitmentInputError } from '../fitment/errors';
 
@@ -30,7 +31,7 @@ export const tyreSizeField = z
 
 const carShape = {
   chassisId: num(z.number({ error: 'Pick the chassis' }).int().positive('Pick the chassis')),
-  nickname: z.string().trim().min(1, 'Give the car a name you will recognise').max(60, 'At most 60 characters'),
+  nickname: singleLine().trim().min(1, 'Give the car a name you will recognise').max(60, 'At most 60 characters'),
   wheelDiameterIn: num(
     z.number({ error: 'Enter the wheel diameter' }).min(10, 'Between 10 and 24 in').max(24, 'Between 10 and 24 in'),
   ),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { multiLine } from './text';
 import type { PersonRef } from './views';
 
 // API contract of fitted reports: "I fitted this too", with the wheel the member runs.
@@ -24,7 +25,7 @@ const reportShape = {
   widthIn: num(z.number({ error: 'Enter the wheel width' }).min(4, 'Between 4 and 13 in').max(13, 'Between 4 and 13 in')),
   offsetMm: num(z.number({ error: 'Enter the offset (ET)' }).min(-80, 'Between −80 and 80 mm').max(80, 'Between −80 and 80 mm')),
   spacerMm: num(z.number().min(0, 'Between 0 and 60 mm').max(60, 'Between 0 and 60 mm')),
-  note: z.string().trim().max(1000, 'A note may be at most 1,000 characters'),
+  note: multiLine().trim().max(1000, 'A note may be at most 1,000 characters'),
 };
 
 /** POST /api/swaps/:slug/fitted-reports (JSON, or multipart with an optional `photo`) */

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { singleLine } from './text';
 import type { Role } from '../roles';
 import { unitSystemSchema, type UnitSystem } from './enums';
 
@@ -15,18 +16,9 @@ export type MeUser = {
 /** `GET /api/me`: the signed-in user (or null) and the session's CSRF token. */
 export type MeResponse = { user: MeUser | null; csrfToken: string };
 
-// eslint-disable-next-line no-control-regex
-const noControlChars = /^[^\u0000-\u001f\u007f]*$/;
-
 export const updateMeSchema = z
   .object({
-    name: z
-      .string()
-      .trim()
-      .min(1, 'Enter the name other members see')
-      .max(80, 'A name is at most 80 characters')
-      .regex(noControlChars, 'A name cannot contain control characters')
-      .optional(),
+    name: singleLine().trim().min(1, 'Enter the name other members see').max(80, 'A name is at most 80 characters').optional(),
     units: unitSystemSchema.optional(),
   })
   .strict()

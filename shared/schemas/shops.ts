@@ -1,20 +1,20 @@
 import { z } from 'zod';
+import { multiLine, singleLine } from './text';
 import type { SwapCard, SwapSheetView } from './views';
 
 // API contract of shop pages and shop links (a short link pinned to the revision a shop quoted).
 
-const noteField = z.string().trim().max(4000, 'A note may be at most 4,000 characters');
+const noteField = multiLine().trim().max(4000, 'A note may be at most 4,000 characters');
 
 export const updateShopSchema = z
   .object({
-    name: z.string().trim().min(2, 'Give the shop’s name').max(80),
-    town: z.string().trim().max(80),
-    website: z
-      .string()
+    name: singleLine().trim().min(2, 'Give the shop’s name').max(80),
+    town: singleLine().trim().max(80),
+    website: singleLine()
       .trim()
       .max(200)
       .refine((v) => v === '' || /^https?:\/\/[^\s/]+\.[^\s]+$/i.test(v), 'A web address starting with http:// or https://'),
-    about: z.string().trim().max(4000, 'At most 4,000 characters'),
+    about: multiLine().trim().max(4000, 'At most 4,000 characters'),
   })
   .partial()
   .refine((v) => Object.values(v).some((x) => x !== undefined), { message: 'Send at least one field to change' });

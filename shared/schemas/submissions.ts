@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { multiLine, singleLine } from './text';
 import { axleSchema, categorySchema, type Axle, type Category, type MailStatus, type RevisionStatus } from './enums';
 import { swapDataSchema, type SwapData } from './swap-data';
 import type { PersonRef, PhotoView, ChassisView } from './views';
@@ -7,12 +8,12 @@ import type { PersonRef, PhotoView, ChassisView } from './views';
 
 /** a chassis proposed with a submission, when it is not in the catalogue yet */
 export const newChassisSchema = z.object({
-  make: z.string().trim().min(1, 'Give the make').max(60),
-  model: z.string().trim().min(1, 'Give the model').max(60),
-  code: z.string().trim().min(1, 'Give the chassis code').max(20),
+  make: singleLine().trim().min(1, 'Give the make').max(60),
+  model: singleLine().trim().min(1, 'Give the model').max(60),
+  code: singleLine().trim().min(1, 'Give the chassis code').max(20),
   yearFrom: z.number().int().min(1900).max(2100),
   yearTo: z.number().int().min(1900).max(2100).nullable().default(null),
-  body: z.string().trim().max(60).default(''),
+  body: singleLine().trim().max(60).default(''),
   lugCount: z.number().int().min(3).max(10),
   pcdMm: z.number().positive().max(300),
   centreBoreMm: z.number().positive().max(200),
@@ -26,14 +27,14 @@ export const newChassisSchema = z.object({
       diameterIn: z.number().min(10).max(24),
       widthIn: z.number().min(4).max(13),
       offsetMm: z.number().min(-80).max(80),
-      tyre: z.string().trim().max(40).default(''),
+      tyre: singleLine().trim().max(40).default(''),
     })
     .optional(),
-  notes: z.string().trim().max(1000).default(''),
+  notes: multiLine().trim().max(1000).default(''),
 });
 export type NewChassis = z.infer<typeof newChassisSchema>;
 
-const markdownBody = z.string().max(40_000, 'The write-up may be at most 40,000 characters').default('');
+const markdownBody = multiLine().max(40_000, 'The write-up may be at most 40,000 characters').default('');
 
 /** POST /api/submissions — a new swap (chassis + axle + category) or, with `swapSlug`, a new revision of an approved swap */
 export const createSubmissionSchema = z
@@ -68,7 +69,7 @@ export type UpdateSubmission = z.infer<typeof updateSubmissionSchema>;
 
 /** PATCH /api/submissions/:id/photos — captions and order */
 export const photoOrderSchema = z.object({
-  photos: z.array(z.object({ id: z.string().min(1).max(60), caption: z.string().trim().max(300) })).max(12),
+  photos: z.array(z.object({ id: z.string().min(1).max(60), caption: singleLine().trim().max(300) })).max(12),
 });
 
 export type CheckResult = { id: string; label: string; status: 'pass' | 'fail' | 'attention'; detail: string; link?: string };
@@ -150,22 +151,22 @@ export type ReviewDetail = {
   canDecide: boolean;
 };
 
-export const decisionNoteSchema = z.object({ note: z.string().trim().max(4000).default('') });
+export const decisionNoteSchema = z.object({ note: multiLine().trim().max(4000).default('') });
 export const requiredReasonSchema = z.object({
-  note: z.string().trim().min(3, 'Give the reason the member will read').max(4000),
+  note: multiLine().trim().min(3, 'Give the reason the member will read').max(4000),
 });
 export const bulkDeclineSchema = z.object({
   revisionIds: z.array(z.number().int().positive()).min(1).max(100),
-  note: z.string().trim().min(3, 'Give the reason').max(4000),
+  note: multiLine().trim().min(3, 'Give the reason').max(4000),
 });
 export const reasonTemplateSchema = z.object({
-  label: z.string().trim().min(2).max(60),
-  text: z.string().trim().min(3).max(2000),
+  label: singleLine().trim().min(2).max(60),
+  text: multiLine().trim().min(3).max(2000),
 });
 export type ReasonTemplate = { id: number; label: string; text: string };
 
-export const flagSchema = z.object({ reason: z.string().trim().min(5, 'Say what is wrong (at least 5 characters)').max(2000) });
-export const resolveFlagSchema = z.object({ note: z.string().trim().min(3, 'Say what was done').max(2000) });
+export const flagSchema = z.object({ reason: multiLine().trim().min(5, 'Say what is wrong (at least 5 characters)').max(2000) });
+export const resolveFlagSchema = z.object({ note: multiLine().trim().min(3, 'Say what was done').max(2000) });
 
 /** One message of `GET /api/outbox`; `to` and `delivery` are filled for admins only. */
 export type OutboxMessage = {

@@ -1,5 +1,6 @@
 import { and, eq, max, sql } from 'drizzle-orm';
 import { z } from 'zod';
+import { singleLine } from '../../../shared/schemas/text';
 import { revisionPhotos, revisions } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
@@ -15,7 +16,7 @@ import type { SubmissionDeps } from './submissions.service';
 export const MAX_PHOTOS_PER_REVISION = 12;
 
 const captionsSchema = z
-  .array(z.string().trim().max(300, 'A caption may be at most 300 characters'))
+  .array(singleLine().trim().max(300, 'A caption may be at most 300 characters'))
   .max(MAX_PHOTOS_PER_REVISION);
 
 /** The optional `captions` form field: a JSON array of strings, one per uploaded file in order. */

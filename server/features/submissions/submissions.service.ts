@@ -12,6 +12,7 @@ import { stripHtml, stripHtmlDeep } from '../../lib/sanitize';
 import { submissionReceived } from '../../mail/messages';
 import type { SessionUser } from '../../middleware/require-role';
 import { swapDataSchema, type SwapData } from '../../../shared/schemas/swap-data';
+import { neutraliseDeep } from '../../../shared/schemas/text';
 import type {
   CreateSubmission,
   MySubmissionItem,
@@ -50,9 +51,12 @@ export function uniqueSlug(db: Db | Tx, table: typeof swaps | typeof chassis | t
   for (let n = 2; ; n++) if (!taken.has(`${root}-${n}`)) return `${root}-${n}`;
 }
 
-/** Raw HTML leaves every string of the record and the write-up; the cleaned record is checked again. */
+/**
+ * Raw HTML and invisible format characters (bidi overrides and the like) leave every string of the record
+ * and the write-up; the cleaned record is checked again.
+ */
 function cleanRecord(data: SwapData, body: string): { data: SwapData; body: string } {
-  const parsed = swapDataSchema.safeParse(stripHtmlDeep(data));
+  const parsed = swapDataSchema.safeParse(neutraliseDeep(stripHtmlDeep(data)));
   if (!parsed.success) throw new ZodError(parsed.error.issues.map((i) => ({ ...i, path: ['data', ...i.path] })));
   return { data: parsed.data, body: stripHtml(body) };
 }

@@ -59,7 +59,9 @@ describe('Markdown image and link addresses', () => {
   });
 
   it('when an image is one of our stored photos, then it renders at that exact address', () => {
-    const { container } = render(<Markdown>{'![caliper](/media/abcdefghijklmnop) ![thumb](/media/abcdefghijklmnop?size=thumb)'}</Markdown>);
+    const { container } = render(
+      <Markdown>{'![caliper](/media/abcdefghijklmnop) ![thumb](/media/abcdefghijklmnop?size=thumb)'}</Markdown>,
+    );
     expect([...container.querySelectorAll('img')].map((i) => i.getAttribute('src'))).toEqual([
       '/media/abcdefghijklmnop',
       '/media/abcdefghijklmnop?size=thumb',
