@@ -19,6 +19,8 @@ const envSchema = z.object({
   /** per signed-in member and hour: new submissions and sends to review, and photo upload requests */
   SUBMISSION_RATE_LIMIT: z.coerce.number().int().min(1).default(60),
   UPLOAD_RATE_LIMIT: z.coerce.number().int().min(1).default(120),
+  /** shop-link lookups of unknown or retired codes per client address in 15 minutes */
+  LINK_MISS_LIMIT: z.coerce.number().int().min(1).default(30),
   SMTP_URL: z.string().min(1).optional(),
   MAIL_FROM: z.string().default('Swapyard <no-reply@swapyard.invalid>'),
   /** the longest the sender waits for the mail server to connect, greet or answer */
@@ -41,7 +43,7 @@ export type Config = {
   uploadDir: string;
   sessionSecret: string;
   auth: { mode: 'github' | 'fake'; clientId: string; clientSecret: string; rateLimit: number };
-  rateLimits: { submissionsPerHour: number; uploadsPerHour: number };
+  rateLimits: { submissionsPerHour: number; uploadsPerHour: number; linkMissesPer15Min: number };
   smtpUrl?: string;
   mailFrom: string;
   mailDelivery: { timeoutMs: number; maxAttempts: number; retryMs: number };
@@ -88,7 +90,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       clientSecret: mode === 'github' ? e.GITHUB_CLIENT_SECRET! : 'swapyard-local-secret',
       rateLimit: e.AUTH_RATE_LIMIT,
     },
-    rateLimits: { submissionsPerHour: e.SUBMISSION_RATE_LIMIT, uploadsPerHour: e.UPLOAD_RATE_LIMIT },
+    rateLimits: {
+      submissionsPerHour: e.SUBMISSION_RATE_LIMIT,
+      uploadsPerHour: e.UPLOAD_RATE_LIMIT,
+      linkMissesPer15Min: e.LINK_MISS_LIMIT,
+    },
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
     mailDelivery: { timeoutMs: e.SMTP_TIMEOUT_MS, maxAttempts: e.MAIL_MAX_ATTEMPTS, retryMs: e.MAIL_RETRY_MS },

@@ -55,7 +55,8 @@ export type ShopLinkList = { items: ShopLinkItem[]; canManage: boolean };
 
 /** GET /api/l/:code — what the client shows above a pinned sheet */
 export type PinnedSheetView = {
-  link: { code: string; url: string; note: string; createdAt: string };
+  /** `note` is private to the shop: null for everyone but the shop's own accounts */
+  link: { code: string; url: string; note: string | null; createdAt: string };
   shop: ShopView;
   sheet: SwapSheetView;
   newerRevision: NewerRevision | null;

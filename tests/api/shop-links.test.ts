@@ -175,7 +175,8 @@ describe('following a shop link', () => {
     expect(pinned.sheet.revision.status).toBe('superseded');
     expect(pinned.sheet.revision.data.installHours).toBe(6);
     expect(pinned.sheet.currentNumber).toBe(2);
-    expect(pinned.link.note).toBe('Quoted on revision 1');
+    // the note is the shop's own: a customer opening the link does not get it
+    expect(pinned.link.note).toBeNull();
     expect(pinned.shop.name).toBe('Ridgeway Performance');
     expect(pinned.newerRevision).toEqual({ number: 2, summary: 'Changed: torque specs, install time, write-up.' });
 
@@ -268,5 +269,74 @@ describe('QR codes and the shop page', () => {
     expect(ok.status).toBe(200);
     expect(ok.body.shop).toMatchObject({ town: 'Ashcombe Vale', about: 'Brakes and suspension.', name: 'Ridgeway Performance' });
     expect((await request(server).get('/api/shops/no-such-shop')).status).toBe(404);
+  });
+});
+
+describe('shop-link privacy and lookup limits', () => {
+  it('when a customer, another shop or an admin opens a pinned link, then the shop’s note is not in the answer; the shop’s own account sees it', async () => {
+    const code = (await makeLink('ridgeway_shop', 'For J. Doe, quoted 1,240 with fitting')).body.link.code as string;
+    const anonymous = await request(server).get(`/api/l/${code}`);
+    expect(anonymous.status).toBe(200);
+    expect(anonymous.body.link.note).toBeNull();
+    expect(JSON.stringify(anonymous.body)).not.toContain('J. Doe');
+    for (const login of ['lathe_shop', 'ada_admin', 'gauge_mo', 'rivet_rosa']) {
+      const res = await (await as(login)).a.get(`/api/l/${code}`);
+      expect(res.status, login).toBe(200);
+      expect(JSON.stringify(res.body), login).not.toContain('J. Doe');
+    }
+    const own = await (await as('ridgeway_shop')).a.get(`/api/l/${code}`);
+    expect(own.body.link.note).toBe('For J. Doe, quoted 1,240 with fitting');
+    expect(own.headers['cache-control']).toMatch(/private/);
+  });
+
+  it('when one address looks up more unknown link codes than allowed, then it gets 429 on every link route until the window passes', async () => {
+    const limited = await makeTestApp({ LINK_MISS_LIMIT: '5' });
+    const l = listen(limited.app);
+    try {
+      const h31 = addChassis(limited.db);
+      const rosa = addUser(limited.db, 'rivet_rosa');
+      const ridgeway = addShop(limited.db, 'ridgeway-performance', 'Ridgeway Performance');
+      const shopUser = addUser(limited.db, 'ridgeway_shop', 'shop', { shopId: ridgeway.id });
+      const known = addSwap(limited.db, {
+        slug: 'h31-front',
+        chassisId: h31.id,
+        authorId: rosa.id,
+        revisions: [{ status: 'approved' }],
+      });
+      limited.db
+        .insert(shopLinks)
+        .values({
+          code: 'knownone',
+          shopId: ridgeway.id,
+          swapId: known.swapId,
+          revisionId: known.revisionIds[0]!,
+          createdById: shopUser.id,
+          createdAt: new Date(),
+          updatedAt: new Date(),
+        })
+        .run();
+      const visitor = request(l.server);
+      // a hit does not use up the allowance for misses
+      for (let i = 0; i < 8; i++) expect((await visitor.get('/l/knownone')).status).toBe(302);
+      const guesses = ['aaaaaaa', 'aaaaaab', 'aaaaaac', 'aaaaaad', 'aaaaaae'];
+      for (const [i, g] of guesses.entries()) {
+        const res = i % 2 ? await visitor.get(`/api/l/${g}`) : await visitor.get(`/l/${g}`);
+        expect(res.status).toBe(404);
+      }
+      const blocked = await visitor.get('/l/aaaaaaf');
+      expect(blocked.status).toBe(429);
+      expect(blocked.headers['content-type']).toMatch(/text\/html/);
+      expect(blocked.text).toContain('Too many');
+      const api = await visitor.get('/api/l/aaaaaag');
+      expect(api.status).toBe(429);
+      expect(api.body.error.code).toBe('rate_limited');
+      expect((await visitor.get('/api/shop-links/aaaaaah/qr.png')).status).toBe(429);
+      // the known link is held back too, and its count did not move while refused
+      expect((await visitor.get('/l/knownone')).status).toBe(429);
+      expect(limited.db.select().from(shopLinks).where(eq(shopLinks.code, 'knownone')).get()!.visits).toBe(8);
+    } finally {
+      l.server.close();
+      limited.close();
+    }
   });
 });

@@ -35,7 +35,7 @@ describe('shop links and my cars in the browser', () => {
     const panel = page.locator('#shop-link');
     await panel.getByRole('heading', { name: 'Make a shop link' }).waitFor();
     await panel
-      .getByRole('textbox', { name: 'Note to the customer' })
+      .getByRole('textbox', { name: 'Private note' })
       .fill('Fixed price **includes** the 10 mm spacers. <script>bad()</script>Ask for Jo.');
     await panel.getByRole('button', { name: 'Make link' }).click();
     const url = await panel.getByTestId('shop-link-url').innerText();
@@ -65,7 +65,7 @@ describe('shop links and my cars in the browser', () => {
     await page.context().close();
   });
 
-  it('when an anonymous visitor opens /l/:code, then they see the pinned revision under the shop’s banner and note, and the visit counts', async () => {
+  it('when an anonymous visitor opens /l/:code, then they see the pinned revision under the shop’s banner without its private note, and the visit counts', async () => {
     expect(code).not.toBe('');
     const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
@@ -73,13 +73,13 @@ describe('shop links and my cars in the browser', () => {
     page.on('pageerror', (e) => errors.push(e.message));
     await page.goto(`${server.url}/l/${code}`);
     await page.waitForURL(new RegExp(`/swaps/${sheetSlug}/r/2\\?via=${code}$`));
-    const banner = page.getByRole('complementary', { name: 'Note from Ridgeway Performance' });
+    const banner = page.getByRole('complementary', { name: 'Shared by Ridgeway Performance' });
     await banner.waitFor();
     const text = await banner.innerText();
-    expect(text).toContain('Fixed price includes the 10 mm spacers. Ask for Jo.');
-    expect(text).not.toContain('bad()');
+    // the note is the shop's own record: a customer never gets it
+    expect(text).not.toContain('Fixed price');
+    expect(await page.content()).not.toContain('Ask for Jo');
     expect(text).toContain('revision 2');
-    expect(await banner.locator('strong', { hasText: 'includes' }).count()).toBe(1);
     await page.getByRole('heading', { level: 1, name: /Orsino Vela four-piston front calipers/ }).waitFor();
 
     const unknown = await page.goto(`${server.url}/l/zzzzzzz`);
@@ -92,6 +92,12 @@ describe('shop links and my cars in the browser', () => {
     const row = shop.page.locator(`tr[data-link-code="${code}"]`);
     await row.waitFor();
     expect(await row.locator('td').nth(2).innerText()).toMatch(/\b1$/);
+    // the shop's own account sees its note over the pinned sheet, marked as private
+    await shop.page.goto(`${server.url}/l/${code}`);
+    const own = shop.page.getByRole('complementary', { name: 'Shared by Ridgeway Performance' });
+    await own.getByText('Your private note (customers do not see it)').waitFor();
+    expect(await own.innerText()).toContain('Fixed price includes the 10 mm spacers. Ask for Jo.');
+    expect(await own.locator('strong', { hasText: 'includes' }).count()).toBe(1);
     await shop.page.context().close();
   });
 

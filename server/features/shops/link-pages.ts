@@ -52,3 +52,12 @@ export function retiredLinkPage(shopName: string, swap: { slug: string; title: s
 ${more}`,
   );
 }
+
+export function tooManyLookupsPage(message: string) {
+  return page(
+    'Too many lookups',
+    `<h1>Too many unknown links</h1>
+<p>${escapeHtml(message)}</p>
+<p><a class="button" href="/search">Find a swap</a><a class="button quiet" href="/">Swapyard home</a></p>`,
+  );
+}

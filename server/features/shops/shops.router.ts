@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
 import QRCode from 'qrcode';
 import { z } from 'zod';
 import type { AppDeps } from '../../app';
@@ -17,17 +17,47 @@ import {
   updateShopLinkNote,
   visitShopLink,
 } from './shops.service';
-import { retiredLinkPage, unknownLinkPage } from './link-pages';
+import { retiredLinkPage, tooManyLookupsPage, unknownLinkPage } from './link-pages';
+import { perAddressLimit } from '../../middleware/rate-limit';
+import type { Config } from '../../config';
 
 const codeParams = z.object({ code: shopLinkCodeSchema });
 const qrQuery = z.object({ download: z.enum(['0', '1']).default('0') });
 // the ink green on white keeps the contrast scanners need
 const qrColours = { dark: '#1d4d3a', light: '#ffffff' };
 
+/**
+ * Looking up a link code, on any route that takes one (/l/:code, /api/l/:code, the QR images), counts
+ * against the caller's address when the code is unknown or retired: guessing codes is held to a handful
+ * per quarter hour, while following real links is never held back. One limiter per app, so misses on
+ * every route add up.
+ */
+const lookupLimits = new WeakMap<Config, RequestHandler>();
+function linkLookupLimit(config: Config): RequestHandler {
+  let limit = lookupLimits.get(config);
+  if (!limit) {
+    limit = perAddressLimit({
+      limit: config.rateLimits.linkMissesPer15Min,
+      windowMs: 15 * 60 * 1000,
+      what: 'shop-link lookups',
+      message: 'Too many unknown shop-link codes from your address. Check the code and try again in 15 minutes.',
+      countOnlyFailures: true,
+      respond: (req, res, message) => {
+        if (!req.originalUrl.startsWith('/l/')) return false;
+        res.status(429).type('html').send(tooManyLookupsPage(message));
+        return true;
+      },
+    });
+    lookupLimits.set(config, limit);
+  }
+  return limit;
+}
+
 /** Shop pages and shop links under /api. */
 export function shopsRouter({ db, clock, config }: AppDeps) {
   const router = Router();
   const appUrl = config.appUrl;
+  const lookups = linkLookupLimit(config);
 
   router.get(
     '/shops/:slug',
@@ -80,6 +110,7 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
 
   router.get(
     '/shop-links/:code/qr.png',
+    lookups,
     validated({ params: codeParams, query: qrQuery }, async ({ params, query }, _req, res) => {
       const png = await QRCode.toBuffer(shopLinkUrl(db, appUrl, params.code), {
         type: 'png',
@@ -94,6 +125,7 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
 
   router.get(
     '/shop-links/:code/qr.svg',
+    lookups,
     validated({ params: codeParams, query: qrQuery }, async ({ params, query }, _req, res) => {
       const svg = await QRCode.toString(shopLinkUrl(db, appUrl, params.code), {
         type: 'svg',
@@ -107,8 +139,9 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
 
   router.get(
     '/l/:code',
-    validated({ params: codeParams }, ({ params }, _req, res) => {
-      res.set('Cache-Control', 'private, no-cache').json(getPinnedSheet(db, appUrl, params.code));
+    lookups,
+    validated({ params: codeParams }, ({ params }, req, res) => {
+      res.set('Cache-Control', 'private, no-cache').json(getPinnedSheet(db, appUrl, params.code, req.user));
     }),
   );
 
@@ -125,9 +158,9 @@ function qrHeaders(type: string, code: string, ext: string, download: boolean) {
 }
 
 /** GET /l/:code — the short address customers type or scan: counts the visit and redirects to the pinned revision. */
-export function shopLinkRedirectRouter({ db }: AppDeps) {
+export function shopLinkRedirectRouter({ db, config }: AppDeps) {
   const router = Router();
-  router.get('/l/:code', (req, res) => {
+  router.get('/l/:code', linkLookupLimit(config), (req, res) => {
     const parsed = shopLinkCodeSchema.safeParse(req.params.code.toLowerCase());
     const visit = parsed.success ? visitShopLink(db, parsed.data) : ({ kind: 'unknown' } as const);
     res.set('Cache-Control', 'no-store');

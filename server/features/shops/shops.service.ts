@@ -234,13 +234,21 @@ export function shopLinkUrl(db: Db, appUrl: string, code: string) {
   return linkUrl(appUrl, linkByCode(db, code).link.code);
 }
 
-/** For the client: the shop's banner and note over the pinned revision, and whether a newer one exists. */
-export function getPinnedSheet(db: Db, appUrl: string, code: string): PinnedSheetView {
+/**
+ * For the client: the shop's banner over the pinned revision, and whether a newer one exists. The link's
+ * note is the shop's own record (a customer's name, the price quoted): only the shop's accounts get it.
+ */
+export function getPinnedSheet(db: Db, appUrl: string, code: string, viewer: SessionUser | undefined): PinnedSheetView {
   const { link, shop, swap, revision } = linkByCode(db, code);
   if (link.retiredAt)
     throw new AppError('link_retired', `${shop.name} has retired this link. The swap it pointed to is still on Swapyard.`, 410);
   return {
-    link: { code: link.code, url: linkUrl(appUrl, link.code), note: link.note, createdAt: link.createdAt.toISOString() },
+    link: {
+      code: link.code,
+      url: linkUrl(appUrl, link.code),
+      note: actsFor(viewer, link.shopId) ? link.note : null,
+      createdAt: link.createdAt.toISOString(),
+    },
     shop: shopView(shop),
     sheet: getSwapSheet(db, swap.slug, revision.number),
     newerRevision: newerRevisionOf(db, swap, link.revisionId),

@@ -1,11 +1,10 @@
-import { Router, type RequestHandler } from 'express';
+import { Router } from 'express';
 import multer from 'multer';
-import { rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
 import type { AppDeps } from '../../app';
-import { AppError } from '../../lib/app-error';
 import { validated } from '../../middleware/validate';
 import { requirePermission, requireUser } from '../../middleware/require-role';
+import { perUserLimit } from '../../middleware/rate-limit';
 import { idParamSchema, photoIdSchema } from '../../../shared/schemas/params';
 import { createSubmissionSchema, photoOrderSchema, updateSubmissionSchema } from '../../../shared/schemas/submissions';
 import { MAX_PHOTO_BYTES } from '../photos/photo-processing';
@@ -31,32 +30,12 @@ import {
 const idParams = z.object({ id: idParamSchema });
 const photoParams = z.object({ id: idParamSchema, photoId: photoIdSchema });
 
-/** Per signed-in member (the routes behind it all require one), counted over an hour. */
-function perUserLimit(limit: number, what: string): RequestHandler {
-  return rateLimit({
-    windowMs: 60 * 60 * 1000,
-    limit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    keyGenerator: (req) => `user:${req.user!.id}`,
-    handler: (req, _res, next) => {
-      req.log?.warn({ event: 'rate_limited', userId: req.user?.id ?? null, path: req.originalUrl }, `${what} rate limit reached`);
-      next(
-        new AppError(
-          'rate_limited',
-          `Too many ${what} in the last hour. Wait a while and try again; nothing saved was lost.`,
-          429,
-        ),
-      );
-    },
-  });
-}
-
 export function submissionsRouter({ db, clock, mailer, storage, logger, config }: AppDeps) {
   const router = Router();
   const deps: SubmissionDeps = { db, clock, mailer, storage, logger, appUrl: config.appUrl };
-  const submitLimit = perUserLimit(config.rateLimits.submissionsPerHour, 'submissions');
-  const uploadLimit = perUserLimit(config.rateLimits.uploadsPerHour, 'photo uploads');
+  const hour = 60 * 60 * 1000;
+  const submitLimit = perUserLimit({ limit: config.rateLimits.submissionsPerHour, windowMs: hour, what: 'submissions' });
+  const uploadLimit = perUserLimit({ limit: config.rateLimits.uploadsPerHour, windowMs: hour, what: 'photo uploads' });
 
   // memory only, and only on this route: the bytes never touch the disk before they are checked and re-encoded
   const upload = readUpload(

@@ -8,7 +8,7 @@ import { ApiError } from '../../../lib/api-client';
 import { useCreateShopLink } from '../api/shop-links';
 import { QrDownloads } from './qr-downloads';
 
-/** On a swap sheet, for shop accounts: a short link pinned to the swap's current revision, with a note to the customer. */
+/** On a swap sheet, for shop accounts: a short link pinned to the swap's current revision, with a private note for the shop's own records. */
 export function MakeShopLinkPanel({
   swapSlug,
   shownNumber,
@@ -81,12 +81,12 @@ export function MakeShopLinkPanel({
           }}
         >
           <TextArea
-            label="Note to the customer"
+            label="Private note"
             rows={3}
             value={note}
             maxLength={4000}
             onChange={(e) => setNote(e.target.value)}
-            hint="Shown above the sheet. Markdown (**bold**, lists); HTML is removed."
+            hint="For your shop only (customer, quote, price): customers opening the link do not see it. Markdown; HTML is removed."
             error={create.error instanceof ApiError ? create.error.fields.note : undefined}
           />
           <div className="flex flex-wrap items-center gap-3">

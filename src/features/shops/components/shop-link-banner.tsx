@@ -7,12 +7,15 @@ import { qrUrl } from '../api/shop-links';
 const date = (iso: string | null) =>
   iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—';
 
-/** Above a sheet opened through a shop link: who sent it, their note, and whether the record moved on since. */
+/**
+ * Above a sheet opened through a shop link: who sent it and whether the record moved on since. The link's
+ * note is the shop's private record; only the shop's own accounts get it from the server, and see it here.
+ */
 export function ShopLinkBanner({ pinned }: { pinned: PinnedSheetView }) {
   const { shop, link, sheet, newerRevision } = pinned;
   return (
     <aside
-      aria-label={`Note from ${shop.name}`}
+      aria-label={`Shared by ${shop.name}`}
       className="print-break-avoid mb-6 rounded-xl border-2 border-brass bg-paper-card p-4 shadow-sm sm:p-5"
     >
       <div className="flex flex-wrap items-start justify-between gap-4">
@@ -25,7 +28,8 @@ export function ShopLinkBanner({ pinned }: { pinned: PinnedSheetView }) {
             {shop.town && <span className="font-semibold text-graphite-soft"> · {shop.town}</span>}
           </p>
           {link.note && (
-            <div className="mt-2 border-l-4 border-brass-soft pl-3">
+            <div className="no-print mt-2 border-l-4 border-brass-soft pl-3">
+              <p className="text-xs font-bold text-graphite-soft">Your private note (customers do not see it)</p>
               <Markdown>{link.note}</Markdown>
             </div>
           )}

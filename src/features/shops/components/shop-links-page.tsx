@@ -20,7 +20,7 @@ export default function ShopLinksPage() {
     <Page
       title="Shop links"
       heading="Shop links"
-      lead="Each link points a customer at the revision you quoted, with your note on top. Make a new one from any swap sheet."
+      lead="Each link points a customer at the revision you quoted under your shop’s name. Your notes stay private to your shop. Make a new one from any swap sheet."
     >
       {query.isPending ? (
         <Loading label="Loading your links…" />
@@ -123,12 +123,12 @@ function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }
             }}
           >
             <TextArea
-              label="Note to the customer"
+              label="Private note"
               rows={4}
               value={note}
               onChange={(e) => setNote(e.target.value)}
               error={update.error?.message}
-              hint="Markdown; HTML is removed."
+              hint="Only your shop sees it. Markdown; HTML is removed."
             />
             <div className="flex gap-2">
               <Button type="submit" disabled={update.isPending}>
