@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { sqliteTable, text, integer, index, uniqueIndex, type AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
 import { timestamp, timestamps } from './columns';
 import { users } from './users';
@@ -50,6 +51,10 @@ export const revisions = sqliteTable(
   },
   (t) => [
     uniqueIndex('revisions_swap_number_uq').on(t.swapId, t.number),
+    // one open revision (draft, sent back or in review) per member and swap, held by the database itself
+    uniqueIndex('revisions_one_open_per_author_uq')
+      .on(t.swapId, t.authorId)
+      .where(sql.raw(`status in ('draft', 'sent_back', 'in_review')`)),
     index('revisions_status_idx').on(t.status),
     index('revisions_author_idx').on(t.authorId),
   ],

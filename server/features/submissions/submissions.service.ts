@@ -161,6 +161,31 @@ function dropUnusedProposedChassis(tx: Tx, chassisId: number) {
   if (!used) tx.delete(chassis).where(eq(chassis.id, chassisId)).run();
 }
 
+const isUniqueViolation = (err: unknown, columns: string) =>
+  err instanceof Error && err.message.includes(`UNIQUE constraint failed: ${columns}`);
+
+/** The 409 for a member who already has an open revision (draft, sent back or in review) of this swap, if they have one. */
+function openRevisionConflict(db: Db, swapId: number, userId: number): AppError | null {
+  const open = db
+    .select({ id: revisions.id, number: revisions.number, status: revisions.status })
+    .from(revisions)
+    .where(
+      and(
+        eq(revisions.swapId, swapId),
+        eq(revisions.authorId, userId),
+        inArray(revisions.status, ['draft', 'sent_back', 'in_review']),
+      ),
+    )
+    .get();
+  if (!open) return null;
+  return new AppError(
+    'open_revision',
+    `You already have revision ${open.number} of this swap (${open.status.replace('_', ' ')}); continue with that one.`,
+    409,
+    { swapSlug: `Revision ${open.number} (id ${open.id}) is still open.` },
+  );
+}
+
 function viewOf(db: Db, id: number, user: SessionUser): SubmissionView {
   return submissionView(db, loadRevision(db, id)!, user);
 }
@@ -191,27 +216,9 @@ export async function createSubmission(
     const swap = db.select().from(swaps).where(eq(swaps.slug, input.swapSlug)).get();
     if (!swap || swap.currentRevisionId === null) throw AppError.notFound('That swap');
     refuseSwapLevelChanges(swap, input);
-    const open = db
-      .select({ id: revisions.id, number: revisions.number, status: revisions.status })
-      .from(revisions)
-      .where(
-        and(
-          eq(revisions.swapId, swap.id),
-          eq(revisions.authorId, user.id),
-          inArray(revisions.status, ['draft', 'sent_back', 'in_review']),
-        ),
-      )
-      .get();
-    if (open) {
-      throw new AppError(
-        'open_revision',
-        `You already have revision ${open.number} of this swap (${open.status.replace('_', ' ')}); continue with that one.`,
-        409,
-        {
-          swapSlug: `Revision ${open.number} (id ${open.id}) is still open.`,
-        },
-      );
-    }
+    // a quick answer for the common case; the unique index decides when requests race (below)
+    const open = openRevisionConflict(db, swap.id, user.id);
+    if (open) throw open;
     // the correction starts with copies of the current revision's photos, so it can change them without touching the approved one
     const copies = await copyPhotos(deps, swap.currentRevisionId);
     try {
@@ -248,6 +255,8 @@ export async function createSubmission(
         storage,
         copies.map((c) => c.fileId),
       );
+      if (isUniqueViolation(err, 'revisions.swap_id, revisions.author_id'))
+        throw openRevisionConflict(db, swap.id, user.id) ?? err;
       throw err;
     }
   }
