@@ -1,10 +1,10 @@
 import { z } from 'zod';
-import { multiLine, singleLine } from './text';
+import { markdownText, singleLine } from './text';
 import type { SwapCard, SwapSheetView } from './views';
 
 // API contract of shop pages and shop links (a short link pinned to the revision a shop quoted).
 
-const noteField = multiLine().trim().max(4000, 'A note may be at most 4,000 characters');
+const noteField = markdownText().trim().max(4000, 'A note may be at most 4,000 characters');
 
 export const updateShopSchema = z
   .object({
@@ -14,7 +14,7 @@ export const updateShopSchema = z
       .trim()
       .max(200)
       .refine((v) => v === '' || /^https?:\/\/[^\s/]+\.[^\s]+$/i.test(v), 'A web address starting with http:// or https://'),
-    about: multiLine().trim().max(4000, 'At most 4,000 characters'),
+    about: markdownText().trim().max(4000, 'At most 4,000 characters'),
   })
   .partial()
   .refine((v) => Object.values(v).some((x) => x !== undefined), { message: 'Send at least one field to change' });

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { multiLine, singleLine } from './text';
+import { markdownText, multiLine, singleLine } from './text';
 import { axleSchema, categorySchema, type Axle, type Category, type MailStatus, type RevisionStatus } from './enums';
 import { swapDataSchema, type SwapData } from './swap-data';
 import type { PersonRef, PhotoView, ChassisView } from './views';
@@ -34,7 +34,7 @@ export const newChassisSchema = z.object({
 });
 export type NewChassis = z.infer<typeof newChassisSchema>;
 
-const markdownBody = multiLine().max(40_000, 'The write-up may be at most 40,000 characters').default('');
+const markdownBody = markdownText().max(40_000, 'The write-up may be at most 40,000 characters').default('');
 
 /** POST /api/submissions — a new swap (chassis + axle + category) or, with `swapSlug`, a new revision of an approved swap */
 export const createSubmissionSchema = z

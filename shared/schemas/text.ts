@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { MAX_MARKDOWN_DEPTH, markdownNesting } from '../markdown-nesting';
 
 // Text members write is shown to other people: on the desk, in e-mail subjects, on sheets. Bidi controls
 // (embeddings, overrides, isolates, marks) and the other invisible format characters (Unicode category Cf:
@@ -27,6 +28,20 @@ export const singleLine = () => z.string().overwrite(neutraliseSingleLine);
 
 /** A user-written multi-line field (plain text or markdown). */
 export const multiLine = () => z.string().overwrite(neutraliseFormatting);
+
+/**
+ * A user-written markdown field (write-up, shop description, link note): multi-line text whose quotes and
+ * lists nest no deeper than the renderer can take. Chain `.trim().max()` as usual.
+ */
+export const markdownText = () =>
+  multiLine().superRefine((text, ctx) => {
+    const { depth, line } = markdownNesting(text);
+    if (depth > MAX_MARKDOWN_DEPTH)
+      ctx.addIssue({
+        code: 'custom',
+        message: `Quotes and lists are nested too deeply: line ${line} goes ${depth.toLocaleString('en-GB')} levels deep, and at most ${MAX_MARKDOWN_DEPTH} are allowed. Flatten them.`,
+      });
+  });
 
 /** neutraliseFormatting on every string inside a JSON-like value. */
 export function neutraliseDeep<T>(value: T): T {

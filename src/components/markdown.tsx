@@ -1,6 +1,9 @@
+import { Component, createContext, useContext, useEffect, useState, type ReactNode } from 'react';
 import ReactMarkdown, { defaultUrlTransform } from 'react-markdown';
 import remarkGfm from 'remark-gfm';
 import { photoIdPattern } from '@shared/schemas/params';
+import { MAX_MARKDOWN_DEPTH, markdownNesting } from '@shared/markdown-nesting';
+import { parsesWithin } from './markdown-budget';
 
 const allowedSchemes = /^(https?:|mailto:)/i;
 // only a stand-in origin to resolve relative addresses against; never requested
@@ -38,39 +41,109 @@ export function mediaImageSrc(src: unknown): string | null {
   return m && photoIdPattern.test(m[1]) ? src : null;
 }
 
+const proseClass = 'prose prose-neutral max-w-none prose-headings:text-ink prose-a:text-ink prose-table:text-sm';
+
+/** The text as written, when formatting it could hang or crash the page. */
+function PlainText({ text, reason, className }: { text: string; reason: string; className: string }) {
+  return (
+    <div className={className} data-markdown="plain">
+      <p role="note" className="mb-2 text-xs font-bold text-graphite-soft">
+        Shown as written: {reason}
+      </p>
+      <div className="whitespace-pre-wrap break-words text-graphite">{text}</div>
+    </div>
+  );
+}
+
+/** A renderer that throws (a stack overflow on some input nobody foresaw) takes only its own text down. */
+class MarkdownBoundary extends Component<{ text: string; className: string; children: ReactNode }, { failed: boolean }> {
+  state = { failed: false };
+  static getDerivedStateFromError() {
+    return { failed: true };
+  }
+  render() {
+    return this.state.failed ? (
+      <PlainText text={this.props.text} reason="this text could not be formatted." className={this.props.className} />
+    ) : (
+      this.props.children
+    );
+  }
+}
+
+// Text nobody has reviewed yet (the review desk's preview) is parsed in a worker against a time budget
+// before it is formatted here: some inputs take the parser seconds or minutes, and the desk must stay usable.
+const UntrustedText = createContext<number | null>(null);
+
+/** Markdown inside is checked off the page's thread within `budgetMs` before it is formatted. */
+export function UntrustedMarkdown({ budgetMs = 1500, children }: { budgetMs?: number; children: ReactNode }) {
+  return <UntrustedText.Provider value={budgetMs}>{children}</UntrustedText.Provider>;
+}
+
+function useParseVerdict(text: string, budgetMs: number | null): 'ok' | 'checking' | 'too_slow' {
+  const [verdict, setVerdict] = useState<{ text: string; ok: boolean } | null>(null);
+  useEffect(() => {
+    if (budgetMs === null) return;
+    let live = true;
+    void parsesWithin(text, budgetMs).then((ok) => live && setVerdict({ text, ok }));
+    return () => {
+      live = false;
+    };
+  }, [text, budgetMs]);
+  if (budgetMs === null) return 'ok';
+  if (verdict?.text !== text) return 'checking';
+  return verdict.ok ? 'ok' : 'too_slow';
+}
+
 /**
  * The one markdown renderer: the sheet, the form preview, shop notes. GFM tables and task lists;
- * raw HTML is never rendered (react-markdown ignores it without rehype-raw).
+ * raw HTML is never rendered (react-markdown ignores it without rehype-raw). Text nested deeper than
+ * the validation allows (stored before the rule, or typed into a preview) is shown as written without
+ * being parsed, and a renderer failure shows the text instead of taking the page down.
  */
 export function Markdown({ children, className = '' }: { children: string; className?: string }) {
-  return (
-    <div className={`prose prose-neutral max-w-none prose-headings:text-ink prose-a:text-ink prose-table:text-sm ${className}`}>
-      <ReactMarkdown
-        remarkPlugins={[remarkGfm]}
-        skipHtml
-        urlTransform={safeUrl}
-        components={{
-          a: ({ href, children: text }) =>
-            href ? (
-              <a href={href} rel="nofollow noopener noreferrer" target={href.startsWith('/') ? undefined : '_blank'}>
-                {text}
-              </a>
-            ) : (
-              <span>{text}</span>
-            ),
-          // GFM task lists: a read-only box that says its state, since the item text is not its label
-          input: ({ type, checked }) =>
-            type === 'checkbox' ? (
-              <input type="checkbox" checked={Boolean(checked)} disabled readOnly aria-label={checked ? 'Done' : 'Not done'} />
-            ) : null,
-          img: ({ src, alt }) => {
-            const own = mediaImageSrc(src);
-            return own ? <img src={own} alt={alt ?? ''} loading="lazy" /> : <span>{alt}</span>;
-          },
-        }}
-      >
+  const classes = `${proseClass} ${className}`;
+  const budget = useContext(UntrustedText);
+  const tooDeep = markdownNesting(children).depth > MAX_MARKDOWN_DEPTH;
+  const verdict = useParseVerdict(children, tooDeep ? null : budget);
+  if (tooDeep) return <PlainText text={children} reason="its quotes and lists nest too deeply to format." className={classes} />;
+  if (verdict === 'checking')
+    return (
+      <div className={`${classes} whitespace-pre-wrap`} aria-busy="true">
         {children}
-      </ReactMarkdown>
-    </div>
+      </div>
+    );
+  if (verdict === 'too_slow')
+    return <PlainText text={children} reason="formatting this text takes too long." className={classes} />;
+  return (
+    <MarkdownBoundary text={children} className={classes}>
+      <div className={classes}>
+        <ReactMarkdown
+          remarkPlugins={[remarkGfm]}
+          skipHtml
+          urlTransform={safeUrl}
+          components={{
+            a: ({ href, children: text }) =>
+              href ? (
+                <a href={href} rel="nofollow noopener noreferrer" target={href.startsWith('/') ? undefined : '_blank'}>
+                  {text}
+                </a>
+              ) : (
+                <span>{text}</span>
+              ),
+            // GFM task lists: a read-only box that says its state, since the item text is not its label
+            input: ({ type, checked }) =>
+              type === 'checkbox' ? (
+                <input type="checkbox" checked={Boolean(checked)} disabled readOnly aria-label={checked ? 'Done' : 'Not done'} />
+              ) : null,
+            img: ({ src, alt }) => {
+              const own = mediaImageSrc(src);
+              return own ? <img src={own} alt={alt ?? ''} loading="lazy" /> : <span>{alt}</span>;
+            },
+          }}
+        >
+          {children}
+        </ReactMarkdown>
+      </div>
+    </MarkdownBoundary>
   );
 }

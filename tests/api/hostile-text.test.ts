@@ -176,3 +176,53 @@ describe('bidi and invisible formatting characters', () => {
     expect(t.db.select().from(revisions).where(eq(revisions.id, id)).get()!.data.title).toBe(title.replace('\u200F', ''));
   });
 });
+
+describe('deeply nested markdown', () => {
+  const quotes = `Intro line\n${'>'.repeat(39_000)} x`;
+  const lists = `${Array.from({ length: 19_000 }, () => '-').join(' ')} x`;
+
+  it('when a write-up nests 39,000 quotes or 19,000 list markers, then the save is a 400 naming the body and the line, and the draft keeps what it had', async () => {
+    const id = await createDraft(rosa, chassisId, swapRecord());
+    for (const body of [quotes, lists]) {
+      const created = await send(rosa, 'post', '/api/submissions', {
+        chassisId,
+        axle: 'front',
+        category: 'brakes',
+        data: swapRecord(),
+        body,
+      });
+      expect(created.status).toBe(400);
+      expect(created.body.error.fields.body).toMatch(
+        /nested too deeply: line \d+ goes [\d,]+ levels deep, and at most 16 are allowed/,
+      );
+      const saved = await send(rosa, 'patch', `/api/submissions/${id}`, { data: swapRecord(), body });
+      expect(saved.status).toBe(400);
+      expect(saved.body.error.fields.body).toMatch(/nested too deeply/);
+    }
+    expect(quotes.length).toBeLessThan(40_000);
+    expect(t.db.select().from(revisions).where(eq(revisions.id, id)).get()!.body).toBe('');
+  });
+
+  it('when a shop description or link note nests too deeply, then it is a 400 on that field', async () => {
+    const about = await send(shop, 'patch', '/api/shops/ridgeway-performance', { about: '>'.repeat(3000) });
+    expect(about.status).toBe(400);
+    expect(about.body.error.fields.about).toMatch(/nested too deeply/);
+    const swap = addSwap(t.db, { slug: 'h31-deep-note', chassisId, authorId: rosa.id, revisions: [{ status: 'approved' }] });
+    const link = await send(shop, 'post', '/api/shop-links', { swapSlug: swap.slug, note: '- '.repeat(1000) });
+    expect(link.status).toBe(400);
+    expect(link.body.error.fields.note).toMatch(/nested too deeply/);
+  });
+
+  it('when a write-up nests lists and quotes a few levels, then it saves', async () => {
+    const body = '1. Remove the caliper\n   - hang it up\n     - never by the hose\n       > check the hose';
+    const res = await send(rosa, 'post', '/api/submissions', {
+      chassisId,
+      axle: 'front',
+      category: 'brakes',
+      data: swapRecord(),
+      body,
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.body).toBe(body);
+  });
+});

@@ -81,3 +81,19 @@ describe('Markdown image and link addresses', () => {
     expect(safeUrl('/\\elsewhere.example/y')).toBe('https://elsewhere.example/y');
   });
 });
+
+describe('Markdown that nests too deeply', () => {
+  it('when a text holds 39,000 quote markers, then it is shown as written with a note and never parsed', () => {
+    const text = `Before\n${'>'.repeat(39_000)} x`;
+    const { container } = render(<Markdown>{text}</Markdown>);
+    expect(container.querySelector('blockquote')).toBeNull();
+    expect(screen.getByRole('note').textContent).toMatch(/nest too deeply to format/);
+    expect(container.textContent).toContain('Before');
+  });
+
+  it('when a text nests lists a few levels, then it is formatted as usual', () => {
+    const { container } = render(<Markdown>{'- a\n  - b\n    - c'}</Markdown>);
+    expect(container.querySelectorAll('ul')).toHaveLength(3);
+    expect(screen.queryByRole('note')).toBeNull();
+  });
+});

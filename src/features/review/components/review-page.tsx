@@ -6,6 +6,7 @@ import { Page } from '../../../components/ui/page';
 import { Badge } from '../../../components/ui/badge';
 import { ErrorNotice, Loading } from '../../../components/ui/query-state';
 import { RevisionDiff } from '../../../components/revision-diff';
+import { UntrustedMarkdown } from '../../../components/markdown';
 import { chassisLabel } from '../../../components/swap-card';
 import { paths } from '../../../config/paths';
 import { useReviewDetail } from '../api/get-review-detail';
@@ -170,7 +171,8 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
         <h2 id="sheet-h" className="px-4 pt-4 text-xl font-extrabold text-ink sm:px-6">
           The sheet as it will look
         </h2>
-        {sheet(revision)}
+        {/* nobody has reviewed this text yet: it is formatted only if it parses within a time budget */}
+        <UntrustedMarkdown>{sheet(revision)}</UntrustedMarkdown>
       </section>
     </Page>
   );
