@@ -161,7 +161,8 @@ function qrHeaders(type: string, code: string, ext: string, download: boolean) {
 export function shopLinkRedirectRouter({ db, config }: AppDeps) {
   const router = Router();
   router.get('/l/:code', linkLookupLimit(config), (req, res) => {
-    const parsed = shopLinkCodeSchema.safeParse(req.params.code.toLowerCase());
+    const code = String(req.params.code);
+    const parsed = shopLinkCodeSchema.safeParse(code.toLowerCase());
     const visit = parsed.success ? visitShopLink(db, parsed.data) : ({ kind: 'unknown' } as const);
     res.set('Cache-Control', 'no-store');
     if (visit.kind === 'redirect') return res.redirect(302, visit.location);
@@ -169,7 +170,7 @@ export function shopLinkRedirectRouter({ db, config }: AppDeps) {
     res
       .status(404)
       .type('html')
-      .send(unknownLinkPage(req.params.code.slice(0, 40)));
+      .send(unknownLinkPage(code.slice(0, 40)));
   });
   return router;
 }
