@@ -382,5 +382,5 @@ describe('authorization matrix', () => {
     }
     console.log(`authorization matrix: ${routes.length} routes × ${actors.length} visitors = ${checked} calls checked`);
     expect(failures).toEqual([]);
-  }, 300_000);
+  }, 900_000);
 });

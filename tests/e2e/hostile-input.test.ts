@@ -403,10 +403,17 @@ describe('hostile input in a real browser', () => {
     const pinned = await checkPage(context, {
       name: 'pinned sheet via /l/',
       url: `/l/${linkCode}`,
-      texts: ['Our quote:', ...sheetTexts(a)],
+      texts: sheetTexts(a),
     });
     expect(new URL(pinned.page.url()).pathname).toBe(`/swaps/${a.swapSlug}/r/${a.number}`);
     await pinned.page.close();
+    // the link's note is private to the shop, so it renders only for the shop's own account
+    const own = await checkPage(people.ridgeway_shop!.context, {
+      name: 'pinned sheet via /l/ as the shop',
+      url: `/l/${linkCode}`,
+      texts: ['Our quote:', ...sheetTexts(a)],
+    });
+    await own.page.close();
     const found = await checkPage(context, {
       name: 'search results',
       url: `/search?q=${encodeURIComponent('Vela calipers')}`,
