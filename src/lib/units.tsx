@@ -41,6 +41,16 @@ export function useUnits() {
     ...ctx,
     /** a length given in mm, shown in the chosen system */
     length: (mm: number, digits = 1) => (system === 'metric' ? `${round(mm, digits)} mm` : `${round(mmToIn(mm), digits + 2)} in`),
+    /** a length rounded toward `direction` at the shown precision, for figures that must not flatter (a clearance down, a spacer up) */
+    lengthToward: (mm: number, direction: 'down' | 'up', digits = 1) => {
+      const metric = system === 'metric';
+      const places = metric ? digits : digits + 2;
+      const scale = 10 ** places;
+      const shown = metric ? mm : mmToIn(mm);
+      // a hair of slack so a figure that is exactly on a step is not pushed a whole step by floating-point noise
+      const stepped = (direction === 'down' ? Math.floor(shown * scale + 1e-9) : Math.ceil(shown * scale - 1e-9)) / scale;
+      return `${round(stepped, places)} ${metric ? 'mm' : 'in'}`;
+    },
     torque: (nm: number) => (system === 'metric' ? `${round(nm, 0)} N·m` : `${round(nmToLbfFt(nm), 0)} lbf·ft`),
     pressure: (bar: number) => (system === 'metric' ? `${round(bar, 1)} bar` : `${round(barToPsi(bar), 0)} psi`),
     mass: (kg: number) => (system === 'metric' ? `${round(kg, 0)} kg` : `${round(kgToLb(kg), 0)} lb`),

@@ -36,8 +36,9 @@ export function useCalcParams(): CalcParams {
     [setParams],
   );
   return {
-    get: (key) => params.get(key) ?? '',
-    getAll: (key) => params.getAll(key),
+    // reads see the newest state asked for too, so an edit that rewrites a whole list (rows of points) keeps the one before it
+    get: (key) => (pending.current ?? params).get(key) ?? '',
+    getAll: (key) => (pending.current ?? params).getAll(key),
     set: (key, value) =>
       update((next) => {
         if (value === '') next.delete(key);

@@ -12,6 +12,7 @@ import { BrakeBalancePanel } from './brake-balance-panel';
 import { DistributionPanel } from './distribution-panel';
 import { ShimPanel } from './shim-panel';
 import { CostPanel } from './cost-panel';
+import { SectionPanel } from './section-panel';
 
 const panels = [
   { id: 'tyre', label: 'Tyre size' },
@@ -20,6 +21,7 @@ const panels = [
   { id: 'thread', label: 'Thread engagement' },
   { id: 'shims', label: 'Shim stack' },
   { id: 'clearance', label: 'Wheel clearance' },
+  { id: 'section', label: 'Section check' },
   { id: 'brakes', label: 'Brake balance' },
   { id: 'distribution', label: 'Brake distribution' },
   { id: 'costs', label: 'Cost routes' },
@@ -67,6 +69,7 @@ export default function CalculatorsPage() {
         <ThreadPanel params={params} />
         <ShimPanel params={params} />
         <ClearancePanel params={params} />
+        <SectionPanel params={params} />
         <BrakeBalancePanel params={params} />
         <DistributionPanel params={params} />
         <CostPanel params={params} />
