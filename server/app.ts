@@ -15,6 +15,7 @@ import { createPassport } from './auth/passport';
 import { authRateLimit, authRouter } from './auth/auth.router';
 import { fakeAuthorizeRouter, startFakeProvider } from './auth/fake-provider';
 import { refuseCrossSite, requireCsrfToken } from './middleware/csrf';
+import { defaultCacheControl, noCookieOnSharedAnswers } from './middleware/shared-cache';
 import { meRouter } from './features/me/me.router';
 import { adminRouter } from './features/admin/admin.router';
 import { swapsRouter } from './features/swaps/swaps.router';
@@ -56,24 +57,25 @@ export function createApp(deps: AppDeps) {
   app.use(helmet({ contentSecurityPolicy: { directives: contentSecurityPolicy(config) } }));
   app.use(compression());
   app.use(express.json({ limit: '256kb' }));
+  // answers depend on the reader unless a route says otherwise; sign-in pages are never stored
+  app.use('/api', defaultCacheControl('private, no-cache'));
+  app.use('/auth', defaultCacheControl('no-store'));
+  app.use(noCookieOnSharedAnswers);
   app.use('/api', healthRouter());
 
   // --- sessions, sign-in, CSRF ---
   const sessionStore = new SqliteSessionStore(deps.db, deps.clock);
+  const endSessions = (userId: number) => sessionStore.destroyAllFor(userId);
   const withSession = sessionMiddleware({ store: sessionStore, secret: config.sessionSecret, appUrl: config.appUrl });
   const passport = createPassport({ db: deps.db, clock: deps.clock, config });
   app.use(passport.initialize());
   const restoreUser = passport.session();
   const cookieName = sessionCookie(config.appUrl).name;
-  // A read without a session cookie has no session to restore, and most readers never sign in:
-  // skip the session for them, except where one starts (sign-in, and /api/me, which hands out the CSRF token).
-  // Hashed client assets never need one (and must not get a rolling Set-Cookie).
+  // No session for a visitor until sign-in starts one: a request without the cookie has none to
+  // restore, and making one would write a row per anonymous visit. Hashed assets never need one.
   const needsSession = (req: express.Request) =>
     !req.path.startsWith('/assets/') &&
-    (!['GET', 'HEAD'].includes(req.method) ||
-      req.path.startsWith('/auth/') ||
-      req.path === '/api/me' ||
-      Boolean(req.headers.cookie?.includes(`${cookieName}=`)));
+    (req.path.startsWith('/auth/') || Boolean(req.headers.cookie?.includes(`${cookieName}=`)));
   app.use((req, res, next) => (needsSession(req) ? withSession(req, res, () => restoreUser(req, res, next)) : next()));
   app.use(refuseCrossSite);
   app.use('/api', requireCsrfToken);
@@ -82,11 +84,11 @@ export function createApp(deps: AppDeps) {
     startFakeProvider();
     app.use('/auth/fake', fakeAuthorizeRouter({ db: deps.db, config }));
   }
-  app.use('/auth', authRouter({ passport, appUrl: config.appUrl }));
+  app.use('/auth', authRouter({ passport, appUrl: config.appUrl, endSessions }));
 
   // --- feature routers ---
   app.use('/api', meRouter(deps));
-  app.use('/api', adminRouter({ db: deps.db, clock: deps.clock, endSessions: (userId) => sessionStore.destroyAllFor(userId) }));
+  app.use('/api', adminRouter({ db: deps.db, clock: deps.clock, endSessions }));
   app.use('/api', swapsRouter(deps));
   app.use('/api', catalogueRouter(deps));
   app.use('/api', searchIndexRouter(deps));

@@ -5,8 +5,7 @@ import fs from 'node:fs';
 const root = path.resolve(import.meta.dirname, '..');
 
 /** Production: the built files, long-cached when hashed, and index.html for every client route. */
-export function staticClient(): RequestHandler[] {
-  const dist = path.join(root, 'dist');
+export function staticClient(dist = path.join(root, 'dist')): RequestHandler[] {
   const indexFile = path.join(dist, 'index.html');
   if (!fs.existsSync(indexFile)) throw new Error('No built client in dist/. Run `npm run build` first.');
   // re-read when a new build replaces it, so a running server never points at deleted asset files

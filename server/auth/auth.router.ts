@@ -1,6 +1,7 @@
 import { Router, type Request, type Response } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { AppError } from '../lib/app-error';
+import { requireUser } from '../middleware/require-role';
 import { dropCsrfToken, requireCsrfToken } from '../middleware/csrf';
 import type { AppPassport, SignInInfo } from './passport';
 import { sessionCookie } from './session-store';
@@ -48,7 +49,16 @@ export function authRateLimit(limit: number) {
   });
 }
 
-export function authRouter({ passport, appUrl }: { passport: AppPassport; appUrl: string }) {
+export function authRouter({
+  passport,
+  appUrl,
+  endSessions,
+}: {
+  passport: AppPassport;
+  appUrl: string;
+  /** ends every session of a user, this one included; returns how many */
+  endSessions: (userId: number) => number;
+}) {
   const router = Router();
   const cookie = sessionCookie(appUrl);
 
@@ -87,6 +97,18 @@ export function authRouter({ passport, appUrl }: { passport: AppPassport; appUrl
     req.session.destroy((err) => {
       if (err) return next(err);
       req.log?.info({ event: 'sign_out', userId }, 'signed out');
+      res.clearCookie(cookie.name, cookie.options);
+      res.status(204).end();
+    });
+  });
+
+  // a lost phone, a shared computer: every session of this member ends, this one too
+  router.post('/logout/everywhere', requireCsrfToken, requireUser, (req, res, next) => {
+    const userId = req.user!.id;
+    const ended = endSessions(userId);
+    req.session.destroy((err) => {
+      if (err) return next(err);
+      req.log?.info({ event: 'sign_out_everywhere', userId, sessionsEnded: ended }, 'signed out everywhere');
       res.clearCookie(cookie.name, cookie.options);
       res.status(204).end();
     });

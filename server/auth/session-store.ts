@@ -1,5 +1,6 @@
 import session from 'express-session';
-import { and, eq, lt, lte } from 'drizzle-orm';
+import { setImmediate as yieldToEvents } from 'node:timers/promises';
+import { and, eq, inArray, lt, lte, or } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { sessions } from '../db/schema/users';
 import type { Clock } from '../lib/clock';
@@ -17,6 +18,8 @@ export const defaultLifetimes: SessionLifetimes = { idleMs: 14 * day, absoluteMs
 /** Rolling the expiry on every request would mean a write per request; a minute of slack is plenty. */
 const touchSlackMs = 60 * 1000;
 const sweepEveryMs = 60 * 60 * 1000;
+/** rows deleted per statement: each batch is a short write, and other requests run between batches */
+const sweepBatch = 500;
 
 type Row = typeof sessions.$inferSelect;
 
@@ -39,11 +42,8 @@ export class SqliteSessionStore extends session.Store {
   ) {
     super();
     this.timer = setInterval(() => {
-      try {
-        this.sweep();
-      } catch {
-        // a closed database (tests, shutdown) is not worth a crash; the next start sweeps
-      }
+      // a closed database (tests, shutdown) is not worth a crash; the next start sweeps
+      this.sweep().catch(() => undefined);
     }, sweepEveryMs);
     this.timer.unref();
   }
@@ -56,15 +56,21 @@ export class SqliteSessionStore extends session.Store {
     return row.expiresAt > now && row.createdAt + this.lifetimes.absoluteMs > now;
   }
 
-  /** Deletes every ended session; returns how many. */
-  sweep(): number {
-    const now = this.now();
-    const idle = this.db.delete(sessions).where(lte(sessions.expiresAt, now)).run().changes;
-    const old = this.db
-      .delete(sessions)
-      .where(lte(sessions.createdAt, now - this.lifetimes.absoluteMs))
-      .run().changes;
-    return idle + old;
+  /** Deletes every ended session, a small batch at a time, letting other work run in between; returns how many. */
+  async sweep(): Promise<number> {
+    let total = 0;
+    for (;;) {
+      const now = this.now();
+      const ended = this.db
+        .select({ sid: sessions.sid })
+        .from(sessions)
+        .where(or(lte(sessions.expiresAt, now), lte(sessions.createdAt, now - this.lifetimes.absoluteMs)))
+        .limit(sweepBatch);
+      const deleted = this.db.delete(sessions).where(inArray(sessions.sid, ended)).run().changes;
+      total += deleted;
+      if (deleted < sweepBatch) return total;
+      await yieldToEvents();
+    }
   }
 
   override get(sid: string, cb: (err: unknown, session?: session.SessionData | null) => void) {
@@ -138,14 +144,19 @@ export class SqliteSessionStore extends session.Store {
     }
   }
 
-  /** Ends every session of one user (suspension). Returns how many ended. */
+  /** Ends every session of one user (sign out everywhere, suspension, a lowered role). Returns how many ended. */
   destroyAllFor(userId: number): number {
-    return this.db.delete(sessions).where(eq(sessions.userId, userId)).run().changes;
+    return endAllSessions(this.db, userId);
   }
 
   close() {
     clearInterval(this.timer);
   }
+}
+
+/** Ends every session of one user; also for the shell, which has no store. Returns how many ended. */
+export function endAllSessions(db: Db, userId: number): number {
+  return db.delete(sessions).where(eq(sessions.userId, userId)).run().changes;
 }
 
 /** Cookie settings: `__Host-` and Secure behind https (no Domain, Path=/), Lax so the provider's redirect back carries it. */

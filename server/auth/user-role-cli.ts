@@ -3,6 +3,7 @@ import { systemClock } from '../lib/clock';
 import { AppError } from '../lib/app-error';
 import { roleLabels, roleSchema, roles } from '../../shared/roles';
 import { setRoleByLogin } from '../features/admin/admin.service';
+import { endAllSessions } from './session-store';
 
 /** `npm run user:role -- <login> <role>`: sets a role from the shell (the first admin of a deployment). */
 function main(argv: string[]): number {
@@ -20,11 +21,17 @@ function main(argv: string[]): number {
   const db = openDb(file);
   try {
     migrateDb(db);
-    // only suspension ends sessions, and this command never suspends
-    const { user, changed } = setRoleByLogin({ db, clock: systemClock, endSessions: () => 0 }, login, role.data);
+    const { user, changed, sessionsEnded } = setRoleByLogin(
+      { db, clock: systemClock, endSessions: (userId) => endAllSessions(db, userId) },
+      login,
+      role.data,
+    );
+    const ended = sessionsEnded
+      ? ` Their ${sessionsEnded} open session${sessionsEnded === 1 ? ' was' : 's were'} ended; they sign in again.`
+      : ' The change applies on their next request.';
     console.log(
       changed
-        ? `${user.login} (id ${user.id}) is now ${roleLabels[user.role]}. The change applies on their next request.`
+        ? `${user.login} (id ${user.id}) is now ${roleLabels[user.role]}.${ended}`
         : `${user.login} (id ${user.id}) already is ${roleLabels[user.role]}; nothing changed.`,
     );
     return 0;

@@ -24,8 +24,7 @@ const maxBackoffMs = 60 * 60 * 1000;
 /** a second server process may write messages too: look for due ones at least this often */
 const pollMs = 60 * 1000;
 
-export const backoffMs = (retryMs: number, attempts: number) =>
-  Math.min(maxBackoffMs, retryMs * 2 ** Math.max(0, attempts - 1));
+export const backoffMs = (retryMs: number, attempts: number) => Math.min(maxBackoffMs, retryMs * 2 ** Math.max(0, attempts - 1));
 
 /** A 5xx answer is the mail server refusing this message for good; anything else (no connection, timeouts, 4xx) may pass later. */
 const permanent = (err: unknown) => {
@@ -85,7 +84,12 @@ export function createSender({
           nextAttemptAt: new Date(now.getTime() + leaseMs),
         };
         tx.update(mailOutbox)
-          .set({ status: 'sending', attempts: claimed.attempts, messageId: claimed.messageId, nextAttemptAt: claimed.nextAttemptAt })
+          .set({
+            status: 'sending',
+            attempts: claimed.attempts,
+            messageId: claimed.messageId,
+            nextAttemptAt: claimed.nextAttemptAt,
+          })
           .where(eq(mailOutbox.id, row.id))
           .run();
         return claimed;

@@ -13,15 +13,19 @@ const { generateToken, isRequestValid, revokeToken } = csrfSync({
   getTokenFromState: (req) => req.session?.csrfToken,
 });
 
-/** The session's synchroniser token (made on first ask); `/api/me` hands it to the client. */
+/** The session's synchroniser token (made on first ask); `/api/me` hands it to a signed-in client. */
 export const csrfTokenFor = (req: Request): string => generateToken(req);
 
 /** A new session (sign-in) gets a new token: the one seen before sign-in is dropped. */
 export const dropCsrfToken = (req: Request) => revokeToken(req);
 
-/** Every state-changing request carries the session's token in `x-csrf-token`. */
+/**
+ * Every state-changing request made as a signed-in member carries the session's token in `x-csrf-token`.
+ * A request without a signed-in session acts as nobody, so there is nothing to forge: it goes on to
+ * the route's own sign-in check (a 401). Anonymous visitors get no session, hence no token.
+ */
 export const requireCsrfToken: RequestHandler = (req, _res, next) => {
-  if (safeMethods.has(req.method)) return next();
+  if (safeMethods.has(req.method) || !req.user) return next();
   if (req.session && isRequestValid(req)) return next();
   req.log?.warn(
     { event: 'csrf_refused', userId: req.user?.id ?? null, method: req.method, path: req.originalUrl },

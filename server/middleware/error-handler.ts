@@ -61,6 +61,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     }
     if (status >= 500) logger.error({ err, method: req.method, path: req.path }, 'request failed');
     if (res.headersSent) return;
-    res.status(status).json({ error: body });
+    // a refusal or a failure depends on who asked and when: no cache keeps it
+    res.status(status).set('Cache-Control', 'no-store').json({ error: body });
   };
 }

@@ -13,8 +13,8 @@ export type MeUser = {
   units: UnitSystem;
 };
 
-/** `GET /api/me`: the signed-in user (or null) and the session's CSRF token. */
-export type MeResponse = { user: MeUser | null; csrfToken: string };
+/** `GET /api/me`: the signed-in user and the session's CSRF token, or both null for a visitor (who has no session). */
+export type MeResponse = { user: MeUser | null; csrfToken: string | null };
 
 export const updateMeSchema = z
   .object({

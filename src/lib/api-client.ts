@@ -20,9 +20,9 @@ export function rememberCsrfToken(token: string | null) {
   csrfToken = token;
 }
 
-async function fetchCsrfToken(): Promise<string> {
+async function fetchCsrfToken(): Promise<string | null> {
   const res = await fetch('/api/me', { credentials: 'same-origin', headers: { accept: 'application/json' } });
-  const body = (await res.json()) as { csrfToken: string };
+  const body = (await res.json()) as { csrfToken: string | null };
   csrfToken = body.csrfToken;
   return csrfToken;
 }
@@ -60,7 +60,9 @@ export async function api<T>(url: string, { method = 'GET', body, signal, header
     const h: Record<string, string> = { accept: 'application/json', ...headers };
     const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
     if (body !== undefined && !isForm) h['content-type'] = 'application/json';
-    if (unsafe) h['x-csrf-token'] = csrfToken ?? (await fetchCsrfToken());
+    // a visitor has no session and no token; the server answers with a sign-in error instead
+    const token = unsafe ? (csrfToken ?? (await fetchCsrfToken())) : null;
+    if (token) h['x-csrf-token'] = token;
     const res = await fetch(url, {
       method,
       headers: h,
@@ -87,7 +89,8 @@ export function uploadWithProgress<T>(url: string, form: FormData, onProgress: (
       const xhr = new XMLHttpRequest();
       xhr.open('POST', url);
       xhr.setRequestHeader('accept', 'application/json');
-      xhr.setRequestHeader('x-csrf-token', csrfToken ?? (await fetchCsrfToken()));
+      const token = csrfToken ?? (await fetchCsrfToken());
+      if (token) xhr.setRequestHeader('x-csrf-token', token);
       xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
       xhr.onerror = () => reject(new ApiError(0, 'network', 'The upload was interrupted. Check the connection and try again.'));
       xhr.onload = () => {

@@ -130,6 +130,34 @@ describe('changing roles, shops and suspension', () => {
     expect(fields).toEqual(expect.arrayContaining(['role:shop', 'shop:ridgeway-performance', 'role:member', 'shop:null']));
   });
 
+  it('when an admin lowers a role, then every session of that user ends; raising a role keeps them signed in', async () => {
+    addUser(t.db, 'gauge_mo', 'moderator');
+    const laptop = agent();
+    const phone = agent();
+    await signIn(laptop, 'gauge_mo');
+    await signIn(phone, 'gauge_mo');
+    const others = t.db.select().from(sessions).all().length - 2;
+
+    const lowered = await patchUser('gauge_mo', { role: 'member' });
+    expect(lowered.status).toBe(200);
+    expect(lowered.body.sessionsEnded).toBe(2);
+    expect((await laptop.get('/api/me')).body.user).toBeNull();
+    expect((await phone.get('/api/me')).body.user).toBeNull();
+    expect(
+      t.db
+        .select()
+        .from(sessions)
+        .where(eq(sessions.userId, idOf('gauge_mo')))
+        .all(),
+    ).toEqual([]);
+    expect(t.db.select().from(sessions).all()).toHaveLength(others); // nobody else was signed out
+
+    await signIn(laptop, 'gauge_mo');
+    const raised = await patchUser('gauge_mo', { role: 'moderator' });
+    expect(raised.body.sessionsEnded).toBe(0);
+    expect((await laptop.get('/api/me')).body.user).toMatchObject({ login: 'gauge_mo', role: 'moderator' });
+  });
+
   it('when an admin suspends a member, then all the member’s sessions end, sign-in is refused, and restoring lets them back', async () => {
     const one = agent();
     const two = agent();
@@ -202,6 +230,17 @@ describe('npm run user:role', () => {
       .where(eq(userChanges.userId, idOf('camber_kai')))
       .get()!;
     expect(change).toMatchObject({ field: 'role', fromValue: 'member', toValue: 'admin', actorId: null });
+  });
+
+  it('when the shell lowers a role, then the user’s open sessions end', async () => {
+    addUser(t.db, 'lathe_shop', 'shop');
+    const shop = agent();
+    await signIn(shop, 'lathe_shop');
+    expect((await shop.get('/api/me')).body.user.role).toBe('shop');
+    const res = run('lathe_shop', 'member');
+    expect(res.status).toBe(0);
+    expect(res.stdout).toMatch(/lathe_shop .* is now Member\. Their 1 open session was ended/);
+    expect((await shop.get('/api/me')).body.user).toBeNull();
   });
 
   it('when the login or role is unknown, then it says so and exits non-zero', () => {

@@ -206,8 +206,9 @@ describe('sign-out, CSRF and cross-site refusal', () => {
     expect((await a.get('/api/me')).body.user).toMatchObject({ name: 'Kai C.', units: 'imperial' });
   });
 
-  it('when the CSRF token from before sign-in is sent after it, then it is refused (sign-in gives a fresh token)', async () => {
+  it('when the CSRF token of an earlier session is sent after the next sign-in, then it is refused (sign-in gives a fresh token)', async () => {
     const a = agent();
+    await signIn(a, 'camber_kai');
     const before = await csrfToken(a);
     await signIn(a, 'camber_kai');
     const res = await a.patch('/api/me').set('x-csrf-token', before).send({ units: 'metric' });
@@ -241,12 +242,66 @@ describe('sign-out, CSRF and cross-site refusal', () => {
     expect(sameOrigin.status).toBe(200);
   });
 
-  it('when signed out, then PATCH /api/me is 401 (with a token from an anonymous session)', async () => {
+  it('when signed out, then PATCH /api/me is 401 whatever token it carries, and /api/me hands out no token', async () => {
     const a = agent();
-    const token = await csrfToken(a);
-    const res = await a.patch('/api/me').set('x-csrf-token', token).send({ units: 'metric' });
+    expect((await a.get('/api/me')).body).toEqual({ user: null, csrfToken: null });
+    for (const token of [undefined, 'f'.repeat(64)]) {
+      const call = a.patch('/api/me');
+      const res = await (token ? call.set('x-csrf-token', token) : call).send({ units: 'metric' });
+      expect(res.status).toBe(401);
+      expect(res.body.error.code).toBe('unauthorized');
+    }
+  });
+});
+
+describe('no session for visitors', () => {
+  it('when a visitor asks /api/me 200 times, then no session row is written and no cookie is set', async () => {
+    const fresh = await makeTestApp();
+    const s = fresh.app.listen(0);
+    try {
+      for (let i = 0; i < 200; i++) {
+        const res = await request(s).get('/api/me');
+        expect(res.body).toEqual({ user: null, csrfToken: null });
+        expect(res.headers['set-cookie']).toBeUndefined();
+      }
+      const anon = request.agent(s);
+      for (let i = 0; i < 20; i++) await anon.get('/api/me');
+      expect((await anon.post('/api/cars').send({})).status).toBe(401);
+      expect(fresh.db.select().from(sessions).all()).toEqual([]);
+      // starting sign-in is what makes the first row
+      await anon.get('/auth/github');
+      expect(fresh.db.select().from(sessions).all()).toHaveLength(1);
+    } finally {
+      s.close();
+      await fresh.close();
+    }
+  });
+});
+
+describe('sign out everywhere', () => {
+  it('when a member signs out everywhere, then all of their sessions end and other members stay signed in', async () => {
+    const laptop = agent();
+    const phone = agent();
+    const someoneElse = agent();
+    await signIn(laptop, 'rivet_rosa');
+    await signIn(phone, 'rivet_rosa');
+    await signIn(someoneElse, 'camber_kai');
+    const rosaId = t.db.select().from(users).where(eq(users.login, 'rivet_rosa')).get()!.id;
+    const token = await csrfToken(phone);
+
+    expect((await phone.post('/auth/logout/everywhere')).body.error.code).toBe('csrf');
+    const out = await phone.post('/auth/logout/everywhere').set('x-csrf-token', token);
+    expect(out.status).toBe(204);
+    expect(out.headers['cache-control']).toBe('no-store');
+    expect((await laptop.get('/api/me')).body.user).toBeNull();
+    expect((await phone.get('/api/me')).body.user).toBeNull();
+    expect((await someoneElse.get('/api/me')).body.user).toMatchObject({ login: 'camber_kai' });
+    expect(t.db.select().from(sessions).where(eq(sessions.userId, rosaId)).all()).toEqual([]);
+  });
+
+  it('when a visitor asks to sign out everywhere, then it is 401', async () => {
+    const res = await agent().post('/auth/logout/everywhere');
     expect(res.status).toBe(401);
-    expect(res.body.error.code).toBe('unauthorized');
   });
 });
 
@@ -304,11 +359,52 @@ describe('sessions in the database', () => {
       now += 10 * 24 * 60 * 60 * 1000;
       store.set('new', { cookie });
       now += 5 * 24 * 60 * 60 * 1000;
-      expect(store.sweep()).toBe(1);
+      expect(await store.sweep()).toBe(1);
       expect(timed.db.select({ sid: sessions.sid }).from(sessions).all()).toEqual([{ sid: 'new' }]);
       store.close();
     } finally {
       timed.close();
+    }
+  });
+});
+
+describe('the expiry sweep in small batches', () => {
+  it('when thousands of sessions have ended, then the sweep deletes them in batches and lets other work run in between', async () => {
+    const now = Date.now();
+    const timed = await makeTestApp({}, { now: () => new Date(now) });
+    const { SqliteSessionStore } = await import('../../server/auth/session-store');
+    const store = new SqliteSessionStore(timed.db, { now: () => new Date(now) });
+    try {
+      const day = 24 * 60 * 60 * 1000;
+      const insert = timed.db.$client.prepare(
+        'insert into sessions (sid, user_id, data, expires_at, created_at) values (?, null, ?, ?, ?)',
+      );
+      timed.db.$client.transaction(() => {
+        for (let i = 0; i < 6000; i++) insert.run(`idle-${i}`, '{}', now - 1000, now - 20 * day);
+        for (let i = 0; i < 1500; i++) insert.run(`old-${i}`, '{}', now + day, now - 31 * day);
+        for (let i = 0; i < 3; i++) insert.run(`live-${i}`, '{}', now + day, now - day);
+      })();
+      let turns = 0;
+      const ticker = setInterval(() => turns++, 0);
+      let swept: number;
+      try {
+        swept = await store.sweep();
+      } finally {
+        clearInterval(ticker);
+      }
+      expect(swept).toBe(7500);
+      expect(turns).toBeGreaterThan(0); // timers ran while the sweep was still going
+      expect(
+        timed.db
+          .select({ sid: sessions.sid })
+          .from(sessions)
+          .all()
+          .map((r) => r.sid)
+          .sort(),
+      ).toEqual(['live-0', 'live-1', 'live-2']);
+    } finally {
+      store.close();
+      await timed.close();
     }
   });
 });
@@ -318,7 +414,7 @@ describe('behind https', () => {
     const secure = await makeTestApp({ APP_URL: 'https://swapyard.example' });
     const s = secure.app.listen(0);
     try {
-      const res = await request(s).get('/api/me').set('x-forwarded-proto', 'https');
+      const res = await request(s).get('/auth/github').set('x-forwarded-proto', 'https');
       const cookie = sessionCookieOf(res, '__Host-swapyard.sid');
       expect(cookie).toMatch(/Secure/i);
       expect(cookie).toMatch(/Path=\//);

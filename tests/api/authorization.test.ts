@@ -2,6 +2,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import type { Express } from 'express';
 import { makeTestApp, type TestApp } from './support/test-app';
+import { sharedCacheMayStore } from '../../server/middleware/shared-cache';
 import { addShop, addUser, csrfToken, signIn, type Agent } from './support/auth-helpers';
 import { addChassis } from './support/swap-fixtures';
 import { addSwap } from './support/swap-rows';
@@ -65,6 +66,7 @@ const table: Record<string, Row> = {
   'GET /auth/github': publicRoute,
   'GET /auth/github/callback': publicRoute,
   'POST /auth/logout': { all: 'ok' },
+  'POST /auth/logout/everywhere': signedIn(),
   'GET /api/me': publicRoute,
   'PATCH /api/me': signedIn(),
   'GET /api/admin/users': admins,
@@ -285,7 +287,7 @@ async function world() {
     'fitted-reports': { id: report.id },
     media: { id: photo.fileId },
   };
-  return { t, users, params };
+  return { t, users, params, approvedRevisionId: approved.revisionIds[0] };
 }
 
 function fill(route: string, params: Record<string, Record<string, string | number>>) {
@@ -383,4 +385,64 @@ describe('authorization matrix', () => {
     console.log(`authorization matrix: ${routes.length} routes × ${actors.length} visitors = ${checked} calls checked`);
     expect(failures).toEqual([]);
   }, 900_000);
+
+  it('when every public route is fetched signed in, then no answer a shared cache may store sets a cookie or differs from what a visitor gets', async () => {
+    const w = await world();
+    apps.push(w.t);
+    const server = w.t.app.listen(0);
+    try {
+      const visitor = request(server);
+      const readers: Record<string, Agent> = {};
+      for (const actor of ['owner', 'moderator'] as const) {
+        readers[actor] = request.agent(server);
+        await signIn(readers[actor], w.users[actor].login);
+        await csrfToken(readers[actor]); // the session now holds a token and a user, as a browser's does
+      }
+      const publicGets = routesOf(w.t.app).filter((r) => r.startsWith('GET ') && (table[r].anon ?? table[r].all) === 'ok');
+      // the routes the issue named, and a photo of a public revision
+      const approvedPhoto = w.t.db
+        .insert(revisionPhotos)
+        .values({
+          revisionId: w.approvedRevisionId,
+          fileId: 'publicphoto0001',
+          width: 10,
+          height: 10,
+          bytes: 10,
+          sha256: 'y',
+          createdAt: new Date(),
+        })
+        .returning()
+        .get();
+      await w.t.storage.put(approvedPhoto.fileId, Buffer.from('RIFF0000WEBPVP8 '));
+      const urls = [
+        ...publicGets.map((r) => fill(r, w.params)),
+        `/media/${approvedPhoto.fileId}`,
+        `/media/${approvedPhoto.fileId}?size=thumb`,
+      ];
+      expect(urls).toEqual(
+        expect.arrayContaining(['/api/search-index', `/api/swaps/${w.params.default.slug}`, '/api/shop-links/rp-h31vela/qr.png']),
+      );
+
+      const bytesOf = (r: request.Response) => (Buffer.isBuffer(r.body) ? r.body : Buffer.from(r.text ?? ''));
+      const failures: string[] = [];
+      for (const url of urls) {
+        const anon = await visitor.get(url).redirects(0);
+        for (const [actor, agent] of Object.entries(readers)) {
+          const res = await agent.get(url).redirects(0);
+          const cacheControl = String(res.headers['cache-control'] ?? '');
+          const cookie = res.headers['set-cookie'];
+          const shared = sharedCacheMayStore(cacheControl);
+          if (!cacheControl) failures.push(`${url} as ${actor}: no Cache-Control`);
+          if (shared && cookie) failures.push(`${url} as ${actor}: "${cacheControl}" with Set-Cookie`);
+          if (shared && /cookie/i.test(String(res.headers.vary ?? '')))
+            failures.push(`${url} as ${actor}: shared answer varies by cookie`);
+          if (shared && (res.status !== anon.status || !bytesOf(res).equals(bytesOf(anon))))
+            failures.push(`${url} as ${actor}: "${cacheControl}" but not the answer a visitor gets`);
+        }
+      }
+      expect(failures).toEqual([]);
+    } finally {
+      server.close();
+    }
+  }, 60_000);
 });

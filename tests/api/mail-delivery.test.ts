@@ -19,7 +19,10 @@ afterEach(async () => {
 async function world(env: Record<string, string>) {
   const t = await makeTestApp(env);
   const { server, agent } = listen(t.app);
-  cleanup.push(() => t.close(), () => server.close());
+  cleanup.push(
+    () => t.close(),
+    () => server.close(),
+  );
   const c = addChassis(t.db);
   const rosa = await signedInMember(t.db, agent, 'rivet_rosa');
   const mo = await signedInMember(t.db, agent, 'gauge_mo', 'moderator');
@@ -158,7 +161,10 @@ describe('mail delivery through the outbox', () => {
       () => first.close(),
       () => second.close(),
     );
-    first.db.update(mailOutbox).set({ nextAttemptAt: new Date(0) }).run();
+    first.db
+      .update(mailOutbox)
+      .set({ nextAttemptAt: new Date(0) })
+      .run();
     await expect.poll(() => rows(first).filter((r) => r.status === 'sent').length, { timeout: 10_000 }).toBe(8);
     await new Promise((r) => setTimeout(r, 300));
     const ids = smtp.received.map((m) => m.messageId);
@@ -171,7 +177,12 @@ describe('mail delivery through the outbox', () => {
     const { t, rosa, mo, chassisId } = await world({});
     expect((await decide(mo, inReview(t, rosa, chassisId, 'h31-vela-front'))).status).toBe(200);
     expect(rows(t)).toEqual([
-      expect.objectContaining({ status: 'kept', attempts: 0, sentAt: null, messageId: expect.stringMatching(/^<\w+@localhost>$/) }),
+      expect.objectContaining({
+        status: 'kept',
+        attempts: 0,
+        sentAt: null,
+        messageId: expect.stringMatching(/^<\w+@localhost>$/),
+      }),
     ]);
     expect(rows(t)[0].userId).toBe(rosa.id);
     expect(t.db.select().from(mailOutbox).where(eq(mailOutbox.status, 'pending')).all()).toEqual([]);

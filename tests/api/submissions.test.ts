@@ -172,7 +172,7 @@ describe('POST /api/submissions', () => {
     expect(
       (await request(server).post('/api/submissions').send({ chassisId, axle: 'front', category: 'brakes', data: swapRecord() }))
         .status,
-    ).toBe(403);
+    ).toBe(401);
     const noToken = await members.rivet_rosa.agent
       .post('/api/submissions')
       .send({ chassisId, axle: 'front', category: 'brakes', data: swapRecord() });

@@ -35,7 +35,7 @@ describe('sign-in through the fake provider', () => {
     expect(me.user.login).toBe('gauge_mo');
     expect(me.user.role).toBe('moderator');
 
-    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.getByRole('button', { name: 'Sign out', exact: true }).click();
     await expect.poll(() => page.getByRole('link', { name: 'Sign in' }).count()).toBe(1);
     const after = await page.request.get(`${server.url}/api/me`).then((r) => r.json());
     expect(after.user).toBeNull();
@@ -52,5 +52,29 @@ describe('sign-in through the fake provider', () => {
     await page.getByRole('button', { name: /Member\) account menu/ }).click();
     expect(await page.getByRole('navigation', { name: 'Account' }).getByRole('link', { name: 'Review desk' }).count()).toBe(0);
     await page.close();
+  });
+
+  it('when a member signs out everywhere on one device, then their other browser is signed out too', async () => {
+    const signInAs = async (width: number) => {
+      const context = await browser.newContext({ viewport: { width, height: 844 } });
+      const page = await context.newPage();
+      await page.goto(`${server.url}/auth/github?returnTo=/tools`);
+      await page.getByRole('link', { name: /Kai Camber/ }).click();
+      await page.waitForURL(`${server.url}/tools`);
+      return { context, page };
+    };
+    const laptop = await signInAs(1280);
+    const phone = await signInAs(390);
+
+    await phone.page.getByRole('button', { name: /Member\) account menu/ }).click();
+    await phone.page.getByRole('button', { name: /Sign out everywhere/ }).click();
+    await expect.poll(() => phone.page.getByRole('link', { name: 'Sign in' }).count()).toBe(1);
+
+    await laptop.page.reload();
+    await expect.poll(() => laptop.page.getByRole('link', { name: 'Sign in' }).count()).toBe(1);
+    const me = await laptop.page.request.get(`${server.url}/api/me`).then((r) => r.json());
+    expect(me).toEqual({ user: null, csrfToken: null });
+    await laptop.context.close();
+    await phone.context.close();
   });
 });

@@ -5,6 +5,7 @@ import { shops, userChanges, users } from '../../db/schema/users';
 import type { Clock } from '../../lib/clock';
 import { AppError } from '../../lib/app-error';
 import type { AdminShop, AdminUser, AdminUserPatch, UserChange, UserChangeField } from '../../../shared/schemas/admin';
+import { can, permissionsOf, type Role } from '../../../shared/roles';
 
 export type AdminDeps = {
   db: Db;
@@ -14,6 +15,9 @@ export type AdminDeps = {
 };
 
 const listLimit = 200;
+
+/** A role that loses anything the old one could do is a lowering (shop → member, admin → moderator, moderator → shop). */
+export const isLowering = (from: Role, to: Role) => permissionsOf(from).some((p) => !can(to, p));
 
 const userColumns = {
   id: users.id,
@@ -92,8 +96,8 @@ export type UpdateUserInput = {
 
 /**
  * Changes role, shop link and suspension, recording each changed field (who, when, from → to).
- * A shop link belongs to shop accounts only, so leaving the shop role drops it. Suspension
- * ends all the user's sessions at once.
+ * A shop link belongs to shop accounts only, so leaving the shop role drops it. Suspension and a
+ * lowered role end all the user's sessions at once: they sign in again under the new rules.
  */
 export function updateUser({ db, clock, endSessions }: AdminDeps, { actorId, userId, patch }: UpdateUserInput) {
   const now = clock.now();
@@ -131,7 +135,7 @@ export function updateUser({ db, clock, endSessions }: AdminDeps, { actorId, use
       changes.push({ field: 'shop', from: current.shop?.slug ?? null, to: shop?.slug ?? null });
     if (suspended !== current.suspended)
       changes.push({ field: 'suspended', from: String(current.suspended), to: String(suspended) });
-    if (changes.length === 0) return { changed: false, suspendedNow: false };
+    if (changes.length === 0) return { changed: false, endSessions: false };
 
     db.update(users)
       .set({
@@ -145,9 +149,9 @@ export function updateUser({ db, clock, endSessions }: AdminDeps, { actorId, use
     db.insert(userChanges)
       .values(changes.map((c) => ({ userId, actorId, field: c.field, fromValue: c.from, toValue: c.to, at: now })))
       .run();
-    return { changed: true, suspendedNow: suspended && !current.suspended };
+    return { changed: true, endSessions: (suspended && !current.suspended) || isLowering(current.role, role) };
   });
-  const sessionsEnded = result.suspendedNow ? endSessions(userId) : 0;
+  const sessionsEnded = result.endSessions ? endSessions(userId) : 0;
   return { user: getUser(db, userId, actorId), changed: result.changed, sessionsEnded };
 }
 

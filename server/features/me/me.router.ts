@@ -11,7 +11,9 @@ export function meRouter({ db, clock }: { db: Db; clock: Clock }) {
   const router = Router();
 
   router.get('/me', (req, res) => {
-    const body: MeResponse = { user: req.user ? getMe(db, req.user.id) : null, csrfToken: csrfTokenFor(req) };
+    // a visitor gets no token: it would need a session, and a session row per anonymous visit
+    const user = req.user ? getMe(db, req.user.id) : null;
+    const body: MeResponse = { user, csrfToken: user ? csrfTokenFor(req) : null };
     res.set('Cache-Control', 'no-store').json(body);
   });
 

@@ -152,9 +152,18 @@ function SignedInMenu({ user }: { user: MeUser }) {
               type="button"
               className="block w-full rounded-md px-3 py-2 text-left text-sm font-bold text-oxide hover:bg-oxide-soft disabled:opacity-60"
               disabled={signOut.isPending}
-              onClick={() => signOut.mutate()}
+              onClick={() => signOut.mutate('here')}
             >
-              {signOut.isPending ? 'Signing out…' : 'Sign out'}
+              {signOut.isPending && signOut.variables === 'here' ? 'Signing out…' : 'Sign out'}
+            </button>
+            <button
+              type="button"
+              className="block w-full rounded-md px-3 py-2 text-left text-sm font-semibold text-graphite hover:bg-oxide-soft disabled:opacity-60"
+              disabled={signOut.isPending}
+              onClick={() => signOut.mutate('everywhere')}
+            >
+              {signOut.isPending && signOut.variables === 'everywhere' ? 'Signing out everywhere…' : 'Sign out everywhere'}
+              <span className="block text-xs font-normal text-graphite-soft">Ends your sessions on every device</span>
             </button>
             {signOut.error && (
               <p role="alert" className="px-3 pb-2 text-xs font-semibold text-oxide">
