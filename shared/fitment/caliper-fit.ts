@@ -127,7 +127,7 @@ export const PAD_OVERHANG_RULE =
 export const PAD_INNER_RULE =
   'The pad’s inner edge must stay on the friction ring; below the ring’s inner diameter it rides on the hat or vanes';
 export const THICKNESS_RULE = 'Rotor thickness inside the range the caliper is designed for';
-export const CENTRING_RULE = `Caliper centre plane within ${CENTRING_TOLERANCE_MM} mm of the friction ring’s centre plane (common practice, no source)`;
+export const CENTRING_RULE = `Caliper centre plane within ${CENTRING_TOLERANCE_MM} mm of the friction ring’s centre plane`;
 export const FITTING_RULE =
   'Both halves of a brake-line joint must be the same seal (banjo to banjo, inverted flare to inverted flare, bubble flare to bubble flare) and the same thread';
 export const BLEED_RULE =
@@ -135,7 +135,7 @@ export const BLEED_RULE =
 export const SHIM_PLACEMENT =
   'On the axial joint, between the caliper’s mount face and the bracket, so the mounting bolts clamp it along the axle; never under radial-mount ears, which would lift the caliper instead of centring it. The caliper bolts lose that much thread engagement: check them.';
 export const EFFECTIVE_RADIUS_RULE =
-  'Effective radius = middle of the band where the pad touches the friction ring (textbook disc brake form, replacing (D − h)/2)';
+  'Effective radius = middle of the band where the pad touches the friction ring, in place of (D − h)/2';
 
 const fittingNames: Record<LineFittingKind, string> = {
   banjo: 'banjo',
@@ -350,7 +350,7 @@ export function caliperRotorFit(input: CaliperRotorFitInput): CaliperRotorFit {
         estimateMm,
         ratio: fromPadMm / estimateMm,
         rule: EFFECTIVE_RADIUS_RULE,
-        source: 'textbook disc brake torque form (T = 2 μ F r_eff)',
+        source: 'textbook disc brake torque form, T = 2 μ F r_eff',
       };
     }
   }

@@ -113,6 +113,7 @@ export const TOO_LONG_RULE =
 export const SPIGOT_RULE =
   'The hub spigot must still reach into the wheel’s centre bore (spigot length − slip-on spacer thickness > 0) for the wheel to centre on the hub';
 export const CENTRE_BORE_RULE = 'The wheel’s centre bore must be at least the hub spigot’s diameter for the wheel to seat';
+export const NUT_ENGAGEMENT_RULE = 'Thread engagement at least 1.0 × stud diameter in a steel nut (common practice)';
 export const BOLT_ON_NOTE =
   'Wheel bolts into a bolt-on spacer screw into the spacer: its material’s engagement rule applies, and the spacer’s own fasteners to the hub need their own check.';
 
@@ -294,7 +295,12 @@ export function wheelFasteningChain(input: WheelFasteningInput): WheelFastening 
     ok: engagement.ok,
     valueMm: engagement.engagementMm,
     marginMm: engagement.marginMm,
-    rule: engagement.rule,
+    rule:
+      into === 'nut'
+        ? engagement.bottomsOut
+          ? `${NUT_ENGAGEMENT_RULE}; ${BOTTOMING_RULE}`
+          : NUT_ENGAGEMENT_RULE
+        : engagement.rule,
     source: SOURCE.practice,
   });
 

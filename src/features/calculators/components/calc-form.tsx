@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import { useLocation } from 'react-router';
-import { Field, inputClass } from '../../../components/ui/field';
+import { Field, inputClass, Select } from '../../../components/ui/field';
 import { Button } from '../../../components/ui/button';
 import { useUnits } from '../../../lib/units';
 import { panelLink, toCanonical, toDisplay, unitLabel, type CalcParams, type Quantity } from './calc-params';
@@ -205,4 +205,45 @@ export function withSign(value: number, format: (abs: number) => string): string
   const abs = format(Math.abs(value));
   if (abs === format(0)) return abs;
   return `${value > 0 ? '+' : '−'}${abs}`;
+}
+
+type ChoiceFieldProps = {
+  params: CalcParams;
+  name: string;
+  label: ReactNode;
+  options: ReadonlyArray<readonly [value: string, label: string]>;
+  /** the first option's value is kept out of the URL, so links stay short */
+  hint?: ReactNode;
+  error?: string;
+  className?: string;
+};
+
+/** A choice kept in the URL; the first option is the default and is not written. */
+export function ChoiceField({ params, name, label, options, hint, error, className }: ChoiceFieldProps) {
+  const fallback = options[0][0];
+  const stored = params.get(name);
+  const value = options.some(([v]) => v === stored) ? stored : fallback;
+  return (
+    <Select
+      label={label}
+      name={name}
+      hint={hint}
+      error={error}
+      className={className}
+      value={value}
+      onChange={(e) => params.set(name, e.target.value === fallback ? '' : e.target.value)}
+    >
+      {options.map(([v, text]) => (
+        <option key={v} value={v}>
+          {text}
+        </option>
+      ))}
+    </Select>
+  );
+}
+
+/** The value of a choice as the panel reads it (the first option when the URL has none or an unknown one). */
+export function choiceOf<T extends string>(params: CalcParams, name: string, options: ReadonlyArray<readonly [T, string]>): T {
+  const stored = params.get(name);
+  return (options.find(([v]) => v === stored)?.[0] ?? options[0][0]) as T;
 }

@@ -76,10 +76,20 @@ function convertNumber(text: string, quantity: Quantity, system: UnitSystem, toC
 function convert(text: string, quantity: Quantity, system: UnitSystem, list: boolean, toCanonical: boolean): string {
   if (!list) return convertNumber(text, quantity, system, toCanonical);
   if (quantity === 'plain' || system === 'metric') return text;
+  const semicolons = text.includes(';');
   return text
-    .split(',')
+    .split(semicolons ? ';' : ',')
     .map((part) => convertNumber(part, quantity, system, toCanonical).trim())
-    .join(', ');
+    .join(semicolons ? '; ' : ', ');
+}
+
+/** List entries: separated by commas, or by semicolons when the numbers themselves use decimal commas ("0,5; 1,2"). */
+export function splitList(text: string): string[] {
+  const semicolons = text.includes(';');
+  return text
+    .split(semicolons ? /[;\s]+/ : /[,\s]+/)
+    .filter(Boolean)
+    .map((part) => (semicolons ? part.replace(',', '.') : part));
 }
 
 export const toCanonical = (text: string, q: Quantity, s: UnitSystem, list = false) => convert(text, q, s, list, true);
@@ -124,10 +134,12 @@ export class Inputs {
       this.missing.push(label);
       return [];
     }
-    const parts = text.split(/[,;\s]+/).filter(Boolean);
+    const parts = splitList(text);
     const values = parts.map((p) => Number(p));
     const bad = parts.find((_, i) => !Number.isFinite(values[i]));
-    if (bad !== undefined) this.errors[key] = `"${bad}" is not a number; separate sizes with commas, e.g. 40, 44`;
+    if (bad !== undefined)
+      this.errors[key] =
+        `"${bad}" is not a number; separate sizes with commas (40, 44) or, with decimal commas, semicolons (0,5; 1)`;
     return values;
   }
 

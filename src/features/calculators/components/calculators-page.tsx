@@ -13,13 +13,17 @@ import { DistributionPanel } from './distribution-panel';
 import { ShimPanel } from './shim-panel';
 import { CostPanel } from './cost-panel';
 import { SectionPanel } from './section-panel';
+import { CaliperFitPanel } from './caliper-fit-panel';
+import { DrumPanel } from './drum-panel';
 
 const panels = [
   { id: 'tyre', label: 'Tyre size' },
   { id: 'offset', label: 'Offset and spacer' },
   { id: 'bolt-pattern', label: 'Bolt pattern' },
-  { id: 'thread', label: 'Thread engagement' },
+  { id: 'thread', label: 'Wheel fastening' },
   { id: 'shims', label: 'Shim stack' },
+  { id: 'drum', label: 'Drum corner' },
+  { id: 'caliper-fit', label: 'Caliper on rotor' },
   { id: 'clearance', label: 'Wheel clearance' },
   { id: 'section', label: 'Section check' },
   { id: 'brakes', label: 'Brake balance' },
@@ -68,6 +72,8 @@ export default function CalculatorsPage() {
         <BoltPatternPanel params={params} />
         <ThreadPanel params={params} />
         <ShimPanel params={params} />
+        <DrumPanel params={params} />
+        <CaliperFitPanel params={params} />
         <ClearancePanel params={params} />
         <SectionPanel params={params} />
         <BrakeBalancePanel params={params} />
