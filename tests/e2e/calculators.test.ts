@@ -142,7 +142,7 @@ describe('calculators page', () => {
   it('when a bolt is too short for its spacer, then thread engagement fails with its margin and the rule applied', async () => {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     // Common practice, no source: M12×1.5 in steel needs 1.0 × d = 12 mm = 8 turns.
-    const { page, errors } = await openTools(context, '?thread=M12x1.5&bolt=28&clamp=14&tspacer=5#thread');
+    const { page, errors } = await openTools(context, '?thread=M12x1.5&bolt=28&from=seat_end&clamp=14&tspacer=5#thread');
     const thread = page.locator('#thread');
     const topOf = (id: string) => page.evaluate((el) => document.getElementById(el)!.getBoundingClientRect().top, id);
     // The link's anchor lands on its panel, and the jump list moves between panels.
@@ -152,8 +152,10 @@ describe('calculators page', () => {
     await expect.poll(() => topOf('brakes')).toBeLessThan(120);
     expect(await topOf('brakes')).toBeGreaterThanOrEqual(-1);
     expect(new URL(page.url()).searchParams.get('bolt')).toBe('28');
-    const verdict = thread.locator('[data-verdict]');
+    const verdict = thread.locator('[data-check="engagement"] [data-verdict]');
     await expect.poll(() => verdict.getAttribute('data-verdict')).toBe('fail');
+    // the default seats (60° cone bolt, wheel seat the same) match
+    expect(await thread.locator('[data-check="seat"] [data-verdict]').getAttribute('data-verdict')).toBe('pass');
     const text = await verdict.innerText();
     expect(text).toContain('9 mm · 6 turns');
     expect(text).toContain('Margin: −3 mm');
@@ -166,7 +168,129 @@ describe('calculators page', () => {
     expect(await verdict.innerText()).toContain('Margin: +4 mm');
 
     await field(thread, 'Thread').fill('M12');
-    await expect.poll(() => thread.getByRole('alert').innerText()).toContain('is not a metric thread');
+    await expect.poll(() => thread.getByRole('alert').innerText()).toContain('is not a thread like M12x1.5');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+  it('when a unified stud and nut meet a ball-seat wheel, then the seat fails with a caution, and a blind hole shows a bolt bottoming out', async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    // ASME B1.1: 7/16-20 UNF, d = 0.4375 in = 11.1125 mm; common practice, no source: 1.0 × d in a steel nut.
+    // Stud 38 mm − wheel 12 mm = 26 mm past the seat; the open nut's 14 mm of thread limits it: margin 14 − 11.1125 = 2.89 mm.
+    const { page, errors } = await openTools(
+      context,
+      '?thread=7%2F16-20&fast=stud_nut&stud=38&nut=14&clamp=12&wseat=ball&wball=13#thread',
+    );
+    const thread = page.locator('#thread');
+    const check = (id: string) => thread.locator(`[data-check="${id}"] [data-verdict]`);
+    await expect.poll(() => check('seat').getAttribute('data-verdict')).toBe('fail');
+    expect(await check('seat').innerText()).toContain('60° cone fastener in a ball R13 wheel seat');
+    expect(await thread.getByRole('note', { name: 'Safety caution' }).innerText()).toContain('the wheel can come off');
+    expect(await check('engagement').getAttribute('data-verdict')).toBe('pass');
+    expect(await check('engagement').innerText()).toContain('Margin: +2.89 mm');
+    expect(await figure(thread, 'Thread 7/16-20 UNF')).toBe('11.11 mm');
+
+    // The nut gets the wheel's ball seat: the seats match and the caution about seats goes.
+    await thread.getByRole('combobox', { name: 'Seat', exact: true }).selectOption('ball');
+    await field(thread, 'Ball radius').fill('13');
+    await expect.poll(() => check('seat').getAttribute('data-verdict')).toBe('pass');
+    expect(await thread.getByRole('note', { name: 'Safety caution' }).innerText()).not.toContain('the wheel can come off');
+
+    // A ball-seat bolt measured under the head: 45 − 7 (ball seat) − 12 = 26 mm into a 20 mm blind hole → bottoms out.
+    await thread.getByRole('combobox', { name: 'Fastener', exact: true }).selectOption('bolt');
+    await field(thread, 'Bolt length').fill('45');
+    await field(thread, 'Ball seat height').fill('7');
+    await field(thread, 'Hub thread depth').fill('20');
+    await expect.poll(() => check('bottoming').getAttribute('data-verdict')).toBe('fail');
+    expect(await check('bottoming').innerText()).toContain('Margin: −6 mm');
+    expect(await check('engagement').getAttribute('data-verdict')).toBe('fail');
+    expect(await figure(thread, 'Longest bolt before it bottoms')).toBe('39 mm');
+    expect(await thread.getByRole('note', { name: 'Safety caution' }).innerText()).toContain('clamps nothing');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('when a drum corner is entered, then its torque follows the drum form with its brake factor source, in either unit system', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    // Limpert, Brake Design and Safety: T = p × A_wc × C* × r_drum; 20.64 mm, 203.2 mm, C* 2.2, 40 bar → 299.15 N·m
+    const { page, errors } = await openTools(context, '?wcyl=20.64&drum=203.2&cstar=2.2&dbar=40#drum');
+    const drum = page.locator('#drum');
+    await expect.poll(() => figure(drum, 'Brake torque per wheel')).toBe('299 N·m');
+    expect(await drum.locator('[data-brake-factor-source]').innerText()).toContain('your value');
+    // Clearing C* falls back to the typical leading/trailing value and names where it comes from.
+    await field(drum, 'Brake factor C*').fill('');
+    await expect.poll(() => figure(drum, 'Brake torque per wheel')).toBe('272 N·m');
+    expect(await drum.locator('[data-brake-factor-source]').innerText()).toContain('from memory');
+    // NIST SP 811: 271.95 N·m / 1.3558179 = 200.6 lbf·ft; 40 bar = 580.2 psi
+    await page.getByRole('group', { name: 'Units for the calculators' }).getByRole('button', { name: 'Imperial' }).click();
+    await expect.poll(() => figure(drum, 'Brake torque per wheel')).toBe('201 lbf·ft');
+    expect(await field(drum, 'Line pressure').inputValue()).toBe('580.2');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('when a caliper is lifted past the rotor edge, then pad overhang fails, centring gets its shim and a minus sign types on a phone', async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    // Plane geometry: 330/2 − 2 + 4 − 330/2 = +2 mm overhang; ring centre 50 − 14 = 36, caliper 60 − 25.5 = 34.5 → move 1.5 mm inboard.
+    const { page, errors } = await openTools(
+      context,
+      '?cfdes=330&cfstep=2&cfpad=50&cftmin=26&cftmax=30&cfcent=25.5&cflift=4&cfmount=60&cfrotor=330&cfthick=28&cfhat=50&cfring=210&cfshims=0,5%3B%201&cfmoves=inboard&cfportt=M10x1&cflcet=3%2F8-24%20UNF#caliper-fit',
+    );
+    const fit = page.locator('#caliper-fit');
+    const check = (id: string) => fit.locator(`[data-check="${id}"] [data-verdict]`);
+    await expect.poll(() => check('pad-overhang').getAttribute('data-verdict')).toBe('fail');
+    expect(await check('pad-overhang').innerText()).toContain('2 mm past the edge');
+    expect(await fit.locator('[data-caliper-drawing] svg').getAttribute('aria-label')).toContain(
+      'reaches 2 mm past the rotor edge',
+    );
+    // shim sizes typed with decimal commas and a semicolon: 0,5; 1 → the solver's 1 + 0.5 mm stack
+    expect(await check('axial-centring').getAttribute('data-verdict')).toBe('pass');
+    expect(await figure(fit, 'Centring shim')).toBe('1 mm + 0.5 mm');
+    expect(await fit.locator('[data-check="axial-centring"]').innerText()).toContain('common practice, no source');
+    // ISO 724 / ASME B1.1: M10×1 is not 3/8-24 UNF
+    expect(await check('line-caliper-end').getAttribute('data-verdict')).toBe('fail');
+    expect(await fit.getByRole('note', { name: 'Safety caution' }).innerText()).toContain('never force or mix fittings');
+
+    // The radial lift is signed: typed with a minus on a phone keyboard (text input mode), it brings the pad back on.
+    const lift = field(fit, 'Radial lift');
+    expect(await lift.getAttribute('inputmode')).toBe('text');
+    await lift.fill('');
+    await lift.pressSequentially('-3');
+    await expect.poll(() => new URL(page.url()).searchParams.get('cflift')).toBe('-3');
+    await expect.poll(() => check('pad-overhang').getAttribute('data-verdict')).toBe('pass');
+    expect(await check('pad-overhang').innerText()).toContain('5 mm inside the edge');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('when light-truck, van and older tyre codes are entered, then their load and speed are read and an axle load is checked', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const { page, errors } = await openTools(context, '#tyre');
+    const tyre = page.locator('#tyre');
+    const tyreInput = field(tyre, 'Tyre size');
+    // ISO 4000-1 / ETRTO load index table: 123 → 1550 kg, 120 → 1400 kg; speed symbol Q → 160 km/h
+    await tyreInput.fill('LT265/75R16 123/120Q');
+    await expect.poll(() => figure(tyre, 'Load index 123/120')).toBe('1,550 kg / 1,400 kg');
+    expect(await figure(tyre, 'Speed Q')).toBe('160 km/h');
+    // Tire code reference article: no aspect ratio → 82 %; 165 × 0.82 = 135.3 mm
+    await tyreInput.fill('165SR15');
+    await expect.poll(() => figure(tyre, 'Sidewall height')).toBe('135.3 mm');
+    expect(await tyre.innerText()).toContain('82 % assumed');
+    // Flotation: 31 in overall = 787.4 mm
+    await tyreInput.fill('31x10.50R15 LT 109Q');
+    await expect.poll(() => figure(tyre, 'Overall diameter')).toBe('787.4 mm');
+    // X is not in the speed symbol table
+    await tyreInput.fill('225/45R17 94X');
+    await expect.poll(() => tyre.getByRole('alert').innerText()).toContain('"X" is not a speed symbol');
+    // 104 → 900 kg per tyre: two carry 1800 kg, so 1850 kg is 50 kg too much
+    await tyreInput.fill('195/70R15C 104/102R');
+    await field(tyre, 'Axle load').fill('1850');
+    const load = tyre.locator('[data-verdict]', { hasText: 'Axle load on' });
+    await expect.poll(() => load.getAttribute('data-verdict')).toBe('fail');
+    expect(await load.innerText()).toContain('Margin: −50 kg');
+    // twin tyres use the second index: 4 × 850 kg = 3400 kg
+    await tyre.getByRole('combobox', { name: 'Tyres on the axle' }).selectOption('4');
+    await expect.poll(() => load.getAttribute('data-verdict')).toBe('pass');
+    expect(await load.innerText()).toContain('Margin: +1,550 kg');
     expect(errors).toEqual([]);
     await context.close();
   });
