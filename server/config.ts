@@ -19,6 +19,8 @@ const envSchema = z.object({
   /** per signed-in member and hour: new submissions and sends to review, and photo upload requests */
   SUBMISSION_RATE_LIMIT: z.coerce.number().int().min(1).default(60),
   UPLOAD_RATE_LIMIT: z.coerce.number().int().min(1).default(120),
+  /** flags per member and hour */
+  FLAG_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   /** shop-link lookups of unknown or retired codes per client address in 15 minutes */
   LINK_MISS_LIMIT: z.coerce.number().int().min(1).default(30),
   SMTP_URL: z.string().min(1).optional(),
@@ -43,7 +45,7 @@ export type Config = {
   uploadDir: string;
   sessionSecret: string;
   auth: { mode: 'github' | 'fake'; clientId: string; clientSecret: string; rateLimit: number };
-  rateLimits: { submissionsPerHour: number; uploadsPerHour: number; linkMissesPer15Min: number };
+  rateLimits: { submissionsPerHour: number; uploadsPerHour: number; flagsPerHour: number; linkMissesPer15Min: number };
   smtpUrl?: string;
   mailFrom: string;
   mailDelivery: { timeoutMs: number; maxAttempts: number; retryMs: number };
@@ -93,6 +95,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     rateLimits: {
       submissionsPerHour: e.SUBMISSION_RATE_LIMIT,
       uploadsPerHour: e.UPLOAD_RATE_LIMIT,
+      flagsPerHour: e.FLAG_RATE_LIMIT,
       linkMissesPer15Min: e.LINK_MISS_LIMIT,
     },
     smtpUrl: e.SMTP_URL,

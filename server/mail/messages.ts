@@ -88,6 +88,22 @@ export function correctionApproved(m: Base & { slug: string; number: number; cor
   ]);
 }
 
+/** Several flags of one member resolved at once: one message, not one per flag. */
+export function flagsResolved(m: {
+  appUrl: string;
+  name: string;
+  flags: { title: string; slug: string; reason: string }[];
+  note: string;
+}): BuiltMessage {
+  const excerpt = (r: string) => (r.length > 200 ? `${r.slice(0, 200)}…` : r);
+  return build(`Your ${m.flags.length} flags were resolved`, hello(m.name), [
+    { text: `A moderator resolved ${m.flags.length} of your flags together:` },
+    ...m.flags.flatMap((f): Block[] => [{ text: `“${f.title}” — ${m.appUrl}/swaps/${f.slug}` }, { quote: excerpt(f.reason) }]),
+    { text: 'What was done:' },
+    { quote: m.note },
+  ]);
+}
+
 export function flagResolved(m: Base & { slug: string; reason: string; note: string }): BuiltMessage {
   return build(`Your flag was resolved: ${m.title}`, hello(m.name), [
     { text: `You flagged “${m.title}”:` },

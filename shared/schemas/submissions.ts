@@ -126,6 +126,7 @@ export type ReviewQueueItem = {
 };
 export type ReviewQueue = {
   items: ReviewQueueItem[];
+  /** `flags` counts every open flag; the queue carries only their first page */
   counts: { in_review: number; sent_back: number; flags: number };
   flags: FlagItem[];
 };
@@ -167,6 +168,16 @@ export type ReasonTemplate = { id: number; label: string; text: string };
 
 export const flagSchema = z.object({ reason: multiLine().trim().min(5, 'Say what is wrong (at least 5 characters)').max(2000) });
 export const resolveFlagSchema = z.object({ note: multiLine().trim().min(3, 'Say what was done').max(2000) });
+/** POST /api/review/flags/bulk-resolve — all of them or none, with one note */
+export const bulkResolveFlagsSchema = resolveFlagSchema.extend({
+  ids: z.array(z.number().int().positive()).min(1, 'Pick at least one flag').max(100),
+});
+/** GET /api/review/flags?page= */
+export const flagPageQuerySchema = z.object({ page: z.coerce.number().int().min(1).max(100_000).default(1) });
+export const FLAG_PAGE_SIZE = 20;
+export type FlagPage = { items: FlagItem[]; total: number; page: number; pageSize: number };
+/** POST /api/review/flags/bulk-resolve */
+export type BulkResolveResponse = { resolved: number[] };
 
 /** One message of `GET /api/outbox`; `to` and `delivery` are filled for admins only. */
 export type OutboxMessage = {

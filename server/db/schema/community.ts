@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { sqliteTable, text, integer, real, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { timestamp, timestamps } from './columns';
 import { users, shops } from './users';
@@ -50,7 +51,11 @@ export const flags = sqliteTable(
     resolvedAt: timestamp('resolved_at'),
     ...timestamps,
   },
-  (t) => [index('flags_status_idx').on(t.status)],
+  (t) => [
+    index('flags_status_idx').on(t.status),
+    // one open flag per member and swap, held by the database itself
+    uniqueIndex('flags_one_open_per_reporter_uq').on(t.swapId, t.reporterId).where(sql.raw(`status = 'open'`)),
+  ],
 );
 
 export const shopLinks = sqliteTable(

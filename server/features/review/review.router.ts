@@ -3,10 +3,13 @@ import { z } from 'zod';
 import type { AppDeps } from '../../app';
 import { validated } from '../../middleware/validate';
 import { requirePermission } from '../../middleware/require-role';
+import { perUserLimit } from '../../middleware/rate-limit';
 import { idParamSchema, slugSchema } from '../../../shared/schemas/params';
 import {
   bulkDeclineSchema,
+  bulkResolveFlagsSchema,
   decisionNoteSchema,
+  flagPageQuerySchema,
   flagSchema,
   reasonTemplateSchema,
   requiredReasonSchema,
@@ -15,6 +18,8 @@ import {
 import {
   approve,
   bulkDecline,
+  bulkResolveFlags,
+  flagPage,
   createFlag,
   createTemplate,
   deleteTemplate,
@@ -88,6 +93,24 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
     }),
   );
 
+  router.get(
+    '/review/flags',
+    review,
+    validated({ query: flagPageQuerySchema }, ({ query }, _req, res) => {
+      res.set('Cache-Control', 'private, no-store').json(flagPage(db, query.page));
+    }),
+  );
+
+  router.post(
+    '/review/flags/bulk-resolve',
+    review,
+    validated({ body: bulkResolveFlagsSchema }, ({ body }, req, res) => {
+      const resolved = bulkResolveFlags(deps, req.user!, body.ids, body.note);
+      req.log.info({ event: 'flags_resolved', flagIds: resolved, actorId: req.user!.id }, 'flags resolved in bulk');
+      res.json({ resolved });
+    }),
+  );
+
   router.post(
     '/review/flags/:id/resolve',
     review,
@@ -134,6 +157,7 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
   router.post(
     '/swaps/:slug/flags',
     requirePermission('flag'),
+    perUserLimit({ limit: config.rateLimits.flagsPerHour, windowMs: 60 * 60 * 1000, what: 'flags' }),
     validated({ params: z.object({ slug: slugSchema }), body: flagSchema }, ({ params, body }, req, res) => {
       const flag = createFlag(deps, req.user!, params.slug, body.reason);
       req.log.info({ event: 'flag_created', flagId: flag.id, userId: req.user!.id }, 'swap flagged');

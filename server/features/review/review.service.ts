@@ -1,4 +1,4 @@
-import { and, asc, eq, lt, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq, inArray, lt, sql, type SQL } from 'drizzle-orm';
 import type { Db, DbTransaction } from '../../db/client';
 import { chassis, flags, parts, reviewEvents, reviewReasonTemplates, revisions, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
@@ -6,13 +6,16 @@ import { stripHtml } from '../../lib/sanitize';
 import {
   correctionApproved,
   flagResolved,
+  flagsResolved,
   submissionApproved,
   submissionDeclined,
   submissionSentBack,
 } from '../../mail/messages';
 import type { SessionUser } from '../../middleware/require-role';
+import { FLAG_PAGE_SIZE } from '../../../shared/schemas/submissions';
 import type {
   FlagItem,
+  FlagPage,
   ReasonTemplate,
   ReviewDetail,
   ReviewQueue,
@@ -74,11 +77,11 @@ export function reviewQueue(deps: ReviewDeps, filters: QueueFilters): ReviewQueu
       .from(revisions)
       .where(eq(revisions.status, status))
       .get()!.n;
-  const openFlags = listFlags(db, 'open');
+  const openFlags = flagPage(db, 1);
   return {
     items,
-    counts: { in_review: count('in_review'), sent_back: count('sent_back'), flags: openFlags.length },
-    flags: openFlags,
+    counts: { in_review: count('in_review'), sent_back: count('sent_back'), flags: openFlags.total },
+    flags: openFlags.items,
   };
 }
 
@@ -370,8 +373,8 @@ export function deleteTemplate(db: Db, id: number) {
 
 // --- flags ---
 
-function listFlags(db: Db | Tx, status: 'open' | 'resolved', id?: number): FlagItem[] {
-  return db
+function flagItems(db: Db | Tx, where: SQL, page?: { limit: number; offset: number }): FlagItem[] {
+  const query = db
     .select({
       flag: flags,
       slug: swaps.slug,
@@ -382,19 +385,32 @@ function listFlags(db: Db | Tx, status: 'open' | 'resolved', id?: number): FlagI
     .innerJoin(swaps, eq(swaps.id, flags.swapId))
     .leftJoin(revisions, eq(revisions.id, swaps.currentRevisionId))
     .innerJoin(users, eq(users.id, flags.reporterId))
-    .where(id === undefined ? eq(flags.status, status) : eq(flags.id, id))
+    .where(where)
     .orderBy(asc(flags.createdAt), asc(flags.id))
-    .all()
-    .map((r) => ({
-      id: r.flag.id,
-      swapSlug: r.slug,
-      title: r.title ?? r.slug,
-      reason: r.flag.reason,
-      reporter: personRef(r.reporter),
-      status: r.flag.status,
-      createdAt: r.flag.createdAt.toISOString(),
-      resolutionNote: r.flag.resolutionNote,
-    }));
+    .$dynamic();
+  return (page ? query.limit(page.limit).offset(page.offset) : query).all().map((r) => ({
+    id: r.flag.id,
+    swapSlug: r.slug,
+    title: r.title ?? r.slug,
+    reason: r.flag.reason,
+    reporter: personRef(r.reporter),
+    status: r.flag.status,
+    createdAt: r.flag.createdAt.toISOString(),
+    resolutionNote: r.flag.resolutionNote,
+  }));
+}
+
+const flagById = (db: Db | Tx, id: number) => flagItems(db, eq(flags.id, id))[0];
+
+/** GET /api/review/flags: open flags a page at a time, oldest first, with how many are open. */
+export function flagPage(db: Db, page: number): FlagPage {
+  const total = db
+    .select({ n: sql<number>`count(*)` })
+    .from(flags)
+    .where(eq(flags.status, 'open'))
+    .get()!.n;
+  const items = flagItems(db, eq(flags.status, 'open'), { limit: FLAG_PAGE_SIZE, offset: (page - 1) * FLAG_PAGE_SIZE });
+  return { items, total, page, pageSize: FLAG_PAGE_SIZE };
 }
 
 /** Any signed-in member may flag a public swap. */
@@ -408,12 +424,25 @@ export function createFlag(deps: ReviewDeps, user: SessionUser, slug: string, re
       reason: 'Say what is wrong (at least 5 characters).',
     });
   const now = clock.now();
-  const id = db
-    .insert(flags)
-    .values({ swapId: swap.id, reporterId: user.id, reason: clean, createdAt: now, updatedAt: now })
-    .returning({ id: flags.id })
-    .get().id;
-  return listFlags(db, 'open', id)[0];
+  let id: number;
+  try {
+    id = db
+      .insert(flags)
+      .values({ swapId: swap.id, reporterId: user.id, reason: clean, createdAt: now, updatedAt: now })
+      .returning({ id: flags.id })
+      .get().id;
+  } catch (err) {
+    // one open flag per member and swap: the partial unique index decides
+    if (err instanceof Error && err.message.includes('UNIQUE constraint failed: flags.swap_id, flags.reporter_id'))
+      throw new AppError(
+        'open_flag',
+        'You have already flagged this swap and a moderator has not resolved it yet; they will read what you wrote.',
+        409,
+        { reason: 'You already flagged this swap.' },
+      );
+    throw err;
+  }
+  return flagById(db, id);
 }
 
 export function resolveFlag(deps: ReviewDeps, actor: SessionUser, id: number, note: string): FlagItem {
@@ -430,7 +459,7 @@ export function resolveFlag(deps: ReviewDeps, actor: SessionUser, id: number, no
       .where(and(eq(flags.id, id), eq(flags.status, 'open')))
       .run().changes;
     if (!changed) throw AppError.conflict('This flag was already resolved.');
-    const item = listFlags(tx, 'resolved', id)[0];
+    const item = flagById(tx, id);
     const reporter = tx.select().from(users).where(eq(users.id, flag.reporterId)).get();
     if (reporter) {
       deps.mailer.queue(
@@ -447,5 +476,63 @@ export function resolveFlag(deps: ReviewDeps, actor: SessionUser, id: number, no
       );
     }
     return item;
+  });
+}
+
+/**
+ * Several flags resolved with one note, all of them or none. Each reporter gets one message for all of
+ * their flags in the batch, so a flood resolved in one go does not become a flood of e-mail.
+ */
+export function bulkResolveFlags(deps: ReviewDeps, actor: SessionUser, ids: number[], note: string): number[] {
+  const { db, clock } = deps;
+  const clean = stripHtml(note).trim();
+  if (clean.length < 3) throw AppError.invalid('Say what was done.', { note: 'Say what was done.' });
+  const unique = [...new Set(ids)];
+  const now = clock.now();
+  return db.transaction((tx) => {
+    const rows = unique.map((id) => tx.select().from(flags).where(eq(flags.id, id)).get());
+    const fields: Record<string, string> = {};
+    rows.forEach((row, i) => {
+      if (!row) fields[`ids.${i}`] = `Flag ${unique[i]} was not found.`;
+      else if (row.status !== 'open') fields[`ids.${i}`] = `Flag ${unique[i]} is already resolved.`;
+    });
+    if (Object.keys(fields).length)
+      throw new AppError('not_resolvable', 'Some of these flags cannot be resolved; nothing was changed.', 409, fields);
+    tx.update(flags)
+      .set({ status: 'resolved', resolutionNote: clean, resolvedById: actor.id, resolvedAt: now, updatedAt: now })
+      .where(and(inArray(flags.id, unique), eq(flags.status, 'open')))
+      .run();
+    const byReporter = new Map<number, FlagItem[]>();
+    for (const id of unique) {
+      const item = flagById(tx, id);
+      const reporterId = rows.find((r) => r?.id === id)!.reporterId;
+      byReporter.set(reporterId, [...(byReporter.get(reporterId) ?? []), item]);
+    }
+    for (const [reporterId, items] of byReporter) {
+      const reporter = tx.select().from(users).where(eq(users.id, reporterId)).get();
+      if (!reporter) continue;
+      const name = reporter.name || reporter.login;
+      const [first] = items;
+      deps.mailer.queue(
+        tx,
+        reporter,
+        items.length === 1
+          ? flagResolved({
+              appUrl: deps.appUrl,
+              name,
+              title: first!.title,
+              slug: first!.swapSlug,
+              reason: first!.reason,
+              note: clean,
+            })
+          : flagsResolved({
+              appUrl: deps.appUrl,
+              name,
+              flags: items.map((f) => ({ title: f.title, slug: f.swapSlug, reason: f.reason })),
+              note: clean,
+            }),
+      );
+    }
+    return unique;
   });
 }

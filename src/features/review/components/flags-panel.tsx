@@ -6,7 +6,8 @@ import { Button } from '../../../components/ui/button';
 import { TextArea } from '../../../components/ui/field';
 import { ApiError } from '../../../lib/api-client';
 import { paths } from '../../../config/paths';
-import { useResolveFlag } from '../api/resolve-flag';
+import { useBulkResolveFlags, useResolveFlag } from '../api/resolve-flag';
+import { useFlags } from '../api/get-flags';
 
 const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 
@@ -41,33 +42,145 @@ function ResolveForm({ flag }: { flag: FlagItem }) {
   );
 }
 
-/** Flags members raised on published swaps, each resolved with a note to the reporter. */
-export function FlagsPanel({ flags }: { flags: FlagItem[] }) {
-  const open = flags.filter((f) => f.status === 'open');
+/** Several flags resolved with one note; each reporter gets one message for all of theirs. */
+function BulkResolve({ ids, onDone }: { ids: number[]; onDone: () => void }) {
+  const [note, setNote] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const resolve = useBulkResolveFlags();
+  const send = async (e: React.FormEvent) => {
+    e.preventDefault();
+    const parsed = resolveFlagSchema.safeParse({ note });
+    if (!parsed.success) return setError(parsed.error.issues[0]?.message ?? 'Say what was done');
+    setError(null);
+    try {
+      await resolve.mutateAsync({ ids, note: parsed.data.note });
+      setNote('');
+      onDone();
+    } catch (err) {
+      setError(err instanceof ApiError ? (err.fields.note ?? err.message) : 'That did not work. Try again.');
+    }
+  };
+  return (
+    <form
+      onSubmit={(e) => void send(e)}
+      noValidate
+      aria-label="Resolve the selected flags"
+      className="mb-4 space-y-2 rounded-xl border border-ink/25 bg-ink-faint/40 p-4"
+    >
+      <p className="text-sm font-bold text-ink" aria-live="polite">
+        {ids.length} selected
+      </p>
+      <TextArea
+        label="What was done (each reporter reads this, once for all their flags)"
+        rows={2}
+        value={note}
+        onChange={(e) => setNote(e.target.value)}
+        error={error ?? undefined}
+      />
+      <Button type="submit" disabled={resolve.isPending}>
+        {resolve.isPending ? 'Resolving…' : `Resolve ${ids.length} flag${ids.length === 1 ? '' : 's'}`}
+      </Button>
+    </form>
+  );
+}
+
+/** Flags members raised on published swaps, a page at a time; each resolved with a note to the reporter, or several at once. */
+export function FlagsPanel() {
+  const [page, setPage] = useState(1);
+  const [selected, setSelected] = useState<Set<number>>(new Set());
+  const query = useFlags(page);
+  const data = query.data;
+  const open = data?.items ?? [];
+  const total = data?.total ?? 0;
+  const pages = data ? Math.max(1, Math.ceil(total / data.pageSize)) : 1;
+  const first = data ? (data.page - 1) * data.pageSize + 1 : 0;
+  const toggle = (id: number) =>
+    setSelected((s) => {
+      const next = new Set(s);
+      if (next.has(id)) next.delete(id);
+      else next.add(id);
+      return next;
+    });
+  const allOnPage = open.length > 0 && open.every((f) => selected.has(f.id));
+  const go = (p: number) => {
+    setSelected(new Set());
+    setPage(p);
+  };
   return (
     <section id="flags" aria-labelledby="flags-h" className="mt-10 scroll-mt-20">
       <h2 id="flags-h" className="mb-3 text-xl font-extrabold text-ink">
-        Open flags <span className="tabular text-graphite-soft">({open.length})</span>
+        Open flags <span className="tabular text-graphite-soft">({total})</span>
       </h2>
-      {open.length === 0 ? (
-        <p className="text-graphite-soft">No open flags.</p>
+      {query.isError ? (
+        <p className="text-oxide">The flags did not load. Reload the page to try again.</p>
+      ) : open.length === 0 && total > 0 && page > 1 ? (
+        <p className="text-graphite-soft">
+          This page is empty now.{' '}
+          <button type="button" className="font-bold text-ink underline" onClick={() => go(pages)}>
+            Go to page {pages}
+          </button>
+        </p>
+      ) : open.length === 0 ? (
+        <p className="text-graphite-soft">{query.isPending ? 'Loading the flags…' : 'No open flags.'}</p>
       ) : (
-        <ul className="grid gap-4 md:grid-cols-2">
-          {open.map((f) => (
-            <li key={f.id} className="rounded-xl border border-brass/40 bg-paper-card p-4">
-              <p className="text-sm text-graphite-soft">
-                {date(f.createdAt)} · flagged by {f.reporter.name}
-              </p>
-              <h3 className="mt-1 font-extrabold text-ink">
-                <Link to={paths.swap(f.swapSlug)} className="underline decoration-brass underline-offset-2">
-                  {f.title}
-                </Link>
-              </h3>
-              <p className="mt-2 whitespace-pre-wrap text-graphite">{f.reason}</p>
-              <ResolveForm flag={f} />
-            </li>
-          ))}
-        </ul>
+        <>
+          <div className="mb-3 flex flex-wrap items-center justify-between gap-3">
+            <label className="flex items-center gap-2 text-sm font-bold text-graphite">
+              <input
+                type="checkbox"
+                className="h-4 w-4 accent-ink"
+                checked={allOnPage}
+                onChange={() => setSelected(allOnPage ? new Set() : new Set(open.map((f) => f.id)))}
+              />
+              Select every flag on this page
+            </label>
+            <p className="tabular text-sm text-graphite-soft">
+              Flags {first}–{first + open.length - 1} of {total}
+            </p>
+          </div>
+          {selected.size > 0 && <BulkResolve ids={[...selected]} onDone={() => setSelected(new Set())} />}
+          <ul className="grid gap-4 md:grid-cols-2">
+            {open.map((f) => (
+              <li key={f.id} className="rounded-xl border border-brass/40 bg-paper-card p-4">
+                <div className="flex items-start justify-between gap-3">
+                  <p className="text-sm text-graphite-soft">
+                    {date(f.createdAt)} · flagged by {f.reporter.name}
+                  </p>
+                  <label className="flex items-center gap-1 text-sm text-graphite">
+                    <input
+                      type="checkbox"
+                      className="h-4 w-4 accent-ink"
+                      checked={selected.has(f.id)}
+                      onChange={() => toggle(f.id)}
+                      aria-label={`Select the flag on “${f.title}” by ${f.reporter.name}`}
+                    />
+                    Select
+                  </label>
+                </div>
+                <h3 className="mt-1 font-extrabold text-ink">
+                  <Link to={paths.swap(f.swapSlug)} className="underline decoration-brass underline-offset-2">
+                    {f.title}
+                  </Link>
+                </h3>
+                <p className="mt-2 line-clamp-6 whitespace-pre-wrap break-words text-graphite">{f.reason}</p>
+                <ResolveForm flag={f} />
+              </li>
+            ))}
+          </ul>
+          {pages > 1 && (
+            <nav aria-label="Pages of flags" className="mt-4 flex items-center justify-center gap-3">
+              <Button variant="secondary" disabled={page <= 1} onClick={() => go(page - 1)}>
+                Previous page
+              </Button>
+              <span className="tabular text-sm text-graphite">
+                Page {page} of {pages}
+              </span>
+              <Button variant="secondary" disabled={page >= pages} onClick={() => go(page + 1)}>
+                Next page
+              </Button>
+            </nav>
+          )}
+        </>
       )}
     </section>
   );

@@ -253,7 +253,7 @@ export default function ReviewDeskPage() {
         </>
       )}
 
-      <FlagsPanel flags={queue.data?.flags ?? []} />
+      <FlagsPanel />
     </Page>
   );
 }
