@@ -32,6 +32,28 @@ export const fittedReports = sqliteTable(
 );
 export type FittedWheel = { diameterIn: number; widthIn: number; offsetMm: number; spacerMm: number };
 
+/**
+ * A moderator's decision to hide a member's fitted reports on a swap. It outlives the report: a member
+ * who deletes a hidden report and writes a new one gets it hidden too, until a moderator lifts this.
+ */
+export const reportHides = sqliteTable(
+  'report_hides',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    swapId: integer('swap_id')
+      .notNull()
+      .references(() => swaps.id, { onDelete: 'cascade' }),
+    userId: integer('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    hiddenById: integer('hidden_by_id').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at').notNull(),
+    liftedAt: timestamp('lifted_at'),
+    liftedById: integer('lifted_by_id').references(() => users.id, { onDelete: 'set null' }),
+  },
+  (t) => [uniqueIndex('report_hides_active_uq').on(t.swapId, t.userId).where(sql.raw('lifted_at is null'))],
+);
+
 export const flags = sqliteTable(
   'flags',
   {

@@ -1,6 +1,6 @@
 import { and, count, desc, eq, inArray, isNull } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { fittedReports, revisions, swaps, users, type FittedWheel } from '../../db/schema/index';
+import { fittedReports, reportHides, revisions, swaps, users, type FittedWheel } from '../../db/schema/index';
 import type { Storage } from '../../storage/disk-storage';
 import { newFileId } from '../../storage/disk-storage';
 import type { Clock } from '../../lib/clock';
@@ -149,6 +149,8 @@ export async function createFittedReport(
     .get();
   if (existing) throw AppError.conflict('You have already reported fitting this swap. Edit your report instead.');
 
+  // a moderator's hide of this member's reports on this swap outlives a deleted report
+  const hide = activeHide(db, swap.id, viewer.id);
   // the photo is checked and stored before the row, so a bad photo loses nothing and a row never points at a missing file
   const photoFileId = await storePhoto(storage, upload);
   const now = clock.now();
@@ -162,6 +164,8 @@ export async function createFittedReport(
           wheel: { diameterIn: input.diameterIn, widthIn: input.widthIn, offsetMm: input.offsetMm, spacerMm: input.spacerMm },
           note: cleanNote(input.note),
           photoFileId,
+          hiddenAt: hide ? hide.createdAt : null,
+          hiddenById: hide ? hide.hiddenById : null,
           createdAt: now,
           updatedAt: now,
         })
@@ -231,13 +235,36 @@ export async function deleteFittedReport({ db, storage }: Deps, slug: string, vi
   await removePhotoFiles(storage, report.photoFileId);
 }
 
-/** A moderator hides an abusive report (or shows it again); the count follows. */
+function activeHide(db: Db, swapId: number, userId: number) {
+  return db
+    .select()
+    .from(reportHides)
+    .where(and(eq(reportHides.swapId, swapId), eq(reportHides.userId, userId), isNull(reportHides.liftedAt)))
+    .get();
+}
+
+/**
+ * A moderator hides an abusive report, or lifts the hide; the count follows. Hiding is recorded against
+ * the member and the swap (report_hides), so it also covers any report they write there later.
+ */
 export function setFittedReportHidden({ db, clock }: Deps, id: number, moderator: SessionUser, hidden: boolean) {
   const report = db.select().from(fittedReports).where(eq(fittedReports.id, id)).get();
   if (!report) throw AppError.notFound('That fitted report');
+  const now = clock.now();
   db.transaction((tx) => {
+    const active = activeHide(tx as unknown as Db, report.swapId, report.userId);
+    if (hidden && !active)
+      tx.insert(reportHides)
+        .values({ swapId: report.swapId, userId: report.userId, hiddenById: moderator.id, createdAt: now })
+        .run();
+    if (!hidden && active)
+      tx.update(reportHides).set({ liftedAt: now, liftedById: moderator.id }).where(eq(reportHides.id, active.id)).run();
     tx.update(fittedReports)
-      .set(hidden ? { hiddenAt: clock.now(), hiddenById: moderator.id } : { hiddenAt: null, hiddenById: null })
+      .set(
+        hidden
+          ? { hiddenAt: active?.createdAt ?? now, hiddenById: active?.hiddenById ?? moderator.id }
+          : { hiddenAt: null, hiddenById: null },
+      )
       .where(eq(fittedReports.id, id))
       .run();
     recount(tx as unknown as Db, report.swapId);
