@@ -71,10 +71,18 @@ export function submissionSentBack(m: Base & { revisionId: number; reasons: stri
   ]);
 }
 
-export function submissionDeclined(m: Base & { reasons: string }): BuiltMessage {
+/** `removed`: the submission proposed a new chassis, and it was removed with that chassis. */
+export function submissionDeclined(m: Base & { reasons: string; removed?: boolean }): BuiltMessage {
   return build(`Declined: ${m.title}`, hello(m.name), [
     { text: `A moderator declined “${m.title}”, for this reason:` },
     { quote: m.reasons },
+    ...(m.removed
+      ? [
+          {
+            text: 'It proposed a new chassis, so the submission and the proposed chassis were removed; this message is the record of it. You can start again on a chassis from the catalogue.',
+          },
+        ]
+      : []),
     { link: `${m.appUrl}/me/submissions`, label: 'Your submissions' },
   ]);
 }

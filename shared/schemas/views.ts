@@ -83,7 +83,8 @@ export type SwapCard = {
   thumbUrl: string | null;
 };
 
-export type ChassisPageView = { chassis: ChassisView; swaps: SwapCard[] };
+/** `proposed`: proposed with a submission and not approved yet (only its author and reviewers see it) */
+export type ChassisPageView = { chassis: ChassisView; proposed: boolean; swaps: SwapCard[] };
 
 export type PartView = {
   id: number;

@@ -12,8 +12,11 @@ export function catalogueRouter({ db }: AppDeps) {
   });
   router.get(
     '/chassis/:slug',
-    validated({ params: z.object({ slug: slugSchema }) }, ({ params }, _req, res) => {
-      res.json(getChassisPage(db, params.slug));
+    validated({ params: z.object({ slug: slugSchema }) }, ({ params }, req, res) => {
+      const page = getChassisPage(db, params.slug, req.user);
+      // a proposed chassis is answered only to its author and reviewers: never from a shared cache
+      if (page.proposed) res.set('Cache-Control', 'private, no-store');
+      res.json(page);
     }),
   );
   router.get(

@@ -4,6 +4,8 @@ import { chassis, parts, revisions, swaps } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
 import type { ChassisPageView, PartPageView, ChassisView } from '../../../shared/schemas/views';
 import { chassisView, swapCards } from '../swaps/swap-views';
+import type { SessionUser } from '../../middleware/require-role';
+import { canSeeUnpublishedRevision } from '../../../shared/roles';
 
 export function listChassis(db: Db): ChassisView[] {
   return db
@@ -15,11 +17,28 @@ export function listChassis(db: Db): ChassisView[] {
     .map(chassisView);
 }
 
-export function getChassisPage(db: Db, slug: string): ChassisPageView {
+/**
+ * A chassis proposed with a submission is not in the catalogue until an approval publishes it: until then
+ * its author may open it, and reviewers may once a submission on it has been sent to review (a chassis in a
+ * never-submitted draft is as private as the draft). Everyone else gets the same 404 as for no chassis.
+ */
+function maySeeProposed(db: Db, chassisId: number, viewer: SessionUser | undefined): boolean {
+  if (!viewer) return false;
+  const onIt = db
+    .select({ authorId: revisions.authorId, status: revisions.status })
+    .from(revisions)
+    .innerJoin(swaps, eq(swaps.id, revisions.swapId))
+    .where(eq(swaps.chassisId, chassisId))
+    .all();
+  return onIt.some((r) => canSeeUnpublishedRevision(viewer, r));
+}
+
+export function getChassisPage(db: Db, slug: string, viewer: SessionUser | undefined): ChassisPageView {
   const row = db.select().from(chassis).where(eq(chassis.slug, slug)).get();
-  if (!row) throw AppError.notFound('That chassis');
+  if (!row || (row.proposed && !maySeeProposed(db, row.id, viewer))) throw AppError.notFound('That chassis');
   return {
     chassis: chassisView(row),
+    proposed: row.proposed,
     swaps: swapCards(db, and(eq(swaps.chassisId, row.id), isNotNull(swaps.currentRevisionId))),
   };
 }

@@ -86,8 +86,8 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
   router.post(
     '/review/bulk-decline',
     review,
-    validated({ body: bulkDeclineSchema }, ({ body }, req, res) => {
-      const declined = bulkDecline(deps, req.user!, body.revisionIds, body.note);
+    validated({ body: bulkDeclineSchema }, async ({ body }, req, res) => {
+      const declined = await bulkDecline(deps, req.user!, body.revisionIds, body.note);
       for (const id of declined) logDecision(req, id, 'declined');
       res.json({ declined });
     }),
@@ -146,8 +146,8 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
     router.post(
       `/review/:revisionId/${path}`,
       review,
-      validated({ params: revisionParams, body: requiredReasonSchema }, ({ params, body }, req, res) => {
-        const revision = sendBackOrDecline(deps, req.user!, params.revisionId, action, body.note);
+      validated({ params: revisionParams, body: requiredReasonSchema }, async ({ params, body }, req, res) => {
+        const revision = await sendBackOrDecline(deps, req.user!, params.revisionId, action, body.note);
         logDecision(req, params.revisionId, action);
         res.json({ revision });
       }),

@@ -25,7 +25,7 @@ import type {
 import type { SwapData, SwapPart } from '../../../shared/schemas/swap-data';
 import { iso, personRef } from '../swaps/swap-views';
 import { checksFor, loadRevision, photoCounts, submissionView, type LoadedRevision } from '../submissions/submission-views';
-import { slugify, uniqueSlug, type SubmissionDeps } from '../submissions/submissions.service';
+import { removeFiles, removeRevision, slugify, uniqueSlug, type SubmissionDeps } from '../submissions/submissions.service';
 
 export type ReviewDeps = SubmissionDeps;
 export type Decision = 'approved' | 'sent_back' | 'declined';
@@ -269,33 +269,57 @@ function refuse(tx: Tx, actor: SessionUser, revisionId: number, action: 'sent_ba
   tx.insert(reviewEvents).values({ revisionId, actorId: actor.id, action, note, at: now }).run();
 }
 
-function tellRefused(deps: ReviewDeps, tx: Tx, row: LoadedRevision, action: 'sent_back' | 'declined', reasons: string) {
+function tellRefused(
+  deps: ReviewDeps,
+  tx: Tx,
+  row: LoadedRevision,
+  action: 'sent_back' | 'declined',
+  reasons: string,
+  removed = false,
+) {
   const { author } = row;
   const base = { appUrl: deps.appUrl, name: author.name || author.login, title: row.revision.data.title, reasons };
   deps.mailer.queue(
     tx,
     author,
-    action === 'sent_back' ? submissionSentBack({ ...base, revisionId: row.revision.id }) : submissionDeclined(base),
+    action === 'sent_back'
+      ? submissionSentBack({ ...base, revisionId: row.revision.id })
+      : submissionDeclined({ ...base, removed }),
   );
 }
 
+/**
+ * A declined new swap on a chassis it proposed is removed with that chassis: a proposed chassis is never
+ * public, and once its submission is declined nothing keeps it. Returns the photo files to remove after
+ * the commit, or null when the revision stays (as every other declined revision does, with its history).
+ */
+function removeIfDeclinedProposal(tx: Tx, row: LoadedRevision): string[] | null {
+  if (row.swap.currentRevisionId !== null || !row.chassis.proposed) return null;
+  return removeRevision(tx, row);
+}
+
 /** Send back (changes requested) or decline; both need the reason the member will read. */
-export function sendBackOrDecline(
+export async function sendBackOrDecline(
   deps: ReviewDeps,
   actor: SessionUser,
   revisionId: number,
   action: 'sent_back' | 'declined',
   note: string,
-): SubmissionView {
+): Promise<SubmissionView> {
   const { db, clock } = deps;
   const row = reviewable(db, revisionId);
   assertDecidable(actor, row);
   const reasons = requireReason(note);
-  db.transaction((tx) => {
+  const { view, files } = db.transaction((tx) => {
     refuse(tx, actor, revisionId, action, reasons, clock.now());
-    tellRefused(deps, tx, row, action, reasons);
+    // the answer describes the revision as decided, even when it is removed below
+    const decided = submissionView(tx as unknown as Db, loadRevision(tx as unknown as Db, revisionId)!, actor);
+    const removed = action === 'declined' ? removeIfDeclinedProposal(tx, row) : null;
+    tellRefused(deps, tx, row, action, reasons, removed !== null);
+    return { view: decided, files: removed ?? [] };
   });
-  return submissionView(db, loadRevision(db, revisionId)!, actor);
+  await removeFiles(deps.storage, files);
+  return view;
 }
 
 function requireReason(note: string): string {
@@ -306,7 +330,7 @@ function requireReason(note: string): string {
 }
 
 /** Several obvious spam submissions declined at once with one reason: all of them or none. */
-export function bulkDecline(deps: ReviewDeps, actor: SessionUser, revisionIds: number[], note: string): number[] {
+export async function bulkDecline(deps: ReviewDeps, actor: SessionUser, revisionIds: number[], note: string): Promise<number[]> {
   const { db, clock } = deps;
   const ids = [...new Set(revisionIds)];
   const reasons = requireReason(note);
@@ -322,12 +346,15 @@ export function bulkDecline(deps: ReviewDeps, actor: SessionUser, revisionIds: n
   if (Object.keys(fields).length)
     throw new AppError('not_decidable', 'Some of these revisions cannot be declined; nothing was changed.', 409, fields);
   const now = clock.now();
-  db.transaction((tx) => {
-    for (const [i, id] of ids.entries()) {
+  const files = db.transaction((tx) =>
+    ids.flatMap((id, i) => {
       refuse(tx, actor, id, 'declined', reasons, now);
-      tellRefused(deps, tx, rows[i]!, 'declined', reasons);
-    }
-  });
+      const removed = removeIfDeclinedProposal(tx, rows[i]!);
+      tellRefused(deps, tx, rows[i]!, 'declined', reasons, removed !== null);
+      return removed ?? [];
+    }),
+  );
+  await removeFiles(deps.storage, files);
   return ids;
 }
 

@@ -21,7 +21,7 @@ import type {
   UpdateSubmission,
 } from '../../../shared/schemas/submissions';
 import { thumbId } from '../photos/photo-files';
-import { assertEditable, loadRevision, revisionFor, submissionView, type SwapRow } from './submission-views';
+import { assertEditable, loadRevision, revisionFor, submissionView, type LoadedRevision, type SwapRow } from './submission-views';
 
 export type SubmissionDeps = { db: Db; clock: Clock; mailer: Mailer; storage: Storage; logger: Logger; appUrl: string };
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
@@ -387,27 +387,38 @@ export async function deleteSubmission(deps: SubmissionDeps, user: SessionUser, 
   if (row.revision.status !== 'draft') {
     throw AppError.conflict('Only a draft that was never sent to review can be deleted; this revision keeps its review history.');
   }
-  const files = db.select({ fileId: revisionPhotos.fileId }).from(revisionPhotos).where(eq(revisionPhotos.revisionId, id)).all();
-  db.transaction((tx) => {
-    tx.delete(revisions).where(eq(revisions.id, id)).run();
-    const others = tx
-      .select({ n: sql<number>`count(*)` })
-      .from(revisions)
-      .where(eq(revisions.swapId, row.swap.id))
-      .get()!.n;
-    if (others === 0 && row.swap.currentRevisionId === null) {
-      tx.delete(swaps).where(eq(swaps.id, row.swap.id)).run();
-      dropUnusedProposedChassis(tx, row.swap.chassisId);
-    }
-  });
+  const files = db.transaction((tx) => removeRevision(tx, row));
   // files go after the rows, so no row ever points at a missing file
-  await removeFiles(
-    storage,
-    files.map((f) => f.fileId),
-  );
+  await removeFiles(storage, files);
 }
 
-async function removeFiles(storage: Storage, fileIds: string[]) {
+/**
+ * Removes one revision that was never approved; when it was a new swap's only revision, the swap and the
+ * chassis it proposed go too (a proposed chassis lives only as long as the submission that proposed it).
+ * Returns the photo files to remove once the transaction has committed.
+ */
+export function removeRevision(tx: Tx, row: Pick<LoadedRevision, 'revision' | 'swap'>): string[] {
+  const files = tx
+    .select({ fileId: revisionPhotos.fileId })
+    .from(revisionPhotos)
+    .where(eq(revisionPhotos.revisionId, row.revision.id))
+    .all()
+    .map((f) => f.fileId);
+  tx.delete(revisions).where(eq(revisions.id, row.revision.id)).run();
+  const others = tx
+    .select({ n: sql<number>`count(*)` })
+    .from(revisions)
+    .where(eq(revisions.swapId, row.swap.id))
+    .get()!.n;
+  if (others === 0 && row.swap.currentRevisionId === null) {
+    tx.delete(swaps).where(eq(swaps.id, row.swap.id)).run();
+    dropUnusedProposedChassis(tx, row.swap.chassisId);
+  }
+  return files;
+}
+
+/** Removes stored photos (full size and thumbnail); a file already gone is no error. */
+export async function removeFiles(storage: Storage, fileIds: string[]) {
   for (const id of fileIds) {
     await storage.remove(id).catch(() => undefined);
     await storage.remove(thumbId(id)).catch(() => undefined);

@@ -32,7 +32,7 @@ export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) 
         <ErrorNotice error={query.error} />
       </Page>
     );
-  const { chassis: c, swaps } = query.data;
+  const { chassis: c, swaps, proposed } = query.data;
   const corner = (k: 'front' | 'rear') => c.stockBrakes[k];
   return (
     <Page
@@ -45,6 +45,13 @@ export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) 
         </ButtonLink>
       }
     >
+      {proposed && (
+        <p role="note" className="mb-6 rounded-lg border border-brass bg-brass-soft/40 p-3 text-sm text-graphite">
+          <strong className="text-brass-deep">Proposed, not in the catalogue yet.</strong> This chassis was proposed with a
+          submission. Only its author and the review desk can open this page, until a moderator approves the submission; if the
+          submission is declined, the chassis is removed.
+        </p>
+      )}
       <section aria-labelledby="hub-h" className="grid gap-4 md:grid-cols-3">
         <h2 id="hub-h" className="sr-only">
           Hub and stock specs
