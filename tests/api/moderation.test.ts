@@ -47,7 +47,8 @@ const report = (m: Member, slug: string, note = 'Fits with 3 mm to spare') =>
     .field('offsetMm', '38')
     .field('note', note)
     .attach('photo', png, { filename: 'wheel.png', contentType: 'image/png' });
-const publicList = async (slug: string) => (await request(server).get(`/api/swaps/${slug}/fitted-reports`)).body as FittedReportsView;
+const publicList = async (slug: string) =>
+  (await request(server).get(`/api/swaps/${slug}/fitted-reports`)).body as FittedReportsView;
 
 describe('hiding a fitted report', () => {
   it('when the member deletes a hidden report and reports again, then the new report is hidden too and its photo is not public', async () => {
@@ -58,8 +59,16 @@ describe('hiding a fitted report', () => {
     expect((await mo.agent.post(`/api/fitted-reports/${id}/hide`).set('x-csrf-token', mo.token)).status).toBe(200);
     expect((await publicList(swap.slug)).count).toBe(0);
 
-    expect((await kai.agent.delete(`/api/swaps/${swap.slug}/fitted-reports/mine`).set('x-csrf-token', kai.token)).status).toBe(204);
-    expect(t.db.select().from(reportHides).all().filter((h) => h.swapId === swap.swapId && h.liftedAt === null)).toHaveLength(1);
+    expect((await kai.agent.delete(`/api/swaps/${swap.slug}/fitted-reports/mine`).set('x-csrf-token', kai.token)).status).toBe(
+      204,
+    );
+    expect(
+      t.db
+        .select()
+        .from(reportHides)
+        .all()
+        .filter((h) => h.swapId === swap.swapId && h.liftedAt === null),
+    ).toHaveLength(1);
 
     const again = await report(kai, swap.slug, 'Same abuse, new report');
     expect(again.status).toBe(201);
@@ -83,7 +92,11 @@ describe('hiding a fitted report', () => {
     const lifted = await mo.agent.post(`/api/fitted-reports/${id}/unhide`).set('x-csrf-token', mo.token);
     expect(lifted.status).toBe(200);
     expect((await publicList(swap.slug)).count).toBe(1);
-    const records = t.db.select().from(reportHides).all().filter((h) => h.swapId === swap.swapId);
+    const records = t.db
+      .select()
+      .from(reportHides)
+      .all()
+      .filter((h) => h.swapId === swap.swapId);
     expect(records).toHaveLength(1);
     expect(records[0]!.hiddenById).toBe(mo.id);
     expect(records[0]!.liftedById).toBe(mo.id);

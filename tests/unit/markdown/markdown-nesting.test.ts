@@ -41,7 +41,24 @@ describe('markdown nesting estimate', () => {
   });
 
   it('when random container prefixes, indentation and fences are mixed, then the estimate is never below the real depth', () => {
-    const piece = fc.constantFrom('>', '> ', '- ', '* ', '+ ', '1. ', '22) ', '[^n]: ', ' ', '  ', '   ', '\t', '-', 'x', '```', '~~~~');
+    const piece = fc.constantFrom(
+      '>',
+      '> ',
+      '- ',
+      '* ',
+      '+ ',
+      '1. ',
+      '22) ',
+      '[^n]: ',
+      ' ',
+      '  ',
+      '   ',
+      '\t',
+      '-',
+      'x',
+      '```',
+      '~~~~',
+    );
     const line = fc.array(piece, { maxLength: 10 }).map((p) => p.join(''));
     const doc = fc.array(line, { minLength: 1, maxLength: 25 }).map((l) => l.join('\n'));
     fc.assert(
