@@ -1,6 +1,6 @@
 import { queryOptions } from '@tanstack/react-query';
 import type { SearchIndexResponse } from '@shared/search/search-document';
-import type { SearchRequest } from '@shared/search/search-engine';
+import type { SearchRequest } from '@shared/search/search-types';
 import type { SearchClient } from '../worker/search-client';
 
 export const searchKeys = {

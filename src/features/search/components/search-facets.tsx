@@ -5,7 +5,7 @@ import {
   type FilterKey,
   type SearchFacets,
   type SearchFilters,
-} from '@shared/search/search-engine';
+} from '@shared/search/search-types';
 import { ChassisCombobox, type ChassisOption } from '../../../components/chassis-combobox';
 import { formatMoney } from '../../../lib/money';
 

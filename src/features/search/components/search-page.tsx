@@ -1,7 +1,7 @@
 import { useEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import { useNavigationType, useSearchParams } from 'react-router';
 import { categoryLabels, machiningLevelLabels, type Category, type MachiningLevel } from '@shared/schemas/enums';
-import type { FilterKey, SearchFilters, SearchResponse, SearchSort } from '@shared/search/search-engine';
+import type { FilterKey, SearchFilters, SearchResponse, SearchSort } from '@shared/search/search-types';
 import { Page } from '../../../components/ui/page';
 import { Button } from '../../../components/ui/button';
 import { Caution } from '../../../components/caution';

@@ -5,7 +5,7 @@ import {
   type FilterKey,
   type SearchFilters,
   type SearchSort,
-} from '@shared/search/search-engine';
+} from '@shared/search/search-types';
 
 // The whole search lives in the address: ?q=&make=&model=&chassis=&axle=&category=&wheel=&machining=&pb=&cost=&sort=&page=
 

@@ -1,5 +1,5 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
-import type { SearchRequest } from '@shared/search/search-engine';
+import type { SearchRequest } from '@shared/search/search-types';
 import { searchIndexQueryOptions, searchKeys } from '../api/get-search-index';
 import { searchClient } from '../worker/search-client';
 

@@ -1,4 +1,4 @@
-import type { SearchRequest, SearchResponse } from '@shared/search/search-engine';
+import type { SearchRequest, SearchResponse } from '@shared/search/search-types';
 import type { FromWorker, IndexInfo, ToWorker } from './search-protocol';
 
 export type SearchClient = { load(): Promise<IndexInfo>; query(request: SearchRequest): Promise<SearchResponse> };

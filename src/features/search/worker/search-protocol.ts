@@ -1,4 +1,4 @@
-import type { SearchRequest, SearchResponse } from '@shared/search/search-engine';
+import type { SearchRequest, SearchResponse } from '@shared/search/search-types';
 import type { SearchDocument } from '@shared/search/search-document';
 
 export type ChassisOption = SearchDocument['chassis'];
