@@ -18,6 +18,9 @@ type Group = FilterKey;
 const G = groups.length;
 const SEP = '\u0000';
 
+/** Rim diameters of passenger cars, offered by "fits my wheel" whether or not a swap names them (common practice, no source). */
+export const usualWheelSizes = [13, 14, 15, 16, 17, 18, 19, 20, 21, 22] as const;
+
 type Codes = { values: string[]; code: Map<string, number>; byDoc: Uint32Array };
 
 function seeded(order: readonly string[] = []): Codes {
@@ -60,7 +63,7 @@ export class FacetIndex {
     chassis: seeded(),
     axle: seeded(axles),
     category: seeded(categories),
-    wheel: seeded(),
+    wheel: seeded(usualWheelSizes.map(String)),
     machining: seeded(machiningLevels),
     parkingBrake: seeded(['yes', 'no']),
     cost: seeded(costBuckets.map((b) => b.value)),

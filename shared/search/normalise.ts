@@ -53,3 +53,16 @@ export function parseQuery(query: string): string[][] {
     .map(chunkPieces)
     .filter((pieces) => pieces.length > 0);
 }
+
+// groups of capitals and digits joined by dashes, dots or slashes: OV-355-101-R, H40.615.057/L
+const partNumberLike = /(?<![\p{L}\p{N}])[A-Z0-9]+(?:[-./][A-Z0-9]+)+(?![\p{L}\p{N}])/gu;
+
+/**
+ * Part numbers written into free text ("early calipers carry the stamp OV-355-101-R"): capitals and
+ * digits in two or more groups, with at least one of each. Sizes (2.0, 15-inch), threads (M12×1.5)
+ * and plain codes (H31, ET35) are not picked up.
+ */
+export function partNumbersIn(text: string): string[] {
+  const found = text.match(partNumberLike) ?? [];
+  return [...new Set(found.filter((m) => /\d/.test(m) && /[A-Z]/.test(m) && m.length >= 5))];
+}

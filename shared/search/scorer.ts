@@ -1,11 +1,15 @@
 import { HitsPool, type Hits } from './hits';
 import { chassisFields, fields, maxEditsFor } from './search-fields';
-import type { IndexStats, TermIndex } from './term-index';
+import type { Alternative } from './query';
+import { isCodeTerm, type IndexStats, type TermIndex } from './term-index';
 
-// Turns query words into scored documents: exact terms, prefixes while typing, typos as a fallback.
+// Turns query words into scored documents: exact terms, prefixes while typing, the trade's other
+// names for a thing, and typos (swapped letters included) as a fallback.
 
 const PREFIX_WEIGHT = 0.375;
 const FUZZY_WEIGHT = 0.45;
+/** a synonym's match counts a little less than the word the reader typed */
+const SYNONYM_WEIGHT = 0.9;
 const allMask = (1 << fields.length) - 1;
 const chassisMask = chassisFields.reduce((mask, f) => mask | (1 << fields.indexOf(f)), 0);
 
@@ -39,23 +43,35 @@ export class Scorer {
     }
   }
 
+  /**
+   * Terms within the word's allowed edits, and swapped neighbours (regnet → regent) as one edit, which
+   * Levenshtein distance counts as two. A typo in a code or part number keeps its first two characters:
+   * the sharded index looks codes up by them.
+   */
   private addFuzzy(term: string, into: Hits) {
     const maxEdits = maxEditsFor(term);
     if (!maxEdits) return;
     const stats = this.stats();
-    for (const [t, distance] of this.index.near(term, maxEdits)) {
-      if (distance === 0) continue;
-      const length = this.index.term(t).length;
-      this.index.score(t, (FUZZY_WEIGHT * length) / (length + distance), allMask, into, stats);
+    const found = new Map<number, number>();
+    for (const [t, distance] of this.index.near(term, maxEdits)) if (distance > 0) found.set(t, distance);
+    for (let i = 0; i + 1 < term.length; i++) {
+      if (term[i] === term[i + 1]) continue;
+      const t = this.index.id(term.slice(0, i) + term[i + 1] + term[i] + term.slice(i + 2));
+      if (t >= 0) found.set(t, 1);
+    }
+    const code = isCodeTerm(term);
+    for (const [t, distance] of found) {
+      const candidate = this.index.term(t);
+      if (code && !candidate.startsWith(term.slice(0, 2))) continue;
+      this.index.score(t, (FUZZY_WEIGHT * candidate.length) / (candidate.length + distance), allMask, into, stats);
     }
   }
 
   /**
-   * One whitespace-separated chunk: its joined form, or all of its pieces (`ov-355` → `ov355…` or ov ∧ 355).
-   * Typos are looked for only when the chunk matches nothing as typed: fuzzy matching is slow on a
-   * large vocabulary and pulls in near-misses (rotor → motor) that the reader did not ask for.
+   * One whitespace-separated chunk: its joined form, or all of its pieces (`ov-355` → `ov355…` or ov ∧ 355);
+   * with `typos`, near spellings when it matches nothing as typed.
    */
-  chunk(pieces: string[]): Hits {
+  private chunk(pieces: string[], typos: boolean): Hits {
     const joined = pieces.join('');
     const hits = this.take();
     this.addWord(joined, hits);
@@ -73,8 +89,34 @@ export class Scorer {
       }
       this.give(both);
     }
-    if (hits.count === 0) this.addFuzzy(joined, hits);
+    if (typos && hits.count === 0) this.addFuzzy(joined, hits);
     return hits;
+  }
+
+  /**
+   * One clause: any of its alternatives, each needing all of its chunks. Typos are looked for only
+   * when the clause matches nothing as typed or by another name: fuzzy matching pulls in near-misses
+   * (rotor → motor) that the reader did not ask for.
+   */
+  clause(alternatives: Alternative[]): Hits {
+    if (alternatives.length === 1 && alternatives[0].chunks.length === 1) return this.chunk(alternatives[0].chunks[0], true);
+    const run = (typos: boolean) => {
+      const out = this.take();
+      for (const alt of alternatives) {
+        if (typos && !alt.typed) continue;
+        const per = alt.chunks.map((c) => this.chunk(c, typos));
+        const all = per.length === 1 ? per[0] : this.intersect(per);
+        const weight = alt.typed ? 1 : SYNONYM_WEIGHT;
+        for (let i = 0; i < all.count; i++) out.add(all.ids[i], weight * all.score[all.ids[i]]);
+        per.forEach((h) => this.give(h));
+        if (per.length > 1) this.give(all);
+      }
+      return out;
+    };
+    const hits = run(false);
+    if (hits.count > 0) return hits;
+    this.give(hits);
+    return run(true);
   }
 
   /** documents in every set, scores summed in the sets' order; the inputs stay with the caller */
@@ -99,15 +141,17 @@ export class Scorer {
     return out;
   }
 
-  /** documents in any set, scores summed; the inputs stay with the caller */
-  union(sets: Hits[]): Hits {
+  /** documents in any set, scores summed, with how many of the sets each is in; the inputs stay with the caller */
+  union(sets: Hits[]): { hits: Hits; found: Uint8Array } {
     const out = this.take();
+    const found = new Uint8Array(this.index.size);
     for (const h of sets) {
       for (let i = 0; i < h.count; i++) {
         const p = h.ids[i];
         out.add(p, h.score[p]);
+        found[p]++;
       }
     }
-    return out;
+    return { hits: out, found };
   }
 }

@@ -1,6 +1,7 @@
 import type { Axle, Category, MachiningLevel } from '../schemas/enums';
 import { machiningLevel, type SwapData } from '../schemas/swap-data';
 import { routeTotals } from '../fitment/costs';
+import { normalisePartNumber, partNumbersIn } from './normalise';
 
 /**
  * One approved swap as the search index sees it: what is searched, filtered, sorted and shown
@@ -15,6 +16,8 @@ export type SearchDocument = {
   category: Category;
   partNames: string[];
   partNumbers: string[];
+  /** other numbers the parts are known by, read from their notes and catalogue records (searched, not shown) */
+  otherNumbers?: string[];
   /** donor vehicles the parts came on */
   cameOn: string[];
   adapter: { name: string; maker: string; partNumber: string } | null;
@@ -40,12 +43,24 @@ export type SearchDocumentSource = {
   chassis: SearchDocument['chassis'];
   data: SwapData;
   approvedAt: Date;
+  /** the catalogue record a part line points at, for numbers written there */
+  partRecord?: (partId: number) => { partNumbers: string[]; notes: string } | undefined;
 };
 
 const unique = (values: string[]) => [...new Set(values.map((v) => v.trim()).filter(Boolean))];
 
 export function toSearchDocument(s: SearchDocumentSource): SearchDocument {
   const { data } = s;
+  const partNumbers = unique([...data.parts.flatMap((p) => p.partNumbers), ...data.rotors.map((r) => r.partNumber)]);
+  const seen = new Set(partNumbers.map(normalisePartNumber));
+  const written = data.parts.flatMap((p) => {
+    const record = p.partId === undefined ? undefined : s.partRecord?.(p.partId);
+    return [...partNumbersIn(p.notes), ...(record ? [...record.partNumbers, ...partNumbersIn(record.notes)] : [])];
+  });
+  const otherNumbers = unique(written).filter((n) => {
+    const key = normalisePartNumber(n);
+    return !seen.has(key) && !!seen.add(key);
+  });
   const totals = Object.values(routeTotals(data.costs)).filter((t): t is number => t !== null);
   return {
     id: s.id,
@@ -57,7 +72,8 @@ export function toSearchDocument(s: SearchDocumentSource): SearchDocument {
     partNames: unique(
       data.parts.map((p) => (p.maker && !p.name.toLowerCase().includes(p.maker.toLowerCase()) ? `${p.maker} ${p.name}` : p.name)),
     ),
-    partNumbers: unique([...data.parts.flatMap((p) => p.partNumbers), ...data.rotors.map((r) => r.partNumber)]),
+    partNumbers,
+    ...(otherNumbers.length ? { otherNumbers } : {}),
     cameOn: unique(data.parts.flatMap((p) => p.cameOn)),
     adapter: data.adapter ? { name: data.adapter.name, maker: data.adapter.maker, partNumber: data.adapter.partNumber } : null,
     minWheelIn: data.wheel?.minDiameterIn ?? null,

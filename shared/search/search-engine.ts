@@ -1,4 +1,4 @@
-import { parseQuery } from './normalise';
+import { parseClauses } from './query';
 import type { SearchDocument } from './search-document';
 import { allowedCodes, FacetIndex, facetValues, relaxTotals, tally } from './facets';
 import type { Hits } from './hits';
@@ -77,23 +77,24 @@ export function buildIndex(docs: SearchDocument[]): SearchIndex {
   return index;
 }
 
-export type Matched = { hits: Hits; relaxed: boolean };
+export type Matched = {
+  hits: Hits;
+  /** clauses in the query: words, or trade phrases counted once */
+  words: number;
+  /** by position, how many clauses the document matches (null for a one-clause query) */
+  found: Uint8Array | null;
+};
 
-/** Every chunk must match; when nothing has them all, any chunk will do (and the answer says so). Null for no query. */
+/** Documents matching any clause of the query, with how many each matches. Null for no query. */
 export function matchQuery(index: SearchIndex, q: string): Matched | null {
-  const chunks = parseQuery(q);
-  if (chunks.reduce((n, c) => n + c.join('').length, 0) < 2) return null;
+  const clauses = parseClauses(q);
+  if (clauses.length === 0) return null;
   const { scorer } = index;
-  const perChunk = chunks.map((c) => scorer.chunk(c));
-  if (perChunk.length === 1) return { hits: perChunk[0], relaxed: false };
-  let hits = scorer.intersect(perChunk);
-  const relaxed = hits.count === 0;
-  if (relaxed) {
-    scorer.give(hits);
-    hits = scorer.union(perChunk);
-  }
-  perChunk.forEach((h) => scorer.give(h));
-  return { hits, relaxed: relaxed && hits.count > 0 };
+  const perClause = clauses.map((c) => scorer.clause(c));
+  if (perClause.length === 1) return { hits: perClause[0], words: 1, found: null };
+  const { hits, found } = scorer.union(perClause);
+  perClause.forEach((h) => scorer.give(h));
+  return { hits, words: clauses.length, found };
 }
 
 /** Hands a match's buffers back for reuse. */
@@ -131,26 +132,37 @@ export function search(index: SearchIndex, request: SearchRequest = {}): SearchR
   const counted = tally(index.facets, candidates, matched?.hits ?? null, allowedCodes(index.facets, filters));
   const { passing } = counted;
 
+  // swaps matching more of the query's words come first, whatever the order within them
+  const found = matched?.found;
+  const tier = found ? (a: number, b: number) => found[a] - found[b] : () => 0;
   let page: number[];
   if (!matched || sort === 'relevance') {
     if (matched) {
       const score = matched.hits.score;
       const newestRank = index.newestRank;
-      page = topK(
-        passing,
-        offset + limit,
-        (a, b) => score[a] > score[b] || (score[a] === score[b] && newestRank[a] < newestRank[b]),
-      );
+      page = topK(passing, offset + limit, (a, b) => {
+        const t = tier(a, b);
+        return t > 0 || (t === 0 && (score[a] > score[b] || (score[a] === score[b] && newestRank[a] < newestRank[b])));
+      });
     } else page = Array.from(passing.subarray(0, offset + limit));
   } else {
     const rank = sort === 'newest' ? index.newestRank : index.fittedRank;
-    page = topK(passing, offset + limit, (a, b) => rank[a] < rank[b]);
+    page = topK(passing, offset + limit, (a, b) => {
+      const t = tier(a, b);
+      return t > 0 || (t === 0 && rank[a] < rank[b]);
+    });
+  }
+  let matchedAll = passing.length;
+  if (found && matched) {
+    matchedAll = 0;
+    for (let i = 0; i < passing.length; i++) if (found[passing[i]] === matched.words) matchedAll++;
   }
   const hits = page.slice(offset).map((p) => ({ doc: index.docs[p], score: matched ? matched.hits.score[p] : null }));
   const response: SearchResponse = {
     documentCount: index.docs.length,
     total: passing.length,
-    relaxed: matched?.relaxed ?? false,
+    words: matched?.words ?? 0,
+    matchedAll,
     hits,
     facets: facetValues(index.facets, filters, counted.counts),
     relax: relaxTotals(filters, counted),

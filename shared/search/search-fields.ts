@@ -31,7 +31,7 @@ export function fieldText(doc: SearchDocument, field: Field): string {
     case 'make':
       return doc.chassis.make;
     case 'partNumbers':
-      return doc.adapter?.partNumber ? [...doc.partNumbers, doc.adapter.partNumber].join(' ') : doc.partNumbers.join(' ');
+      return [...doc.partNumbers, ...(doc.otherNumbers ?? []), doc.adapter?.partNumber ?? ''].join(' ');
     case 'title':
       return doc.title;
     case 'partNames':

@@ -55,8 +55,10 @@ export type SearchResponse = {
   documentCount: number;
   /** results after the query and every filter */
   total: number;
-  /** true when no swap matched every word, and these match some of them */
-  relaxed: boolean;
+  /** words in the query as search understood them (a trade phrase such as "parking brake" counts once); 0 without a query */
+  words: number;
+  /** results that match every word (all of them for one word or none); they come first, the rest match some words */
+  matchedAll: number;
   hits: SearchHit[];
   facets: SearchFacets;
   /** for each active filter, how many results there would be without it */

@@ -7,18 +7,39 @@ export type ChassisOption = Pick<ChassisView, 'slug' | 'make' | 'model' | 'code'
 const years = (c: ChassisOption) => `${c.yearFrom}–${c.yearTo ?? 'on'}`;
 export const chassisOptionLabel = (c: ChassisOption) => `${c.make} ${c.model} · ${c.code} · ${years(c)}`;
 
-/** Every typed word must appear in make, model or code; a four-digit year must fall inside the build years. */
-export function matchesChassis(c: ChassisOption, text: string) {
+/** A typed year: 1995, 95 or ’95 (two digits read as the nearest past century's year), or a range 1995–1998 / 1995-98. */
+function typedYears(word: string, thisYear: number): [number, number] | null {
+  const full = (y: string, century = thisYear + 1) => {
+    if (y.length === 4) return Number(y);
+    const n = Number(y);
+    const pivot = century % 100;
+    return n <= pivot ? century - pivot + n : century - pivot - 100 + n;
+  };
+  const one = /^['’]?(\d{2}|\d{4})$/.exec(word);
+  if (one) return [full(one[1]), full(one[1])];
+  const range = /^['’]?(\d{2}|\d{4})[-–]['’]?(\d{2}|\d{4})$/.exec(word);
+  if (!range) return null;
+  const from = full(range[1]);
+  // "1995-98": the second year in the first one's century
+  const to = range[2].length === 2 ? full(range[2], from + 99) : full(range[2]);
+  return from <= to ? [from, to] : null;
+}
+
+/**
+ * Every typed word must appear in make, model or code, or name a year (or range) the car was built in,
+ * its first and last years included. A short number matches either way: "31" finds the H31, "95" the cars of 1995.
+ */
+export function matchesChassis(c: ChassisOption, text: string, thisYear = new Date().getFullYear()) {
   const hay = `${c.make} ${c.model} ${c.code}`.toLowerCase();
   return text
     .toLowerCase()
     .split(/\s+/)
     .filter(Boolean)
     .every((w) => {
-      if (/^\d{4}$/.test(w)) {
-        const y = Number(w);
-        return y >= c.yearFrom && y <= (c.yearTo ?? 9999);
-      }
+      const span = typedYears(w, thisYear);
+      const built = span !== null && span[0] <= (c.yearTo ?? 9999) && span[1] >= c.yearFrom;
+      if (built) return true;
+      if (/^\d{4}$/.test(w) || (span && /[-–]/.test(w))) return false;
       return hay.includes(w) || years(c).includes(w);
     });
 }

@@ -5,7 +5,7 @@ import { makeTestApp, type TestApp } from './support/test-app';
 import { revisions, swaps } from '../../server/db/schema/index';
 import type { RevisionStatus } from '../../shared/schemas/enums';
 import { addUser } from './support/auth-helpers';
-import { addChassis } from './support/swap-fixtures';
+import { addChassis, addPart } from './support/swap-fixtures';
 import { addSwap as addSwapRows, swapData } from './support/swap-rows';
 import type { SearchIndexResponse } from '../../shared/search/search-document';
 
@@ -151,5 +151,30 @@ describe('GET /api/search-index', () => {
     const after = await getIndex(before.headers.etag);
     expect(after.status).toBe(200);
     expect((after.body as SearchIndexResponse).documents.some((d) => d.slug === 'bulk-0')).toBe(false);
+  });
+
+  it('when a catalogue part’s notes name an older number, then the swaps that use the part are indexed under it', async () => {
+    const part = addPart(t.db, 'vela-caliper-right', {
+      partNumbers: ['OV-355-104-R'],
+      notes: 'Early calipers carry the stamp OV-355-101-R and are the same casting.',
+    });
+    const line = swapData('Any title will do').parts[0];
+    addSwapRows(t.db, {
+      slug: 'uses-catalogue-part',
+      chassisId,
+      authorId,
+      revisions: [
+        {
+          status: 'approved',
+          data: swapData('Vela calipers from the catalogue', {
+            parts: [{ ...line, partId: part.id, partNumbers: ['OV-355-104-R'], notes: 'Bought as OV.355.102.R from a breaker.' }],
+          }),
+        },
+      ],
+    });
+    const res = await getIndex();
+    const doc = (res.body as SearchIndexResponse).documents.find((d) => d.slug === 'uses-catalogue-part')!;
+    expect(doc.partNumbers).toEqual(['OV-355-104-R']);
+    expect(doc.otherNumbers).toEqual(['OV.355.102.R', 'OV-355-101-R']);
   });
 });

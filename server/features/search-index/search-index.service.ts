@@ -1,7 +1,7 @@
 import { fingerprintCache, type CachedJson } from '../../lib/cached-json';
 import { and, eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { chassis, revisions, swaps } from '../../db/schema/index';
+import { chassis, parts, revisions, swaps } from '../../db/schema/index';
 import { toSearchDocument, type SearchDocument } from '../../../shared/search/search-document';
 
 const approvedCurrent = and(eq(revisions.id, swaps.currentRevisionId), eq(revisions.status, 'approved'));
@@ -15,6 +15,13 @@ export function searchDocuments(db: Db): SearchDocument[] {
     .innerJoin(chassis, eq(chassis.id, swaps.chassisId))
     .orderBy(swaps.id)
     .all();
+  const records = new Map(
+    db
+      .select({ id: parts.id, partNumbers: parts.partNumbers, notes: parts.notes })
+      .from(parts)
+      .all()
+      .map((p) => [p.id, p]),
+  );
   return rows.map(({ swap, revision, chassis: c }) =>
     toSearchDocument({
       id: swap.id,
@@ -25,6 +32,7 @@ export function searchDocuments(db: Db): SearchDocument[] {
       chassis: { slug: c.slug, make: c.make, model: c.model, code: c.code, yearFrom: c.yearFrom, yearTo: c.yearTo },
       data: revision.data,
       approvedAt: revision.reviewedAt ?? revision.updatedAt,
+      partRecord: (id) => records.get(id),
     }),
   );
 }
@@ -42,6 +50,8 @@ function fingerprint(db: Db): string {
       swapsAt: sql<number>`coalesce(max(${swaps.updatedAt}), 0)`,
       fitted: sql<number>`coalesce(sum(${swaps.fittedCount}), 0)`,
       chassisAt: sql<number>`coalesce(max(${chassis.updatedAt}), 0)`,
+      // catalogue records lend their numbers to the swaps that use them
+      partsAt: sql<number>`(select coalesce(max(${parts.updatedAt}), 0) || ':' || count(*) from ${parts})`,
     })
     .from(swaps)
     .innerJoin(revisions, approvedCurrent)

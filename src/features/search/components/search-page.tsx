@@ -231,15 +231,7 @@ export default function SearchPage() {
               </ul>
             )}
 
-            {data.relaxed && (
-              <p
-                role="status"
-                className="mb-4 rounded-lg border-l-4 border-brass bg-brass-soft/50 px-4 py-3 text-sm text-graphite"
-              >
-                No swap matches every word of “{state.q}”. These match some of them — check the spelling of a code or part number,
-                or drop a word.
-              </p>
-            )}
+            <WordsMatched data={data} q={state.q} />
 
             {data.total === 0 ? (
               <NoResults
@@ -284,6 +276,28 @@ export default function SearchPage() {
         </div>
       )}
     </Page>
+  );
+}
+
+/** With several words, how many swaps have them all: those come first, the rest have some of them. */
+function WordsMatched({ data, q }: { data: SearchResponse; q: string }) {
+  if (data.words < 2 || data.total === 0 || data.matchedAll === data.total) return null;
+  const some = data.total - data.matchedAll;
+  return (
+    <p role="status" className="mb-4 rounded-lg border-l-4 border-brass bg-brass-soft/50 px-4 py-3 text-sm text-graphite">
+      {data.matchedAll === 0 ? (
+        <>
+          No swap matches every word of “{q}”. These match some of them — check the spelling of a code or part number, or drop
+          a word.
+        </>
+      ) : (
+        <>
+          <strong className="tabular">{data.matchedAll.toLocaleString('en-GB')}</strong>{' '}
+          {data.matchedAll === 1 ? 'swap matches' : 'swaps match'} every word and {data.matchedAll === 1 ? 'comes' : 'come'}{' '}
+          first; the other <span className="tabular">{some.toLocaleString('en-GB')}</span> match some of them.
+        </>
+      )}
+    </p>
   );
 }
 
