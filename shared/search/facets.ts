@@ -1,21 +1,18 @@
 import { axles, categories, categoryLabels, machiningLevelLabels, machiningLevels, type Category } from '../schemas/enums';
 import type { SearchDocument } from './search-document';
 import type { Hits } from './hits';
+import { groups, layoutTable, tallyFiltered, tallyUnfiltered, type FacetTable, type Group } from './facet-table';
 import {
   costBucketOf,
   costBuckets,
-  filterKeys,
   type FacetValue,
   type FilterKey,
   type SearchFacets,
   type SearchFilters,
 } from './search-types';
 
-// Facets: every facet value is a small integer per document (0 = not given), counted in typed arrays.
+// Facets: each document's value in every filter group, the counts a result set gives, and their labels.
 
-const groups = filterKeys;
-type Group = FilterKey;
-const G = groups.length;
 const SEP = '\u0000';
 
 /** Rim diameters of passenger cars, offered by "fits my wheel" whether or not a swap names them (common practice, no source). */
@@ -38,18 +35,6 @@ const valueOf: Record<Group, (d: SearchDocument) => string | null> = {
   machining: (d) => d.machining,
   parkingBrake: (d) => (d.parkingBrakeKept === null ? null : d.parkingBrakeKept ? 'yes' : 'no'),
   cost: (d) => (d.cost ? costBucketOf(d.cost.min) : null),
-};
-
-/**
- * Every document's facet codes side by side (document p, group g at p·G + g), each shifted into one
- * code space shared by all groups, so counting a document is nine `counts[code]++` on adjacent entries.
- */
-type FacetTable = {
-  /** group g owns shared codes offset[g] … offset[g + 1] − 1 */
-  offset: Int32Array;
-  codes: Uint16Array | Uint32Array;
-  /** counts over every document, for browsing without a query or filter */
-  all: Int32Array;
 };
 
 export type ChassisLabel = { make: string; model: string; label: string };
@@ -100,17 +85,13 @@ export class FacetIndex {
 
   table(): FacetTable {
     if (this.laidOut) return this.laidOut;
-    const offset = new Int32Array(G + 1);
-    groups.forEach((g, i) => (offset[i + 1] = offset[i] + this.codes[g].values.length));
-    const size = this.size;
-    const codes = offset[G] <= 0xffff ? new Uint16Array(size * G) : new Uint32Array(size * G);
-    groups.forEach((g, i) => {
-      const byDoc = this.codes[g].byDoc;
-      for (let p = 0; p < size; p++) codes[p * G + i] = offset[i] + byDoc[p];
-    });
-    const all = new Int32Array(offset[G]);
-    for (let j = 0; j < codes.length; j++) all[codes[j]]++;
-    return (this.laidOut = { offset, codes, all });
+    const byDoc = {} as Record<Group, Uint32Array>;
+    const valueCounts = {} as Record<Group, number>;
+    for (const g of groups) {
+      byDoc[g] = this.codes[g].byDoc;
+      valueCounts[g] = this.codes[g].values.length;
+    }
+    return (this.laidOut = layoutTable(byDoc, valueCounts, this.size));
   }
 }
 
@@ -170,66 +151,8 @@ export function tally(
 ): Tally {
   const table = index.table();
   const filtered = groups.some((g) => allowed[g] !== null);
-  const t = filtered ? tallyFiltered(table, candidates, allowed) : tallyUnfiltered(table, candidates, hits);
+  const t = filtered ? tallyFiltered(table, candidates, allowed, ignoredBy) : tallyUnfiltered(table, candidates, hits);
   return { passing: t.passing, counts: split(table, t.flatCounts), relaxCounts: t.relaxCounts };
-}
-
-/**
- * No filter: every candidate passes and counts in every group. When the match covers most of the
- * index it is cheaper to start from the counts over all documents and take away the unmatched ones
- * (one score check per document, G decrements per miss) than to add up the matched ones (G per hit).
- */
-function tallyUnfiltered(table: FacetTable, candidates: Int32Array, hits: Hits | null) {
-  const relaxCounts = new Int32Array(G);
-  const { codes } = table;
-  if (hits === null) return { passing: candidates, flatCounts: table.all, relaxCounts };
-  const size = codes.length / G;
-  const counts = new Int32Array(table.all.length);
-  if (hits.count * 2 * G > size * (G + 1)) {
-    counts.set(table.all);
-    const score = hits.score;
-    for (let p = 0; p < size; p++) {
-      if (score[p] !== 0) continue;
-      for (let j = p * G; j < p * G + G; j++) counts[codes[j]]--;
-    }
-  } else {
-    for (let i = 0; i < candidates.length; i++) {
-      const base = candidates[i] * G;
-      for (let j = base; j < base + G; j++) counts[codes[j]]++;
-    }
-  }
-  return { passing: candidates, flatCounts: counts, relaxCounts };
-}
-
-/**
- * With filters: a candidate passes when no group rejects it; it counts in a group's facet when only
- * that group's own (or its nested) filters reject it; one rejecting filter means it would pass without it.
- */
-function tallyFiltered(table: FacetTable, candidates: Int32Array, allowed: Record<Group, Uint8Array | null>) {
-  const { codes, offset } = table;
-  // allowed by shared code; a group without a filter allows all its codes
-  const allow = new Uint8Array(offset[G]).fill(1);
-  groups.forEach((g, i) => allowed[g]?.forEach((a, c) => (allow[offset[i] + c] = a)));
-  const filtered = Int32Array.from(groups.flatMap((g, i) => (allowed[g] ? [i] : [])));
-  const ignore = groups.map((g) => ~ignoredBy[g]);
-  const counts = new Int32Array(offset[G]);
-  const relaxCounts = new Int32Array(G);
-  const passing = new Int32Array(candidates.length);
-  let n = 0;
-  for (let i = 0; i < candidates.length; i++) {
-    const p = candidates[i];
-    const base = p * G;
-    let mask = 0;
-    for (let k = 0; k < filtered.length; k++) if (allow[codes[base + filtered[k]]] === 0) mask |= 1 << filtered[k];
-    if (mask === 0) {
-      passing[n++] = p;
-      for (let j = base; j < base + G; j++) counts[codes[j]]++;
-      continue;
-    }
-    if ((mask & (mask - 1)) === 0) relaxCounts[31 - Math.clz32(mask)]++;
-    for (let g = 0; g < G; g++) if ((mask & ignore[g]) === 0) counts[codes[base + g]]++;
-  }
-  return { passing: passing.subarray(0, n), flatCounts: counts, relaxCounts };
 }
 
 export function relaxTotals(filters: SearchFilters, t: Tally): { filter: FilterKey; total: number }[] {

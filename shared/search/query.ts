@@ -31,7 +31,19 @@ const phrasesByFirstWord = (() => {
   return byFirst;
 })();
 
-const groupPhrases = (g: number) => tradeSynonyms[g].map((text) => parseQuery(text));
+const wordsOf = (chunks: string[][]) => chunks.map((c) => c.join(''));
+
+/**
+ * The group's other phrases, without those that add nothing to what is already asked: a phrase that
+ * holds every word of a shorter one ("brake rotor" beside "rotor") finds only swaps the shorter one finds.
+ */
+function otherNames(typed: Phrase): string[][][] {
+  const group = tradeSynonyms[typed.group].map((text) => parseQuery(text));
+  const covers = (a: string[][], b: string[][]) => a !== b && wordsOf(b).every((w) => wordsOf(a).includes(w));
+  return group.filter(
+    (alt) => wordsOf(alt).join(' ') !== typed.words.join(' ') && !group.some((shorter) => covers(alt, shorter)),
+  );
+}
 
 /** Splits a query into clauses, recognising trade phrases (longest first). Empty for a query too short to search. */
 export function parseClauses(q: string): Clause[] {
@@ -39,18 +51,15 @@ export function parseClauses(q: string): Clause[] {
   if (chunks.reduce((n, c) => n + c.join('').length, 0) < 2) return [];
   const words = chunks.map((c) => c.join(''));
   const clauses: Clause[] = [];
-  for (let i = 0; i < chunks.length; ) {
-    const phrase = phrasesByFirstWord
-      .get(words[i])
-      ?.find((p) => p.words.every((w, k) => words[i + k] === w));
+  for (let i = 0; i < chunks.length;) {
+    const phrase = phrasesByFirstWord.get(words[i])?.find((p) => p.words.every((w, k) => words[i + k] === w));
     if (!phrase) {
       clauses.push([{ chunks: [chunks[i]], typed: true }]);
       i++;
       continue;
     }
     const typed = chunks.slice(i, i + phrase.words.length);
-    const others = groupPhrases(phrase.group).filter((alt) => alt.map((c) => c.join('')).join(' ') !== phrase.words.join(' '));
-    clauses.push([{ chunks: typed, typed: true }, ...others.map((alt) => ({ chunks: alt, typed: false }))]);
+    clauses.push([{ chunks: typed, typed: true }, ...otherNames(phrase).map((alt) => ({ chunks: alt, typed: false }))]);
     i += phrase.words.length;
   }
   return clauses;

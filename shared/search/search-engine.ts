@@ -2,6 +2,7 @@ import { parseClauses } from './query';
 import type { SearchDocument } from './search-document';
 import { allowedCodes, FacetIndex, facetValues, relaxTotals, tally } from './facets';
 import type { Hits } from './hits';
+import { rankPage } from './ranking';
 import { Scorer } from './scorer';
 import { TermIndex, type IndexStats } from './term-index';
 import { cleanFilters, type SearchRequest, type SearchResponse, type SearchSort } from './search-types';
@@ -31,12 +32,12 @@ const mostFitted = (a: SearchDocument, b: SearchDocument) => b.fittedCount - a.f
  * so scores do not depend on which shards happen to be in memory; without them, the loaded documents count.
  */
 export function createIndex(stats?: IndexStats): SearchIndex {
-  const text = new TermIndex();
+  const text = new TermIndex(stats ?? null);
   const index: SearchIndex = {
     docs: [],
     text,
     facets: new FacetIndex(),
-    scorer: new Scorer(text, () => stats ?? text.loadedStats()),
+    scorer: new Scorer(text),
     newest: new Int32Array(0),
     fitted: new Int32Array(0),
     newestRank: new Int32Array(0),
@@ -52,8 +53,7 @@ function mergeOrder(order: Int32Array, added: number[], docs: SearchDocument[], 
   let i = 0;
   let j = 0;
   let k = 0;
-  while (i < order.length && j < added.length)
-    out[k++] = cmp(docs[order[i]], docs[added[j]]) <= 0 ? order[i++] : added[j++];
+  while (i < order.length && j < added.length) out[k++] = cmp(docs[order[i]], docs[added[j]]) <= 0 ? order[i++] : added[j++];
   while (i < order.length) out[k++] = order[i++];
   while (j < added.length) out[k++] = added[j++];
   const rank = new Int32Array(out.length);
@@ -92,31 +92,14 @@ export function matchQuery(index: SearchIndex, q: string): Matched | null {
   const { scorer } = index;
   const perClause = clauses.map((c) => scorer.clause(c));
   if (perClause.length === 1) return { hits: perClause[0], words: 1, found: null };
-  const { hits, found } = scorer.union(perClause);
-  perClause.forEach((h) => scorer.give(h));
+  const { hits, found, rest } = scorer.union(perClause);
+  rest.forEach((h) => scorer.give(h));
   return { hits, words: clauses.length, found };
 }
 
 /** Hands a match's buffers back for reuse. */
 export function releaseMatch(index: SearchIndex, m: Matched | null) {
   if (m) index.scorer.give(m.hits);
-}
-
-/** The k best positions by `better` (a strict order), best first, without sorting everything. */
-function topK(ids: ArrayLike<number>, k: number, better: (a: number, b: number) => boolean): number[] {
-  const top: number[] = [];
-  if (k <= 0) return top;
-  for (let i = 0; i < ids.length; i++) {
-    const p = ids[i];
-    if (top.length === k && !better(p, top[k - 1])) continue;
-    let j = top.length < k ? top.length : k - 1;
-    while (j > 0 && better(p, top[j - 1])) {
-      top[j] = top[j - 1];
-      j--;
-    }
-    top[j] = p;
-  }
-  return top;
 }
 
 /** Query, filter, count facets, sort and page. */
@@ -133,30 +116,14 @@ export function search(index: SearchIndex, request: SearchRequest = {}): SearchR
   const { passing } = counted;
 
   // swaps matching more of the query's words come first, whatever the order within them
-  const found = matched?.found;
-  const tier = found ? (a: number, b: number) => found[a] - found[b] : () => 0;
-  let page: number[];
-  if (!matched || sort === 'relevance') {
-    if (matched) {
-      const score = matched.hits.score;
-      const newestRank = index.newestRank;
-      page = topK(passing, offset + limit, (a, b) => {
-        const t = tier(a, b);
-        return t > 0 || (t === 0 && (score[a] > score[b] || (score[a] === score[b] && newestRank[a] < newestRank[b])));
+  const rank = sort === 'fitted' ? index.fittedRank : index.newestRank;
+  const { page, matchedAll } = !matched
+    ? { page: Array.from(passing.subarray(0, offset + limit)), matchedAll: passing.length }
+    : rankPage(passing, offset + limit, matched.words, {
+        found: matched.found,
+        score: sort === 'relevance' ? matched.hits.score : null,
+        rank,
       });
-    } else page = Array.from(passing.subarray(0, offset + limit));
-  } else {
-    const rank = sort === 'newest' ? index.newestRank : index.fittedRank;
-    page = topK(passing, offset + limit, (a, b) => {
-      const t = tier(a, b);
-      return t > 0 || (t === 0 && rank[a] < rank[b]);
-    });
-  }
-  let matchedAll = passing.length;
-  if (found && matched) {
-    matchedAll = 0;
-    for (let i = 0; i < passing.length; i++) if (found[passing[i]] === matched.words) matchedAll++;
-  }
   const hits = page.slice(offset).map((p) => ({ doc: index.docs[p], score: matched ? matched.hits.score[p] : null }));
   const response: SearchResponse = {
     documentCount: index.docs.length,

@@ -4,7 +4,17 @@ import type { SearchDocument } from './search-document';
 // Which text of a swap is searched, and how much a match in each place counts.
 
 export type Field = 'code' | 'model' | 'make' | 'partNumbers' | 'title' | 'partNames' | 'adapter' | 'cameOn' | 'tags';
-export const fields: readonly Field[] = ['code', 'model', 'make', 'partNumbers', 'title', 'partNames', 'adapter', 'cameOn', 'tags'];
+export const fields: readonly Field[] = [
+  'code',
+  'model',
+  'make',
+  'partNumbers',
+  'title',
+  'partNames',
+  'adapter',
+  'cameOn',
+  'tags',
+];
 
 /** Chassis and part matches rank above the title, the title above the rest. */
 export const fieldBoosts: Record<Field, number> = {

@@ -1,11 +1,13 @@
 import SearchableMap from 'minisearch/SearchableMap';
 import { tokenize } from './normalise';
-import { fieldBoosts, fields, fieldText } from './search-fields';
+import { SortedTerms } from './sorted-terms';
+import { chassisFields, fieldBoosts, fields, fieldText } from './search-fields';
 import type { SearchDocument } from './search-document';
 import type { Hits } from './hits';
 
 // The inverted index: which documents hold each term, in which field, how often. Terms go into
-// minisearch's radix tree (its public SearchableMap) for prefix and typo lookups; the postings sit
+// minisearch's radix tree (its public SearchableMap) for typo lookups and into a sorted list for
+// prefixes (a contiguous run, cheaper to walk than the tree); the postings sit
 // in flat typed arrays, because walking tens of thousands of postings per keystroke through objects
 // or Maps is what made every per-document search too slow at 50,000 swaps.
 
@@ -15,6 +17,7 @@ export type IndexStats = { documentCount: number; avgFieldLength: number[] };
 const F = fields.length;
 const BM25 = { k: 1.2, b: 0.7, d: 0.5 };
 const boostById = Float64Array.from(fields, (f) => fieldBoosts[f]);
+const isChassisField = fields.map((f) => chassisFields.includes(f));
 
 const hasDigit = /\d/;
 /** Terms with a digit (codes, part numbers, sizes) and plain words are looked up separately: a typo never crosses between them. */
@@ -31,7 +34,7 @@ export function statsOf(docs: SearchDocument[]): IndexStats {
   return { documentCount: docs.length, avgFieldLength: Array.from(sum, (s) => (docs.length ? s / docs.length : 0)) };
 }
 
-function grow<T extends Int32Array | Uint32Array | Uint16Array | Uint8Array>(a: T, need: number): T {
+function grow<T extends Int32Array | Uint32Array | Uint16Array | Uint8Array | Float32Array>(a: T, need: number): T {
   if (need <= a.length) return a;
   const next = new (a.constructor as new (n: number) => T)(Math.max(need, a.length * 2));
   next.set(a);
@@ -39,12 +42,22 @@ function grow<T extends Int32Array | Uint32Array | Uint16Array | Uint8Array>(a: 
 }
 
 export class TermIndex {
+  /**
+   * `fixedStats`: the whole collection's figures, when only part of it will be loaded, so a score does
+   * not depend on which shards happen to be in memory. Without them, the loaded documents count.
+   */
+  constructor(private readonly fixedStats: IndexStats | null = null) {}
+
   /** documents added so far; positions run 0 … size − 1 in the order they were added */
   size = 0;
   private readonly ids = new Map<string, number>();
   private readonly terms: string[] = [];
   private readonly words = new SearchableMap<number>();
   private readonly codes = new SearchableMap<number>();
+  /** every term, and the terms of the chassis fields (make, model, code), the only ones a two-character prefix reaches */
+  private readonly sorted = new SortedTerms();
+  private readonly chassisTerms = new SortedTerms();
+  private readonly inChassisField = new Set<number>();
   // Each add() appends one segment per (term, field) it saw; a term's segments form a list through segPrev.
   private lastSeg = new Int32Array(1024);
   private segPrev = new Int32Array(1024);
@@ -54,6 +67,9 @@ export class TermIndex {
   private segCount = 0;
   private position = new Int32Array(4096);
   private tf = new Uint16Array(4096);
+  /** each posting's BM25 term-frequency part, for the stats it was worked out with */
+  private part = new Float32Array(4096);
+  private partsFor: IndexStats | null = null;
   private postingCount = 0;
   /** token count of each field, by document position */
   private lengths: Uint16Array[] = Array.from({ length: F }, () => new Uint16Array(256));
@@ -73,7 +89,12 @@ export class TermIndex {
         this.lengths[f][p] = Math.min(counts.size, 0xffff);
         this.lengthSum[f] += counts.size;
         for (const [term, n] of counts) {
-          const key = this.termId(term) * F + f;
+          const id = this.termId(term);
+          if (isChassisField[f] && !this.inChassisField.has(id)) {
+            this.inChassisField.add(id);
+            this.chassisTerms.add(term, id);
+          }
+          const key = id * F + f;
           let list = batch.get(key);
           if (!list) batch.set(key, (list = { pos: [], tf: [] }));
           list.pos.push(p);
@@ -82,14 +103,17 @@ export class TermIndex {
       });
     });
     this.size = base + docs.length;
+    this.loaded = null;
     this.segPrev = grow(this.segPrev, this.segCount + batch.size);
     this.segField = grow(this.segField, this.segCount + batch.size);
     this.segStart = grow(this.segStart, this.segCount + batch.size);
     this.segEnd = grow(this.segEnd, this.segCount + batch.size);
     let postings = this.postingCount;
     for (const list of batch.values()) postings += list.pos.length;
+    const from = this.postingCount;
     this.position = grow(this.position, postings);
     this.tf = grow(this.tf, postings);
+    this.part = grow(this.part, postings);
     for (const [key, list] of batch) {
       const t = Math.floor(key / F);
       const s = this.segCount++;
@@ -102,6 +126,29 @@ export class TermIndex {
       this.postingCount += list.pos.length;
       this.segEnd[s] = this.postingCount;
     }
+    if (this.fixedStats) this.workOutParts(this.fixedStats, from);
+  }
+
+  /** k·(x·(k+1))/(x + norm) + d for postings from `from` on: the part of BM25+ that does not change per query */
+  private workOutParts(stats: IndexStats, from = 0) {
+    const { segField, segStart, segEnd, position, tf, part } = this;
+    for (let s = 0; s < this.segCount; s++) {
+      if (segEnd[s] <= from) continue;
+      const f = segField[s];
+      const length = this.lengths[f];
+      const perLength = BM25.b / (stats.avgFieldLength[f] || 1);
+      for (let i = Math.max(from, segStart[s]); i < segEnd[s]; i++) {
+        const x = tf[i];
+        const norm = BM25.k * (1 - BM25.b + perLength * length[position[i]]);
+        part[i] = BM25.d + (x * (BM25.k + 1)) / (x + norm);
+      }
+    }
+    this.partsFor = stats;
+  }
+
+  /** the figures scores are worked out with */
+  stats(): IndexStats {
+    return this.fixedStats ?? this.loadedStats();
   }
 
   private termId(term: string): number {
@@ -110,14 +157,20 @@ export class TermIndex {
     id = this.terms.push(term) - 1;
     this.ids.set(term, id);
     (isCodeTerm(term) ? this.codes : this.words).set(term, id);
+    this.sorted.add(term, id);
     this.lastSeg = grow(this.lastSeg, id + 1);
     this.lastSeg[id] = -1;
     return id;
   }
 
+  private loaded: IndexStats | null = null;
+
   /** the collection as loaded so far */
   loadedStats(): IndexStats {
-    return { documentCount: this.size, avgFieldLength: Array.from(this.lengthSum, (s) => (this.size ? s / this.size : 0)) };
+    return (this.loaded ??= {
+      documentCount: this.size,
+      avgFieldLength: Array.from(this.lengthSum, (s) => (this.size ? s / this.size : 0)),
+    });
   }
 
   id(term: string): number {
@@ -128,9 +181,9 @@ export class TermIndex {
     return this.terms[id];
   }
 
-  /** every term that starts with `prefix`, the prefix itself included */
-  withPrefix(prefix: string): Iterable<number> {
-    return [this.words, this.codes].flatMap((m) => (m.size ? [...m.atPrefix(prefix).values()] : []));
+  /** every term that starts with `prefix`, the prefix itself included; only chassis-field terms if asked */
+  withPrefix(prefix: string, chassisOnly = false): number[] {
+    return (chassisOnly ? this.chassisTerms : this.sorted).withPrefix(prefix);
   }
 
   /** terms of the same kind (word or code) within `maxEdits` Levenshtein edits, with their distance */
@@ -140,9 +193,11 @@ export class TermIndex {
   }
 
   /** BM25+ of one term in the fields of `fieldMask`, times `weight`, added into `into` */
-  score(t: number, weight: number, fieldMask: number, into: Hits, stats: IndexStats) {
+  score(t: number, weight: number, fieldMask: number, into: Hits) {
     if (t < 0) return;
-    const { segPrev, segField, segStart, segEnd, position, tf, df } = this;
+    const stats = this.stats();
+    if (this.partsFor !== stats) this.workOutParts(stats);
+    const { segPrev, segField, segStart, segEnd, position, part, df } = this;
     df.fill(0);
     for (let s = this.lastSeg[t]; s >= 0; s = segPrev[s]) df[segField[s]] += segEnd[s] - segStart[s];
     const total = Math.max(stats.documentCount, this.size);
@@ -153,15 +208,11 @@ export class TermIndex {
       if (!(fieldMask & (1 << f))) continue;
       const n = df[f];
       const w = weight * boostById[f] * Math.log(1 + (total - n + 0.5) / (n + 0.5));
-      const length = this.lengths[f];
-      const perLength = BM25.b / (stats.avgFieldLength[f] || 1);
       // Hits.add by hand: this loop runs once per posting of every matched term
       for (let i = segStart[s]; i < segEnd[s]; i++) {
         const p = position[i];
-        const x = tf[i];
-        const norm = BM25.k * (1 - BM25.b + perLength * length[p]);
         if (score[p] === 0) ids[count++] = p;
-        score[p] += w * (BM25.d + (x * (BM25.k + 1)) / (x + norm));
+        score[p] += w * part[i];
       }
     }
     into.count = count;

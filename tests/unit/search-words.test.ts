@@ -41,7 +41,12 @@ const docs = [
     otherNumbers: ['OV-355-101-L'],
     minWheelIn: 16,
   }),
-  doc({ title: 'Vela calipers under 15 inch wheels', chassis: h31, partNames: ['Orsino Vela four-piston caliper'], minWheelIn: 15 }),
+  doc({
+    title: 'Vela calipers under 15 inch wheels',
+    chassis: h31,
+    partNames: ['Orsino Vela four-piston caliper'],
+    minWheelIn: 15,
+  }),
   doc({ title: 'Regent rear drum in hat', chassis: h31, axle: 'rear', partNames: ['Tamsin Regent rear rotor'] }),
   doc({ title: 'Winter wheels on narrow tyres', chassis: vela, category: 'wheels_tyres', partNames: ['15 inch steel wheel'] }),
   doc({ title: 'Handbrake cable from the estate', chassis: regent, axle: 'rear', partNames: ['Regent handbrake cable'] }),
@@ -117,14 +122,18 @@ describe('alternate part numbers', () => {
       chassis: h31,
       data,
       approvedAt: new Date('2024-01-01T00:00:00Z'),
-      partRecord: (id) => (id === 7 ? { partNumbers: ['OV-355-104-L'], notes: 'Early calipers carry the stamp OV-355-099-L.' } : undefined),
+      partRecord: (id) =>
+        id === 7 ? { partNumbers: ['OV-355-104-L'], notes: 'Early calipers carry the stamp OV-355-099-L.' } : undefined,
     });
     expect(d.otherNumbers).toEqual(['OV-355-101-L', 'OV-355-099-L']);
   });
 
-  it.each(['OV-355-101-L', 'ov355101l', 'Ov 355.101 l'])('when "%s" is typed, then the swap with that alternate number is found', (q) => {
-    expect(slugs(q)[0]).toBe('vela-calipers-and-330-mm-rotors-on-the-h31');
-  });
+  it.each(['OV-355-101-L', 'ov355101l', 'Ov 355.101 l'])(
+    'when "%s" is typed, then the swap with that alternate number is found',
+    (q) => {
+      expect(slugs(q)[0]).toBe('vela-calipers-and-330-mm-rotors-on-the-h31');
+    },
+  );
 });
 
 describe('several words', () => {

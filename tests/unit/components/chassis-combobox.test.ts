@@ -6,7 +6,14 @@ import { matchesChassis, type ChassisOption } from '../../../src/components/chas
 const h31: ChassisOption = { slug: 'halden-h31', make: 'Halden', model: 'H31', code: 'H31', yearFrom: 1991, yearTo: 1999 };
 const h40: ChassisOption = { slug: 'halden-h40', make: 'Halden', model: 'H40', code: 'H40', yearFrom: 1999, yearTo: 2007 };
 const vela: ChassisOption = { slug: 'orsino-vela', make: 'Orsino', model: 'Vela', code: 'V3', yearFrom: 1994, yearTo: 2001 };
-const regent: ChassisOption = { slug: 'tamsin-regent', make: 'Tamsin', model: 'Regent', code: 'TR2', yearFrom: 1995, yearTo: null };
+const regent: ChassisOption = {
+  slug: 'tamsin-regent',
+  make: 'Tamsin',
+  model: 'Regent',
+  code: 'TR2',
+  yearFrom: 1995,
+  yearTo: null,
+};
 const all = [h31, h40, vela, regent];
 const picked = (text: string) => all.filter((c) => matchesChassis(c, text, 2026)).map((c) => c.slug);
 

@@ -1,11 +1,5 @@
 import type { ReactNode } from 'react';
-import {
-  costBuckets,
-  type FacetValue,
-  type FilterKey,
-  type SearchFacets,
-  type SearchFilters,
-} from '@shared/search/search-types';
+import { costBuckets, type FacetValue, type FilterKey, type SearchFacets, type SearchFilters } from '@shared/search/search-types';
 import { ChassisCombobox, type ChassisOption } from '../../../components/chassis-combobox';
 import { formatMoney } from '../../../lib/money';
 

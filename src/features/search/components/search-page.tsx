@@ -287,8 +287,8 @@ function WordsMatched({ data, q }: { data: SearchResponse; q: string }) {
     <p role="status" className="mb-4 rounded-lg border-l-4 border-brass bg-brass-soft/50 px-4 py-3 text-sm text-graphite">
       {data.matchedAll === 0 ? (
         <>
-          No swap matches every word of “{q}”. These match some of them — check the spelling of a code or part number, or drop
-          a word.
+          No swap matches every word of “{q}”. These match some of them — check the spelling of a code or part number, or drop a
+          word.
         </>
       ) : (
         <>
