@@ -1,8 +1,9 @@
-import type { SwapData } from './schemas/swap-data';
-import type { Axle, Category } from './schemas/enums';
+import { calipersOn, rotorsOn, type FastenerKind, type SwapData } from './schemas/swap-data';
+import { axles, type Axle, type Category } from './schemas/enums';
 import type { CheckResult } from './schemas/submissions';
-import { brakeBalanceOf, checkWheelForSwap, rotorDiameterOf, BALANCE_ATTENTION_POINTS } from './fitment/swap-checks';
+import { brakeBalanceOf, pistonsPerSideOf, testedWheelVerdicts } from './fitment/swap-checks';
 import { MIN_CLEARANCE_MM } from './fitment/clearance';
+import { fastenerKindLabels } from './schemas/swap-data-labels';
 
 // The automatic checks the review desk shows for a revision. The submission form runs the same
 // function, so a member sees what the reviewer will see before sending it.
@@ -19,7 +20,7 @@ export type ReviewCheckInput = {
   duplicates: { slug: string; title: string }[];
 };
 
-export const checkIds = ['required', 'photos', 'torque', 'clearance', 'balance', 'costs', 'duplicate'] as const;
+export const checkIds = ['required', 'photos', 'torque', 'clearance', 'figures', 'balance', 'costs', 'duplicate'] as const;
 
 const wheelCategories: readonly Category[] = ['brakes', 'wheels_tyres'];
 const wheelKinds = new Set(['caliper', 'rotor', 'spacer']);
@@ -29,98 +30,21 @@ export function needsWheelRequirement(data: SwapData, category?: Category): bool
   return data.parts.some((p) => wheelKinds.has(p.kind));
 }
 
-/** Words that name what kind of fastener something is, not which one; they never make a match on their own. */
-const genericWords = new Set([
-  'bolt',
-  'bolts',
-  'screw',
-  'screws',
-  'stud',
-  'studs',
-  'nut',
-  'nuts',
-  'washer',
-  'washers',
-  'hardware',
-  'fastener',
-  'fasteners',
-  'included',
-  'with',
-  'long',
-  'short',
-  'grade',
-  'zinc',
-  'steel',
-  'plated',
-  'kit',
-  'set',
-  'pair',
-  'pack',
-  'each',
-  'front',
-  'rear',
-  'left',
-  'right',
-  'side',
-  'new',
-  'used',
-  'from',
-  'into',
-  'onto',
-  'the',
-  'and',
-  'for',
-]);
-
-function keyWords(text: string): Set<string> {
-  const lower = text.toLowerCase();
-  const words = new Set<string>();
-  for (const thread of lower.match(/\bm\d{1,2}\b/g) ?? []) words.add(thread);
-  for (const w of lower.split(/[^a-z]+/)) if (w.length >= 4 && !genericWords.has(w)) words.add(w);
-  return words;
-}
-
-export type Fastener = { label: string; matches: (torqueRow: string) => boolean; rule: string };
+export type RequiredFastener = { kind: FastenerKind; because: string };
 
 /**
- * The fasteners a record lists, each with the rule its torque row must meet:
- * - a part of kind `caliper` → a torque row naming "caliper";
- * - a part of kind `adapter`, or the record's adapter → a row naming "adapter" or "bracket";
- * - a bolt-on wheel spacer → a row naming "spacer";
- * - a part of kind `hardware` and every item of the adapter's included hardware → a row sharing a key word
- *   with it: a metric thread size (M10, M12) or a word of four letters or more that is not a generic
- *   fastener word (bolt, screw, stud, nut, washer, …).
+ * The fasteners a record must list (each with a torque row), from what the job contains:
+ * a caliper → its mounting bolts; an adapter or bracket → the bolts that hold it; a bolt-on spacer →
+ * the bolts or nuts that hold it to the hub; any wheel spacer → the wheel bolts, which change length.
  */
-export function fastenersOf(data: SwapData): Fastener[] {
-  const naming =
-    (...words: string[]) =>
-    (row: string) =>
-      words.some((w) => new RegExp(`\\b${w}`, 'i').test(row));
-  const sharing = (item: string) => {
-    const keys = keyWords(item);
-    return (row: string) => [...keyWords(row)].some((w) => keys.has(w));
-  };
-  const list: Fastener[] = [];
-  for (const p of data.parts) {
-    if (p.kind === 'caliper')
-      list.push({ label: `${p.name} (mounting bolts)`, matches: naming('caliper'), rule: 'a torque row naming the caliper' });
-    if (p.kind === 'adapter')
-      list.push({ label: p.name, matches: naming('adapter', 'bracket'), rule: 'a torque row naming the adapter or bracket' });
-    if (p.kind === 'hardware') list.push({ label: p.name, matches: sharing(p.name), rule: 'a torque row naming this hardware' });
-  }
-  if (data.adapter && !data.parts.some((p) => p.kind === 'adapter')) {
-    list.push({
-      label: data.adapter.name,
-      matches: naming('adapter', 'bracket'),
-      rule: 'a torque row naming the adapter or bracket',
-    });
-  }
-  for (const item of data.adapter?.hardwareIncluded ?? []) {
-    list.push({ label: item, matches: sharing(item), rule: 'a torque row naming this hardware' });
-  }
-  if (data.spacers.some((s) => s.mounting === 'bolt_on')) {
-    list.push({ label: 'Bolt-on wheel spacers', matches: naming('spacer'), rule: 'a torque row naming the spacers' });
-  }
+export function requiredFasteners(data: SwapData): RequiredFastener[] {
+  const list: RequiredFastener[] = [];
+  if (data.calipers.length > 0 || data.parts.some((p) => p.kind === 'caliper'))
+    list.push({ kind: 'caliper_mount', because: 'the record fits a caliper' });
+  if (data.adapter || data.parts.some((p) => p.kind === 'adapter'))
+    list.push({ kind: 'bracket_mount', because: 'the record fits an adapter or bracket' });
+  if (data.spacers.some((s) => s.mounting === 'bolt_on')) list.push({ kind: 'spacer_mount', because: 'the spacers bolt on' });
+  if (data.spacers.length > 0) list.push({ kind: 'wheel', because: 'a spacer changes the wheel-bolt length' });
   return list;
 }
 
@@ -163,72 +87,145 @@ function photosCheck(count: number): CheckResult {
 }
 
 function torqueCheck(data: SwapData): CheckResult {
-  const fasteners = fastenersOf(data);
   const label = 'Torque specs';
-  if (fasteners.length === 0)
-    return { id: 'torque', label, status: 'pass', detail: 'No fasteners are listed, so no torque values are needed.' };
-  const missing = fasteners.filter((f) => !data.torque.some((t) => f.matches(t.fastener)));
-  if (missing.length === 0)
-    return { id: 'torque', label, status: 'pass', detail: `Every listed fastener (${fasteners.length}) has a torque value.` };
+  const required = requiredFasteners(data);
+  const kindsListed = new Set(data.fasteners.map((f) => f.kind));
+  const missingKinds = required.filter((r) => !kindsListed.has(r.kind));
+  const withTorque = new Set(data.torque.map((t) => t.fastenerId));
+  const untorqued = data.fasteners.filter((f) => !withTorque.has(f.id));
+  const problems = [
+    ...missingKinds.map((r) => `no ${fastenerKindLabels[r.kind].toLowerCase()} listed (${r.because})`),
+    ...untorqued.map((f) => `no torque value for ${f.label}`),
+  ];
+  if (problems.length > 0) return { id: 'torque', label, status: 'fail', detail: `${capitalise(problems.join('; '))}.` };
+  if (data.fasteners.length === 0)
+    return { id: 'torque', label, status: 'pass', detail: 'No fasteners are listed or needed, so no torque values are needed.' };
   return {
     id: 'torque',
     label,
-    status: 'fail',
-    detail: `No torque value for: ${missing.map((f) => `${f.label} (needs ${f.rule})`).join('; ')}.`,
+    status: 'pass',
+    detail: `Every listed fastener (${data.fasteners.length}) has a torque value.`,
   };
 }
 
+const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
 function clearanceCheck(input: ReviewCheckInput): CheckResult {
-  const { data, axle } = input;
+  const { data } = input;
   const label = 'Wheel clearance';
   const req = data.wheel;
   if (!req) {
     return needsWheelRequirement(data, input.category)
-      ? { id: 'clearance', label, status: 'fail', detail: 'No wheel requirement, so the clearance cannot be computed.' }
+      ? { id: 'clearance', label, status: 'fail', detail: 'No wheel requirement, so the clearance cannot be judged.' }
       : { id: 'clearance', label, status: 'pass', detail: 'No wheel requirement applies to this record.' };
   }
-  if (!rotorDiameterOf(data, axle)) {
+  const verdicts = testedWheelVerdicts(data);
+  const contradictions = verdicts.filter((v) => v.contradiction);
+  if (contradictions.length > 0) {
+    return {
+      id: 'clearance',
+      label,
+      status: 'fail',
+      detail: `${contradictions.map((v) => `${v.label}: ${v.contradiction}`).join('; ')}. Mark it as not fitting, or correct the measurement.`,
+    };
+  }
+  const fitting = verdicts.filter((v) => v.outcome !== 'does_not_fit');
+  const measuredFits = fitting.filter((v) => v.figures.length > 0);
+  const notFitting = verdicts.length - fitting.length;
+  const documented = notFitting > 0 ? ` It also documents ${notFitting} wheel${notFitting === 1 ? '' : 's'} that do${notFitting === 1 ? 'es' : ''} not fit.` : '';
+  if (measuredFits.length === 0) {
     return {
       id: 'clearance',
       label,
       status: 'attention',
-      detail: 'No rotor diameter (rotors or brake figures), so the radial clearance cannot be computed.',
+      detail: `No wheel that fits has a measured clearance, so the fit rests on estimates only. Ask for a measurement on the smallest wheel that fits.${documented}`,
     };
   }
-  // the record's own smallest wheel: its smallest tested wheel, or a wheel of the stated minimum diameter
-  const tested = [...req.testedWheels].sort((a, b) => a.diameterIn - b.diameterIn)[0];
-  const wheel = tested ?? { diameterIn: req.minDiameterIn, widthIn: 7, offsetMm: 35, spacerMm: 0 };
-  const check = checkWheelForSwap(data, axle, input.chassis.wheelBoltThread, { ...wheel, spacerMm: wheel.spacerMm ?? 0 });
-  const computed = check.radial!;
-  const measured = req.testedWheels.filter((t) => t.radialClearanceMm !== undefined && t.radialClearanceMm < MIN_CLEARANCE_MM);
-  const spokeMeasured = req.testedWheels.filter((t) => t.spokeClearanceMm !== undefined && t.spokeClearanceMm < MIN_CLEARANCE_MM);
-  const where = `${wheel.diameterIn}″ wheel`;
-  if (!computed.ok) {
+  const tight = measuredFits.flatMap((v) => v.figures.filter((f) => !f.ok).map((f) => `${v.label}: ${fmt(f.clearanceMm)} at the ${f.where}`));
+  if (tight.length > 0) {
     return {
       id: 'clearance',
       label,
-      status: 'fail',
-      detail: `Computed caliper-to-barrel clearance on the ${where} is ${fmt(computed.clearanceMm)}, below the ${MIN_CLEARANCE_MM} mm minimum (${computed.basisNote})`,
+      status: 'attention',
+      detail: `Measured below the ${MIN_CLEARANCE_MM} mm rule of thumb (common practice, no source) on a wheel that fits: ${tight.join('; ')}. Worth a second look at how it was measured.${documented}`,
     };
   }
-  if (measured.length || spokeMeasured.length) {
-    const worst = [
-      ...measured.map((t) => `${t.diameterIn}″ barrel ${fmt(t.radialClearanceMm!)}`),
-      ...spokeMeasured.map((t) => `${t.diameterIn}″ spokes ${fmt(t.spokeClearanceMm!)}`),
-    ];
+  const smallest = Math.min(...measuredFits.flatMap((v) => v.figures.map((f) => f.clearanceMm)));
+  const belowMinimum = measuredFits.some((v) => data.wheel!.testedWheels[v.index].diameterIn < req.minDiameterIn);
+  if (belowMinimum) {
     return {
       id: 'clearance',
       label,
-      status: 'fail',
-      detail: `Measured clearance below ${MIN_CLEARANCE_MM} mm: ${worst.join(', ')}.`,
+      status: 'attention',
+      detail: `A wheel smaller than the stated ${req.minDiameterIn}″ minimum is recorded as fitting: lower the minimum or correct the outcome.`,
     };
   }
   return {
     id: 'clearance',
     label,
     status: 'pass',
-    detail: `Computed caliper-to-barrel clearance on the ${where} is ${fmt(computed.clearanceMm)} (at least ${MIN_CLEARANCE_MM} mm).`,
+    detail: `Measured on ${measuredFits.length} wheel${measuredFits.length === 1 ? '' : 's'} that fit${measuredFits.length === 1 ? 's' : ''}: the least clearance is ${fmt(smallest)} (at least ${MIN_CLEARANCE_MM} mm, common practice).${documented}`,
   };
+}
+
+/** The record's figures agree with each other: rotors and calipers with the brake figures of their axle, shims with the mounting. */
+function figuresCheck(data: SwapData): CheckResult {
+  const label = 'Figures agree';
+  const problems: string[] = [];
+  for (const axle of axles) {
+    const corner = data.brakes?.after[axle];
+    for (const r of rotorsOn(data, axle)) {
+      if (corner?.kind === 'disc' && Math.abs(corner.rotorDiameterMm - r.diameterMm) > 0.5)
+        problems.push(`the ${axle} rotor is ${fmt(r.diameterMm)} but the ${axle} brake figures say ${fmt(corner.rotorDiameterMm)}`);
+      if (corner?.kind === 'drum') problems.push(`a ${axle} rotor is listed but the ${axle} brake figures describe a drum`);
+    }
+    for (const c of calipersOn(data, axle)) {
+      if (corner?.kind === 'disc') {
+        const perSide = pistonsPerSideOf(c);
+        const areaOf = (ds: number[]) => ds.reduce((a, d) => a + (Math.PI * d * d) / 4, 0);
+        if (Math.abs(areaOf(perSide) - areaOf(corner.pistonsPerSideMm)) > 1)
+          problems.push(
+            `the ${axle} caliper's pistons (${perSide.join(' + ')} mm per side) differ from the ${axle} brake figures (${corner.pistonsPerSideMm.join(' + ')} mm)`,
+          );
+      }
+      if (c.bleedScrewWhenFitted === 'bottom')
+        problems.push(`the ${c.name} has its bleed screw at the bottom as fitted (left and right swapped?): air cannot be bled out`);
+      const { thicknessMinMm: lo, thicknessMaxMm: hi } = c.designRotor;
+      for (const r of rotorsOn(data, axle)) {
+        if ((lo !== undefined && r.thicknessMm < lo) || (hi !== undefined && r.thicknessMm > hi))
+          problems.push(`the ${fmt(r.thicknessMm)} rotor is outside the ${c.name}'s designed range (${lo ?? '?'}–${hi ?? '?'} mm)`);
+      }
+      const ownJoint = data.shims.filter((s) => s.joint === 'caliper_to_bracket');
+      const wrongWay = ownJoint.filter((s) => s.direction !== (c.mount.type === 'radial' ? 'radial' : 'axial'));
+      if (wrongWay.length > 0)
+        problems.push(
+          `shims between the caliper and the bracket of a ${c.mount.type}-mount caliper move it ${c.mount.type === 'radial' ? 'radially' : 'axially'}, not ${wrongWay[0].direction}ly`,
+        );
+    }
+  }
+  const centring = centringProblem(data);
+  if (centring) problems.push(centring);
+  if (problems.length > 0) return { id: 'figures', label, status: 'fail', detail: `${capitalise(problems.join('; '))}.` };
+  return { id: 'figures', label, status: 'pass', detail: 'Rotors, calipers, shims and brake figures agree with each other.' };
+}
+
+/** tolerance of a feeler-gauge measurement of the centring gap (common practice, no source) */
+export const CENTRING_TOLERANCE_MM = 0.1;
+
+function centringProblem(data: SwapData): string | null {
+  const c = data.centring;
+  if (!c || c.gapMm === 0) return null;
+  const atJoint = data.shims.filter((s) => s.joint === c.joint);
+  const axial = atJoint.filter((s) => s.direction === 'axial');
+  if (axial.length === 0) {
+    return atJoint.length > 0
+      ? `the shims at the centring joint are radial: they lift the caliper, they cannot centre it over the rotor`
+      : `a ${fmt(c.gapMm)} centring gap is measured but no shims are listed at that joint`;
+  }
+  const perPosition = axial.reduce((sum, s) => sum + s.thicknessMm * s.quantity, 0) / c.positions;
+  if (Math.abs(perPosition - c.gapMm) > CENTRING_TOLERANCE_MM)
+    return `the centring shims add up to ${fmt(perPosition)} per bolt, but the measured gap is ${fmt(c.gapMm)}`;
+  return null;
 }
 
 function balanceCheck(input: ReviewCheckInput): CheckResult {
@@ -244,12 +241,10 @@ function balanceCheck(input: ReviewCheckInput): CheckResult {
         }
       : { id: 'balance', label, status: 'pass', detail: 'No brake figures are needed for this record.' };
   }
-  const share = (x: number) => `${Math.round(x * 1000) / 10} %`;
-  const shift = Math.round(balance.shiftPoints * 10) / 10;
-  const detail = `Front share ${share(balance.frontShareBefore)} → ${share(balance.frontShareAfter)} (${shift > 0 ? '+' : ''}${shift} points).`;
-  return balance.attention
-    ? { id: 'balance', label, status: 'attention', detail: `${detail} It moves more than ${BALANCE_ATTENTION_POINTS} points.` }
-    : { id: 'balance', label, status: 'pass', detail };
+  const { shift } = balance;
+  const status = shift.severity === 'none' ? 'pass' : 'attention';
+  const prefix = shift.severity === 'hazard' ? 'Hazard: ' : '';
+  return { id: 'balance', label, status, detail: `${prefix}${shift.headline} ${shift.severity === 'none' ? '' : shift.risk}`.trim() };
 }
 
 function costsCheck(data: SwapData): CheckResult {
@@ -287,6 +282,7 @@ export function automaticChecks(input: ReviewCheckInput): CheckResult[] {
     photosCheck(input.photoCount),
     torqueCheck(input.data),
     clearanceCheck(input),
+    figuresCheck(input.data),
     balanceCheck(input),
     costsCheck(input.data),
     duplicateCheck(input.duplicates),

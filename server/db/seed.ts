@@ -9,15 +9,21 @@ import {
   swapDataSchema,
   swapPartSchema,
   adapterSchema,
+  caliperSchema,
   rotorSchema,
   spacerSchema,
   shimSchema,
+  centringSchema,
   machiningStepSchema,
+  fastenerSchema,
   torqueSpecSchema,
   wheelRequirementSchema,
   testedWheelSchema,
   brakeFiguresSchema,
   costLineSchema,
+  discCornerSchema,
+  drumCornerSchema,
+  parkingBrakeSchema,
   type SwapData,
 } from '../../shared/schemas/swap-data';
 import {
@@ -96,13 +102,10 @@ const usersFileSchema = z.array(
   }),
 );
 
-const brakeCornerContent = z.strictObject({
-  kind: z.enum(['disc', 'drum']),
-  pistonsPerSideMm: z.array(z.number().positive().max(80)).min(1).max(6),
-  rotorDiameterMm: z.number().positive().max(500),
-  padHeightMm: z.number().positive().max(120),
-  description: text(400),
-});
+const brakeCornerContent = z.discriminatedUnion('kind', [
+  discCornerSchema.extend({ description: text(400) }).strict(),
+  drumCornerSchema.extend({ description: text(400) }).strict(),
+]);
 
 const chassisFileSchema = z.array(
   z.strictObject({
@@ -135,8 +138,22 @@ const specSchemas: Record<z.infer<typeof partKindSchema>, z.ZodType> = {
     opposed: z.boolean(),
     mounting: z.enum(['radial', 'axial']),
     mountSpacingMm: positive,
+    mountThread: z.string(),
+    padHeightMm: positive,
+    designRotorDiameterMm: positive,
+    designRotorThicknessMm: z.tuple([positive, positive]),
   }),
-  rotor: z.looseObject({ diameterMm: positive, thicknessMm: positive, vented: z.boolean(), hatHeightMm: positive }),
+  rotor: z.looseObject({
+    diameterMm: positive,
+    thicknessMm: positive,
+    minThicknessMm: positive,
+    vented: z.boolean(),
+    directional: z.boolean(),
+    hatHeightMm: positive,
+    frictionRingInnerDiameterMm: positive,
+    centreBoreMm: positive,
+    drumInHatDiameterMm: positive.optional(),
+  }),
   pad: z.looseObject({ padHeightMm: positive }),
   adapter: z.looseObject({}),
   shim: z.looseObject({ thicknessMm: positive.max(20), outerDiameterMm: positive }),
@@ -144,6 +161,7 @@ const specSchemas: Record<z.infer<typeof partKindSchema>, z.ZodType> = {
     thicknessMm: positive.max(60),
     hubCentric: z.boolean(),
     mounting: z.enum(['slip_on', 'bolt_on']),
+    material: z.enum(['aluminium', 'steel']),
     centreBoreMm: positive,
   }),
   line: z.looseObject({}),
@@ -311,16 +329,42 @@ function checkDataKeys(data: Shape, file: string) {
   };
   each(data.parts, [...keysOf(swapPartSchema), 'part'], 'data.parts');
   checkKeys(data.adapter, [...keysOf(adapterSchema), 'part'], 'data.adapter', file);
+  each(data.calipers, [...keysOf(caliperSchema), 'part'], 'data.calipers');
   each(data.rotors, [...keysOf(rotorSchema), 'part'], 'data.rotors');
   each(data.spacers, [...keysOf(spacerSchema), 'part'], 'data.spacers');
   each(data.shims, keysOf(shimSchema), 'data.shims');
+  checkKeys(data.centring, keysOf(centringSchema), 'data.centring', file);
   each(data.machining, keysOf(machiningStepSchema), 'data.machining');
+  each(data.fasteners, keysOf(fastenerSchema), 'data.fasteners');
   each(data.torque, keysOf(torqueSpecSchema), 'data.torque');
   each(data.costs, keysOf(costLineSchema), 'data.costs');
   checkKeys(data.wheel, keysOf(wheelRequirementSchema), 'data.wheel', file);
   if (isRecord(data.wheel)) each(data.wheel.testedWheels, keysOf(testedWheelSchema), 'data.wheel.testedWheels');
   checkKeys(data.brakes, keysOf(brakeFiguresSchema), 'data.brakes', file);
+  checkKeys(data.parkingBrake, keysOf(parkingBrakeSchema), 'data.parkingBrake', file);
 }
+
+type CaliperSpecs = {
+  pistonsPerSideMm: number[];
+  opposed: boolean;
+  mounting: 'axial' | 'radial';
+  mountSpacingMm: number;
+  mountThread: string;
+  padHeightMm: number;
+  designRotorDiameterMm: number;
+  designRotorThicknessMm: [number, number];
+};
+type RotorSpecs = {
+  diameterMm: number;
+  thicknessMm: number;
+  minThicknessMm: number;
+  vented: boolean;
+  directional: boolean;
+  hatHeightMm: number;
+  frictionRingInnerDiameterMm: number;
+  centreBoreMm: number;
+  drumInHatDiameterMm?: number;
+};
 
 /** Placeholder id while checking; the real catalogue id is set inside the transaction. */
 const PENDING_PART_ID = 1;
@@ -362,13 +406,47 @@ function resolveData(raw: Shape, parts: Map<string, Part>, file: string): { data
     const { part: _ref, ...rest } = raw.adapter;
     data.adapter = { name: adapter.name, maker: adapter.maker, partNumber: adapter.partNumbers[0], ...rest };
   }
+  if (Array.isArray(raw.calipers)) {
+    data.calipers = raw.calipers.map((c, i) => {
+      const part = lookup(c, 'caliper', `data.calipers[${i}]`);
+      if (!part || !isRecord(c)) return c;
+      const { part: _ref, ...rest } = c;
+      const s = part.specs as CaliperSpecs;
+      const sides = s.opposed ? (['inboard', 'outboard'] as const) : (['inboard'] as const);
+      return {
+        name: part.name,
+        type: s.opposed ? 'fixed' : 'floating',
+        pistons: sides.flatMap((side) => s.pistonsPerSideMm.map((diameterMm) => ({ diameterMm, side }))),
+        mount: { type: s.mounting, spacingMm: s.mountSpacingMm, thread: s.mountThread },
+        designRotor: {
+          diameterMm: s.designRotorDiameterMm,
+          thicknessMinMm: s.designRotorThicknessMm[0],
+          thicknessMaxMm: s.designRotorThicknessMm[1],
+        },
+        padHeightMm: s.padHeightMm,
+        ...rest,
+      };
+    });
+  }
   if (Array.isArray(raw.rotors)) {
     data.rotors = raw.rotors.map((r, i) => {
       const part = lookup(r, 'rotor', `data.rotors[${i}]`);
       if (!part || !isRecord(r)) return r;
       const { part: _ref, ...rest } = r;
-      const s = part.specs as { diameterMm: number; thicknessMm: number; vented: boolean };
-      return { diameterMm: s.diameterMm, thicknessMm: s.thicknessMm, vented: s.vented, partNumber: part.partNumbers[0], ...rest };
+      const s = part.specs as RotorSpecs;
+      return {
+        diameterMm: s.diameterMm,
+        thicknessMm: s.thicknessMm,
+        minThicknessMm: s.minThicknessMm,
+        hatHeightMm: s.hatHeightMm,
+        frictionRingInnerDiameterMm: s.frictionRingInnerDiameterMm,
+        centreBoreMm: s.centreBoreMm,
+        vented: s.vented,
+        directional: s.directional,
+        ...(s.drumInHatDiameterMm ? { parkingDrumDiameterMm: s.drumInHatDiameterMm } : {}),
+        partNumber: part.partNumbers[0],
+        ...rest,
+      };
     });
   }
   if (Array.isArray(raw.spacers)) {
@@ -376,8 +454,8 @@ function resolveData(raw: Shape, parts: Map<string, Part>, file: string): { data
       const part = lookup(sp, 'spacer', `data.spacers[${i}]`);
       if (!part || !isRecord(sp)) return sp;
       const { part: _ref, ...rest } = sp;
-      const s = part.specs as { thicknessMm: number; hubCentric: boolean; mounting: 'slip_on' | 'bolt_on' };
-      return { thicknessMm: s.thicknessMm, hubCentric: s.hubCentric, mounting: s.mounting, ...rest };
+      const s = part.specs as { thicknessMm: number; hubCentric: boolean; mounting: 'slip_on' | 'bolt_on'; material: string };
+      return { thicknessMm: s.thicknessMm, hubCentric: s.hubCentric, mounting: s.mounting, material: s.material, ...rest };
     });
   }
   const parsed = swapDataSchema.safeParse(data);

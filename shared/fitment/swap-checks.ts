@@ -1,14 +1,27 @@
-import type { SwapData } from '../schemas/swap-data';
-import type { Axle } from '../schemas/enums';
-import { radialClearance, spokeClearance, maxRotorRuleOfThumbMm, MAX_ROTOR_RULE, type ClearanceResult } from './clearance';
+import { isStructural, rotorsOn, type BrakeCorner, type Caliper, type SwapData, type WheelOutcome } from '../schemas/swap-data';
+import type { Axle, Category } from '../schemas/enums';
+import {
+  radialClearance,
+  spokeClearance,
+  maxRotorRuleOfThumbMm,
+  MAX_ROTOR_RULE,
+  MIN_CLEARANCE_MM,
+  RADIAL_CLEARANCE_RULE,
+  SPOKE_CLEARANCE_RULE,
+} from './clearance';
 import { spacerEffect, type SpacerEffect } from './wheel';
 import { parseMetricThread, threadEngagement, type ThreadEngagement } from './threads';
-import { brakeTorqueNm, frontShare, balanceShift } from './brakes';
 import { routeTotals, savingsAgainstNewKit } from './costs';
+import { brakeTorqueNm } from './brakes';
 import { MM_PER_IN } from './units';
 
 // The checks a swap sheet, the submission form and the review desk run on one swap record.
 // They combine the single-purpose functions beside this file with the record's own measurements.
+//
+// Verdict rule: only a figure measured on the reader's own wheel (or in the record, on the wheel it
+// names) is held against a rule and gets a pass or fail. A figure carried over from another wheel or
+// from a rule of thumb is an estimate: it says so, names its basis, errs towards less clearance and
+// carries no verdict.
 
 export type WheelUnderTest = {
   diameterIn: number;
@@ -23,16 +36,25 @@ export type WheelUnderTest = {
   seatThicknessMm?: number;
 };
 
-export type Estimated<T> = T & { basis: 'measured' | 'estimated'; basisNote: string };
+export type MeasuredFigure = {
+  basis: 'measured';
+  clearanceMm: number;
+  marginMm: number;
+  ok: boolean;
+  rule: string;
+  basisNote: string;
+};
+export type EstimatedFigure = { basis: 'estimated'; clearanceMm: number; basisNote: string };
+export type ClearanceFigure = MeasuredFigure | EstimatedFigure;
 
 export type WheelCheck = {
   minDiameter: { ok: boolean; requiredIn: number; givenIn: number; rule: string } | null;
-  radial: Estimated<ClearanceResult> | null;
-  spoke: Estimated<ClearanceResult> | null;
+  radial: ClearanceFigure | null;
+  spoke: ClearanceFigure | null;
   offset: SpacerEffect;
   engagement: ThreadEngagement | null;
   boltNote: string;
-  /** rule of thumb, never a hard verdict */
+  /** rule of thumb, never a verdict */
   maxRotor: { maxRotorMm: number; rotorMm: number; withinRule: boolean; rule: string } | null;
   spacerNote: string | null;
 };
@@ -41,40 +63,81 @@ export type WheelCheck = {
 export const BARREL_ALLOWANCE_MM = 28;
 export const BOLT_ON_SPACER_FROM_MM = 20;
 
+const round1 = (x: number) => Math.round(x * 10) / 10;
+
+/** The rotor diameter on one axle: the record's rotors on that axle, else the after-swap brake figures. */
 export function rotorDiameterOf(data: SwapData, axle: Axle): number | null {
-  if (data.rotors.length > 0) return Math.max(...data.rotors.map((r) => r.diameterMm));
-  return data.brakes?.after[axle].rotorDiameterMm ?? null;
+  const own = rotorsOn(data, axle);
+  if (own.length > 0) return Math.max(...own.map((r) => r.diameterMm));
+  const corner = data.brakes?.after[axle];
+  return corner?.kind === 'disc' ? corner.rotorDiameterMm : null;
 }
 
-function estimateBarrel(data: SwapData, wheel: WheelUnderTest): { mm: number; note: string } {
-  const req = data.wheel;
-  if (req?.barrelInnerDiameterMm) {
-    const mm = req.barrelInnerDiameterMm + (wheel.diameterIn - req.minDiameterIn) * MM_PER_IN;
-    return {
-      mm,
-      note: `Estimated from the barrel measured on a ${req.minDiameterIn}″ wheel in this record; measure yours to be sure.`,
-    };
+function measured(result: { clearanceMm: number; marginMm: number; ok: boolean; rule: string }, basisNote: string): MeasuredFigure {
+  return { basis: 'measured', ...result, basisNote };
+}
+
+/** The smallest of several estimates, with the basis of the one chosen. */
+function leastOf(candidates: { mm: number; note: string }[]): { mm: number; note: string } | null {
+  if (candidates.length === 0) return null;
+  return candidates.reduce((least, c) => (c.mm < least.mm ? c : least));
+}
+
+function radialEstimate(data: SwapData, rotorMm: number, wheel: WheelUnderTest): EstimatedFigure | null {
+  const req = data.wheel!;
+  const fromBarrel = (barrelMm: number) => barrelMm / 2 - (rotorMm / 2 + req.caliperRadialProjectionMm);
+  const candidates: { mm: number; note: string }[] = [
+    {
+      mm: fromBarrel(wheel.diameterIn * MM_PER_IN - BARREL_ALLOWANCE_MM),
+      note: `a barrel ${BARREL_ALLOWANCE_MM} mm inside the nominal ${wheel.diameterIn}″ diameter (common practice, no source)`,
+    },
+  ];
+  if (req.barrelInnerDiameterMm) {
+    candidates.push({
+      mm: fromBarrel(req.barrelInnerDiameterMm + (wheel.diameterIn - req.minDiameterIn) * MM_PER_IN),
+      note: `the barrel measured on the record's ${req.minDiameterIn}″ wheel, scaled to ${wheel.diameterIn}″`,
+    });
   }
+  for (const t of req.testedWheels) {
+    if (t.diameterIn === wheel.diameterIn && t.radialClearanceMm !== undefined) {
+      candidates.push({
+        mm: t.radialClearanceMm,
+        note: `the ${t.diameterIn}×${t.widthIn} ET${t.offsetMm} wheel measured in this record`,
+      });
+    }
+  }
+  const least = leastOf(candidates)!;
   return {
-    mm: wheel.diameterIn * MM_PER_IN - BARREL_ALLOWANCE_MM,
-    note: `Estimated as nominal diameter − ${BARREL_ALLOWANCE_MM} mm (common practice, no source); measure your barrel to be sure.`,
+    basis: 'estimated',
+    clearanceMm: least.mm,
+    basisNote: `Estimate, the least of ${candidates.length} ${candidates.length === 1 ? 'basis' : 'bases'}: ${least.note}. Barrels differ between wheels of one size; measure yours for a verdict.`,
   };
 }
 
-function estimateSpokeInset(data: SwapData, wheel: WheelUnderTest): { mm: number; note: string } | null {
-  const req = data.wheel;
-  if (!req) return null;
-  const known = req.testedWheels.filter((t) => t.spokeClearanceMm !== undefined);
-  if (known.length === 0) return null;
-  const ref = known.reduce((best, t) =>
-    Math.abs(t.diameterIn - wheel.diameterIn) < Math.abs(best.diameterIn - wheel.diameterIn) ? t : best,
-  );
-  const refInset = ref.spokeClearanceMm! + req.caliperOutboardMm - ref.spacerMm;
-  // same spoke depth behind the outer rim edge; the edge sits at width/2 − ET from the mounting face
-  const mm = refInset + (ref.offsetMm - wheel.offsetMm) + ((wheel.widthIn - ref.widthIn) * MM_PER_IN) / 2;
+function spokeEstimate(data: SwapData, wheel: WheelUnderTest): EstimatedFigure | null {
+  const req = data.wheel!;
+  const refs = req.testedWheels.filter((t) => t.spokeClearanceMm !== undefined);
+  if (refs.length === 0) return null;
+  const nearest = Math.min(...refs.map((t) => Math.abs(t.diameterIn - wheel.diameterIn)));
+  const candidates = refs
+    .filter((t) => Math.abs(t.diameterIn - wheel.diameterIn) === nearest)
+    .map((ref) => {
+      // the reference wheel's spoke face, from its mounting face
+      const refInsetMm = ref.spokeClearanceMm! + req.caliperOutboardMm - ref.spacerMm;
+      // a lower offset or a wider rim moves the outer rim edge outboard, but the spokes need not follow:
+      // only a change that brings them closer is carried over, so the estimate never gains room
+      const rimEdgeShiftMm = ref.offsetMm - wheel.offsetMm + ((wheel.widthIn - ref.widthIn) * MM_PER_IN) / 2;
+      const insetMm = refInsetMm + Math.min(0, rimEdgeShiftMm);
+      return {
+        mm: insetMm + wheel.spacerMm - req.caliperOutboardMm,
+        note: `the spokes of the ${ref.diameterIn}×${ref.widthIn} ET${ref.offsetMm} wheel measured in this record${rimEdgeShiftMm < 0 ? `, moved ${round1(-rimEdgeShiftMm)} mm closer for your wheel's offset and width` : ', with no credit for your wheel’s lower offset or width'}`,
+      };
+    });
+  const least = leastOf(candidates)!;
   return {
-    mm,
-    note: `Estimated from the tested ${ref.diameterIn}×${ref.widthIn} ET${ref.offsetMm} wheel, assuming the same spoke depth; spoke shapes differ, so measure yours.`,
+    basis: 'estimated',
+    clearanceMm: least.mm,
+    basisNote: `Estimate from ${least.note}. Spoke shapes differ between wheels; measure yours for a verdict.`,
   };
 }
 
@@ -85,33 +148,27 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: s
 
   let radial: WheelCheck['radial'] = null;
   if (req && rotorMm) {
-    const barrel = wheel.barrelInnerDiameterMm
-      ? { mm: wheel.barrelInnerDiameterMm, note: 'From your measured barrel.' }
-      : estimateBarrel(data, wheel);
-    radial = {
-      ...radialClearance({
-        barrelInnerDiameterMm: barrel.mm,
-        rotorDiameterMm: rotorMm,
-        caliperRadialProjectionMm: req.caliperRadialProjectionMm,
-      }),
-      basis: wheel.barrelInnerDiameterMm ? 'measured' : 'estimated',
-      basisNote: barrel.note,
-    };
+    radial = wheel.barrelInnerDiameterMm
+      ? measured(
+          radialClearance({
+            barrelInnerDiameterMm: wheel.barrelInnerDiameterMm,
+            rotorDiameterMm: rotorMm,
+            caliperRadialProjectionMm: req.caliperRadialProjectionMm,
+          }),
+          'From the barrel you measured and the caliper measured in this record.',
+        )
+      : radialEstimate(data, rotorMm, wheel);
   }
 
   let spoke: WheelCheck['spoke'] = null;
   if (req) {
-    const inset =
+    spoke =
       wheel.spokeInsetMm !== undefined
-        ? { mm: wheel.spokeInsetMm, note: 'From your measured spoke inset.' }
-        : estimateSpokeInset(data, wheel);
-    if (inset) {
-      spoke = {
-        ...spokeClearance({ spokeInsetMm: inset.mm, caliperOutboardMm: req.caliperOutboardMm, spacerMm: wheel.spacerMm }),
-        basis: wheel.spokeInsetMm !== undefined ? 'measured' : 'estimated',
-        basisNote: inset.note,
-      };
-    }
+        ? measured(
+            spokeClearance({ spokeInsetMm: wheel.spokeInsetMm, caliperOutboardMm: req.caliperOutboardMm, spacerMm: wheel.spacerMm }),
+            'From the spoke inset you measured and the caliper measured in this record.',
+          )
+        : spokeEstimate(data, wheel);
   }
 
   let engagement: ThreadEngagement | null = null;
@@ -165,6 +222,117 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: s
   };
 }
 
+// ---------- the record's own tested wheels ----------
+
+export type TestedWheelVerdict = {
+  index: number;
+  label: string;
+  outcome: WheelOutcome;
+  /** measured figures held against the 3 mm rule of thumb */
+  figures: { where: 'barrel' | 'spokes'; clearanceMm: number; marginMm: number; ok: boolean; rule: string }[];
+  /** the outcome the author gave disagrees with what was measured */
+  contradiction: string | null;
+};
+
+/** Each tested wheel's measured figures against the rule, and whether the stated outcome agrees with them. */
+export function testedWheelVerdicts(data: SwapData): TestedWheelVerdict[] {
+  return (data.wheel?.testedWheels ?? []).map((t, index) => {
+    const figures: TestedWheelVerdict['figures'] = [];
+    const add = (where: 'barrel' | 'spokes', mm: number | undefined, rule: string) => {
+      if (mm === undefined) return;
+      const marginMm = mm - MIN_CLEARANCE_MM;
+      figures.push({ where, clearanceMm: mm, marginMm, ok: marginMm >= -1e-9, rule });
+    };
+    add('barrel', t.radialClearanceMm, RADIAL_CLEARANCE_RULE);
+    add('spokes', t.spokeClearanceMm, SPOKE_CLEARANCE_RULE);
+    const overlap = figures.find((f) => f.clearanceMm < 0);
+    const contradiction =
+      t.outcome !== 'does_not_fit' && overlap
+        ? `marked as fitting, but the ${overlap.where} overlap the caliper by ${round1(-overlap.clearanceMm)} mm`
+        : null;
+    return {
+      index,
+      label: `${t.diameterIn}×${t.widthIn} ET${t.offsetMm}${t.spacerMm ? ` + ${t.spacerMm} mm spacer` : ''}`,
+      outcome: t.outcome,
+      figures,
+      contradiction,
+    };
+  });
+}
+
+// ---------- brake balance ----------
+
+/**
+ * The pistons that press one pad: all of a floating caliper's; one side of a fixed caliper's (the
+ * smaller side when they differ, since the pads see the same pressure on equal areas).
+ */
+export function pistonsPerSideOf(caliper: Pick<Caliper, 'type' | 'pistons'>): number[] {
+  const inboard = caliper.pistons.filter((p) => p.side === 'inboard').map((p) => p.diameterMm);
+  if (caliper.type === 'floating') return caliper.pistons.map((p) => p.diameterMm);
+  const outboard = caliper.pistons.filter((p) => p.side === 'outboard').map((p) => p.diameterMm);
+  const area = (ds: number[]) => ds.reduce((a, d) => a + d * d, 0);
+  return area(outboard) < area(inboard) ? outboard : inboard;
+}
+
+export type BalanceDirection = 'forward' | 'rearward' | 'unchanged';
+export type BalanceSeverity = 'none' | 'advisory' | 'hazard';
+
+export type BalanceShift = {
+  direction: BalanceDirection;
+  severity: BalanceSeverity;
+  /** one sentence: which way the front share moved and by how much */
+  headline: string;
+  /** what that risks, in the right direction */
+  risk: string;
+  /** the thresholds applied */
+  rule: string;
+};
+
+/** a move of less than this is within the rounding of the figures */
+export const BALANCE_UNCHANGED_POINTS = 0.5;
+/** a forward move beyond this under-uses the rear brakes enough to mention */
+export const BALANCE_FORWARD_ADVISORY_POINTS = 5;
+/** a rearward move of this much or more is a hazard to check before driving */
+export const BALANCE_REARWARD_HAZARD_POINTS = 2;
+
+export const BALANCE_RULE = `A rearward move of ${BALANCE_REARWARD_HAZARD_POINTS} points or more is treated as a hazard and a forward move beyond ${BALANCE_FORWARD_ADVISORY_POINTS} points as advisory (common practice, no source); fronts locking first is the stable order, which brake regulations require of passenger cars.`;
+
+const pct = (share: number) => `${(Math.round(share * 1000) / 10).toFixed(1)} %`;
+
+/**
+ * What a change of the front share of braking means. Used by the sheet, the calculator and the review
+ * desk so all three say the same thing about the same figures.
+ */
+export function describeBalanceShift(frontShareBefore: number, frontShareAfter: number): BalanceShift {
+  const points = (frontShareAfter - frontShareBefore) * 100;
+  const shown = `front share ${pct(frontShareBefore)} → ${pct(frontShareAfter)} (${points >= 0 ? '+' : '−'}${Math.abs(round1(points)).toFixed(1)} points)`;
+  if (Math.abs(points) < BALANCE_UNCHANGED_POINTS) {
+    return {
+      direction: 'unchanged',
+      severity: 'none',
+      headline: `Balance unchanged: ${shown}.`,
+      risk: 'The front and rear brakes keep the share of the work they had.',
+      rule: BALANCE_RULE,
+    };
+  }
+  if (points < 0) {
+    return {
+      direction: 'rearward',
+      severity: -points >= BALANCE_REARWARD_HAZARD_POINTS ? 'hazard' : 'advisory',
+      headline: `Balance moves toward the rear: ${shown}.`,
+      risk: 'The rear brakes now do more of the work, so the rear wheels reach their grip sooner. If the rears lock before the fronts the car can turn sideways and spin. Check which axle locks first for your car, and keep or fit a rear proportioning valve, or keep the stock rear pads.',
+      rule: BALANCE_RULE,
+    };
+  }
+  return {
+    direction: 'forward',
+    severity: points > BALANCE_FORWARD_ADVISORY_POINTS ? 'advisory' : 'none',
+    headline: `Balance moves toward the front: ${shown}.`,
+    risk: 'The front brakes now do more of the work. The fronts still lock first, which is the stable order, but the rear brakes are under-used, so a stop at the limit of grip is longer than the brakes together could give. A matching rear upgrade restores the balance.',
+    rule: BALANCE_RULE,
+  };
+}
+
 export type BrakeBalance = {
   linePressureBar: number;
   padMu: number;
@@ -172,36 +340,69 @@ export type BrakeBalance = {
   frontShareBefore: number;
   frontShareAfter: number;
   shiftPoints: number;
-  /** a front share moving more than this many points deserves a reviewer's attention */
-  attention: boolean;
+  shift: BalanceShift;
 };
 
-export const BALANCE_ATTENTION_POINTS = 5;
+function cornerTorqueNm(corner: BrakeCorner, padMu: number, linePressureBar: number): number | null {
+  if (corner.kind !== 'disc') return null;
+  return brakeTorqueNm({ ...corner, padMu, linePressureBar });
+}
 
+/** Front share of brake torque at equal line pressure, before and after the swap, and what the change means. */
 export function brakeBalanceOf(data: SwapData): BrakeBalance | null {
   const b = data.brakes;
   if (!b) return null;
-  const withMu = <T extends object>(c: T) => ({ ...c, padMu: b.padMu });
-  const torque = (c: (typeof b)['before']['front']) =>
-    brakeTorqueNm({ ...c, padMu: b.padMu, linePressureBar: b.linePressureBar });
-  const before = { front: withMu(b.before.front), rear: withMu(b.before.rear) };
-  const after = { front: withMu(b.after.front), rear: withMu(b.after.rear) };
-  const shift = balanceShift(before, after);
+  const torque = (c: BrakeCorner) => cornerTorqueNm(c, b.padMu, b.linePressureBar);
+  const t = {
+    before: { front: torque(b.before.front), rear: torque(b.before.rear) },
+    after: { front: torque(b.after.front), rear: torque(b.after.rear) },
+  };
+  if ([t.before.front, t.before.rear, t.after.front, t.after.rear].some((x) => x === null)) return null;
+  const torqueNm = t as BrakeBalance['torqueNm'];
+  const share = (x: { front: number; rear: number }) => x.front / (x.front + x.rear);
+  const frontShareBefore = share(torqueNm.before);
+  const frontShareAfter = share(torqueNm.after);
   return {
     linePressureBar: b.linePressureBar,
     padMu: b.padMu,
-    torqueNm: {
-      before: { front: torque(b.before.front), rear: torque(b.before.rear) },
-      after: { front: torque(b.after.front), rear: torque(b.after.rear) },
-    },
-    frontShareBefore: frontShare(before.front, before.rear, b.linePressureBar),
-    frontShareAfter: frontShare(after.front, after.rear, b.linePressureBar),
-    shiftPoints: shift,
-    attention: Math.abs(shift) > BALANCE_ATTENTION_POINTS,
+    torqueNm,
+    frontShareBefore,
+    frontShareAfter,
+    shiftPoints: (frontShareAfter - frontShareBefore) * 100,
+    shift: describeBalanceShift(frontShareBefore, frontShareAfter),
   };
 }
+
+// ---------- costs ----------
 
 export function costSummaryOf(data: SwapData) {
   const totals = routeTotals(data.costs);
   return { totals, savings: savingsAgainstNewKit(totals), currency: data.currency };
+}
+
+// ---------- what the job touches ----------
+
+export type JobTouches = { brakes: boolean; wheelFastening: boolean; structural: boolean; suspension: boolean };
+
+const brakeKinds = new Set(['caliper', 'rotor', 'pad', 'adapter', 'shim', 'line']);
+const brakeFasteners = new Set(['caliper_mount', 'bracket_mount', 'guide_pin', 'banjo', 'bleed_screw', 'rotor_screw']);
+
+/** Which cautions a record needs, from what the job touches rather than from its category. */
+export function jobTouches(data: SwapData, category?: Category): JobTouches {
+  return {
+    brakes:
+      category === 'brakes' ||
+      data.parts.some((p) => brakeKinds.has(p.kind)) ||
+      data.calipers.length > 0 ||
+      data.rotors.length > 0 ||
+      data.fasteners.some((f) => brakeFasteners.has(f.kind)) ||
+      data.machining.some((m) => m.component === 'caliper_body' || m.component === 'bracket'),
+    wheelFastening:
+      category === 'wheels_tyres' ||
+      data.spacers.length > 0 ||
+      data.parts.some((p) => p.kind === 'spacer') ||
+      data.fasteners.some((f) => f.kind === 'wheel' || f.kind === 'spacer_mount'),
+    structural: data.machining.some(isStructural),
+    suspension: category === 'suspension' || data.fasteners.some((f) => f.kind === 'suspension'),
+  };
 }

@@ -41,12 +41,13 @@ export const revisionStatusLabels: Record<RevisionStatus, string> = {
 };
 
 export const machiningOperations = ['grind', 'machine', 'drill', 'trim'] as const;
-export const machiningLevels = ['none', 'minor', 'major'] as const;
+export const machiningLevels = ['none', 'minor', 'major', 'structural'] as const;
 export type MachiningLevel = (typeof machiningLevels)[number];
 export const machiningLevelLabels: Record<MachiningLevel, string> = {
   none: 'No machining',
   minor: 'Minor machining',
   major: 'Major machining',
+  structural: 'Structural work',
 };
 
 export const unitSystems = ['metric', 'imperial'] as const;

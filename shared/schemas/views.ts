@@ -1,18 +1,13 @@
 import type { Axle, Category, RevisionStatus } from './enums';
-import type { SwapData } from './swap-data';
+import type { BrakeCorner, SwapData } from './swap-data';
 import type { Role } from '../roles';
 
 // Shapes of what the read API returns. The server builds them; the client types its queries with them.
 
 export type PersonRef = { login: string; name: string; avatarUrl: string | null };
 
-export type StockBrakeCornerView = {
-  kind: 'disc' | 'drum';
-  pistonsPerSideMm: number[];
-  rotorDiameterMm: number;
-  padHeightMm: number;
-  description: string;
-};
+/** a chassis' factory brake corner, disc or drum, with a sentence describing it */
+export type StockBrakeCornerView = BrakeCorner & { description: string };
 
 export type ChassisView = {
   id: number;

@@ -78,7 +78,7 @@ export function toSearchDocument(s: SearchDocumentSource): SearchDocument {
     adapter: data.adapter ? { name: data.adapter.name, maker: data.adapter.maker, partNumber: data.adapter.partNumber } : null,
     minWheelIn: data.wheel?.minDiameterIn ?? null,
     machining: machiningLevel(data.machining),
-    parkingBrakeKept: data.parkingBrakeKept,
+    parkingBrakeKept: data.parkingBrake?.kept ?? null,
     cost: totals.length ? { min: Math.min(...totals), max: Math.max(...totals), currency: data.currency } : null,
     fittedCount: s.fittedCount,
     updatedAt: s.approvedAt.toISOString(),

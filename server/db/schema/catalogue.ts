@@ -1,6 +1,7 @@
 import { sqliteTable, text, integer, real, index } from 'drizzle-orm/sqlite-core';
 import { timestamps } from './columns';
 import { partKinds } from '../../../shared/schemas/enums';
+import type { StockBrakeCornerView } from '../../../shared/schemas/views';
 
 export const chassis = sqliteTable('chassis', {
   id: integer('id').primaryKey({ autoIncrement: true }),
@@ -17,7 +18,7 @@ export const chassis = sqliteTable('chassis', {
   wheelBoltThread: text('wheel_bolt_thread').notNull(),
   /** { diameterIn, widthIn, offsetMm, tyre } */
   stockWheel: text('stock_wheel', { mode: 'json' }).$type<StockWheel>().notNull(),
-  /** { front: BrakeCorner & { rotorThicknessMm, kind }, rear: … } */
+  /** { front: BrakeCorner & { description }, rear: … } */
   stockBrakes: text('stock_brakes', { mode: 'json' }).$type<StockBrakes>().notNull(),
   notes: text('notes').notNull().default(''),
   /** proposed with a submission and not yet approved */
@@ -26,13 +27,7 @@ export const chassis = sqliteTable('chassis', {
 });
 
 export type StockWheel = { diameterIn: number; widthIn: number; offsetMm: number; tyre: string };
-export type StockBrakeCorner = {
-  kind: 'disc' | 'drum';
-  pistonsPerSideMm: number[];
-  rotorDiameterMm: number;
-  padHeightMm: number;
-  description: string;
-};
+export type StockBrakeCorner = StockBrakeCornerView;
 export type StockBrakes = { front: StockBrakeCorner; rear: StockBrakeCorner };
 
 export const parts = sqliteTable(

@@ -1,10 +1,18 @@
 import { sql } from 'drizzle-orm';
-import { sqliteTable, text, integer, index, uniqueIndex, type AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
+import { sqliteTable, text, integer, index, uniqueIndex, customType, type AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
 import { timestamp, timestamps } from './columns';
 import { users } from './users';
 import { chassis } from './catalogue';
 import { axles, categories, revisionStatuses } from '../../../shared/schemas/enums';
 import type { SwapData } from '../../../shared/schemas/swap-data';
+import { upgradeSwapData } from '../../../shared/schemas/swap-data-upgrade';
+
+/** JSON text; data written before version 2 is upgraded as it is read, so every reader sees version 2 */
+const swapDataColumn = customType<{ data: SwapData; driverData: string }>({
+  dataType: () => 'text',
+  toDriver: (value) => JSON.stringify(value),
+  fromDriver: (value) => upgradeSwapData(JSON.parse(value)),
+});
 
 export const swaps = sqliteTable(
   'swaps',
@@ -40,7 +48,7 @@ export const revisions = sqliteTable(
       .references(() => users.id),
     status: text('status', { enum: revisionStatuses }).notNull().default('draft'),
     /** validated by swapDataSchema */
-    data: text('data', { mode: 'json' }).$type<SwapData>().notNull(),
+    data: swapDataColumn('data').notNull(),
     /** markdown, raw HTML already stripped */
     body: text('body').notNull().default(''),
     submittedAt: timestamp('submitted_at'),

@@ -98,16 +98,10 @@ function chassisValues(input: NewChassis, data: SwapData) {
     tyre: '',
   };
   const before = data.brakes?.before;
-  const corner = (c: NonNullable<typeof before>['front'] | undefined) =>
+  const corner = (c: NonNullable<typeof before>['front'] | undefined): StockBrakes['front'] =>
     c
-      ? {
-          kind: 'disc' as const,
-          pistonsPerSideMm: c.pistonsPerSideMm,
-          rotorDiameterMm: c.rotorDiameterMm,
-          padHeightMm: c.padHeightMm,
-          description: 'From the brake figures of the submission that proposed this chassis.',
-        }
-      : { kind: 'disc' as const, pistonsPerSideMm: [], rotorDiameterMm: 0, padHeightMm: 0, description: 'Not given yet.' };
+      ? { ...c, description: 'From the brake figures of the submission that proposed this chassis.' }
+      : { kind: 'disc', pistonsPerSideMm: [], rotorDiameterMm: 0, padHeightMm: 0, description: 'Not given yet.' };
   const stockBrakes: StockBrakes = { front: corner(before?.front), rear: corner(before?.rear) };
   const gaps = [
     input.stockWheel ? null : 'stock wheel taken from the submission',
