@@ -222,6 +222,33 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: s
   };
 }
 
+export type WheelCheckSummary = { tone: 'pass' | 'fail' | 'open'; text: string; leastClearanceMm?: number };
+
+/** The one line above the wheel check: a failure from a measurement, a pass only when everything was measured. */
+export function wheelCheckSummary(check: WheelCheck): WheelCheckSummary {
+  const fails: string[] = [];
+  if (check.minDiameter && !check.minDiameter.ok) fails.push(`the wheel is below the ${check.minDiameter.requiredIn}″ minimum`);
+  if (check.radial?.basis === 'measured' && !check.radial.ok) fails.push('too little room at the barrel');
+  if (check.spoke?.basis === 'measured' && !check.spoke.ok) fails.push('too little room at the spokes');
+  if (check.engagement && !check.engagement.ok) fails.push('too little thread on the wheel bolts');
+  if (fails.length > 0) return { tone: 'fail', text: `Does not fit as entered: ${fails.join('; ')}.` };
+  const figures = [check.radial, check.spoke].filter((f): f is ClearanceFigure => f !== null);
+  const estimated = figures.filter((f) => f.basis === 'estimated');
+  if (figures.length > 0 && estimated.length === 0) {
+    const least = Math.min(...figures.map((f) => f.clearanceMm));
+    return { tone: 'pass', text: 'Clears by your measurements.', leastClearanceMm: least };
+  }
+  if (estimated.some((f) => f.clearanceMm < MIN_CLEARANCE_MM))
+    return {
+      tone: 'open',
+      text: 'Not settled, and the estimates are tight or overlapping: measure your barrel and spokes before buying anything.',
+    };
+  return {
+    tone: 'open',
+    text: 'Not settled: the clearances below are estimates from other wheels. Measure your barrel and spokes for a verdict.',
+  };
+}
+
 // ---------- the record's own tested wheels ----------
 
 export type TestedWheelVerdict = {

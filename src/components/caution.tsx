@@ -1,6 +1,8 @@
 import type { ReactNode } from 'react';
 
-export type CautionTopic = 'brakes' | 'wheels' | 'fasteners';
+import type { JobTouches } from '@shared/fitment/swap-checks';
+
+export type CautionTopic = 'brakes' | 'wheels' | 'fasteners' | 'structural' | 'suspension';
 
 const lines: Record<CautionTopic, string[]> = {
   brakes: [
@@ -14,7 +16,22 @@ const lines: Record<CautionTopic, string[]> = {
   fasteners: [
     'Torque every fastener to the manufacturer’s value, wheel bolts in a star pattern, and re-check after the first drive.',
   ],
+  structural: [
+    'This job cuts, grinds or drills a part that carries braking or suspension loads. Remove no more than the record says, check for cracks, protect bare metal, and have the part inspected before the car moves.',
+  ],
+  suspension: ['Tighten suspension bushes and links with the car on its wheels, and have the alignment checked afterwards.'],
 };
+
+/** The cautions a record needs, from what its job touches (not from its category). */
+export function cautionTopicsOf(t: JobTouches): CautionTopic[] {
+  const topics: CautionTopic[] = [];
+  if (t.brakes) topics.push('brakes');
+  if (t.wheelFastening) topics.push('wheels');
+  if (t.structural) topics.push('structural');
+  if (t.suspension) topics.push('suspension');
+  topics.push('fasteners');
+  return topics;
+}
 
 /** The safety block shown wherever brakes, wheels or fasteners are concerned. */
 export function Caution({

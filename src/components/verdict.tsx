@@ -1,4 +1,6 @@
 import type { ReactNode } from 'react';
+import type { ClearanceFigure } from '@shared/fitment/swap-checks';
+import { useUnits } from '../lib/units';
 
 export type VerdictProps = {
   label: string;
@@ -44,5 +46,40 @@ export function Figure({ label, value, note }: { label: string; value: ReactNode
       <p className="tabular mt-1 text-xl font-extrabold text-graphite">{value}</p>
       {note && <p className="mt-1 text-xs text-graphite-soft">{note}</p>}
     </div>
+  );
+}
+
+/**
+ * A figure carried over from another wheel or a rule of thumb: it names its basis and carries no
+ * pass or fail, so nobody takes it for a measurement.
+ */
+export function Estimate({ label, value, basis }: { label: string; value: ReactNode; basis: ReactNode }) {
+  return (
+    <div className="rounded-lg border border-dashed border-graphite/40 bg-paper p-3" data-verdict="estimate">
+      <div className="flex items-baseline justify-between gap-3">
+        <p className="text-sm font-bold text-graphite">{label}</p>
+        <p className="text-xs font-extrabold uppercase tracking-wide text-graphite-soft">
+          <span aria-hidden>≈ </span>Estimate
+        </p>
+      </div>
+      <p className="tabular mt-1 text-xl font-extrabold text-graphite-soft">≈ {value}</p>
+      <p className="mt-1 text-sm text-graphite-soft">{basis}</p>
+    </div>
+  );
+}
+
+/** A measured clearance gets a verdict against its rule; an estimate shows its basis and none. */
+export function ClearanceCard({ label, figure }: { label: string; figure: ClearanceFigure }) {
+  const units = useUnits();
+  if (figure.basis === 'estimated') return <Estimate label={label} value={units.length(figure.clearanceMm)} basis={figure.basisNote} />;
+  return (
+    <Verdict
+      label={label}
+      ok={figure.ok}
+      value={units.length(figure.clearanceMm)}
+      margin={`${figure.marginMm >= 0 ? '+' : '−'}${units.length(Math.abs(figure.marginMm))}`}
+      rule={figure.rule}
+      note={figure.basisNote}
+    />
   );
 }

@@ -15,7 +15,7 @@ let chassisId: number;
 
 /** what the index needs to show: machining (minor), two cost routes, no parking brake on the front axle */
 const indexed = {
-  machining: [{ operation: 'grind' as const, where: 'Knuckle casting edge', required: true }],
+  machining: [{ component: 'dust_shield' as const, operation: 'trim' as const, where: 'Dust shield edge', required: true }],
   costs: [
     { route: 'as_built' as const, item: 'Used calipers', amountMinor: 32000 },
     { route: 'as_built' as const, item: 'Brackets', amountMinor: 14000 },

@@ -164,7 +164,7 @@ describe('following a shop link', () => {
     approveNewRevision(
       t.db,
       swap.swapId,
-      { ...rev1, installHours: 8, torque: [{ fastener: 'Caliper bracket bolts', nm: 95, notes: '' }] },
+      { ...rev1, installHours: 8, torque: [{ ...rev1.torque[0], nm: 95 }] },
       authorId,
       'Bleed twice. Re-torque after 50 km.',
     );

@@ -68,6 +68,7 @@ export function addPart(db: Db, slug: string, extra: Partial<typeof parts.$infer
 /** A complete front-brake record that passes every automatic check once it has a photo. */
 export function swapRecord(extra: Partial<SwapDataInput> = {}): SwapDataInput {
   return {
+    schemaVersion: 2,
     title: 'Vela four-piston calipers on 330 mm rotors',
     summary: 'Bolt-on with a bracket and a 10 mm spacer.',
     parts: [
@@ -87,12 +88,21 @@ export function swapRecord(extra: Partial<SwapDataInput> = {}): SwapDataInput {
       partNumber: 'NF-H31-VB',
       hardwareIncluded: ['M12 caliper bolts, 4'],
     },
-    rotors: [{ diameterMm: 330, thicknessMm: 28, vented: true }],
-    torque: [
-      { fastener: 'Caliper to bracket M12 bolts', nm: 85 },
-      { fastener: 'Adapter bracket to knuckle', nm: 110 },
+    rotors: [{ axle: 'front', diameterMm: 330, thicknessMm: 28, vented: true }],
+    fasteners: [
+      { id: 'caliper-bolts', kind: 'caliper_mount', label: 'Caliper to bracket', thread: 'M12x1.5' },
+      { id: 'bracket-bolts', kind: 'bracket_mount', label: 'Bracket to knuckle', thread: 'M12x1.5' },
     ],
-    wheel: { minDiameterIn: 16, caliperRadialProjectionMm: 12, caliperOutboardMm: 30 },
+    torque: [
+      { fastenerId: 'caliper-bolts', nm: 85 },
+      { fastenerId: 'bracket-bolts', nm: 110 },
+    ],
+    wheel: {
+      minDiameterIn: 16,
+      caliperRadialProjectionMm: 12,
+      caliperOutboardMm: 30,
+      testedWheels: [{ diameterIn: 16, widthIn: 7, offsetMm: 38, outcome: 'fits', radialClearanceMm: 6, spokeClearanceMm: 5 }],
+    },
     costs: [
       { route: 'as_built', item: 'Used calipers', amountMinor: 32000 },
       { route: 'new_kit', item: 'Complete kit', amountMinor: 98000 },

@@ -2,12 +2,13 @@ import { eq } from 'drizzle-orm';
 import type { Db } from '../../../server/db/client';
 import { revisions, swaps } from '../../../server/db/schema/index';
 import { swapDataSchema, type SwapDataInput } from '../../../shared/schemas/swap-data';
-import type { RevisionStatus } from '../../../shared/schemas/enums';
+import type { Axle, RevisionStatus } from '../../../shared/schemas/enums';
 
 // Rows for tests that need approved swaps without going through the review desk.
 
 export function swapData(title: string, extra: Partial<SwapDataInput> = {}) {
   return swapDataSchema.parse({
+    schemaVersion: 2,
     title,
     parts: [
       {
@@ -29,14 +30,17 @@ export function swapData(title: string, extra: Partial<SwapDataInput> = {}) {
 export type RevisionSpec = { status: RevisionStatus; data?: ReturnType<typeof swapData>; body?: string };
 
 /** A swap by `authorId` with one revision per spec; its current revision is the last approved one, if any. */
-export function addSwap(db: Db, opts: { slug: string; chassisId: number; authorId: number; revisions: RevisionSpec[] }) {
+export function addSwap(
+  db: Db,
+  opts: { slug: string; chassisId: number; authorId: number; axle?: Axle; revisions: RevisionSpec[] },
+) {
   const at = new Date('2026-03-01T10:00:00Z');
   const swap = db
     .insert(swaps)
     .values({
       slug: opts.slug,
       chassisId: opts.chassisId,
-      axle: 'front',
+      axle: opts.axle ?? 'front',
       category: 'brakes',
       authorId: opts.authorId,
       createdAt: at,

@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import {
+  emptyFastener,
+  emptyRotor,
   emptyValues,
+  numberList,
   formPathOf,
   heldListText,
   heldText,
@@ -37,10 +40,12 @@ function filled(): FormValues {
     hardwareIncluded: '2 × M10 bolts\n2 × washers',
     notes: '',
   };
-  v.data.torque = [{ fastener: 'caliper to bracket', nm: '85,5', notes: '' }];
+  v.data.fasteners = [
+    { ...emptyFastener('caliper_mount', []), label: 'caliper to bracket', thread: 'M10x1.25', nm: '85,5' },
+    { ...emptyFastener('bracket_mount', [{ id: 'caliper-mount' }]), label: 'bracket to knuckle', nm: '95' },
+  ];
   v.data.costs = [{ route: 'as_built', item: 'Calipers, used', amount: '240.50' }];
-  v.data.tools = 'torque wrench, flare-nut spanner';
-  v.data.parkingBrakeKept = '';
+  v.data.tools = 'Torque wrench, 20–120 N·m\nFlare-nut spanner';
   return v;
 }
 
@@ -53,10 +58,17 @@ describe('submission form values', () => {
     expect(r.payload.data.parts[0].partNumbers).toEqual(['OV-355-104-L', 'OV-355-104-R']);
     expect(r.payload.data.parts[0].cameOn).toEqual(['Orsino Vela 2.0', 'Orsino Vela 2.4']);
     expect(r.payload.data.adapter?.hardwareIncluded).toEqual(['2 × M10 bolts', '2 × washers']);
-    expect(r.payload.data.torque[0].nm).toBe(85.5);
+    expect(r.payload.data.schemaVersion).toBe(2);
+    expect(r.payload.data.fasteners.map((f) => [f.id, f.kind])).toEqual([
+      ['caliper-mount', 'caliper_mount'],
+      ['bracket-mount', 'bracket_mount'],
+    ]);
+    expect(r.payload.data.torque[0]).toMatchObject({ fastenerId: 'caliper-mount', nm: 85.5 });
     expect(r.payload.data.costs[0].amountMinor).toBe(24050);
-    expect(r.payload.data.tools).toEqual(['torque wrench', 'flare-nut spanner']);
+    // a tool's name may hold a comma: one tool per line
+    expect(r.payload.data.tools).toEqual(['Torque wrench, 20–120 N·m', 'Flare-nut spanner']);
     expect(r.payload.data.wheel).toBeNull();
+    expect(r.payload.data.parkingBrake).toBeNull();
   });
 
   it('when a saved record is loaded into the form, then saving it again gives the same record', () => {
@@ -106,12 +118,13 @@ describe('submission form values', () => {
   it('when only some sections read correctly, then the live figures use those and skip the rest', () => {
     const v = filled();
     v.data.hasBrakes = true;
-    const corner = { pistonsPerSideMm: '38, 42', rotorDiameterMm: '280', padHeightMm: '45' };
-    v.data.brakes.before = { front: { pistonsPerSideMm: '54', rotorDiameterMm: '256', padHeightMm: '40' }, rear: corner };
+    const empty = v.data.brakes.before.front;
+    const corner = { ...empty, pistonsPerSideMm: '38; 42', rotorDiameterMm: '280', padHeightMm: '45' };
+    v.data.brakes.before = { front: { ...empty, pistonsPerSideMm: '54', rotorDiameterMm: '256', padHeightMm: '40' }, rear: corner };
     v.data.brakes.after = { front: corner, rear: corner };
     v.data.costs.push({ route: 'new_kit', item: 'Kit', amount: 'half-typed,' });
     const live = liveDataOf(v.data);
-    expect(live.brakes?.after.front.pistonsPerSideMm).toEqual([38, 42]);
+    expect(live.brakes?.after.front).toMatchObject({ kind: 'disc', pistonsPerSideMm: [38, 42] });
     expect(brakeBalanceOf(live)).not.toBeNull();
     expect(live.costs).toHaveLength(1);
     expect(costSummaryOf(live).totals.as_built).toBe(24050);
@@ -119,14 +132,27 @@ describe('submission form values', () => {
     expect(liveDataOf(v.data).brakes).toBeNull();
   });
 
+  it('when a list of pistons holds a decimal comma, then it stays one piston', () => {
+    expect(numberList('38,1')).toEqual([38.1]);
+    expect(numberList('38,1; 42')).toEqual([38.1, 42]);
+    expect(numberList('40, 44')).toEqual([40, 44]);
+    expect(numberList('40 44')).toEqual([40, 44]);
+    expect(numberList('40;44')).toEqual([40, 44]);
+  });
+
+  it('when a tool name holds a comma and the record goes through the form, then the list is unchanged', () => {
+    const first = parsePayload(filled(), null);
+    if (!first.ok) throw new Error('fixture must parse');
+    const again = valuesFromData(first.payload.data, first.payload.body);
+    expect(again.data.tools.split('\n')).toEqual(['Torque wrench, 20–120 N·m', 'Flare-nut spanner']);
+  });
+
   describe('inputs in the units the toggle names', () => {
     it('when a length is typed in inches, then the form holds mm and the record stores mm', () => {
       expect(heldText('13', 'length', 'imperial')).toBe('330.2'); // NIST SP 811 B.8: 1 in = 25.4 mm exactly
       expect(heldText('4,5', 'length', 'imperial')).toBe('114.3'); // NIST SP 811 B.8: 4.5 in = 114.3 mm
       const v = filled();
-      v.data.rotors = [
-        { diameterMm: heldText('13', 'length', 'imperial'), thicknessMm: '', vented: true, partNumber: '', notes: '' },
-      ];
+      v.data.rotors = [{ ...emptyRotor('front'), diameterMm: heldText('13', 'length', 'imperial') }];
       v.data.rotors[0].thicknessMm = heldText('1.1', 'length', 'imperial');
       const r = parsePayload(v, null);
       expect(r.ok && r.payload.data.rotors[0]).toMatchObject({ diameterMm: 330.2, thicknessMm: 27.94 }); // NIST SP 811 B.8
@@ -142,8 +168,8 @@ describe('submission form values', () => {
       expect(shownText('330', 'length', 'imperial')).toBe('12.9921'); // NIST SP 811 B.8: 330 / 25.4
       expect(shownText('85', 'torque', 'imperial')).toBe('62.69'); // NIST SP 811 B.9: 85 / 1.355818
       expect(shownText('50', 'pressure', 'imperial')).toBe('725.19'); // NIST SP 811 B.9: 5000 kPa / 6.894757
-      expect(shownListText('38, 42', 'length', 'imperial')).toBe('1.4961, 1.6535'); // NIST SP 811 B.8
-      expect(heldListText('1.5, 1.65', 'length', 'imperial')).toBe('38.1, 41.91'); // NIST SP 811 B.8
+      expect(shownListText('38; 42', 'length', 'imperial')).toBe('1.4961; 1.6535'); // NIST SP 811 B.8
+      expect(heldListText('1.5, 1.65', 'length', 'imperial')).toBe('38.1; 41.91'); // NIST SP 811 B.8
     });
 
     it('when the system is metric, then the text passes through untouched, half-typed or not', () => {
@@ -158,10 +184,10 @@ describe('submission form values', () => {
       expect(heldText('  ', 'torque', 'imperial')).toBe('');
       expect(heldText('thirteen', 'length', 'imperial')).toBe('thirteen');
       const v = filled();
-      v.data.torque[0].nm = heldText('lots', 'torque', 'imperial');
+      v.data.fasteners[0].nm = heldText('lots', 'torque', 'imperial');
       const r = parsePayload(v, null);
       expect(r.ok).toBe(false);
-      if (!r.ok) expect(r.issues.map((i) => i.path)).toContain('data.torque.0.nm');
+      if (!r.ok) expect(r.issues.map((i) => i.path)).toContain('data.fasteners.0.nm');
     });
 
     it('when a value typed in imperial is shown again, then it reads exactly as typed', () => {

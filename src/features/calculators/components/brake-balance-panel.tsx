@@ -1,5 +1,5 @@
+import { describeBalanceShift } from '@shared/fitment/swap-checks';
 import {
-  balanceShift,
   brakeTorqueNm,
   frontShare,
   DEFAULT_LINE_PRESSURE_BAR,
@@ -9,9 +9,10 @@ import {
 import { barToPsi } from '@shared/fitment/units';
 import { Caution } from '../../../components/caution';
 import { Figure } from '../../../components/verdict';
+import { BalanceShiftNote } from '../../../components/balance-shift-note';
 import { round, useUnits } from '../../../lib/units';
 import { byField, Inputs, type CalcParams } from './calc-params';
-import { FieldGrid, Fieldset, Panel, QuantityField, ResultGrid, SubHeading, Waiting, withSign } from './calc-form';
+import { FieldGrid, Fieldset, Panel, QuantityField, ResultGrid, SubHeading, Waiting } from './calc-form';
 
 type Stage = 'b' | 'a';
 type Axle = 'f' | 'r';
@@ -27,8 +28,6 @@ export const brakeKeys = [
   'mu',
 ];
 
-export const SHIFT_ATTENTION_POINTS = 5;
-const SHIFT_RULE = `A change of more than ${SHIFT_ATTENTION_POINTS} points in front share deserves a check of rear lock-up and proportioning (common practice, no source)`;
 const TORQUE_RULE =
   'T = 2 μ p A r_eff, r_eff = (rotor Ø − pad height) / 2, equal line pressure front and rear (disc-brake textbook formula)';
 
@@ -71,11 +70,8 @@ export function BrakeBalancePanel({ params }: { params: CalcParams }) {
     front && rear ? frontShare(front.corner, rear.corner, pressureBar) * 100 : null;
   const before = general.ready ? sharePct(bf.result, br.result) : null;
   const after = general.ready ? sharePct(af.result, ar.result) : null;
-  const shift =
-    before !== null && after !== null
-      ? balanceShift({ front: bf.result!.corner, rear: br.result!.corner }, { front: af.result!.corner, rear: ar.result!.corner })
-      : null;
-  const attention = shift !== null && Math.abs(shift) > SHIFT_ATTENTION_POINTS;
+  // the same words as the swap sheet and the review desk for the same figures
+  const shift = before !== null && after !== null ? describeBalanceShift(before / 100, after / 100) : null;
 
   const cornerFields = (stage: Stage, axle: Axle) => {
     const [pKey, rKey, hKey] = cornerKeys(stage, axle);
@@ -198,24 +194,7 @@ export function BrakeBalancePanel({ params }: { params: CalcParams }) {
             </ResultGrid>
           ) : null}
           {shift !== null ? (
-            <div
-              data-attention={attention ? 'true' : 'false'}
-              className={`rounded-lg border p-3 ${attention ? 'border-2 border-oxide bg-oxide-soft' : 'border-graphite/15 bg-paper'}`}
-            >
-              <div className="flex items-baseline justify-between gap-3">
-                <p className="text-sm font-bold text-graphite">Balance shift</p>
-                {attention && <p className="text-xs font-extrabold uppercase tracking-wide text-oxide">⚠ Needs attention</p>}
-              </div>
-              <p className="tabular mt-1 text-xl font-extrabold text-graphite">
-                {withSign(shift, (v) => round(v, 2))} points {shift > 0 ? 'to the front' : shift < 0 ? 'to the rear' : ''}
-              </p>
-              <p className="mt-1 text-sm text-graphite-soft">
-                {attention
-                  ? 'A shift this large changes how the car stops: check the rear does not lock early or the fronts do not give up first, and consider the proportioning.'
-                  : 'A small change in balance.'}
-              </p>
-              <p className="mt-1 text-xs text-graphite-soft">Rule: {SHIFT_RULE}</p>
-            </div>
+            <BalanceShiftNote shift={shift} />
           ) : (
             <Waiting missing={missing} invalid={Object.keys(errors).length > 0} general={generalError} />
           )}

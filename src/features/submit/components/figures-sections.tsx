@@ -4,8 +4,16 @@ import { costRouteLabels, costRoutes } from '@shared/schemas/enums';
 import type { ChassisView } from '@shared/schemas/views';
 import { Markdown } from '../../../components/markdown';
 import { Button } from '../../../components/ui/button';
-import { stockCorner, type FormValues } from '../lib/form-values';
-import { AddButton, FArea, FCheck, FLengthList, FNum, FSelect, FText, FormSection, ListRow } from './form-controls';
+import {
+  drumShoeTypeLabels,
+  parkingBrakeTypeLabels,
+  seatTypeLabels,
+  wheelMaterialLabels,
+  wheelOutcomeLabels,
+} from '@shared/schemas/swap-data-labels';
+import { emptyTestedWheel, stockCorner, type FormValues } from '../lib/form-values';
+import { AddButton, FArea, FCheck, FLengthList, FNum, FSelect, FText, FormSection, ListRow, MoreFields } from './form-controls';
+import { options } from './parts-sections';
 
 export function WheelSection() {
   const { control } = useFormContext<FormValues>();
@@ -32,65 +40,89 @@ export function WheelSection() {
             <FNum name="data.wheel.caliperOutboardMm" label="Caliper face outboard of the hub face" quantity="length" />
             <FArea name="data.wheel.notes" label="Notes" rows={2} className="sm:col-span-2" />
           </div>
-          <h3 className="pt-2 text-sm font-extrabold text-ink">Wheels you tried</h3>
+          <h3 className="pt-2 text-sm font-extrabold text-ink">Wheels we tried</h3>
+          <p className="text-sm text-graphite-soft">
+            Every wheel you offered up, including the ones that did not fit: a wheel that does not fit is one of the most useful
+            facts a record can hold. A clearance that overlaps is negative.
+          </p>
           {tested.fields.map((f, i) => (
-            <ListRow key={f.id} label={`Tested wheel ${i + 1}`} onRemove={() => tested.remove(i)}>
-              <div className="grid grid-cols-3 gap-2 sm:col-span-2">
-                <FNum name={`data.wheel.testedWheels.${i}.diameterIn`} label="Diameter" unit="in" />
-                <FNum name={`data.wheel.testedWheels.${i}.widthIn`} label="Width" unit="in" />
-                <FNum name={`data.wheel.testedWheels.${i}.offsetMm`} label="Offset" unit="ET" />
-              </div>
-              <FNum name={`data.wheel.testedWheels.${i}.spacerMm`} label="Spacer used" quantity="length" />
-              <FNum
-                name={`data.wheel.testedWheels.${i}.radialClearanceMm`}
-                label="Measured radial clearance"
-                quantity="length"
-                hint="Caliper to barrel"
-              />
-              <FNum
-                name={`data.wheel.testedWheels.${i}.spokeClearanceMm`}
-                label="Measured spoke clearance"
-                quantity="length"
-                hint="Caliper face to spokes"
-              />
-              <FText name={`data.wheel.testedWheels.${i}.note`} label="Note" />
-            </ListRow>
+            <TestedWheelRow key={f.id} index={i} onRemove={() => tested.remove(i)} />
           ))}
-          <AddButton
-            onClick={() =>
-              tested.append({
-                diameterIn: '',
-                widthIn: '',
-                offsetMm: '',
-                spacerMm: '0',
-                radialClearanceMm: '',
-                spokeClearanceMm: '',
-                note: '',
-              })
-            }
-          >
-            Add a tested wheel
-          </AddButton>
+          <AddButton onClick={() => tested.append(emptyTestedWheel())}>Add a wheel we tried</AddButton>
         </>
       )}
     </FormSection>
   );
 }
 
+function TestedWheelRow({ index: i, onRemove }: { index: number; onRemove: () => void }) {
+  const outcome = useWatch<FormValues, `data.wheel.testedWheels.${number}.outcome`>({
+    name: `data.wheel.testedWheels.${i}.outcome`,
+  });
+  const at = `data.wheel.testedWheels.${i}` as const;
+  return (
+    <ListRow label={`Wheel ${i + 1}`} onRemove={onRemove}>
+      <div className="grid grid-cols-3 gap-2 sm:col-span-2">
+        <FNum name={`${at}.diameterIn`} label="Diameter" unit="in" />
+        <FNum name={`${at}.widthIn`} label="Width" unit="in" />
+        <FNum name={`${at}.offsetMm`} label="Offset" unit="ET" signed />
+      </div>
+      <FSelect name={`${at}.outcome`} label="Outcome" options={options(wheelOutcomeLabels)} />
+      {outcome === 'fits_with_change' ? (
+        <FText name={`${at}.change`} label="What had to change" placeholder="10 mm hub-centric spacer" />
+      ) : (
+        <FNum name={`${at}.spacerMm`} label="Spacer used" quantity="length" />
+      )}
+      {outcome === 'fits_with_change' && <FNum name={`${at}.spacerMm`} label="Spacer used" quantity="length" />}
+      <FNum name={`${at}.radialClearanceMm`} label="Measured at the barrel" quantity="length" hint="Caliper to barrel" signed />
+      <FNum name={`${at}.spokeClearanceMm`} label="Measured at the spokes" quantity="length" hint="Caliper face to spokes" signed />
+      <FText name={`${at}.measuredWhere`} label="Where and how you measured" className="sm:col-span-2" placeholder="modelling clay on the caliper, wheel turned by hand" />
+      <MoreFields summary="Material, seat, bore, tyre">
+        <FSelect name={`${at}.material`} label="Material" options={options(wheelMaterialLabels)} />
+        <FSelect name={`${at}.seat`} label="Wheel-bolt seat" options={options(seatTypeLabels)} />
+        <FNum name={`${at}.centreBoreMm`} label="Centre bore" quantity="length" />
+        <FText name={`${at}.tyre`} label="Tyre" placeholder="205/55R16" />
+      </MoreFields>
+      <FText name={`${at}.note`} label="Note" className="sm:col-span-2" />
+    </ListRow>
+  );
+}
+
 function CornerFields({ prefix, title }: { prefix: `data.brakes.${'before' | 'after'}.${'front' | 'rear'}`; title: string }) {
+  const kind = useWatch<FormValues, `${typeof prefix}.kind`>({ name: `${prefix}.kind` });
   return (
     <fieldset className="rounded-lg border border-graphite/15 bg-paper p-3">
       <legend className="px-1 text-sm font-bold text-ink">{title}</legend>
       <div className="grid gap-2">
-        <FLengthList
-          name={`${prefix}.pistonsPerSideMm`}
-          label="Piston diameters, one side"
-          hint={(unit) => `${unit}, separated by commas: ${unit === 'mm' ? '“38, 42”' : '“1.5, 1.65”'}`}
+        <FSelect
+          name={`${prefix}.kind`}
+          label="Brake"
+          options={[
+            { value: 'disc', label: 'Disc' },
+            { value: 'drum', label: 'Drum' },
+          ]}
         />
-        <div className="grid grid-cols-2 gap-2">
-          <FNum name={`${prefix}.rotorDiameterMm`} label="Rotor Ø" quantity="length" />
-          <FNum name={`${prefix}.padHeightMm`} label="Pad height" quantity="length" />
-        </div>
+        {kind === 'drum' ? (
+          <>
+            <div className="grid grid-cols-2 gap-2">
+              <FNum name={`${prefix}.wheelCylinderBoreMm`} label="Wheel cylinder bore" quantity="length" />
+              <FNum name={`${prefix}.drumDiameterMm`} label="Drum Ø" quantity="length" />
+            </div>
+            <FSelect name={`${prefix}.shoeType`} label="Shoes" options={options(drumShoeTypeLabels)} />
+          </>
+        ) : (
+          <>
+            <FLengthList
+              name={`${prefix}.pistonsPerSideMm`}
+              label="Piston diameters, one side"
+              hint={(unit) => `${unit}, separated by semicolons or spaces: ${unit === 'mm' ? '“38; 42”' : '“1.5; 1.65”'}`}
+            />
+            <div className="grid grid-cols-2 gap-2">
+              <FNum name={`${prefix}.rotorDiameterMm`} label="Rotor Ø" quantity="length" />
+              <FNum name={`${prefix}.padHeightMm`} label="Pad height" quantity="length" />
+            </div>
+          </>
+        )}
       </div>
     </fieldset>
   );
@@ -165,6 +197,7 @@ export function CostsSection() {
 }
 
 export function JobSection() {
+  const parkingType = useWatch<FormValues, 'data.parkingBrakeType'>({ name: 'data.parkingBrakeType' });
   return (
     <FormSection id="job" title="The job">
       <div className="grid gap-3 sm:grid-cols-3">
@@ -182,16 +215,22 @@ export function JobSection() {
           ]}
         />
         <FSelect
-          name="data.parkingBrakeKept"
-          label="Parking brake"
-          options={[
-            { value: '', label: 'Not on this axle' },
-            { value: 'yes', label: 'Kept and working' },
-            { value: 'no', label: 'Lost' },
-          ]}
+          name="data.parkingBrakeType"
+          label="Parking brake on this axle"
+          options={[{ value: '', label: 'Not stated' }, ...options(parkingBrakeTypeLabels).filter((o) => o.value !== 'not_stated')]}
         />
+        {parkingType && parkingType !== 'none' && (
+          <FSelect
+            name="data.parkingBrakeKept"
+            label="After the swap"
+            options={[
+              { value: 'yes', label: 'Kept and working' },
+              { value: 'no', label: 'Lost' },
+            ]}
+          />
+        )}
       </div>
-      <FText name="data.tools" label="Tools needed" hint="Separate with commas: torque wrench, flare-nut spanner, die grinder" />
+      <FArea name="data.tools" label="Tools needed" rows={3} hint="One tool per line: “Torque wrench, 20–120 N·m”" />
     </FormSection>
   );
 }

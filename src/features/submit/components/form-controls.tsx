@@ -83,17 +83,24 @@ function useMeasure(name: Name, quantity: Quantity, list = false) {
   };
 }
 
+type NumProps = Common & {
+  unit?: string;
+  placeholder?: string;
+  /** may be negative: phones then get a keyboard with a minus key (their decimal keypads have none) */
+  signed?: boolean;
+};
+
 /** A number typed as text: decimal keypad on phones, comma or point, the unit beside it. */
-export function FNum(props: Common & { unit?: string; placeholder?: string; quantity?: Quantity }) {
+export function FNum(props: NumProps & { quantity?: Quantity }) {
   return props.quantity ? <MeasureNum {...props} quantity={props.quantity} /> : <PlainNum {...props} />;
 }
 
-function PlainNum(props: Common & { unit?: string; placeholder?: string }) {
+function PlainNum(props: NumProps) {
   const { register } = useFormContext<FormValues>();
   return <NumInput {...props} input={register(props.name)} />;
 }
 
-function MeasureNum(props: Common & { placeholder?: string; quantity: Quantity }) {
+function MeasureNum(props: NumProps & { quantity: Quantity }) {
   const { unit, input } = useMeasure(props.name, props.quantity);
   return <NumInput {...props} unit={unit} input={input} />;
 }
@@ -106,8 +113,9 @@ function NumInput({
   disabled,
   unit,
   placeholder,
+  signed,
   input,
-}: Common & { unit?: string; placeholder?: string; input: object }) {
+}: NumProps & { input: object }) {
   const error = useFieldError(name);
   return (
     <Field label={label} hint={hint} error={error} className={className}>
@@ -115,7 +123,7 @@ function NumInput({
         <div className="flex items-stretch">
           <input
             className={`${inputClass} tabular ${unit ? 'rounded-r-none' : ''}`}
-            inputMode="decimal"
+            inputMode={signed ? 'text' : 'decimal'}
             autoComplete="off"
             {...a11y}
             // the unit is read out with the field, as its description
@@ -276,6 +284,16 @@ export function ListRow({
         </Button>
       </div>
     </fieldset>
+  );
+}
+
+/** Fields most records leave empty, folded away so a short record stays quick to write. */
+export function MoreFields({ summary, children }: { summary: string; children: ReactNode }) {
+  return (
+    <details className="group sm:col-span-2">
+      <summary className="cursor-pointer text-sm font-bold text-ink underline-offset-2 hover:underline">{summary}</summary>
+      <div className="mt-3 grid gap-3 sm:grid-cols-2">{children}</div>
+    </details>
   );
 }
 

@@ -3,10 +3,11 @@ import { useWatch } from 'react-hook-form';
 import type { Axle, Category } from '@shared/schemas/enums';
 import { automaticChecks } from '@shared/review-checks';
 import { costRouteLabels, costRoutes } from '@shared/schemas/enums';
-import type { SwapData } from '@shared/schemas/swap-data';
-import { brakeBalanceOf, checkWheelForSwap, costSummaryOf, rotorDiameterOf } from '@shared/fitment/swap-checks';
+import { brakeBalanceOf, costSummaryOf, testedWheelVerdicts } from '@shared/fitment/swap-checks';
+import { wheelOutcomeLabels } from '@shared/schemas/swap-data-labels';
+import { BalanceShiftNote } from '../../../components/balance-shift-note';
 import { FitmentInputError } from '@shared/fitment/errors';
-import { Figure, Verdict } from '../../../components/verdict';
+import { Figure } from '../../../components/verdict';
 import { formatMoney } from '../../../lib/money';
 import { useUnits } from '../../../lib/units';
 import { liveDataOf, type FormValues } from '../lib/form-values';
@@ -20,15 +21,6 @@ function attempt<T>(fn: () => T): { value: T } | { error: string } {
     if (err instanceof FitmentInputError) return { error: err.message };
     throw err;
   }
-}
-
-/** The record's own smallest wheel, chosen as the review desk's clearance check chooses it. */
-function minWheelOf(data: SwapData) {
-  const req = data.wheel!;
-  const tested = [...req.testedWheels].sort((a, b) => a.diameterIn - b.diameterIn)[0];
-  return tested
-    ? { ...tested, spacerMm: tested.spacerMm ?? 0 }
-    : { diameterIn: req.minDiameterIn, widthIn: 7, offsetMm: 35, spacerMm: 0 };
 }
 
 const checkTone = { pass: 'text-ink', fail: 'text-oxide', attention: 'text-brass-deep' } as const;
@@ -52,14 +44,9 @@ export function LiveFigures({
   const values = useWatch<FormValues, 'data'>({ name: 'data' });
   const units = useUnits();
   const data = useMemo(() => liveDataOf(values), [values]);
-  const margin = (mm: number) => `${mm >= 0 ? '+' : '−'}${units.length(Math.abs(mm))}`;
 
   const wheel = data.wheel;
-  const rotorMm = axle ? rotorDiameterOf(data, axle) : null;
-  const clearance =
-    wheel && axle && rotorMm
-      ? attempt(() => checkWheelForSwap(data, axle, wheelBoltThread ?? 'M12x1.5', minWheelOf(data)))
-      : null;
+  const tried = testedWheelVerdicts(data);
   const balance = data.brakes ? attempt(() => brakeBalanceOf(data)) : null;
   const costs = data.costs.length ? costSummaryOf(data) : null;
   const checks = axle
@@ -83,37 +70,33 @@ export function LiveFigures({
       </h2>
       <p className="text-xs text-graphite-soft">Worked out as you type, the same way the swap sheet and the review desk do.</p>
 
-      <h3 className="pt-1 text-sm font-extrabold uppercase tracking-wide text-graphite-soft">Clearance on the smallest wheel</h3>
+      <h3 className="pt-1 text-sm font-extrabold uppercase tracking-wide text-graphite-soft">Wheels you tried</h3>
       {!wheel ? (
-        <p className="text-sm text-graphite-soft">Fill in the wheel requirement to see the clearance.</p>
-      ) : !axle ? (
-        <p className="text-sm text-graphite-soft">Choose the axle first.</p>
-      ) : !rotorMm ? (
-        <p className="text-sm text-graphite-soft">Add a rotor (or the “after” brake figures) so the rotor diameter is known.</p>
-      ) : clearance && 'error' in clearance ? (
-        <p className="text-sm text-oxide">{clearance.error}</p>
-      ) : clearance && clearance.value.radial ? (
-        <>
-          <Verdict
-            label={`Caliper to barrel on a ${wheel.minDiameterIn}″ wheel`}
-            ok={clearance.value.radial.ok}
-            value={units.length(clearance.value.radial.clearanceMm)}
-            margin={margin(clearance.value.radial.marginMm)}
-            rule={clearance.value.radial.rule}
-            note={clearance.value.radial.basisNote}
-          />
-          {clearance.value.spoke && (
-            <Verdict
-              label="Caliper to spokes"
-              ok={clearance.value.spoke.ok}
-              value={units.length(clearance.value.spoke.clearanceMm)}
-              margin={margin(clearance.value.spoke.marginMm)}
-              rule={clearance.value.spoke.rule}
-              note={clearance.value.spoke.basisNote}
-            />
-          )}
-        </>
-      ) : null}
+        <p className="text-sm text-graphite-soft">Fill in the wheel requirement and the wheels you tried.</p>
+      ) : tried.length === 0 ? (
+        <p className="text-sm text-graphite-soft">
+          No wheel yet. Each wheel you measured, fitting or not, gets its figures held against the rule here.
+        </p>
+      ) : (
+        <ul className="space-y-2 text-sm" data-testid="live-wheels">
+          {tried.map((w) => (
+            <li key={w.index} className="rounded-lg border border-graphite/15 bg-paper-card p-2">
+              <p className="font-bold">
+                {w.label} · {wheelOutcomeLabels[w.outcome].toLowerCase()}
+              </p>
+              {w.figures.length === 0 && <p className="text-xs text-graphite-soft">No clearance measured.</p>}
+              {w.figures.map((f) => (
+                <p key={f.where} className={`tabular text-xs ${f.ok ? 'text-ink' : 'text-oxide'}`}>
+                  <span aria-hidden>{f.ok ? '✓ ' : '✕ '}</span>
+                  {f.where === 'barrel' ? 'Barrel' : 'Spokes'} {units.length(f.clearanceMm)} ({f.ok ? 'at least' : 'under'} 3 mm, rule of
+                  thumb)
+                </p>
+              ))}
+              {w.contradiction && <p className="text-xs font-bold text-oxide">{w.contradiction}</p>}
+            </li>
+          ))}
+        </ul>
+      )}
 
       <h3 className="pt-2 text-sm font-extrabold uppercase tracking-wide text-graphite-soft">Brake balance</h3>
       {!balance ? (
@@ -125,13 +108,7 @@ export function LiveFigures({
           <Figure label="Front share before" value={pct(balance.value.frontShareBefore)} />
           <Figure label="Front share after" value={pct(balance.value.frontShareAfter)} />
           <div className="col-span-2">
-            <Verdict
-              label="Shift toward the front"
-              ok={null}
-              value={`${balance.value.shiftPoints >= 0 ? '+' : ''}${balance.value.shiftPoints.toFixed(1)} points`}
-              note={balance.value.attention ? 'More than 5 points: the reviewer will look at this closely.' : 'Within 5 points.'}
-              rule={`Equal line pressure (${units.pressure(balance.value.linePressureBar)}), pad μ ${balance.value.padMu}; T = 2 μ p A r.`}
-            />
+            <BalanceShiftNote shift={balance.value.shift} />
           </div>
         </div>
       ) : null}

@@ -1,8 +1,19 @@
 import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
-import { machiningOperations, partKinds } from '@shared/schemas/enums';
+import { axles, machiningOperations, partKinds } from '@shared/schemas/enums';
+import {
+  fastenerKindLabels,
+  lubricationLabels,
+  machiningComponentLabels,
+  shimDirectionLabels,
+  shimJointLabels,
+} from '@shared/schemas/swap-data-labels';
 import { useUnits } from '../../../lib/units';
-import { emptyPart, unitOf, type FormValues } from '../lib/form-values';
-import { AddButton, FArea, FCheck, FNum, FSelect, FText, FormSection, ListError, ListRow } from './form-controls';
+import { emptyFastener, emptyPart, unitOf, type FormValues } from '../lib/form-values';
+import { AddButton, FArea, FCheck, FNum, FSelect, FText, FormSection, ListError, ListRow, MoreFields } from './form-controls';
+
+/** select options from a label map, in the map's order */
+export const options = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));
+export const axleOptions = axles.map((a) => ({ value: a, label: a === 'front' ? 'Front' : 'Rear' }));
 
 const kindLabels: Record<(typeof partKinds)[number], string> = {
   caliper: 'Caliper',
@@ -92,35 +103,47 @@ export function AdapterSection() {
 
 export function ShimsSpacersSection() {
   const { control } = useFormContext<FormValues>();
+  const axle = useWatch<FormValues, 'axle'>({ name: 'axle' });
   const shims = useFieldArray({ control, name: 'data.shims' });
   const spacers = useFieldArray({ control, name: 'data.spacers' });
   return (
     <FormSection
       id="shims"
       title="Shims and spacers"
-      lead="Centring shims between adapter and caliper; wheel spacers between hub and wheel."
+      lead="Shims in the caliper's mounting; wheel spacers between hub and wheel."
     >
-      <h3 className="text-sm font-extrabold text-ink">Centring shims</h3>
-      <FNum
-        name="data.shimTargetMm"
-        label="Centring gap the shims fill"
-        quantity="length"
-        hint="If you measured it"
-        className="sm:max-w-xs"
-      />
+      <h3 className="text-sm font-extrabold text-ink">Shims</h3>
+      <p className="text-sm text-graphite-soft">
+        A shim moves the caliper the way its joint's bolts run: shims on bolts along the axle centre the caliper over the
+        rotor; shims under radial mounting ears lift it away from the axle (for a larger rotor) and cannot centre it.
+      </p>
       {shims.fields.map((f, i) => (
         <ListRow key={f.id} label={`Shim ${i + 1}`} onRemove={() => shims.remove(i)}>
-          <FText name={`data.shims.${i}.location`} label="Where it goes" className="sm:col-span-2" />
+          <FSelect name={`data.shims.${i}.joint`} label="Joint" options={options(shimJointLabels)} />
+          <FSelect name={`data.shims.${i}.direction`} label="Moves the caliper" options={options(shimDirectionLabels)} />
           <FNum name={`data.shims.${i}.thicknessMm`} label="Thickness" quantity="length" />
-          <FNum name={`data.shims.${i}.quantity`} label="Quantity" />
+          <FNum name={`data.shims.${i}.quantity`} label="Quantity, whole axle" />
+          <FText name={`data.shims.${i}.notes`} label="Where exactly" className="sm:col-span-2" />
         </ListRow>
       ))}
-      <AddButton onClick={() => shims.append({ location: '', thicknessMm: '', quantity: '2' })}>Add a shim</AddButton>
+      <AddButton
+        onClick={() =>
+          shims.append({ joint: 'bracket_to_knuckle', direction: 'axial', thicknessMm: '', quantity: '4', notes: '' })
+        }
+      >
+        Add a shim
+      </AddButton>
+      <fieldset className="grid gap-3 rounded-lg border border-graphite/15 bg-paper p-3 sm:grid-cols-3">
+        <legend className="px-1 text-sm font-bold text-ink">Centring gap, if you measured it</legend>
+        <FNum name="data.centring.gapMm" label="Gap the shims fill" quantity="length" hint="Per bolt, by feeler gauge" />
+        <FSelect name="data.centring.joint" label="At the joint" options={options(shimJointLabels)} />
+        <FNum name="data.centring.positions" label="Bolt positions" hint="Each takes one stack (4 for two calipers)" />
+      </fieldset>
       <h3 className="border-t border-graphite/10 pt-4 text-sm font-extrabold text-ink">Wheel spacers</h3>
       {spacers.fields.map((f, i) => (
         <ListRow key={f.id} label={`Wheel spacer ${i + 1}`} onRemove={() => spacers.remove(i)}>
+          <FSelect name={`data.spacers.${i}.axle`} label="Axle" options={axleOptions} />
           <FNum name={`data.spacers.${i}.thicknessMm`} label="Thickness" quantity="length" />
-          <FNum name={`data.spacers.${i}.quantity`} label="Quantity" />
           <FSelect
             name={`data.spacers.${i}.mounting`}
             label="Mounting"
@@ -129,39 +152,34 @@ export function ShimsSpacersSection() {
               { value: 'bolt_on', label: 'Bolt-on (own studs)' },
             ]}
           />
+          <FSelect
+            name={`data.spacers.${i}.material`}
+            label="Material"
+            options={[
+              { value: 'aluminium', label: 'Aluminium' },
+              { value: 'steel', label: 'Steel' },
+            ]}
+          />
+          <FNum name={`data.spacers.${i}.quantity`} label="Quantity" />
           <FCheck name={`data.spacers.${i}.hubCentric`} label="Hub-centric" className="sm:pt-6" />
           <FText name={`data.spacers.${i}.notes`} label="Notes" className="sm:col-span-2" />
         </ListRow>
       ))}
       <AddButton
-        onClick={() => spacers.append({ thicknessMm: '', hubCentric: true, mounting: 'slip_on', quantity: '2', notes: '' })}
+        onClick={() =>
+          spacers.append({
+            axle: axle || 'front',
+            thicknessMm: '',
+            hubCentric: true,
+            mounting: 'slip_on',
+            material: 'aluminium',
+            quantity: '2',
+            notes: '',
+          })
+        }
         disabled={spacers.fields.length >= 4}
       >
         Add a wheel spacer
-      </AddButton>
-    </FormSection>
-  );
-}
-
-export function RotorsSection() {
-  const { control } = useFormContext<FormValues>();
-  const { fields, append, remove } = useFieldArray({ control, name: 'data.rotors' });
-  return (
-    <FormSection id="rotors" title="Rotors">
-      {fields.map((f, i) => (
-        <ListRow key={f.id} label={`Rotor ${i + 1}`} onRemove={() => remove(i)}>
-          <FNum name={`data.rotors.${i}.diameterMm`} label="Diameter" quantity="length" />
-          <FNum name={`data.rotors.${i}.thicknessMm`} label="Thickness" quantity="length" />
-          <FText name={`data.rotors.${i}.partNumber`} label="Part number" />
-          <FCheck name={`data.rotors.${i}.vented`} label="Vented" className="sm:pt-6" />
-          <FText name={`data.rotors.${i}.notes`} label="Notes" className="sm:col-span-2" />
-        </ListRow>
-      ))}
-      <AddButton
-        onClick={() => append({ diameterMm: '', thicknessMm: '', vented: true, partNumber: '', notes: '' })}
-        disabled={fields.length >= 4}
-      >
-        Add a rotor
       </AddButton>
     </FormSection>
   );
@@ -174,55 +192,65 @@ export function MachiningSection() {
     <FormSection
       id="machining"
       title="Machining steps"
-      lead="Grinding, machining, drilling or trimming the install needs. Leave empty if it bolts straight on."
+      lead="Grinding, machining, drilling or trimming the install needs. Leave empty if it bolts straight on. Work on a knuckle, hub, caliper body, bracket or subframe counts as structural, whatever the operation."
     >
       {fields.map((f, i) => (
         <ListRow key={f.id} label={`Step ${i + 1}`} onRemove={() => remove(i)}>
+          <FSelect name={`data.machining.${i}.component`} label="Part worked on" options={options(machiningComponentLabels)} />
           <FSelect
             name={`data.machining.${i}.operation`}
             label="Operation"
             options={machiningOperations.map((o) => ({ value: o, label: operationLabels[o] }))}
           />
+          <FText name={`data.machining.${i}.where`} label="Where" className="sm:col-span-2" />
+          <FNum name={`data.machining.${i}.amountMm`} label="Material removed" quantity="length" hint="If measured" />
           <FCheck
             name={`data.machining.${i}.required`}
             label="Required"
             hint="Untick if the step is optional"
             className="sm:pt-6"
           />
-          <FText name={`data.machining.${i}.where`} label="Where" className="sm:col-span-2" />
           <FText name={`data.machining.${i}.notes`} label="Notes" className="sm:col-span-2" />
         </ListRow>
       ))}
-      <AddButton onClick={() => append({ operation: 'grind', where: '', required: true, notes: '' })}>
+      <AddButton
+        onClick={() => append({ component: 'other', operation: 'grind', where: '', required: true, amountMm: '', notes: '' })}
+      >
         Add a machining step
       </AddButton>
     </FormSection>
   );
 }
 
-export function TorqueSection() {
-  const { control } = useFormContext<FormValues>();
+export function FastenersSection() {
+  const { control, getValues } = useFormContext<FormValues>();
   const { system } = useUnits();
-  const { fields, append, remove } = useFieldArray({ control, name: 'data.torque' });
+  const { fields, append, remove } = useFieldArray({ control, name: 'data.fasteners' });
   return (
     <FormSection
       id="torque"
-      title="Torque specs"
-      lead={`One line per fastener the install touches, in ${unitOf('torque', system)}. Reviewers check every fastener has a value.`}
+      title="Fasteners and torque"
+      lead={`One line per fastener the install touches, with its torque in ${unitOf('torque', system)}. Reviewers check that the caliper, bracket and wheel fasteners are all here.`}
     >
+      <ListError name="data.fasteners" />
       {fields.map((f, i) => (
         <ListRow key={f.id} label={`Fastener ${i + 1}`} onRemove={() => remove(i)}>
-          <FText name={`data.torque.${i}.fastener`} label="Fastener" placeholder="caliper to adapter" />
-          <FNum name={`data.torque.${i}.nm`} label="Torque" quantity="torque" />
-          <FText
-            name={`data.torque.${i}.notes`}
-            label="Notes"
-            placeholder="thread locker, new bolts…"
-            className="sm:col-span-2"
-          />
+          <FSelect name={`data.fasteners.${i}.kind`} label="Fastener" options={options(fastenerKindLabels)} />
+          <FText name={`data.fasteners.${i}.label`} label="Name" placeholder="caliper to adapter, radial bolts" />
+          <FText name={`data.fasteners.${i}.thread`} label="Thread" placeholder="M12x1.5" />
+          <FNum name={`data.fasteners.${i}.nm`} label="Torque" quantity="torque" />
+          <FSelect name={`data.fasteners.${i}.lubrication`} label="Threads" options={options(lubricationLabels)} />
+          <FText name={`data.fasteners.${i}.notes`} label="Notes" placeholder="new copper washers…" />
+          <MoreFields summary="Length, class, angle">
+            <FNum name={`data.fasteners.${i}.lengthMm`} label="Length" quantity="length" />
+            <FText name={`data.fasteners.${i}.propertyClass`} label="Property class" placeholder="10.9" />
+            <FNum name={`data.fasteners.${i}.quantity`} label="How many" />
+            <FNum name={`data.fasteners.${i}.angleDeg`} label="Then turn by" unit="°" hint="Torque-angle tightening" />
+            <FCheck name={`data.fasteners.${i}.singleUse`} label="Single use" hint="Replace after loosening" />
+          </MoreFields>
         </ListRow>
       ))}
-      <AddButton onClick={() => append({ fastener: '', nm: '', notes: '' })}>Add a torque spec</AddButton>
+      <AddButton onClick={() => append(emptyFastener('other', getValues('data.fasteners')))}>Add a fastener</AddButton>
     </FormSection>
   );
 }

@@ -22,13 +22,13 @@ import { SaveStatus } from './save-status';
 import { ChassisSection } from './chassis-section';
 import {
   AdapterSection,
+  FastenersSection,
   MachiningSection,
   PartsSection,
-  RotorsSection,
   ShimsSpacersSection,
   TitleSection,
-  TorqueSection,
 } from './parts-sections';
+import { CalipersSection, RotorsSection } from './brake-parts-sections';
 import { BrakesSection, CostsSection, JobSection, WheelSection, WriteUpSection } from './figures-sections';
 import { LiveFigures } from './live-figures';
 import { PhotoUploader } from './photo-uploader';
@@ -41,10 +41,11 @@ const outline = [
   ['title', 'Title'],
   ['parts', 'Parts'],
   ['adapter', 'Adapter'],
-  ['shims', 'Shims & spacers'],
+  ['calipers', 'Calipers'],
   ['rotors', 'Rotors'],
+  ['shims', 'Shims & spacers'],
   ['machining', 'Machining'],
-  ['torque', 'Torque'],
+  ['torque', 'Fasteners & torque'],
   ['wheel', 'Wheel'],
   ['brakes', 'Brakes'],
   ['costs', 'Costs'],
@@ -288,10 +289,11 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
             <TitleSection />
             <PartsSection />
             <AdapterSection />
-            <ShimsSpacersSection />
+            <CalipersSection />
             <RotorsSection />
+            <ShimsSpacersSection />
             <MachiningSection />
-            <TorqueSection />
+            <FastenersSection />
             <WheelSection />
             <BrakesSection chassis={pickedChassis} />
             <CostsSection />

@@ -3,8 +3,12 @@ import type { z } from 'zod';
 import {
   adapterSchema,
   brakeFiguresSchema,
+  caliperSchema,
+  centringSchema,
   costLineSchema,
+  fastenerSchema,
   machiningStepSchema,
+  parkingBrakeSchema,
   rotorSchema,
   shimSchema,
   spacerSchema,
@@ -12,7 +16,22 @@ import {
   swapPartSchema,
   torqueSpecSchema,
   wheelRequirementSchema,
+  SWAP_DATA_VERSION,
+  type BrakeCorner,
   type SwapData,
+  type caliperTypes,
+  type drumShoeTypes,
+  type FastenerKind,
+  type lubrications,
+  type MachiningComponent,
+  type mountTypes,
+  type parkingBrakeTypes,
+  type seatTypes,
+  type shimDirections,
+  type shimJoints,
+  type spacerMaterials,
+  type wheelMaterials,
+  type WheelOutcome,
 } from '@shared/schemas/swap-data';
 import { createSubmissionSchema, type CreateSubmission, type NewChassis } from '@shared/schemas/submissions';
 import type { Axle, Category, CostRoute, PartKind, UnitSystem } from '@shared/schemas/enums';
@@ -25,7 +44,84 @@ import type { ChassisView } from '@shared/schemas/views';
 
 type Num = string;
 
-export type CornerValues = { pistonsPerSideMm: string; rotorDiameterMm: Num; padHeightMm: Num };
+export type CornerValues = {
+  kind: 'disc' | 'drum';
+  pistonsPerSideMm: string;
+  rotorDiameterMm: Num;
+  padHeightMm: Num;
+  wheelCylinderBoreMm: Num;
+  drumDiameterMm: Num;
+  shoeType: (typeof drumShoeTypes)[number];
+  brakeFactor: Num;
+};
+
+type Of<T extends readonly string[]> = T[number];
+
+export type CaliperValues = {
+  axle: Axle;
+  name: string;
+  type: Of<typeof caliperTypes>;
+  inboardMm: string;
+  outboardMm: string;
+  mountType: Of<typeof mountTypes>;
+  mountSpacingMm: Num;
+  mountThread: string;
+  designDiameterMm: Num;
+  designThicknessMinMm: Num;
+  designThicknessMaxMm: Num;
+  padHeightMm: Num;
+  bleedScrewWhenFitted: '' | 'top' | 'bottom';
+  notes: string;
+};
+
+export type RotorValues = {
+  axle: Axle;
+  diameterMm: Num;
+  thicknessMm: Num;
+  minThicknessMm: Num;
+  hatHeightMm: Num;
+  frictionRingInnerDiameterMm: Num;
+  centreBoreMm: Num;
+  vented: boolean;
+  directional: boolean;
+  massKg: Num;
+  parkingDrumDiameterMm: Num;
+  partNumber: string;
+  notes: string;
+};
+
+/** one row of the form: a fastener of the record and its torque (a fastener without a value gets no torque row) */
+export type FastenerValues = {
+  id: string;
+  kind: FastenerKind;
+  label: string;
+  thread: string;
+  lengthMm: Num;
+  propertyClass: string;
+  quantity: Num;
+  nm: Num;
+  lubrication: Of<typeof lubrications>;
+  angleDeg: Num;
+  singleUse: boolean;
+  notes: string;
+};
+
+export type TestedWheelValues = {
+  diameterIn: Num;
+  widthIn: Num;
+  offsetMm: Num;
+  spacerMm: Num;
+  outcome: WheelOutcome;
+  change: string;
+  material: Of<typeof wheelMaterials>;
+  centreBoreMm: Num;
+  seat: Of<typeof seatTypes>;
+  tyre: string;
+  radialClearanceMm: Num;
+  spokeClearanceMm: Num;
+  measuredWhere: string;
+  note: string;
+};
 
 export type FormValues = {
   chassisMode: 'existing' | 'new';
@@ -62,27 +158,35 @@ export type FormValues = {
     }[];
     hasAdapter: boolean;
     adapter: { name: string; maker: string; partNumber: string; hardwareIncluded: string; notes: string };
-    shims: { location: string; thicknessMm: Num; quantity: Num }[];
-    shimTargetMm: Num;
-    spacers: { thicknessMm: Num; hubCentric: boolean; mounting: 'slip_on' | 'bolt_on'; quantity: Num; notes: string }[];
-    rotors: { diameterMm: Num; thicknessMm: Num; vented: boolean; partNumber: string; notes: string }[];
-    machining: { operation: 'grind' | 'machine' | 'drill' | 'trim'; where: string; required: boolean; notes: string }[];
-    torque: { fastener: string; nm: Num; notes: string }[];
+    calipers: CaliperValues[];
+    shims: { joint: Of<typeof shimJoints>; direction: Of<typeof shimDirections>; thicknessMm: Num; quantity: Num; notes: string }[];
+    centring: { joint: Of<typeof shimJoints>; gapMm: Num; positions: Num };
+    spacers: {
+      axle: Axle;
+      thicknessMm: Num;
+      hubCentric: boolean;
+      mounting: 'slip_on' | 'bolt_on';
+      material: Of<typeof spacerMaterials>;
+      quantity: Num;
+      notes: string;
+    }[];
+    rotors: RotorValues[];
+    machining: {
+      component: MachiningComponent;
+      operation: 'grind' | 'machine' | 'drill' | 'trim';
+      where: string;
+      required: boolean;
+      amountMm: Num;
+      notes: string;
+    }[];
+    fasteners: FastenerValues[];
     hasWheel: boolean;
     wheel: {
       minDiameterIn: Num;
       barrelInnerDiameterMm: Num;
       caliperRadialProjectionMm: Num;
       caliperOutboardMm: Num;
-      testedWheels: {
-        diameterIn: Num;
-        widthIn: Num;
-        offsetMm: Num;
-        spacerMm: Num;
-        radialClearanceMm: Num;
-        spokeClearanceMm: Num;
-        note: string;
-      }[];
+      testedWheels: TestedWheelValues[];
       notes: string;
     };
     hasBrakes: boolean;
@@ -97,7 +201,8 @@ export type FormValues = {
     installHours: Num;
     difficulty: Num;
     tools: string;
-    parkingBrakeKept: '' | 'yes' | 'no';
+    parkingBrakeType: '' | Of<typeof parkingBrakeTypes>;
+    parkingBrakeKept: 'yes' | 'no';
   };
 };
 
@@ -112,7 +217,91 @@ export const emptyPart = (): FormValues['data']['parts'][number] => ({
   quantity: '2',
   notes: '',
 });
-const emptyCorner = (): CornerValues => ({ pistonsPerSideMm: '', rotorDiameterMm: '', padHeightMm: '' });
+const emptyCorner = (): CornerValues => ({
+  kind: 'disc',
+  pistonsPerSideMm: '',
+  rotorDiameterMm: '',
+  padHeightMm: '',
+  wheelCylinderBoreMm: '',
+  drumDiameterMm: '',
+  shoeType: 'leading_trailing',
+  brakeFactor: '',
+});
+
+export const emptyCaliper = (axle: Axle): CaliperValues => ({
+  axle,
+  name: '',
+  type: 'fixed',
+  inboardMm: '',
+  outboardMm: '',
+  mountType: 'radial',
+  mountSpacingMm: '',
+  mountThread: '',
+  designDiameterMm: '',
+  designThicknessMinMm: '',
+  designThicknessMaxMm: '',
+  padHeightMm: '',
+  bleedScrewWhenFitted: '',
+  notes: '',
+});
+
+export const emptyRotor = (axle: Axle): RotorValues => ({
+  axle,
+  diameterMm: '',
+  thicknessMm: '',
+  minThicknessMm: '',
+  hatHeightMm: '',
+  frictionRingInnerDiameterMm: '',
+  centreBoreMm: '',
+  vented: true,
+  directional: false,
+  massKg: '',
+  parkingDrumDiameterMm: '',
+  partNumber: '',
+  notes: '',
+});
+
+/** a short id no other fastener of the form holds, e.g. "wheel-2" */
+export function newFastenerId(kind: FastenerKind, taken: readonly { id: string }[]): string {
+  const base = kind.replace(/_/g, '-');
+  const ids = new Set(taken.map((f) => f.id));
+  if (!ids.has(base)) return base;
+  let n = 2;
+  while (ids.has(`${base}-${n}`)) n++;
+  return `${base}-${n}`;
+}
+
+export const emptyFastener = (kind: FastenerKind, taken: readonly { id: string }[]): FastenerValues => ({
+  id: newFastenerId(kind, taken),
+  kind,
+  label: '',
+  thread: '',
+  lengthMm: '',
+  propertyClass: '',
+  quantity: '',
+  nm: '',
+  lubrication: 'not_stated',
+  angleDeg: '',
+  singleUse: false,
+  notes: '',
+});
+
+export const emptyTestedWheel = (): TestedWheelValues => ({
+  diameterIn: '',
+  widthIn: '',
+  offsetMm: '',
+  spacerMm: '0',
+  outcome: 'fits',
+  change: '',
+  material: 'not_stated',
+  centreBoreMm: '',
+  seat: 'not_stated',
+  tyre: '',
+  radialClearanceMm: '',
+  spokeClearanceMm: '',
+  measuredWhere: '',
+  note: '',
+});
 
 export function emptyValues(): FormValues {
   return {
@@ -140,12 +329,13 @@ export function emptyValues(): FormValues {
       parts: [emptyPart()],
       hasAdapter: false,
       adapter: { name: '', maker: '', partNumber: '', hardwareIncluded: '', notes: '' },
+      calipers: [],
       shims: [],
-      shimTargetMm: '',
+      centring: { joint: 'bracket_to_knuckle', gapMm: '', positions: '4' },
       spacers: [],
       rotors: [],
       machining: [],
-      torque: [],
+      fasteners: [],
       hasWheel: false,
       wheel: {
         minDiameterIn: '',
@@ -167,7 +357,8 @@ export function emptyValues(): FormValues {
       installHours: '',
       difficulty: '',
       tools: '',
-      parkingBrakeKept: '',
+      parkingBrakeType: '',
+      parkingBrakeKept: 'yes',
     },
   };
 }
@@ -195,18 +386,51 @@ export const splitLines = (text: string) =>
     .map((s) => s.trim())
     .filter(Boolean);
 
-function cornerOf(c: CornerValues) {
-  return {
-    pistonsPerSideMm: splitWords(c.pistonsPerSideMm).map((p) => Number(p.replace(',', '.'))),
-    rotorDiameterMm: num(c.rotorDiameterMm),
-    padHeightMm: num(c.padHeightMm),
-  };
+/**
+ * A list of numbers as typed: separated by semicolons, spaces or a comma followed by a space.
+ * A comma between two digits is a decimal comma, so "38,1; 42" is 38.1 and 42, never three pistons.
+ */
+export function numberList(text: string): number[] {
+  return listItems(text).map((p) => Number(p.replace(',', '.')));
 }
-const cornerValues = (c: { pistonsPerSideMm: number[]; rotorDiameterMm: number; padHeightMm: number }): CornerValues => ({
-  pistonsPerSideMm: c.pistonsPerSideMm.join(', '),
-  rotorDiameterMm: str(c.rotorDiameterMm),
-  padHeightMm: str(c.padHeightMm),
-});
+const listItems = (text: string) =>
+  text
+    .split(/;|\s+|,(?=\s|$)/)
+    .map((p) => p.trim())
+    .filter(Boolean);
+
+function cornerOf(c: CornerValues) {
+  return c.kind === 'drum'
+    ? {
+        kind: 'drum',
+        wheelCylinderBoreMm: num(c.wheelCylinderBoreMm),
+        drumDiameterMm: num(c.drumDiameterMm),
+        shoeType: c.shoeType,
+        ...(c.brakeFactor.trim() ? { brakeFactor: num(c.brakeFactor) } : {}),
+      }
+    : {
+        kind: 'disc',
+        pistonsPerSideMm: numberList(c.pistonsPerSideMm),
+        rotorDiameterMm: num(c.rotorDiameterMm),
+        padHeightMm: num(c.padHeightMm),
+      };
+}
+const cornerValues = (c: BrakeCorner): CornerValues =>
+  c.kind === 'drum'
+    ? {
+        ...emptyCorner(),
+        kind: 'drum',
+        wheelCylinderBoreMm: str(c.wheelCylinderBoreMm),
+        drumDiameterMm: str(c.drumDiameterMm),
+        shoeType: c.shoeType,
+        brakeFactor: str(c.brakeFactor),
+      }
+    : {
+        ...emptyCorner(),
+        pistonsPerSideMm: c.pistonsPerSideMm.join('; '),
+        rotorDiameterMm: str(c.rotorDiameterMm),
+        padHeightMm: str(c.padHeightMm),
+      };
 
 // ---------- the units toggle ----------
 // The form always holds lengths in mm, torque in N·m and pressure in bar, exactly as stored;
@@ -255,16 +479,16 @@ export function heldText(typed: string, q: Quantity, system: UnitSystem): string
 export function shownListText(held: string, q: Quantity, system: UnitSystem): string {
   return system === 'metric'
     ? held
-    : splitWords(held)
+    : listItems(held)
         .map((p) => shownText(p, q, system))
-        .join(', ');
+        .join('; ');
 }
 export function heldListText(typed: string, q: Quantity, system: UnitSystem): string {
   return system === 'metric'
     ? typed
-    : splitWords(typed)
+    : listItems(typed)
         .map((p) => heldText(p, q, system))
-        .join(', ');
+        .join('; ');
 }
 
 /** Only the amount is typed in major units (12.50); the record keeps integer minor units. */
@@ -275,7 +499,9 @@ const toMinor = (text: string) => {
 
 /** The structured record as the shared schema reads it (unparsed: the schema decides what is wrong). */
 export function dataOf(d: FormValues['data']): unknown {
+  const withTorque = d.fasteners.filter((f) => f.nm.trim() !== '');
   return {
+    schemaVersion: SWAP_DATA_VERSION,
     title: d.title,
     summary: d.summary,
     parts: d.parts.map((p) => ({
@@ -290,20 +516,78 @@ export function dataOf(d: FormValues['data']): unknown {
       notes: p.notes,
     })),
     adapter: d.hasAdapter ? { ...d.adapter, hardwareIncluded: splitLines(d.adapter.hardwareIncluded) } : null,
-    shims: d.shims.map((s) => ({ location: s.location, thicknessMm: num(s.thicknessMm), quantity: num(s.quantity) })),
-    shimTargetMm: numOrNull(d.shimTargetMm),
+    calipers: d.calipers.map(caliperOf),
+    rotors: d.rotors.map((r) => ({
+      axle: r.axle,
+      diameterMm: num(r.diameterMm),
+      thicknessMm: num(r.thicknessMm),
+      ...optionalNumbers(r, ['minThicknessMm', 'hatHeightMm', 'frictionRingInnerDiameterMm', 'centreBoreMm', 'massKg', 'parkingDrumDiameterMm']),
+      vented: r.vented,
+      directional: r.directional,
+      partNumber: r.partNumber,
+      notes: r.notes,
+    })),
+    shims: d.shims.map((s) => ({ ...s, thicknessMm: num(s.thicknessMm), quantity: num(s.quantity) })),
+    centring: d.centring.gapMm.trim()
+      ? { joint: d.centring.joint, gapMm: num(d.centring.gapMm), positions: num(d.centring.positions) }
+      : null,
     spacers: d.spacers.map((s) => ({ ...s, thicknessMm: num(s.thicknessMm), quantity: num(s.quantity) })),
-    rotors: d.rotors.map((r) => ({ ...r, diameterMm: num(r.diameterMm), thicknessMm: num(r.thicknessMm) })),
-    machining: d.machining,
-    torque: d.torque.map((t) => ({ ...t, nm: num(t.nm) })),
+    machining: d.machining.map(({ amountMm, ...m }) => ({ ...m, ...optionalNumbers({ amountMm }, ['amountMm']) })),
+    fasteners: d.fasteners.map((f) => ({
+      id: f.id,
+      kind: f.kind,
+      label: f.label,
+      thread: f.thread,
+      propertyClass: f.propertyClass,
+      ...optionalNumbers(f, ['lengthMm', 'quantity']),
+    })),
+    torque: withTorque.map((f) => ({
+      fastenerId: f.id,
+      nm: num(f.nm),
+      lubrication: f.lubrication,
+      ...optionalNumbers(f, ['angleDeg']),
+      singleUse: f.singleUse,
+      notes: f.notes,
+    })),
     wheel: d.hasWheel ? wheelOf(d.wheel) : null,
     brakes: d.hasBrakes ? brakesOf(d.brakes) : null,
     currency: d.currency.trim().toUpperCase(),
     costs: d.costs.map((c) => ({ route: c.route, item: c.item, amountMinor: toMinor(c.amount) })),
     installHours: numOrNull(d.installHours),
     difficulty: numOrNull(d.difficulty),
-    tools: splitWords(d.tools),
-    parkingBrakeKept: d.parkingBrakeKept === '' ? null : d.parkingBrakeKept === 'yes',
+    tools: splitLines(d.tools),
+    parkingBrake: d.parkingBrakeType === '' ? null : { type: d.parkingBrakeType, kept: d.parkingBrakeKept === 'yes' },
+  };
+}
+
+/** the listed fields that hold text, as numbers; empty ones are left out (they are optional) */
+function optionalNumbers<K extends string>(row: Record<K, string>, keys: K[]): Partial<Record<K, number>> {
+  const out: Partial<Record<K, number>> = {};
+  for (const k of keys) {
+    const v = num(row[k]);
+    if (v !== undefined) out[k] = v;
+  }
+  return out;
+}
+
+function caliperOf(c: CaliperValues) {
+  const pistons = [
+    ...numberList(c.inboardMm).map((diameterMm) => ({ diameterMm, side: 'inboard' })),
+    ...(c.type === 'fixed' ? numberList(c.outboardMm).map((diameterMm) => ({ diameterMm, side: 'outboard' })) : []),
+  ];
+  return {
+    axle: c.axle,
+    name: c.name,
+    type: c.type,
+    pistons,
+    mount: { type: c.mountType, ...optionalNumbers({ spacingMm: c.mountSpacingMm }, ['spacingMm']), thread: c.mountThread },
+    designRotor: optionalNumbers(
+      { diameterMm: c.designDiameterMm, thicknessMinMm: c.designThicknessMinMm, thicknessMaxMm: c.designThicknessMaxMm },
+      ['diameterMm', 'thicknessMinMm', 'thicknessMaxMm'],
+    ),
+    ...optionalNumbers(c, ['padHeightMm']),
+    bleedScrewWhenFitted: c.bleedScrewWhenFitted || null,
+    notes: c.notes,
   };
 }
 
@@ -318,8 +602,13 @@ function wheelOf(w: FormValues['data']['wheel']) {
       widthIn: num(t.widthIn),
       offsetMm: num(t.offsetMm),
       spacerMm: num(t.spacerMm) ?? 0,
-      radialClearanceMm: num(t.radialClearanceMm),
-      spokeClearanceMm: num(t.spokeClearanceMm),
+      outcome: t.outcome,
+      change: t.change,
+      material: t.material,
+      seat: t.seat,
+      tyre: t.tyre,
+      ...optionalNumbers(t, ['centreBoreMm', 'radialClearanceMm', 'spokeClearanceMm']),
+      measuredWhere: t.measuredWhere,
       note: t.note,
     })),
     notes: w.notes,
@@ -397,12 +686,56 @@ export function valuesFromData(data: SwapData, body: string, base: FormValues = 
       })),
       hasAdapter: data.adapter !== null,
       adapter: data.adapter ? { ...data.adapter, hardwareIncluded: data.adapter.hardwareIncluded.join('\n') } : base.data.adapter,
-      shims: data.shims.map((s) => ({ location: s.location, thicknessMm: str(s.thicknessMm), quantity: str(s.quantity) })),
-      shimTargetMm: str(data.shimTargetMm),
+      calipers: data.calipers.map((c) => ({
+        axle: c.axle,
+        name: c.name,
+        type: c.type,
+        inboardMm: c.pistons.filter((p) => p.side === 'inboard').map((p) => p.diameterMm).join('; '),
+        outboardMm: c.pistons.filter((p) => p.side === 'outboard').map((p) => p.diameterMm).join('; '),
+        mountType: c.mount.type,
+        mountSpacingMm: str(c.mount.spacingMm),
+        mountThread: c.mount.thread,
+        designDiameterMm: str(c.designRotor.diameterMm),
+        designThicknessMinMm: str(c.designRotor.thicknessMinMm),
+        designThicknessMaxMm: str(c.designRotor.thicknessMaxMm),
+        padHeightMm: str(c.padHeightMm),
+        bleedScrewWhenFitted: c.bleedScrewWhenFitted ?? '',
+        notes: c.notes,
+      })),
+      shims: data.shims.map((s) => ({ ...s, thicknessMm: str(s.thicknessMm), quantity: str(s.quantity) })),
+      centring: data.centring
+        ? { joint: data.centring.joint, gapMm: str(data.centring.gapMm), positions: str(data.centring.positions) }
+        : base.data.centring,
       spacers: data.spacers.map((s) => ({ ...s, thicknessMm: str(s.thicknessMm), quantity: str(s.quantity) })),
-      rotors: data.rotors.map((r) => ({ ...r, diameterMm: str(r.diameterMm), thicknessMm: str(r.thicknessMm) })),
-      machining: data.machining.map((m) => ({ ...m })),
-      torque: data.torque.map((t) => ({ ...t, nm: str(t.nm) })),
+      rotors: data.rotors.map((r) => ({
+        ...r,
+        diameterMm: str(r.diameterMm),
+        thicknessMm: str(r.thicknessMm),
+        minThicknessMm: str(r.minThicknessMm),
+        hatHeightMm: str(r.hatHeightMm),
+        frictionRingInnerDiameterMm: str(r.frictionRingInnerDiameterMm),
+        centreBoreMm: str(r.centreBoreMm),
+        massKg: str(r.massKg),
+        parkingDrumDiameterMm: str(r.parkingDrumDiameterMm),
+      })),
+      machining: data.machining.map((m) => ({ ...m, amountMm: str(m.amountMm) })),
+      fasteners: data.fasteners.map((f) => {
+        const t = data.torque.find((row) => row.fastenerId === f.id);
+        return {
+          id: f.id,
+          kind: f.kind,
+          label: f.label,
+          thread: f.thread,
+          lengthMm: str(f.lengthMm),
+          propertyClass: f.propertyClass,
+          quantity: str(f.quantity),
+          nm: str(t?.nm),
+          lubrication: t?.lubrication ?? 'not_stated',
+          angleDeg: str(t?.angleDeg),
+          singleUse: t?.singleUse ?? false,
+          notes: t?.notes ?? '',
+        };
+      }),
       hasWheel: data.wheel !== null,
       wheel: data.wheel
         ? {
@@ -411,13 +744,14 @@ export function valuesFromData(data: SwapData, body: string, base: FormValues = 
             caliperRadialProjectionMm: str(data.wheel.caliperRadialProjectionMm),
             caliperOutboardMm: str(data.wheel.caliperOutboardMm),
             testedWheels: data.wheel.testedWheels.map((t) => ({
+              ...t,
               diameterIn: str(t.diameterIn),
               widthIn: str(t.widthIn),
               offsetMm: str(t.offsetMm),
               spacerMm: str(t.spacerMm),
+              centreBoreMm: str(t.centreBoreMm),
               radialClearanceMm: str(t.radialClearanceMm),
               spokeClearanceMm: str(t.spokeClearanceMm),
-              note: t.note,
             })),
             notes: data.wheel.notes,
           }
@@ -435,8 +769,9 @@ export function valuesFromData(data: SwapData, body: string, base: FormValues = 
       costs: data.costs.map((c) => ({ route: c.route, item: c.item, amount: (c.amountMinor / 100).toFixed(2) })),
       installHours: str(data.installHours),
       difficulty: str(data.difficulty),
-      tools: data.tools.join(', '),
-      parkingBrakeKept: data.parkingBrakeKept === null ? '' : data.parkingBrakeKept ? 'yes' : 'no',
+      tools: data.tools.join('\n'),
+      parkingBrakeType: data.parkingBrake?.type ?? '',
+      parkingBrakeKept: data.parkingBrake && !data.parkingBrake.kept ? 'no' : 'yes',
     },
   };
 }
@@ -486,6 +821,13 @@ export function formPathOf(path: string): string {
     .replace(/^(data\.adapter\.hardwareIncluded)\.\d+$/, '$1')
     .replace(/^(data\.tools)\.\d+$/, '$1')
     .replace(/^(data\.brakes\.(?:before|after)\.(?:front|rear)\.pistonsPerSideMm)\.\d+$/, '$1')
+    .replace(/^(data\.calipers\.\d+)\.pistons(?:\.\d+.*)?$/, '$1.inboardMm')
+    .replace(/^(data\.calipers\.\d+)\.mount\.spacingMm$/, '$1.mountSpacingMm')
+    .replace(/^(data\.calipers\.\d+)\.mount\.thread$/, '$1.mountThread')
+    .replace(/^(data\.calipers\.\d+)\.designRotor\.diameterMm$/, '$1.designDiameterMm')
+    .replace(/^(data\.calipers\.\d+)\.designRotor\.thickness(Min|Max)Mm$/, '$1.designThickness$2Mm')
+    .replace(/^data\.torque\.\d+\.fastenerId$/, 'data.fasteners.root')
+    .replace(/^data\.parkingBrake(?:\..*)?$/, 'data.parkingBrakeType')
     .replace(/^(data\.costs\.\d+)\.amountMinor$/, '$1.amount')
     .replace(/^newChassis$/, 'newChassis.make')
     .replace(/^data\.parts$/, 'data.parts.root');
@@ -493,14 +835,30 @@ export function formPathOf(path: string): string {
 
 export type ParseResult = { ok: true; payload: CreateSubmission } | { ok: false; issues: { path: string; message: string }[] };
 
-const placeholderData = { title: 'placeholder title', parts: [{ role: 'x', kind: 'caliper', name: 'xx', quantity: 1 }] };
+const placeholderData = {
+  schemaVersion: SWAP_DATA_VERSION,
+  title: 'placeholder title',
+  parts: [{ role: 'x', kind: 'caliper', name: 'xx', quantity: 1 }],
+};
+
+/** a torque row's error belongs to the form row of its fastener (rows without a value write no torque row) */
+function torqueRowToFastener(v: FormValues, path: string): string {
+  const m = /^data\.torque\.(\d+)\.(.+)$/.exec(path);
+  if (!m) return path;
+  const rows = v.data.fasteners.flatMap((f, i) => (f.nm.trim() !== '' ? [i] : []));
+  const row = rows[Number(m[1])];
+  return row === undefined ? path : `data.fasteners.${row}.${m[2]}`;
+}
 
 export function parsePayload(v: FormValues, swapSlug: string | null): ParseResult {
   const payload = toPayload(v, swapSlug) as Record<string, unknown>;
   const opts = { error: (iss: unknown) => friendlyIssue(iss as never) };
   const result = createSubmissionSchema.safeParse(payload, opts);
   if (result.success) return { ok: true, payload: result.data };
-  const issues = result.error.issues.map((i) => ({ path: formPathOf(i.path.map(String).join('.')), message: i.message }));
+  const issues = result.error.issues.map((i) => ({
+    path: torqueRowToFastener(v, formPathOf(i.path.map(String).join('.'))),
+    message: i.message,
+  }));
   // the schema's whole-object rules (chassis, axle, category) only run once the record reads;
   // run them against a stand-in record too, so those fields are marked at the same time
   const outer = createSubmissionSchema.safeParse({ ...payload, data: placeholderData }, opts);
@@ -553,17 +911,22 @@ export function liveDataOf(v: FormValues['data']): SwapData {
   const rows = <T>(schema: SectionSchema<T>, list: unknown) =>
     ((list as unknown[]) ?? []).map((r) => tryParse(schema, r)).filter((r): r is T => r !== null);
   const shape = swapDataSchema.shape;
+  const fasteners = rows(fastenerSchema, raw.fasteners);
+  const ids = new Set(fasteners.map((f) => f.id));
   return {
+    schemaVersion: SWAP_DATA_VERSION,
     title: String(raw.title ?? '').trim(),
     summary: '',
     parts: rows(swapPartSchema, raw.parts),
     adapter: raw.adapter ? tryParse(adapterSchema, raw.adapter) : null,
-    shims: rows(shimSchema, raw.shims),
-    shimTargetMm: tryParse(shape.shimTargetMm, raw.shimTargetMm),
-    spacers: rows(spacerSchema, raw.spacers),
+    calipers: rows(caliperSchema, raw.calipers),
     rotors: rows(rotorSchema, raw.rotors),
+    shims: rows(shimSchema, raw.shims),
+    centring: raw.centring ? tryParse(centringSchema, raw.centring) : null,
+    spacers: rows(spacerSchema, raw.spacers),
     machining: rows(machiningStepSchema, raw.machining),
-    torque: rows(torqueSpecSchema, raw.torque),
+    fasteners,
+    torque: rows(torqueSpecSchema, raw.torque).filter((t) => ids.has(t.fastenerId)),
     wheel: raw.wheel ? tryParse(wheelRequirementSchema, raw.wheel) : null,
     brakes: raw.brakes ? tryParse(brakeFiguresSchema, raw.brakes) : null,
     currency: /^[A-Z]{3}$/.test(String(raw.currency)) ? String(raw.currency) : 'EUR',
@@ -571,7 +934,7 @@ export function liveDataOf(v: FormValues['data']): SwapData {
     installHours: tryParse(shape.installHours, raw.installHours),
     difficulty: tryParse(shape.difficulty, raw.difficulty),
     tools: [],
-    parkingBrakeKept: null,
+    parkingBrake: raw.parkingBrake ? tryParse(parkingBrakeSchema, raw.parkingBrake) : null,
   };
 }
 

@@ -75,7 +75,7 @@ export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) 
           title="Stock brakes"
           rows={(['front', 'rear'] as const).map((k) => [
             k === 'front' ? 'Front' : 'Rear',
-            `${corner(k).description}${corner(k).kind === 'disc' ? `, ${length(corner(k).rotorDiameterMm, 0)}` : ''}`,
+            corner(k).description,
           ])}
         />
       </section>

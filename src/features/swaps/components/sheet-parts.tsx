@@ -1,5 +1,12 @@
 import { Link } from 'react-router';
-import type { SwapData } from '@shared/schemas/swap-data';
+import { isStructural, type SwapData } from '@shared/schemas/swap-data';
+import {
+  fastenerKindLabels,
+  lubricationLabels,
+  machiningComponentLabels,
+  shimJointLabels,
+  wheelOutcomeLabels,
+} from '@shared/schemas/swap-data-labels';
 import { useUnits } from '../../../lib/units';
 import { nmToLbfFt } from '@shared/fitment/units';
 import { paths } from '../../../config/paths';
@@ -61,25 +68,70 @@ export function AdapterSection({ adapter }: { adapter: NonNullable<SwapData['ada
   );
 }
 
+export function CalipersSection({ calipers }: { calipers: SwapData['calipers'] }) {
+  const { length } = useUnits();
+  const pistons = (c: SwapData['calipers'][number], side: 'inboard' | 'outboard') =>
+    c.pistons
+      .filter((p) => p.side === side)
+      .map((p) => length(p.diameterMm, 0))
+      .join(' + ');
+  return (
+    <SheetSection id="calipers" title="Calipers">
+      <SpecTable
+        caption="Calipers as fitted"
+        head={['Axle', 'Caliper', 'Pistons', 'Mounting', 'Made for rotor', 'Bleed screw']}
+        rows={calipers.map((c) => [
+          c.axle === 'front' ? 'Front' : 'Rear',
+          <span className="font-bold">{c.name}</span>,
+          c.type === 'fixed' ? `${pistons(c, 'inboard')} each side (fixed)` : `${pistons(c, 'inboard')} (floating)`,
+          `${c.mount.type === 'radial' ? 'Radial' : 'Axial'}${c.mount.spacingMm ? `, ${length(c.mount.spacingMm, 0)} centres` : ''}${c.mount.thread ? `, ${c.mount.thread}` : ''}`,
+          c.designRotor.diameterMm
+            ? `${length(c.designRotor.diameterMm, 0)}${c.designRotor.thicknessMinMm ? ` × ${length(c.designRotor.thicknessMinMm, 0)}–${length(c.designRotor.thicknessMaxMm ?? c.designRotor.thicknessMinMm, 0)}` : ''}`
+            : dash,
+          c.bleedScrewWhenFitted === 'bottom' ? (
+            <Badge tone="oxide">at the bottom</Badge>
+          ) : c.bleedScrewWhenFitted === 'top' ? (
+            'At the top'
+          ) : (
+            dash
+          ),
+        ])}
+      />
+    </SheetSection>
+  );
+}
+
 export function ShimsSpacersSection({ data }: { data: SwapData }) {
   const { length } = useUnits();
+  const c = data.centring;
+  const atJoint = c ? data.shims.filter((s) => s.joint === c.joint && s.direction === 'axial') : [];
+  const perBolt = c ? atJoint.reduce((sum, s) => sum + s.thicknessMm * s.quantity, 0) / c.positions : 0;
   return (
     <SheetSection id="shims" title="Shims and spacers">
       <div className="grid grid-cols-1 gap-4 md:grid-cols-2">
         <div>
-          <h3 className="mb-1 text-sm font-bold">Centring shims (adapter to caliper)</h3>
+          <h3 className="mb-1 text-sm font-bold">Shims in the caliper mounting</h3>
           {data.shims.length === 0 ? (
             <p className="text-sm text-graphite-soft">None needed.</p>
           ) : (
             <SpecTable
-              caption="Centring shims"
-              head={['Where', 'Thickness', 'Qty']}
-              rows={data.shims.map((s) => [s.location, length(s.thicknessMm, 2), s.quantity])}
+              caption="Shims"
+              head={['Joint', 'Moves the caliper', 'Thickness', 'Qty']}
+              rows={data.shims.map((s) => [
+                <span>
+                  {shimJointLabels[s.joint]}
+                  {s.notes && <span className="block text-xs text-graphite-soft">{s.notes}</span>}
+                </span>,
+                s.direction === 'axial' ? 'Along the axle (centres)' : 'Outward (lifts)',
+                length(s.thicknessMm, 2),
+                s.quantity,
+              ])}
             />
           )}
-          {data.shimTargetMm !== null && (
+          {c && (
             <p className="mt-1 text-xs text-graphite-soft">
-              Measured centring gap: {length(data.shimTargetMm, 2)} per mounting point.
+              Measured centring gap {length(c.gapMm, 2)} per bolt at the {shimJointLabels[c.joint].toLowerCase()} joint (
+              {c.positions} bolt positions); the axial shims there add up to {length(perBolt, 2)} per bolt.
             </p>
           )}
         </div>
@@ -90,10 +142,11 @@ export function ShimsSpacersSection({ data }: { data: SwapData }) {
           ) : (
             <SpecTable
               caption="Wheel spacers"
-              head={['Thickness', 'Type', 'Qty', 'Notes']}
+              head={['Axle', 'Thickness', 'Type', 'Qty', 'Notes']}
               rows={data.spacers.map((s) => [
+                s.axle === 'front' ? 'Front' : 'Rear',
                 length(s.thicknessMm),
-                `${s.hubCentric ? 'Hub-centric' : 'Not hub-centric'}, ${s.mounting === 'bolt_on' ? 'bolt-on' : 'slip-on'}`,
+                `${s.hubCentric ? 'Hub-centric' : 'Not hub-centric'}, ${s.mounting === 'bolt_on' ? 'bolt-on' : 'slip-on'}, ${s.material}`,
                 s.quantity,
                 s.notes || dash,
               ])}
@@ -111,11 +164,23 @@ export function RotorsSection({ rotors }: { rotors: SwapData['rotors'] }) {
     <SheetSection id="rotors" title="Rotors">
       <SpecTable
         caption="Rotors"
-        head={['Diameter', 'Thickness', 'Type', 'Part number', 'Notes']}
+        head={['Axle', 'Diameter × thickness', 'Type', 'Hat height', 'Part number', 'Notes']}
         rows={rotors.map((r) => [
-          <span className="font-bold">{length(r.diameterMm, 0)}</span>,
-          length(r.thicknessMm),
-          r.vented ? 'Vented' : 'Solid',
+          r.axle === 'front' ? 'Front' : 'Rear',
+          <span>
+            <span className="font-bold">
+              {length(r.diameterMm, 0)} × {length(r.thicknessMm, 0)}
+            </span>
+            {r.minThicknessMm && <span className="block text-xs text-graphite-soft">min. {length(r.minThicknessMm, 1)}</span>}
+          </span>,
+          [
+            r.vented ? 'Vented' : 'Solid',
+            r.directional ? 'directional' : null,
+            r.parkingDrumDiameterMm ? `${length(r.parkingDrumDiameterMm, 0)} drum in hat` : null,
+          ]
+            .filter(Boolean)
+            .join(', '),
+          r.hatHeightMm ? length(r.hatHeightMm, 0) : dash,
           <span className="font-mono text-xs">{r.partNumber || '—'}</span>,
           r.notes || dash,
         ])}
@@ -127,6 +192,7 @@ export function RotorsSection({ rotors }: { rotors: SwapData['rotors'] }) {
 const operationLabels = { grind: 'Grind', machine: 'Machine', drill: 'Drill', trim: 'Trim' } as const;
 
 export function MachiningSection({ steps }: { steps: SwapData['machining'] }) {
+  const { length } = useUnits();
   return (
     <SheetSection id="machining" title="Machining and fabrication">
       {steps.length === 0 ? (
@@ -140,9 +206,11 @@ export function MachiningSection({ steps }: { steps: SwapData['machining'] }) {
               </span>
               <div>
                 <p className="font-bold">
-                  {operationLabels[s.operation]}: {s.where}{' '}
-                  {s.required ? <Badge tone="oxide">required</Badge> : <Badge tone="plain">optional</Badge>}
+                  {operationLabels[s.operation]} · {machiningComponentLabels[s.component].toLowerCase()}: {s.where}{' '}
+                  {s.required ? <Badge tone="oxide">required</Badge> : <Badge tone="plain">optional</Badge>}{' '}
+                  {isStructural(s) && <Badge tone="oxide">structural part</Badge>}
                 </p>
+                {s.amountMm && <p className="text-sm text-graphite">About {length(s.amountMm, 1)} removed.</p>}
                 {s.notes && <p className="text-sm text-graphite">{s.notes}</p>}
               </div>
             </li>
@@ -153,26 +221,66 @@ export function MachiningSection({ steps }: { steps: SwapData['machining'] }) {
   );
 }
 
-export function TorqueSection({ torque }: { torque: SwapData['torque'] }) {
-  const { system } = useUnits();
+export function TorqueSection({ data }: { data: SwapData }) {
+  const { system, length } = useUnits();
   const primary = (nm: number) => (system === 'metric' ? `${nm} N·m` : `${Math.round(nmToLbfFt(nm))} lbf·ft`);
   const secondary = (nm: number) => (system === 'metric' ? `${Math.round(nmToLbfFt(nm))} lbf·ft` : `${nm} N·m`);
+  const fastener = new Map(data.fasteners.map((f) => [f.id, f]));
   return (
     <SheetSection id="torque" title="Torque specs">
-      {torque.length === 0 ? (
+      {data.torque.length === 0 ? (
         <p className="text-sm text-oxide">No torque figures recorded. Use the manufacturer’s values for every fastener.</p>
       ) : (
         <SpecTable
           caption="Torque specs"
-          head={['Fastener', 'Torque', system === 'metric' ? 'lbf·ft' : 'N·m', 'Notes']}
-          rows={torque.map((t) => [
-            t.fastener,
-            <span className="font-extrabold">{primary(t.nm)}</span>,
-            secondary(t.nm),
-            t.notes || dash,
-          ])}
+          head={['Fastener', 'Thread', 'Torque', system === 'metric' ? 'lbf·ft' : 'N·m', 'Threads', 'Notes']}
+          rows={data.torque.map((t) => {
+            const f = fastener.get(t.fastenerId);
+            return [
+              <span>
+                <span className="font-bold">{f?.label ?? t.fastenerId}</span>
+                {f && <span className="block text-xs text-graphite-soft">{fastenerKindLabels[f.kind]}</span>}
+              </span>,
+              f ? [f.thread, f.lengthMm ? `× ${length(f.lengthMm, 0)}` : '', f.propertyClass].filter(Boolean).join(' ') || dash : dash,
+              <span className="font-extrabold">
+                {primary(t.nm)}
+                {t.angleDeg ? ` + ${t.angleDeg}°` : ''}
+              </span>,
+              secondary(t.nm),
+              lubricationLabels[t.lubrication],
+              [t.singleUse ? 'Single use: fit new ones' : '', t.notes].filter(Boolean).join('. ') || dash,
+            ];
+          })}
         />
       )}
     </SheetSection>
+  );
+}
+
+export function TestedWheelsList({ wheels }: { wheels: NonNullable<SwapData['wheel']>['testedWheels'] }) {
+  const { length } = useUnits();
+  return (
+    <SpecTable
+      caption="Wheels tried with this swap"
+      head={['Wheel', 'Outcome', 'Barrel', 'Spokes', 'Where and how measured']}
+      rows={wheels.map((w) => [
+        <span>
+          <span className="font-bold">
+            {w.diameterIn}×{w.widthIn} ET{w.offsetMm}
+          </span>
+          {w.spacerMm > 0 && ` + ${length(w.spacerMm, 0)} spacer`}
+          <span className="block text-xs text-graphite-soft">
+            {[w.material !== 'not_stated' ? w.material : '', w.tyre, w.note].filter(Boolean).join(' · ')}
+          </span>
+        </span>,
+        <Badge tone={w.outcome === 'does_not_fit' ? 'oxide' : w.outcome === 'fits' ? 'ink' : 'brass'}>
+          {wheelOutcomeLabels[w.outcome]}
+          {w.outcome === 'fits_with_change' && w.change ? `: ${w.change}` : ''}
+        </Badge>,
+        w.radialClearanceMm !== undefined ? length(w.radialClearanceMm) : dash,
+        w.spokeClearanceMm !== undefined ? length(w.spokeClearanceMm) : dash,
+        w.measuredWhere || dash,
+      ])}
+    />
   );
 }

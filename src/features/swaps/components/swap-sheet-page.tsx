@@ -14,7 +14,18 @@ import { chassisLabel } from '../../../components/swap-card';
 import { paths } from '../../../config/paths';
 import { useUnits } from '../../../lib/units';
 import { SheetSection } from './sheet-section';
-import { PartsSection, AdapterSection, ShimsSpacersSection, RotorsSection, MachiningSection, TorqueSection } from './sheet-parts';
+import {
+  PartsSection,
+  AdapterSection,
+  CalipersSection,
+  ShimsSpacersSection,
+  RotorsSection,
+  MachiningSection,
+  TorqueSection,
+  TestedWheelsList,
+} from './sheet-parts';
+import { jobTouches } from '@shared/fitment/swap-checks';
+import { cautionTopicsOf } from '../../../components/caution';
 import { CostRoutesSection } from './cost-routes';
 import { BrakeBalanceSection } from './brake-balance';
 import { WheelCheckPanel, type WheelPreset } from './wheel-check-panel';
@@ -57,7 +68,7 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
   const { length } = useUnits();
   const isOld = currentNumber !== null && revision.number !== currentNumber;
   const level = machiningLevel(data.machining);
-  const brakesWork = swap.category === 'brakes' || data.parts.some((p) => ['caliper', 'rotor', 'pad', 'line'].includes(p.kind));
+  const touches = jobTouches(data, swap.category);
 
   return (
     <Page title={data.title}>
@@ -83,10 +94,12 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
         <div className="flex flex-wrap gap-2">
           <Badge tone="ink">{swap.axle === 'front' ? 'Front axle' : 'Rear axle'}</Badge>
           <Badge>{categoryLabels[swap.category]}</Badge>
-          <Badge tone={level === 'major' ? 'oxide' : level === 'minor' ? 'brass' : 'plain'}>{machiningLevelLabels[level]}</Badge>
-          {data.parkingBrakeKept !== null && (
-            <Badge tone={data.parkingBrakeKept ? 'ink' : 'oxide'}>
-              {data.parkingBrakeKept ? 'Parking brake kept' : 'Parking brake lost'}
+          <Badge tone={level === 'major' || level === 'structural' ? 'oxide' : level === 'minor' ? 'brass' : 'plain'}>
+            {machiningLevelLabels[level]}
+          </Badge>
+          {data.parkingBrake && data.parkingBrake.type !== 'none' && (
+            <Badge tone={data.parkingBrake.kept ? 'ink' : 'oxide'}>
+              {data.parkingBrake.kept ? 'Parking brake kept' : 'Parking brake lost'}
             </Badge>
           )}
         </div>
@@ -118,23 +131,26 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
           <Button variant="secondary" onClick={() => window.print()}>
             Print build sheet
           </Button>
-          <a
-            href="#check"
-            className="inline-flex min-h-10 items-center rounded-md px-4 text-sm font-bold text-ink hover:bg-ink-faint"
-          >
-            Check my wheel ↓
-          </a>
+          {data.wheel && (
+            <a
+              href="#check"
+              className="inline-flex min-h-10 items-center rounded-md px-4 text-sm font-bold text-ink hover:bg-ink-faint"
+            >
+              Check my wheel ↓
+            </a>
+          )}
         </div>
       </header>
 
       <div className="grid grid-cols-1 gap-10 print:gap-4">
-        <Caution topics={brakesWork ? ['brakes', 'wheels', 'fasteners'] : ['wheels', 'fasteners']} />
+        <Caution topics={cautionTopicsOf(touches)} />
         <PartsSection parts={data.parts} />
         {data.adapter && <AdapterSection adapter={data.adapter} />}
-        {(data.shims.length > 0 || data.spacers.length > 0) && <ShimsSpacersSection data={data} />}
+        {data.calipers.length > 0 && <CalipersSection calipers={data.calipers} />}
         {data.rotors.length > 0 && <RotorsSection rotors={data.rotors} />}
+        {(data.shims.length > 0 || data.spacers.length > 0) && <ShimsSpacersSection data={data} />}
         <MachiningSection steps={data.machining} />
-        <TorqueSection torque={data.torque} />
+        <TorqueSection data={data} />
         {data.wheel && (
           <SheetSection id="wheel" title="Wheel requirement">
             <dl className="tabular grid grid-cols-2 gap-3 text-sm sm:grid-cols-4">
@@ -146,27 +162,18 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
               <Fact label="Caliper face outboard of hub" value={length(data.wheel.caliperOutboardMm)} />
             </dl>
             {data.wheel.testedWheels.length > 0 && (
-              <ul className="tabular mt-3 space-y-1 text-sm">
-                {data.wheel.testedWheels.map((w, i) => (
-                  <li key={i}>
-                    Tested:{' '}
-                    <strong>
-                      {w.diameterIn}×{w.widthIn} ET{w.offsetMm}
-                    </strong>
-                    {w.spacerMm > 0 && ` + ${length(w.spacerMm)} spacer`}
-                    {w.radialClearanceMm !== undefined && ` · radial ${length(w.radialClearanceMm)}`}
-                    {w.spokeClearanceMm !== undefined && ` · spokes ${length(w.spokeClearanceMm)}`}
-                    {w.note && ` — ${w.note}`}
-                  </li>
-                ))}
-              </ul>
+              <div className="mt-3">
+                <TestedWheelsList wheels={data.wheel.testedWheels} />
+              </div>
             )}
             {data.wheel.notes && <p className="mt-2 text-sm text-graphite">{data.wheel.notes}</p>}
           </SheetSection>
         )}
-        <div className="print:hidden">
-          <WheelCheckPanel data={data} axle={swap.axle} wheelBoltThread={chassis.wheelBoltThread} presets={presets} />
-        </div>
+        {data.wheel && (
+          <div className="print:hidden">
+            <WheelCheckPanel data={data} axle={swap.axle} wheelBoltThread={chassis.wheelBoltThread} presets={presets} />
+          </div>
+        )}
         <BrakeBalanceSection data={data} />
         <CostRoutesSection data={data} />
         {data.tools.length > 0 && (

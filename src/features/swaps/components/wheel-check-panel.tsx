@@ -1,12 +1,12 @@
 import { useMemo, useState } from 'react';
 import type { SwapData } from '@shared/schemas/swap-data';
 import type { Axle } from '@shared/schemas/enums';
-import { checkWheelForSwap, type WheelUnderTest } from '@shared/fitment/swap-checks';
+import { checkWheelForSwap, wheelCheckSummary, type WheelUnderTest } from '@shared/fitment/swap-checks';
 import { FitmentInputError } from '@shared/fitment/errors';
-import { inToMm } from '@shared/fitment/units';
+import { inToMm, mmToIn } from '@shared/fitment/units';
 import { useUnits } from '../../../lib/units';
 import { TextInput } from '../../../components/ui/field';
-import { Figure, Verdict } from '../../../components/verdict';
+import { ClearanceCard, Figure, Verdict } from '../../../components/verdict';
 import { Button } from '../../../components/ui/button';
 import { SheetSection } from './sheet-section';
 
@@ -29,26 +29,33 @@ function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors:
   const errors: Partial<Record<keyof Form, string>> = {};
   // nothing typed yet: no complaints, just the prompt
   const started = form.diameterIn.trim() !== '' || form.widthIn.trim() !== '' || form.offsetMm.trim() !== '';
-  const num = (key: keyof Form, { required = false, min = -Infinity, max = Infinity } = {}) => {
+  /** bounds in the field's stored unit; a length typed in inches is converted before it is compared */
+  const num = (key: keyof Form, { required = false, min = -Infinity, max = Infinity, length = false } = {}) => {
     const raw = form[key].trim().replace(',', '.');
     if (raw === '') {
       if (required && started) errors[key] = 'Needed for the check';
       return undefined;
     }
-    const v = Number(raw);
-    if (!Number.isFinite(v)) errors[key] = 'Enter a number';
-    else if (v < min || v > max) errors[key] = `Between ${min} and ${max}`;
-    return Number.isFinite(v) ? v : undefined;
+    const typed = Number(raw);
+    if (!Number.isFinite(typed)) {
+      errors[key] = 'Enter a number';
+      return undefined;
+    }
+    const v = length && imperial ? inToMm(typed) : typed;
+    if (v < min || v > max) {
+      const shown = (mm: number) => (length && imperial ? `${+mmToIn(mm).toFixed(2)} in` : length ? `${mm} mm` : String(mm));
+      errors[key] = `Between ${shown(min)} and ${shown(max)}`;
+    }
+    return v;
   };
-  const len = (v: number | undefined) => (v === undefined ? undefined : imperial ? inToMm(v) : v);
   const diameterIn = num('diameterIn', { required: true, min: 10, max: 24 });
   const widthIn = num('widthIn', { required: true, min: 4, max: 13 });
   const offsetMm = num('offsetMm', { required: true, min: -80, max: 80 });
-  const spacer = len(num('spacer', { min: 0, max: imperial ? 2.4 : 60 })) ?? 0;
-  const barrel = len(num('barrel', { min: 0, max: imperial ? 26 : 660 }));
-  const spokeInset = len(num('spokeInset', { min: -100, max: 200 }));
-  const boltLength = len(num('boltLength', { min: 0, max: imperial ? 4 : 100 }));
-  const seat = len(num('seat', { min: 0, max: imperial ? 2 : 50 }));
+  const spacer = num('spacer', { min: 0, max: 60, length: true }) ?? 0;
+  const barrel = num('barrel', { min: 0, max: 660, length: true });
+  const spokeInset = num('spokeInset', { min: -100, max: 200, length: true });
+  const boltLength = num('boltLength', { min: 0, max: 100, length: true });
+  const seat = num('seat', { min: 0, max: 50, length: true });
   if (Object.keys(errors).length || diameterIn === undefined || widthIn === undefined || offsetMm === undefined)
     return { errors };
   return {
@@ -204,7 +211,9 @@ export function WheelCheckPanel({
             {result.error}
           </p>
         ) : result ? (
-          <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
+          <>
+          <SummaryLine summary={wheelCheckSummary(result.check)} />
+          <div className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
             {result.check.minDiameter && (
               <Verdict
                 label="Wheel diameter"
@@ -214,26 +223,12 @@ export function WheelCheckPanel({
               />
             )}
             {result.check.radial ? (
-              <Verdict
-                label="Caliper to barrel (radial)"
-                ok={result.check.radial.ok}
-                value={units.length(result.check.radial.clearanceMm)}
-                margin={margin(result.check.radial.marginMm)}
-                rule={result.check.radial.rule}
-                note={result.check.radial.basisNote}
-              />
+              <ClearanceCard label="Caliper to barrel (radial)" figure={result.check.radial} />
             ) : (
               <Figure label="Caliper to barrel (radial)" value="Not checked" note="This record has no caliper measurements." />
             )}
             {result.check.spoke ? (
-              <Verdict
-                label="Caliper to spokes (face)"
-                ok={result.check.spoke.ok}
-                value={units.length(result.check.spoke.clearanceMm)}
-                margin={margin(result.check.spoke.marginMm)}
-                rule={result.check.spoke.rule}
-                note={result.check.spoke.basisNote}
-              />
+              <ClearanceCard label="Caliper to spokes (face)" figure={result.check.spoke} />
             ) : (
               <Figure
                 label="Caliper to spokes (face)"
@@ -253,6 +248,7 @@ export function WheelCheckPanel({
                 value={`${units.length(result.check.engagement.engagementMm)} (${result.check.engagement.turns.toFixed(1)} turns)`}
                 margin={margin(result.check.engagement.marginMm)}
                 rule={result.check.engagement.rule}
+                words={{ pass: 'Enough thread', fail: 'Too little thread' }}
               />
             ) : (
               <Figure
@@ -280,8 +276,21 @@ export function WheelCheckPanel({
             )}
             {result.check.spacerNote && <Figure label="Spacer type" value="Consider bolt-on" note={result.check.spacerNote} />}
           </div>
+          </>
         ) : null}
       </div>
     </SheetSection>
+  );
+}
+
+const summaryTone = { fail: 'border-oxide bg-oxide-soft text-oxide', pass: 'border-ink/30 bg-ink-faint text-ink', open: 'border-brass bg-brass-soft/50 text-graphite' };
+
+function SummaryLine({ summary }: { summary: ReturnType<typeof wheelCheckSummary> }) {
+  const units = useUnits();
+  return (
+    <p className={`rounded-lg border px-3 py-2 text-sm font-bold ${summaryTone[summary.tone]}`} data-testid="wheel-summary">
+      {summary.text}
+      {summary.leastClearanceMm !== undefined && ` Least clearance ${units.length(summary.leastClearanceMm)}.`}
+    </p>
   );
 }
