@@ -79,6 +79,7 @@ const record = (n: number) => ({
   axle: 'front',
   category: 'brakes',
   data: {
+    schemaVersion: 2,
     title: `Durability draft number ${n}`,
     parts: [{ role: 'Front caliper', kind: 'caliper', name: 'Test caliper', quantity: 2 }],
   },

@@ -232,12 +232,12 @@ describe('demo seed', () => {
   it.each([
     [
       'a part line with quantity 0',
-      (s: string) => s.replace('role: "Front caliper, left", quantity: 1', 'role: "Front caliper, left", quantity: 0'),
+      (s: string) => s.replace("role: 'Front caliper, left', quantity: 1", "role: 'Front caliper, left', quantity: 0"),
       /quantity/,
     ],
     [
       'an unknown catalogue part',
-      (s: string) => s.replace('part: "orsino-vela-front-rotor-330"', 'part: "no-such-rotor"'),
+      (s: string) => s.replace('part: orsino-vela-front-rotor-330,', 'part: no-such-rotor,'),
       /no-such-rotor/,
     ],
     ['a misspelt key', (s: string) => s.replace('installHours: 6', 'instalHours: 6'), /instalHours/],

@@ -120,8 +120,12 @@ describe('calculators page', () => {
     await corner('Swapped front', '40, 44', '330', '55');
     await expect.poll(() => figure(brakes, 'Front share, stock')).toBe('65.93 %');
     await expect.poll(() => figure(brakes, 'Front share, swapped')).toBe('73.72 %');
-    expect(await brakes.locator('[data-attention]').getAttribute('data-attention')).toBe('true');
-    expect(await brakes.locator('[data-attention]').innerText()).toContain('+7.79 points to the front');
+    // the same words as the swap sheet and the review desk: the direction, and what it risks
+    const note = brakes.locator('[data-balance]');
+    expect(await note.getAttribute('data-balance')).toBe('forward');
+    expect(await note.getAttribute('data-severity')).toBe('advisory');
+    expect(await note.innerText()).toContain('Balance moves toward the front: front share 65.9 % → 73.7 % (+7.8 points).');
+    expect(await note.innerText()).toContain('fronts still lock first');
     // Textbook torque per corner: 1053.50 / 1527.44 / 544.38 N·m, shown whole.
     const table = await brakes.getByRole('table').innerText();
     expect(table).toContain('1,054 N·m');
@@ -133,7 +137,7 @@ describe('calculators page', () => {
     await expect
       .poll(() => brakes.getByRole('group', { name: 'Swapped front' }).getByRole('alert').innerText())
       .toContain('less than the rotor radius');
-    expect(await brakes.locator('[data-attention]').count()).toBe(0);
+    expect(await brakes.locator('[data-balance]').count()).toBe(0);
     expect(await brakes.getByRole('note', { name: 'Safety caution' }).count()).toBe(1);
     expect(errors).toEqual([]);
     await context.close();

@@ -66,7 +66,8 @@ type SwapView = {
     summary: string;
     parts: { name: string; partNumbers: string[]; notes: string }[];
     adapter: { name: string; partNumber: string; notes: string } | null;
-    torque: { fastener: string; notes: string }[];
+    fasteners: { label: string }[];
+    torque: { notes: string }[];
     wheel: { notes: string; testedWheels: { note: string }[] } | null;
     rotors: { partNumber: string; notes: string }[];
   };
@@ -81,7 +82,8 @@ function sheetTexts(v: SwapView): string[] {
     d.summary,
     ...d.parts.flatMap((p) => [p.name, ...p.partNumbers, p.notes]),
     ...(d.adapter ? [d.adapter.name, d.adapter.partNumber, d.adapter.notes] : []),
-    ...d.torque.flatMap((t) => [t.fastener, t.notes]),
+    ...d.fasteners.map((f) => f.label),
+    ...d.torque.map((t) => t.notes),
     ...(d.wheel ? [d.wheel.notes, ...d.wheel.testedWheels.map((w) => w.note)] : []),
     ...d.rotors.flatMap((r) => [r.partNumber, r.notes]),
     ...v.photos.map((p) => p.caption),
@@ -104,6 +106,7 @@ function swapInput(tag: string, chassisId: number, literalTitle?: string) {
     category: 'brakes' as const,
     body: `## ${tag} write-up\n\n${joined('write-up markdown', 12, '\n\n')}\n\nThe end of the ${tag} write-up.`,
     data: {
+      schemaVersion: 2,
       title,
       summary: `${tag}: ${joined('summary', 3, ' | ')}`,
       parts: [0, 1, 2, 3].map((k) => ({
@@ -124,6 +127,7 @@ function swapInput(tag: string, chassisId: number, literalTitle?: string) {
       },
       rotors: [
         {
+          axle: 'front',
           diameterMm: 300,
           thicknessMm: 24,
           vented: true,
@@ -131,8 +135,13 @@ function swapInput(tag: string, chassisId: number, literalTitle?: string) {
           notes: `${tag} rotor ${one('rotor notes')}`,
         },
       ],
+      fasteners: [0, 1, 2].map((k) => ({
+        id: `f${k}`,
+        kind: 'other',
+        label: `${tag} fastener ${k} ${one('torque fastener')}`,
+      })),
       torque: [0, 1, 2].map((k) => ({
-        fastener: `${tag} fastener ${k} ${one('torque fastener')}`,
+        fastenerId: `f${k}`,
         nm: 80 + k,
         notes: `${tag} torque ${one('torque notes')}`,
       })),
@@ -141,7 +150,14 @@ function swapInput(tag: string, chassisId: number, literalTitle?: string) {
         caliperRadialProjectionMm: 12,
         caliperOutboardMm: 30,
         testedWheels: [
-          { diameterIn: 16, widthIn: 7, offsetMm: 35, spacerMm: 0, note: `${tag} wheel ${one('tested wheel note')}` },
+          {
+            diameterIn: 16,
+            widthIn: 7,
+            offsetMm: 35,
+            spacerMm: 0,
+            outcome: 'fits',
+            note: `${tag} wheel ${one('tested wheel note')}`,
+          },
         ],
         notes: `${tag} wheel notes ${one('wheel notes')}`,
       },

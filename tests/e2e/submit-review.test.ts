@@ -57,7 +57,7 @@ describe('submit and review journey', () => {
     const { page, errors } = await signIn(context, 'camber_kai', '/submit');
     await page.getByRole('heading', { level: 1, name: 'Record a swap' }).waitFor();
     await page.getByRole('checkbox', { name: 'The swap limits which wheels fit' }).check();
-    await page.getByRole('button', { name: 'Add a tested wheel' }).click();
+    await page.getByRole('button', { name: 'Add a wheel we tried' }).click();
     await page.getByRole('checkbox', { name: 'The swap changes calipers or rotors' }).check();
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     expect(errors).toEqual([]);
@@ -97,7 +97,8 @@ describe('submit and review journey', () => {
     await text('Diameter').fill('280');
     await text('Thickness').fill('24');
 
-    await page.getByRole('button', { name: 'Add a torque spec' }).click();
+    await page.getByRole('button', { name: 'Add a fastener' }).click();
+    await page.getByRole('combobox', { name: 'Kind of fastener' }).selectOption('caliper_mount');
     await text('Fastener').fill('caliper to knuckle');
     await text('Torque').fill('85');
 
@@ -106,6 +107,13 @@ describe('submit and review journey', () => {
     await text('Barrel inner diameter at the caliper').fill('360');
     await text('Caliper reach beyond the rotor edge').fill('12');
     await text('Caliper face outboard of the hub face').fill('40');
+    await page.getByRole('button', { name: 'Add a wheel we tried' }).click();
+    const tried = page.getByRole('group', { name: 'Wheel 1' });
+    await tried.getByRole('textbox', { name: 'Diameter', exact: true }).fill('15');
+    await tried.getByRole('textbox', { name: 'Width', exact: true }).fill('6');
+    await tried.getByRole('textbox', { name: 'Offset', exact: true }).fill('38');
+    await tried.getByRole('textbox', { name: 'Measured at the barrel', exact: true }).fill('28');
+    await tried.getByRole('textbox', { name: 'Measured at the spokes', exact: true }).fill('6');
 
     await page.getByRole('button', { name: 'Add a cost line' }).click();
     await text('Item').fill('Two used calipers');
@@ -116,11 +124,10 @@ describe('submit and review journey', () => {
       .fill('## Fitting\n\nThe **bracket** bolts on without grinding.');
     await expect.poll(() => page.getByTestId('write-up-preview').locator('strong').innerText()).toBe('bracket');
 
-    // live figure: barrel 360/2 − (rotor 280/2 + reach 12) = 28 mm (the clearance formula in shared/fitment/clearance.ts)
+    // live figures: the measured wheel held against the 3 mm rule (common practice, no source)
     const live = page.getByRole('region', { name: 'Figures from your entries' });
-    await expect
-      .poll(() => live.getByText('Caliper to barrel on a 15″ wheel').locator('xpath=../following-sibling::p[1]').innerText())
-      .toBe('28 mm');
+    await expect.poll(() => live.getByTestId('live-wheels').innerText()).toContain('15×6 ET38 · fits');
+    await expect.poll(() => live.getByTestId('live-wheels').innerText()).toContain('Barrel 28 mm (at least 3 mm');
     await expect.poll(() => live.getByText('€240.00').count()).toBeGreaterThan(0);
 
     // the draft saves by itself and the address becomes the draft's own

@@ -60,7 +60,7 @@ describe('submission form units', () => {
     await page.getByRole('button', { name: 'Add a rotor' }).click();
     await text(page, 'Diameter').fill('13');
     await text(page, 'Thickness').fill('1.1');
-    await page.getByRole('button', { name: 'Add a torque spec' }).click();
+    await page.getByRole('button', { name: 'Add a fastener' }).click();
     await text(page, 'Fastener').fill('caliper to knuckle');
     await text(page, 'Torque').fill('80');
     await expect.poll(async () => (await stored(page, id)).data.rotors[0]?.diameterMm, { timeout: 10_000 }).toBe(330.2);

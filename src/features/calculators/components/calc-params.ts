@@ -1,5 +1,6 @@
 import { useCallback, useEffect, useRef } from 'react';
 import { useSearchParams } from 'react-router';
+import { listItems, numberList, readNumber } from '../../../lib/number-text';
 import { FitmentInputError } from '@shared/fitment/errors';
 import { MM_PER_IN, psiToBar, barToPsi, kgToLb, lbToKg } from '@shared/fitment/units';
 import type { UnitSystem } from '@shared/schemas/enums';
@@ -66,7 +67,7 @@ const clean = (n: number, digits: number) => String(Number(n.toFixed(digits)));
 function convertNumber(text: string, quantity: Quantity, system: UnitSystem, toCanonical: boolean): string {
   const trimmed = text.trim();
   if (quantity === 'plain' || system === 'metric' || trimmed === '') return text;
-  const n = Number(trimmed.replace(',', '.'));
+  const n = readNumber(trimmed) ?? NaN;
   if (!Number.isFinite(n)) return text;
   if (quantity === 'length') return toCanonical ? clean(n * MM_PER_IN, 6) : clean(n / MM_PER_IN, 4);
   if (quantity === 'mass') return toCanonical ? clean(lbToKg(n), 6) : clean(kgToLb(n), 1);
@@ -76,20 +77,9 @@ function convertNumber(text: string, quantity: Quantity, system: UnitSystem, toC
 function convert(text: string, quantity: Quantity, system: UnitSystem, list: boolean, toCanonical: boolean): string {
   if (!list) return convertNumber(text, quantity, system, toCanonical);
   if (quantity === 'plain' || system === 'metric') return text;
-  const semicolons = text.includes(';');
-  return text
-    .split(semicolons ? ';' : ',')
-    .map((part) => convertNumber(part, quantity, system, toCanonical).trim())
-    .join(semicolons ? '; ' : ', ');
-}
-
-/** List entries: separated by commas, or by semicolons when the numbers themselves use decimal commas ("0,5; 1,2"). */
-export function splitList(text: string): string[] {
-  const semicolons = text.includes(';');
-  return text
-    .split(semicolons ? /[;\s]+/ : /[,\s]+/)
-    .filter(Boolean)
-    .map((part) => (semicolons ? part.replace(',', '.') : part));
+  return listItems(text)
+    .map((part) => convertNumber(part, quantity, system, toCanonical))
+    .join('; ');
 }
 
 export const toCanonical = (text: string, q: Quantity, s: UnitSystem, list = false) => convert(text, q, s, list, true);
@@ -123,7 +113,7 @@ export class Inputs {
       if (!optional) this.missing.push(label);
       return optional ? 0 : NaN;
     }
-    const n = Number(text.replace(',', '.'));
+    const n = readNumber(text) ?? NaN;
     if (!Number.isFinite(n)) this.errors[key] = `Enter a number (got "${text}")`;
     return n;
   }
@@ -134,12 +124,10 @@ export class Inputs {
       this.missing.push(label);
       return [];
     }
-    const parts = splitList(text);
-    const values = parts.map((p) => Number(p));
+    const parts = listItems(text);
+    const values = numberList(text);
     const bad = parts.find((_, i) => !Number.isFinite(values[i]));
-    if (bad !== undefined)
-      this.errors[key] =
-        `"${bad}" is not a number; separate sizes with commas (40, 44) or, with decimal commas, semicolons (0,5; 1)`;
+    if (bad !== undefined) this.errors[key] = `"${bad}" is not a number; separate sizes with semicolons or spaces, e.g. 40; 44`;
     return values;
   }
 

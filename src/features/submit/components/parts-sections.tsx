@@ -114,8 +114,8 @@ export function ShimsSpacersSection() {
     >
       <h3 className="text-sm font-extrabold text-ink">Shims</h3>
       <p className="text-sm text-graphite-soft">
-        A shim moves the caliper the way its joint's bolts run: shims on bolts along the axle centre the caliper over the
-        rotor; shims under radial mounting ears lift it away from the axle (for a larger rotor) and cannot centre it.
+        A shim moves the caliper the way its joint's bolts run: shims on bolts along the axle centre the caliper over the rotor;
+        shims under radial mounting ears lift it away from the axle (for a larger rotor) and cannot centre it.
       </p>
       {shims.fields.map((f, i) => (
         <ListRow key={f.id} label={`Shim ${i + 1}`} onRemove={() => shims.remove(i)}>
@@ -235,8 +235,8 @@ export function FastenersSection() {
       <ListError name="data.fasteners" />
       {fields.map((f, i) => (
         <ListRow key={f.id} label={`Fastener ${i + 1}`} onRemove={() => remove(i)}>
-          <FSelect name={`data.fasteners.${i}.kind`} label="Fastener" options={options(fastenerKindLabels)} />
-          <FText name={`data.fasteners.${i}.label`} label="Name" placeholder="caliper to adapter, radial bolts" />
+          <FSelect name={`data.fasteners.${i}.kind`} label="Kind of fastener" options={options(fastenerKindLabels)} />
+          <FText name={`data.fasteners.${i}.label`} label="Fastener" placeholder="caliper to adapter, radial bolts" />
           <FText name={`data.fasteners.${i}.thread`} label="Thread" placeholder="M12x1.5" />
           <FNum name={`data.fasteners.${i}.nm`} label="Torque" quantity="torque" />
           <FSelect name={`data.fasteners.${i}.lubrication`} label="Threads" options={options(lubricationLabels)} />

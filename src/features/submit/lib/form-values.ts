@@ -37,6 +37,9 @@ import { createSubmissionSchema, type CreateSubmission, type NewChassis } from '
 import type { Axle, Category, CostRoute, PartKind, UnitSystem } from '@shared/schemas/enums';
 import { barToPsi, inToMm, lbfFtToNm, mmToIn, nmToLbfFt, psiToBar } from '@shared/fitment/units';
 import type { ChassisView } from '@shared/schemas/views';
+import { listItems, numberList, readNumber } from '../../../lib/number-text';
+
+export { numberList };
 
 // What the inputs hold. Numbers stay text while typed (a half-typed "12," must not vanish),
 // lists of words are one text box; toPayload turns it into the shared schema's shape, and the
@@ -159,7 +162,13 @@ export type FormValues = {
     hasAdapter: boolean;
     adapter: { name: string; maker: string; partNumber: string; hardwareIncluded: string; notes: string };
     calipers: CaliperValues[];
-    shims: { joint: Of<typeof shimJoints>; direction: Of<typeof shimDirections>; thicknessMm: Num; quantity: Num; notes: string }[];
+    shims: {
+      joint: Of<typeof shimJoints>;
+      direction: Of<typeof shimDirections>;
+      thicknessMm: Num;
+      quantity: Num;
+      notes: string;
+    }[];
     centring: { joint: Of<typeof shimJoints>; gapMm: Num; positions: Num };
     spacers: {
       axle: Axle;
@@ -367,12 +376,7 @@ export function emptyValues(): FormValues {
 
 const str = (n: number | null | undefined) => (n === null || n === undefined ? '' : String(n));
 
-/** '' → undefined; "12,5" → 12.5; anything unreadable stays NaN so the schema names the field */
-export function num(text: string): number | undefined {
-  const t = text.trim().replace(',', '.');
-  if (t === '') return undefined;
-  return Number(t);
-}
+export const num = readNumber;
 const numOrNull = (text: string) => num(text) ?? null;
 
 export const splitWords = (text: string) =>
@@ -384,19 +388,6 @@ export const splitLines = (text: string) =>
   text
     .split('\n')
     .map((s) => s.trim())
-    .filter(Boolean);
-
-/**
- * A list of numbers as typed: separated by semicolons, spaces or a comma followed by a space.
- * A comma between two digits is a decimal comma, so "38,1; 42" is 38.1 and 42, never three pistons.
- */
-export function numberList(text: string): number[] {
-  return listItems(text).map((p) => Number(p.replace(',', '.')));
-}
-const listItems = (text: string) =>
-  text
-    .split(/;|\s+|,(?=\s|$)/)
-    .map((p) => p.trim())
     .filter(Boolean);
 
 function cornerOf(c: CornerValues) {
@@ -521,7 +512,14 @@ export function dataOf(d: FormValues['data']): unknown {
       axle: r.axle,
       diameterMm: num(r.diameterMm),
       thicknessMm: num(r.thicknessMm),
-      ...optionalNumbers(r, ['minThicknessMm', 'hatHeightMm', 'frictionRingInnerDiameterMm', 'centreBoreMm', 'massKg', 'parkingDrumDiameterMm']),
+      ...optionalNumbers(r, [
+        'minThicknessMm',
+        'hatHeightMm',
+        'frictionRingInnerDiameterMm',
+        'centreBoreMm',
+        'massKg',
+        'parkingDrumDiameterMm',
+      ]),
       vented: r.vented,
       directional: r.directional,
       partNumber: r.partNumber,
@@ -690,8 +688,14 @@ export function valuesFromData(data: SwapData, body: string, base: FormValues = 
         axle: c.axle,
         name: c.name,
         type: c.type,
-        inboardMm: c.pistons.filter((p) => p.side === 'inboard').map((p) => p.diameterMm).join('; '),
-        outboardMm: c.pistons.filter((p) => p.side === 'outboard').map((p) => p.diameterMm).join('; '),
+        inboardMm: c.pistons
+          .filter((p) => p.side === 'inboard')
+          .map((p) => p.diameterMm)
+          .join('; '),
+        outboardMm: c.pistons
+          .filter((p) => p.side === 'outboard')
+          .map((p) => p.diameterMm)
+          .join('; '),
         mountType: c.mount.type,
         mountSpacingMm: str(c.mount.spacingMm),
         mountThread: c.mount.thread,
