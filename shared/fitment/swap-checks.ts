@@ -12,7 +12,7 @@ import {
 import { spacerEffect, type SpacerEffect } from './wheel';
 import { parseMetricThread, threadEngagement, type ThreadEngagement } from './threads';
 import { routeTotals, savingsAgainstNewKit } from './costs';
-import { brakeTorqueNm } from './brakes';
+import { cornerTorqueNm as anyCornerTorqueNm, DRUM_BRAKE_FACTORS, type AnyBrakeCorner } from './brakes';
 import { MM_PER_IN } from './units';
 
 // The checks a swap sheet, the submission form and the review desk run on one swap record.
@@ -370,9 +370,21 @@ export type BrakeBalance = {
   shift: BalanceShift;
 };
 
-function cornerTorqueNm(corner: BrakeCorner, padMu: number, linePressureBar: number): number | null {
-  if (corner.kind !== 'disc') return null;
-  return brakeTorqueNm({ ...corner, padMu, linePressureBar });
+/** A record's brake corner as the brake computations take it: a drum without a stated brake factor gets its shoe type's usual one. */
+export function fitmentCorner(corner: BrakeCorner, padMu: number): AnyBrakeCorner {
+  if (corner.kind === 'drum') {
+    return {
+      kind: 'drum',
+      wheelCylinderBoreMm: corner.wheelCylinderBoreMm,
+      drumDiameterMm: corner.drumDiameterMm,
+      brakeFactor: corner.brakeFactor ?? DRUM_BRAKE_FACTORS[corner.shoeType].brakeFactor,
+    };
+  }
+  return { ...corner, padMu };
+}
+
+function cornerTorqueNm(corner: BrakeCorner, padMu: number, linePressureBar: number): number {
+  return anyCornerTorqueNm(fitmentCorner(corner, padMu), linePressureBar);
 }
 
 /** Front share of brake torque at equal line pressure, before and after the swap, and what the change means. */
@@ -380,12 +392,10 @@ export function brakeBalanceOf(data: SwapData): BrakeBalance | null {
   const b = data.brakes;
   if (!b) return null;
   const torque = (c: BrakeCorner) => cornerTorqueNm(c, b.padMu, b.linePressureBar);
-  const t = {
+  const torqueNm = {
     before: { front: torque(b.before.front), rear: torque(b.before.rear) },
     after: { front: torque(b.after.front), rear: torque(b.after.rear) },
   };
-  if ([t.before.front, t.before.rear, t.after.front, t.after.rear].some((x) => x === null)) return null;
-  const torqueNm = t as BrakeBalance['torqueNm'];
   const share = (x: { front: number; rear: number }) => x.front / (x.front + x.rear);
   const frontShareBefore = share(torqueNm.before);
   const frontShareAfter = share(torqueNm.after);

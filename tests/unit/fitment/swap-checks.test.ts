@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { z } from 'zod';
 import {
+  brakeBalanceOf,
   checkWheelForSwap,
   describeBalanceShift,
   jobTouches,
@@ -157,6 +158,20 @@ describe('testedWheelVerdicts', () => {
     expect(fit.contradiction).toContain('overlap the caliper by 1 mm');
     expect(misfit.contradiction).toBeNull();
     expect(misfit.figures[0]).toMatchObject({ where: 'barrel', ok: false, marginMm: -12 });
+  });
+});
+
+describe('brakeBalanceOf', () => {
+  it('when a corner is a drum, then it is computed as a drum (Limpert, drum brake torque: 20.64 mm, 203.2 mm, C* 2.2, 40 bar → 299.15 N·m)', () => {
+    const drum = { kind: 'drum' as const, wheelCylinderBoreMm: 20.64, drumDiameterMm: 203.2, shoeType: 'leading_trailing' as const, brakeFactor: 2.2 };
+    const front = { kind: 'disc' as const, pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50 };
+    const balance = brakeBalanceOf(
+      record({ brakes: { linePressureBar: 40, padMu: 0.4, before: { front, rear: drum }, after: { front, rear: drum } } }),
+    )!;
+    // T = p A C* r = 4 N/mm² × π/4 × 20.64² × 2.2 × 101.6 mm = 299 150 N·mm (recomputed)
+    expect(balance.torqueNm.before.rear).toBeCloseTo((4 * Math.PI * 20.64 ** 2 * 2.2 * 101.6) / 4 / 1000, 6);
+    expect(balance.torqueNm.before.rear).toBeCloseTo(299.15, 1);
+    expect(balance.shift.direction).toBe('unchanged');
   });
 });
 
