@@ -73,7 +73,10 @@ export function rotorDiameterOf(data: SwapData, axle: Axle): number | null {
   return corner?.kind === 'disc' ? corner.rotorDiameterMm : null;
 }
 
-function measured(result: { clearanceMm: number; marginMm: number; ok: boolean; rule: string }, basisNote: string): MeasuredFigure {
+function measured(
+  result: { clearanceMm: number; marginMm: number; ok: boolean; rule: string },
+  basisNote: string,
+): MeasuredFigure {
   return { basis: 'measured', ...result, basisNote };
 }
 
@@ -165,7 +168,11 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: s
     spoke =
       wheel.spokeInsetMm !== undefined
         ? measured(
-            spokeClearance({ spokeInsetMm: wheel.spokeInsetMm, caliperOutboardMm: req.caliperOutboardMm, spacerMm: wheel.spacerMm }),
+            spokeClearance({
+              spokeInsetMm: wheel.spokeInsetMm,
+              caliperOutboardMm: req.caliperOutboardMm,
+              spacerMm: wheel.spacerMm,
+            }),
             'From the spoke inset you measured and the caliper measured in this record.',
           )
         : spokeEstimate(data, wheel);
@@ -243,9 +250,13 @@ export function wheelCheckSummary(check: WheelCheck): WheelCheckSummary {
       tone: 'open',
       text: 'Not settled, and the estimates are tight or overlapping: measure your barrel and spokes before buying anything.',
     };
+  const which = estimated.map((f) => (f === check.radial ? 'barrel' : 'spoke'));
   return {
     tone: 'open',
-    text: 'Not settled: the clearances below are estimates from other wheels. Measure your barrel and spokes for a verdict.',
+    text:
+      which.length === 2
+        ? 'Not settled: both clearances below are estimates from other wheels. Measure your barrel and spokes for a verdict.'
+        : `Not settled: the ${which[0]} clearance below is an estimate from other wheels. Measure it for a verdict.`,
   };
 }
 

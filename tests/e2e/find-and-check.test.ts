@@ -64,14 +64,22 @@ describe('find what fits', () => {
     await panel.getByLabel('Width (in)').fill('6');
     await panel.getByLabel('Offset ET (mm)').fill('38');
     await panel.getByLabel('Spacer (mm)').fill('10');
+    // the record measured a 15″ steel wheel at −9 mm: for another 15″ wheel that is an estimate, no verdict
     const radial = panel.locator('[data-verdict]', { hasText: /^Caliper to barrel/ });
-    await expect.poll(() => radial.getAttribute('data-verdict')).toBe('fail');
+    await expect.poll(() => radial.getAttribute('data-verdict')).toBe('estimate');
+    await expect.poll(() => radial.textContent()).toContain('≈ -9 mm');
     await expect
       .poll(() => panel.locator('[data-verdict]', { hasText: /^Wheel diameter/ }).getAttribute('data-verdict'))
       .toBe('fail');
+    await expect.poll(() => panel.getByTestId('wheel-summary').textContent()).toContain('below the 16″ minimum');
 
     await panel.getByLabel('Diameter (in)').fill('16');
     await panel.getByLabel('Width (in)').fill('7');
+    await expect.poll(() => radial.getAttribute('data-verdict')).toBe('estimate');
+    await expect.poll(() => panel.getByTestId('wheel-summary').textContent()).toContain('Not settled');
+    // the reader measures their barrel: 378 / 2 − (330 / 2 + 20) = 4 mm, a verdict against the 3 mm rule
+    await panel.getByRole('button', { name: 'I have measured my wheel and bolts' }).click();
+    await panel.getByLabel(/Barrel inner/).fill('378');
     await expect.poll(() => radial.getAttribute('data-verdict')).toBe('pass');
     await expect.poll(() => radial.textContent()).toContain('Margin');
     await expect.poll(() => panel.textContent()).toContain('ET28');

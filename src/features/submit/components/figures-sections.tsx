@@ -75,8 +75,19 @@ function TestedWheelRow({ index: i, onRemove }: { index: number; onRemove: () =>
       )}
       {outcome === 'fits_with_change' && <FNum name={`${at}.spacerMm`} label="Spacer used" quantity="length" />}
       <FNum name={`${at}.radialClearanceMm`} label="Measured at the barrel" quantity="length" hint="Caliper to barrel" signed />
-      <FNum name={`${at}.spokeClearanceMm`} label="Measured at the spokes" quantity="length" hint="Caliper face to spokes" signed />
-      <FText name={`${at}.measuredWhere`} label="Where and how you measured" className="sm:col-span-2" placeholder="modelling clay on the caliper, wheel turned by hand" />
+      <FNum
+        name={`${at}.spokeClearanceMm`}
+        label="Measured at the spokes"
+        quantity="length"
+        hint="Caliper face to spokes"
+        signed
+      />
+      <FText
+        name={`${at}.measuredWhere`}
+        label="Where and how you measured"
+        className="sm:col-span-2"
+        placeholder="modelling clay on the caliper, wheel turned by hand"
+      />
       <MoreFields summary="Material, seat, bore, tyre">
         <FSelect name={`${at}.material`} label="Material" options={options(wheelMaterialLabels)} />
         <FSelect name={`${at}.seat`} label="Wheel-bolt seat" options={options(seatTypeLabels)} />
@@ -216,8 +227,12 @@ export function JobSection() {
         />
         <FSelect
           name="data.parkingBrakeType"
-          label="Parking brake on this axle"
-          options={[{ value: '', label: 'Not stated' }, ...options(parkingBrakeTypeLabels).filter((o) => o.value !== 'not_stated')]}
+          label="Parking brake"
+          hint="The one on this swap's axle"
+          options={[
+            { value: '', label: 'Not stated' },
+            ...options(parkingBrakeTypeLabels).filter((o) => o.value !== 'not_stated'),
+          ]}
         />
         {parkingType && parkingType !== 'none' && (
           <FSelect

@@ -14,7 +14,7 @@ export function BrakeBalanceSection({ data }: { data: SwapData }) {
   return (
     <SheetSection id="balance" title="Brake balance">
       <BalanceShiftNote shift={balance.shift} />
-      <div className="mt-3 grid items-start gap-3 sm:grid-cols-2">
+      <div className="mt-3 grid items-start gap-3 sm:grid-cols-2 print:hidden">
         <Figure
           label="Front share before"
           value={pct(balance.frontShareBefore)}
@@ -26,9 +26,9 @@ export function BrakeBalanceSection({ data }: { data: SwapData }) {
           note={`Front ${torque(balance.torqueNm.after.front)} · rear ${torque(balance.torqueNm.after.rear)} per wheel`}
         />
       </div>
-      <p className="mt-2 text-xs text-graphite-soft">
-        Static share of brake torque with equal line pressure ({pressure(balance.linePressureBar)}) and pad μ {balance.padMu}; disc
-        brake torque T = 2 μ p A r (textbook form).
+      <p className="mt-2 text-xs text-graphite-soft print:hidden">
+        Static share of brake torque with equal line pressure ({pressure(balance.linePressureBar)}) and pad μ {balance.padMu};
+        disc brake torque T = 2 μ p A r (textbook form).
       </p>
     </SheetSection>
   );

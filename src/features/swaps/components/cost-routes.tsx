@@ -20,7 +20,7 @@ export function CostRoutesSection({ data }: { data: SwapData }) {
               className={`rounded-lg border p-4 print:p-2 ${route === 'new_kit' ? 'border-brass/50 bg-brass-soft/30' : 'border-ink/10 bg-paper-card'}`}
             >
               <h3 className="text-sm font-bold uppercase tracking-wide text-graphite-soft">{costRouteLabels[route]}</h3>
-              <p className="tabular mt-1 text-2xl font-extrabold text-graphite">
+              <p className="tabular mt-1 text-2xl font-extrabold text-graphite print:text-lg">
                 {total === null ? '—' : formatMoney(total, currency)}
               </p>
               {route !== 'new_kit' && saving && saving.amountMinor !== 0 && (

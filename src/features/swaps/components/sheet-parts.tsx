@@ -22,6 +22,7 @@ export function PartsSection({ parts }: { parts: SwapData['parts'] }) {
       <SpecTable
         caption="Parts of this swap"
         head={['Role', 'Part', 'Part numbers', 'Came on', 'Qty', 'Notes']}
+        screenOnly={[3]}
         rows={parts.map((p) => [
           <span className="font-bold">{p.role}</span>,
           p.partId ? (
@@ -68,6 +69,19 @@ export function AdapterSection({ adapter }: { adapter: NonNullable<SwapData['ada
   );
 }
 
+/** left and right calipers that differ only in name share one row */
+function sameExceptName<T extends { name: string }>(rows: T[]): { row: T; names: string[] }[] {
+  const groups = new Map<string, { row: T; names: string[] }>();
+  for (const row of rows) {
+    const { name: _name, ...rest } = row;
+    const key = JSON.stringify(rest);
+    const group = groups.get(key);
+    if (group) group.names.push(row.name);
+    else groups.set(key, { row, names: [row.name] });
+  }
+  return [...groups.values()];
+}
+
 export function CalipersSection({ calipers }: { calipers: SwapData['calipers'] }) {
   const { length } = useUnits();
   const pistons = (c: SwapData['calipers'][number], side: 'inboard' | 'outboard') =>
@@ -80,9 +94,9 @@ export function CalipersSection({ calipers }: { calipers: SwapData['calipers'] }
       <SpecTable
         caption="Calipers as fitted"
         head={['Axle', 'Caliper', 'Pistons', 'Mounting', 'Made for rotor', 'Bleed screw']}
-        rows={calipers.map((c) => [
+        rows={sameExceptName(calipers).map(({ row: c, names }) => [
           c.axle === 'front' ? 'Front' : 'Rear',
-          <span className="font-bold">{c.name}</span>,
+          <span className="font-bold">{names.join(' · ')}</span>,
           c.type === 'fixed' ? `${pistons(c, 'inboard')} each side (fixed)` : `${pistons(c, 'inboard')} (floating)`,
           `${c.mount.type === 'radial' ? 'Radial' : 'Axial'}${c.mount.spacingMm ? `, ${length(c.mount.spacingMm, 0)} centres` : ''}${c.mount.thread ? `, ${c.mount.thread}` : ''}`,
           c.designRotor.diameterMm
@@ -100,6 +114,8 @@ export function CalipersSection({ calipers }: { calipers: SwapData['calipers'] }
     </SheetSection>
   );
 }
+
+const jointNouns = { bracket_to_knuckle: 'bracket-to-knuckle joint', caliper_to_bracket: 'caliper-to-bracket joint' } as const;
 
 export function ShimsSpacersSection({ data }: { data: SwapData }) {
   const { length } = useUnits();
@@ -130,8 +146,8 @@ export function ShimsSpacersSection({ data }: { data: SwapData }) {
           )}
           {c && (
             <p className="mt-1 text-xs text-graphite-soft">
-              Measured centring gap {length(c.gapMm, 2)} per bolt at the {shimJointLabels[c.joint].toLowerCase()} joint (
-              {c.positions} bolt positions); the axial shims there add up to {length(perBolt, 2)} per bolt.
+              Measured centring gap {length(c.gapMm, 2)} per bolt at the {jointNouns[c.joint]} ({c.positions} bolt positions); the
+              axial shims there add up to {length(perBolt, 2)} per bolt.
             </p>
           )}
         </div>
@@ -241,7 +257,9 @@ export function TorqueSection({ data }: { data: SwapData }) {
                 <span className="font-bold">{f?.label ?? t.fastenerId}</span>
                 {f && <span className="block text-xs text-graphite-soft">{fastenerKindLabels[f.kind]}</span>}
               </span>,
-              f ? [f.thread, f.lengthMm ? `× ${length(f.lengthMm, 0)}` : '', f.propertyClass].filter(Boolean).join(' ') || dash : dash,
+              f
+                ? [f.thread, f.lengthMm ? `× ${length(f.lengthMm, 0)}` : '', f.propertyClass].filter(Boolean).join(' ') || dash
+                : dash,
               <span className="font-extrabold">
                 {primary(t.nm)}
                 {t.angleDeg ? ` + ${t.angleDeg}°` : ''}

@@ -13,7 +13,7 @@ export function SheetSection({
 }) {
   return (
     <section id={id} aria-labelledby={`${id}-h`} className="scroll-mt-20">
-      <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2 border-b border-ink/15 pb-1">
+      <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2 border-b border-ink/15 pb-1 print:mb-1">
         <h2 id={`${id}-h`} className="text-lg font-extrabold text-ink">
           {title}
         </h2>
@@ -24,7 +24,19 @@ export function SheetSection({
   );
 }
 
-export function SpecTable({ caption, head, rows }: { caption: string; head: ReactNode[]; rows: ReactNode[][] }) {
+export function SpecTable({
+  caption,
+  head,
+  rows,
+  screenOnly = [],
+}: {
+  caption: string;
+  head: ReactNode[];
+  rows: ReactNode[][];
+  /** columns left off the printed build sheet, which is for the garage */
+  screenOnly?: number[];
+}) {
+  const cls = (j: number) => (screenOnly.includes(j) ? ' print:hidden' : '');
   return (
     <div className="overflow-x-auto">
       <table className="tabular w-full min-w-[32rem] border-collapse text-left text-sm">
@@ -32,7 +44,7 @@ export function SpecTable({ caption, head, rows }: { caption: string; head: Reac
         <thead>
           <tr className="border-b border-graphite/20 text-xs uppercase tracking-wide text-graphite-soft">
             {head.map((h, i) => (
-              <th key={i} scope="col" className="px-2 py-2 font-bold">
+              <th key={i} scope="col" className={`px-2 py-2 font-bold${cls(i)}`}>
                 {h}
               </th>
             ))}
@@ -42,7 +54,7 @@ export function SpecTable({ caption, head, rows }: { caption: string; head: Reac
           {rows.map((r, i) => (
             <tr key={i} className="print-break-avoid border-b border-graphite/10 align-top">
               {r.map((c, j) => (
-                <td key={j} className="px-2 py-2 print:py-0.5">
+                <td key={j} className={`px-2 py-2 print:py-0.5${cls(j)}`}>
                   {c}
                 </td>
               ))}

@@ -142,7 +142,7 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
         </div>
       </header>
 
-      <div className="grid grid-cols-1 gap-10 print:gap-4">
+      <div className="grid grid-cols-1 gap-10 print:gap-2">
         <Caution topics={cautionTopicsOf(touches)} />
         <PartsSection parts={data.parts} />
         {data.adapter && <AdapterSection adapter={data.adapter} />}
@@ -162,7 +162,7 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
               <Fact label="Caliper face outboard of hub" value={length(data.wheel.caliperOutboardMm)} />
             </dl>
             {data.wheel.testedWheels.length > 0 && (
-              <div className="mt-3">
+              <div className="mt-3 print:hidden">
                 <TestedWheelsList wheels={data.wheel.testedWheels} />
               </div>
             )}
@@ -178,9 +178,9 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
         <CostRoutesSection data={data} />
         {data.tools.length > 0 && (
           <SheetSection id="tools" title="Tools needed">
-            <ul className="flex flex-wrap gap-2 text-sm">
+            <ul className="flex flex-wrap gap-2 text-sm print:gap-x-3 print:gap-y-0">
               {data.tools.map((t) => (
-                <li key={t} className="rounded-full border border-graphite/20 bg-paper-card px-3 py-1">
+                <li key={t} className="rounded-full border border-graphite/20 bg-paper-card px-3 py-1 print:border-0 print:p-0">
                   {t}
                 </li>
               ))}

@@ -212,70 +212,71 @@ export function WheelCheckPanel({
           </p>
         ) : result ? (
           <>
-          <SummaryLine summary={wheelCheckSummary(result.check)} />
-          <div className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
-            {result.check.minDiameter && (
-              <Verdict
-                label="Wheel diameter"
-                ok={result.check.minDiameter.ok}
-                value={`${result.check.minDiameter.givenIn}″ (needs ≥ ${result.check.minDiameter.requiredIn}″)`}
-                rule={result.check.minDiameter.rule}
-              />
-            )}
-            {result.check.radial ? (
-              <ClearanceCard label="Caliper to barrel (radial)" figure={result.check.radial} />
-            ) : (
-              <Figure label="Caliper to barrel (radial)" value="Not checked" note="This record has no caliper measurements." />
-            )}
-            {result.check.spoke ? (
-              <ClearanceCard label="Caliper to spokes (face)" figure={result.check.spoke} />
-            ) : (
+            <SummaryLine summary={wheelCheckSummary(result.check)} />
+            <div className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
+              {result.check.minDiameter && (
+                <Verdict
+                  label="Wheel diameter"
+                  ok={result.check.minDiameter.ok}
+                  value={`${result.check.minDiameter.givenIn}″ (needs ≥ ${result.check.minDiameter.requiredIn}″)`}
+                  rule={result.check.minDiameter.rule}
+                  words={{ pass: 'Meets the minimum', fail: 'Below the minimum' }}
+                />
+              )}
+              {result.check.radial ? (
+                <ClearanceCard label="Caliper to barrel (radial)" figure={result.check.radial} />
+              ) : (
+                <Figure label="Caliper to barrel (radial)" value="Not checked" note="This record has no caliper measurements." />
+              )}
+              {result.check.spoke ? (
+                <ClearanceCard label="Caliper to spokes (face)" figure={result.check.spoke} />
+              ) : (
+                <Figure
+                  label="Caliper to spokes (face)"
+                  value="Measure it"
+                  note="No tested wheel to estimate from: enter your spoke inset under ‘I have measured’."
+                />
+              )}
               <Figure
-                label="Caliper to spokes (face)"
-                value="Measure it"
-                note="No tested wheel to estimate from: enter your spoke inset under ‘I have measured’."
+                label="New offset"
+                value={`ET${Math.round(result.check.offset.offsetMm * 10) / 10}`}
+                note={`Backspacing ${units.length(result.check.offset.backspacingMm)} · track +${units.length(result.check.offset.trackChangeMm)} per axle`}
               />
-            )}
-            <Figure
-              label="New offset"
-              value={`ET${Math.round(result.check.offset.offsetMm * 10) / 10}`}
-              note={`Backspacing ${units.length(result.check.offset.backspacingMm)} · track +${units.length(result.check.offset.trackChangeMm)} per axle`}
-            />
-            {result.check.engagement ? (
-              <Verdict
-                label="Wheel-bolt thread engagement"
-                ok={result.check.engagement.ok}
-                value={`${units.length(result.check.engagement.engagementMm)} (${result.check.engagement.turns.toFixed(1)} turns)`}
-                margin={margin(result.check.engagement.marginMm)}
-                rule={result.check.engagement.rule}
-                words={{ pass: 'Enough thread', fail: 'Too little thread' }}
-              />
-            ) : (
-              <Figure
-                label="Wheel-bolt length"
-                value={
-                  form.spacer && Number(form.spacer) > 0
-                    ? `Stock + ${units.length(result.check.offset.outboardMm)}`
-                    : 'Stock length'
-                }
-                note={result.check.boltNote}
-              />
-            )}
-            {result.check.maxRotor && (
-              <Verdict
-                label="Rotor size rule of thumb"
-                ok={null}
-                value={`${units.length(result.check.maxRotor.rotorMm, 0)} rotor, rule allows ≈ ${units.length(result.check.maxRotor.maxRotorMm, 0)}`}
-                note={
-                  result.check.maxRotor.withinRule
-                    ? 'Within the rule of thumb.'
-                    : 'Larger than the rule of thumb suggests; the measured clearance above governs.'
-                }
-                rule={result.check.maxRotor.rule}
-              />
-            )}
-            {result.check.spacerNote && <Figure label="Spacer type" value="Consider bolt-on" note={result.check.spacerNote} />}
-          </div>
+              {result.check.engagement ? (
+                <Verdict
+                  label="Wheel-bolt thread engagement"
+                  ok={result.check.engagement.ok}
+                  value={`${units.length(result.check.engagement.engagementMm)} (${result.check.engagement.turns.toFixed(1)} turns)`}
+                  margin={margin(result.check.engagement.marginMm)}
+                  rule={result.check.engagement.rule}
+                  words={{ pass: 'Enough thread', fail: 'Too little thread' }}
+                />
+              ) : (
+                <Figure
+                  label="Wheel-bolt length"
+                  value={
+                    form.spacer && Number(form.spacer) > 0
+                      ? `Stock + ${units.length(result.check.offset.outboardMm)}`
+                      : 'Stock length'
+                  }
+                  note={result.check.boltNote}
+                />
+              )}
+              {result.check.maxRotor && (
+                <Verdict
+                  label="Rotor size rule of thumb"
+                  ok={null}
+                  value={`${units.length(result.check.maxRotor.rotorMm, 0)} rotor, rule allows ≈ ${units.length(result.check.maxRotor.maxRotorMm, 0)}`}
+                  note={
+                    result.check.maxRotor.withinRule
+                      ? 'Within the rule of thumb.'
+                      : 'Larger than the rule of thumb suggests; the measured clearance above governs.'
+                  }
+                  rule={result.check.maxRotor.rule}
+                />
+              )}
+              {result.check.spacerNote && <Figure label="Spacer type" value="Consider bolt-on" note={result.check.spacerNote} />}
+            </div>
           </>
         ) : null}
       </div>
@@ -283,7 +284,11 @@ export function WheelCheckPanel({
   );
 }
 
-const summaryTone = { fail: 'border-oxide bg-oxide-soft text-oxide', pass: 'border-ink/30 bg-ink-faint text-ink', open: 'border-brass bg-brass-soft/50 text-graphite' };
+const summaryTone = {
+  fail: 'border-oxide bg-oxide-soft text-oxide',
+  pass: 'border-ink/30 bg-ink-faint text-ink',
+  open: 'border-brass bg-brass-soft/50 text-graphite',
+};
 
 function SummaryLine({ summary }: { summary: ReturnType<typeof wheelCheckSummary> }) {
   const units = useUnits();
