@@ -99,6 +99,7 @@ describe('alternate part numbers', () => {
 
   it('when a swap’s part notes name another number, then the search document carries it', () => {
     const data = swapDataSchema.parse({
+      schemaVersion: 2,
       title: 'Vela calipers on the H31',
       parts: [
         {
