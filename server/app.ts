@@ -45,6 +45,8 @@ export function createApp(deps: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  // read by `validated` handlers, which retry while another process holds the database
+  app.locals.dbBusyWaitMs = config.dbBusyWaitMs;
 
   app.use(
     pinoHttp({

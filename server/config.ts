@@ -32,6 +32,10 @@ const envSchema = z.object({
   MAIL_RETRY_MS: z.coerce.number().int().min(10).default(30_000),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SEED_DEMO: z.enum(['auto', 'never']).default('auto'),
+  /** how long a write keeps retrying while another process holds the database, before a 503 */
+  DB_BUSY_WAIT_MS: z.coerce.number().int().min(0).max(60_000).default(3000),
+  /** how long a stop waits for requests in flight before cutting them off */
+  STOP_TIMEOUT_MS: z.coerce.number().int().min(0).max(300_000).default(10_000),
   /** vite: dev server with hot reload; dist: the built client (default in production) */
   SERVE_CLIENT: z.enum(['vite', 'dist', 'none']).optional(),
 });
@@ -51,6 +55,8 @@ export type Config = {
   mailDelivery: { timeoutMs: number; maxAttempts: number; retryMs: number };
   logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
   seedDemo: boolean;
+  dbBusyWaitMs: number;
+  stopTimeoutMs: number;
   serveClient: 'vite' | 'dist' | 'none';
 };
 
@@ -103,6 +109,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailDelivery: { timeoutMs: e.SMTP_TIMEOUT_MS, maxAttempts: e.MAIL_MAX_ATTEMPTS, retryMs: e.MAIL_RETRY_MS },
     logLevel: e.LOG_LEVEL,
     seedDemo: e.SEED_DEMO === 'auto',
+    dbBusyWaitMs: e.DB_BUSY_WAIT_MS,
+    stopTimeoutMs: e.STOP_TIMEOUT_MS,
     serveClient: e.SERVE_CLIENT ?? (production ? 'dist' : 'vite'),
   };
 }

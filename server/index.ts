@@ -1,6 +1,9 @@
 import path from 'node:path';
 import { loadConfig, ConfigError } from './config';
-import { openDb, migrateDb, closeDb } from './db/client';
+import { openDb, migrateDb, closeDb, setBusyTimeout } from './db/client';
+import { SHORT_BUSY_TIMEOUT_MS } from './db/busy';
+import { trackRequests } from './lib/request-drain';
+import { scheduleOrphanSweep } from './features/photos/orphan-files';
 import { createApp } from './app';
 import { createMailer } from './mail/mailer';
 import { createDiskStorage } from './storage/disk-storage';
@@ -29,7 +32,10 @@ async function main() {
     const counts = await seedDemo(db, { storage, clock }, { appUrl: config.appUrl });
     logger.info({ counts }, 'demo scenario loaded into an empty database');
   }
+  // from here on a statement never holds the event loop long for another process's lock (see db/busy.ts)
+  setBusyTimeout(db, SHORT_BUSY_TIMEOUT_MS);
   const mailer = createMailer({ db, clock, logger, config });
+  const stopOrphanSweep = scheduleOrphanSweep({ db, storage, clock, logger });
 
   const vite = config.serveClient === 'vite' ? await viteClient() : null;
   const client = vite ? vite.handlers : config.serveClient === 'dist' ? staticClient() : undefined;
@@ -42,22 +48,31 @@ async function main() {
     );
   });
 
+  const requests = trackRequests(server);
+
+  // Stop accepting, let requests in flight finish (at most STOP_TIMEOUT_MS), let a delivery in progress
+  // record its result, then close the database so the WAL is checkpointed.
   let stopping = false;
-  const stop = (signal: string) => {
+  const stop = async (signal: string) => {
     if (stopping) return;
     stopping = true;
-    logger.info({ signal }, 'shutting down');
-    server.close(async () => {
-      await vite?.close();
-      await mailer.stop();
-      closeDb(db);
-      process.exit(0);
-    });
-    server.closeAllConnections();
-    setTimeout(() => process.exit(1), 5000).unref();
+    logger.info({ signal, inFlight: requests.inFlight }, 'stopping: no new connections, finishing requests in flight');
+    const deadline = config.stopTimeoutMs + config.mailDelivery.timeoutMs * 3 + 5000;
+    setTimeout(() => {
+      logger.error({ signal }, 'stop took too long; exiting');
+      process.exit(1);
+    }, deadline).unref();
+    const cut = await requests.drain(config.stopTimeoutMs);
+    if (cut) logger.warn({ cut }, 'requests still running at the stop timeout were cut off');
+    await mailer.stop();
+    stopOrphanSweep();
+    await vite?.close();
+    closeDb(db);
+    logger.info({ signal }, 'stopped');
+    process.exit(0);
   };
-  process.on('SIGTERM', () => stop('SIGTERM'));
-  process.on('SIGINT', () => stop('SIGINT'));
+  process.on('SIGTERM', () => void stop('SIGTERM'));
+  process.on('SIGINT', () => void stop('SIGINT'));
 }
 
 void main();

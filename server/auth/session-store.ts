@@ -4,6 +4,7 @@ import { and, eq, inArray, lt, lte, or } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { sessions } from '../db/schema/users';
 import type { Clock } from '../lib/clock';
+import { isBusy } from '../db/busy';
 
 export type SessionLifetimes = {
   /** a session unused this long ends (every request pushes it further) */
@@ -23,6 +24,13 @@ const sweepBatch = 500;
 
 type Row = typeof sessions.$inferSelect;
 
+/**
+ * Set on a request's session when its answer is a 503 for a busy database: the store then leaves the
+ * session as it is instead of waiting for the same lock a second time to save or touch it.
+ */
+export const skipSessionWrite = Symbol('skipSessionWrite');
+const skipped = (sess: session.SessionData) => Boolean((sess as unknown as Record<symbol, unknown>)[skipSessionWrite]);
+
 function userIdOf(sess: session.SessionData): number | null {
   const user = (sess as { passport?: { user?: unknown } }).passport?.user;
   return typeof user === 'number' ? user : null;
@@ -34,6 +42,8 @@ function userIdOf(sess: session.SessionData): number | null {
  */
 export class SqliteSessionStore extends session.Store {
   private readonly timer: NodeJS.Timeout;
+  /** each loaded session's expiry, so a touch writes only when the expiry really moves */
+  private readonly loadedExpiry = new Map<string, number>();
 
   constructor(
     private readonly db: Db,
@@ -81,6 +91,8 @@ export class SqliteSessionStore extends session.Store {
         this.db.delete(sessions).where(eq(sessions.sid, sid)).run();
         return cb(null, null);
       }
+      if (this.loadedExpiry.size > 10_000) this.loadedExpiry.clear();
+      this.loadedExpiry.set(sid, row.expiresAt);
       cb(null, JSON.parse(row.data) as session.SessionData);
     } catch (err) {
       cb(err);
@@ -88,6 +100,8 @@ export class SqliteSessionStore extends session.Store {
   }
 
   override set(sid: string, sess: session.SessionData, cb?: (err?: unknown) => void) {
+    this.loadedExpiry.delete(sid);
+    if (skipped(sess)) return cb?.();
     try {
       const now = this.now();
       const values = { data: JSON.stringify(sess), userId: userIdOf(sess), expiresAt: now + this.lifetimes.idleMs };
@@ -102,9 +116,13 @@ export class SqliteSessionStore extends session.Store {
     }
   }
 
-  override touch(sid: string, _sess: session.SessionData, cb?: (err?: unknown) => void) {
+  override touch(sid: string, sess: session.SessionData, cb?: (err?: unknown) => void) {
+    const loaded = this.loadedExpiry.get(sid);
+    this.loadedExpiry.delete(sid);
+    const expiresAt = this.now() + this.lifetimes.idleMs;
+    // most requests come within the slack of the last push: no write, so no lock to wait for
+    if (skipped(sess) || (loaded !== undefined && loaded >= expiresAt - touchSlackMs)) return cb?.();
     try {
-      const expiresAt = this.now() + this.lifetimes.idleMs;
       this.db
         .update(sessions)
         .set({ expiresAt })
@@ -112,11 +130,13 @@ export class SqliteSessionStore extends session.Store {
         .run();
       cb?.();
     } catch (err) {
-      cb?.(err);
+      // pushing the expiry can wait for the next request; a busy database is no reason to fail this one
+      cb?.(isBusy(err) ? undefined : err);
     }
   }
 
   override destroy(sid: string, cb?: (err?: unknown) => void) {
+    this.loadedExpiry.delete(sid);
     try {
       this.db.delete(sessions).where(eq(sessions.sid, sid)).run();
       cb?.();

@@ -11,16 +11,23 @@ export type DbTransaction = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 const migrationsFolder = path.resolve(import.meta.dirname, '../../drizzle');
 
-/** Opens the SQLite file with the pragmas the app relies on. */
-export function openDb(file: string): Db {
+/**
+ * Opens the SQLite file with the pragmas the app relies on. Scripts keep the long busy timeout (they may
+ * simply wait for the server); the server shortens it once started (`setBusyTimeout`).
+ */
+export function openDb(file: string, { busyTimeoutMs = 5000 }: { busyTimeoutMs?: number } = {}): Db {
   if (file !== ':memory:') fs.mkdirSync(path.dirname(path.resolve(file)), { recursive: true });
   const sqlite = new Database(file);
   sqlite.pragma('journal_mode = WAL');
   // better-sqlite3 leaves WAL at NORMAL, which may drop the last commits on power loss
   sqlite.pragma('synchronous = FULL');
-  sqlite.pragma('busy_timeout = 5000');
+  sqlite.pragma(`busy_timeout = ${busyTimeoutMs}`);
   sqlite.pragma('foreign_keys = ON');
   return drizzle(sqlite, { schema }) as Db;
+}
+
+export function setBusyTimeout(db: Db, ms: number) {
+  db.$client.pragma(`busy_timeout = ${Math.round(ms)}`);
 }
 
 export function migrateDb(db: Db) {

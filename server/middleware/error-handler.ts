@@ -4,6 +4,8 @@ import { MulterError } from 'multer';
 import { AppError } from '../lib/app-error';
 import { fieldErrors } from '../../shared/schemas/errors';
 import type { Logger } from '../lib/logger';
+import { isBusy } from '../db/busy';
+import { skipSessionWrite } from '../auth/session-store';
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new AppError('not_found', `There is no API route ${req.method} ${req.path}.`, 404));
@@ -27,7 +29,16 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       code: 'internal',
       message: 'Something went wrong on our side. Nothing you entered was lost; try again.',
     };
-    if (err instanceof AppError) {
+    const busy = isBusy(err);
+    if (busy) {
+      // another process kept the database locked past the wait: say when to come back, and do not
+      // make this request wait a second time to save its session
+      status = 503;
+      body = { code: 'busy', message: 'The database is busy for a moment; nothing was changed. Try again in a few seconds.' };
+      res.set('Retry-After', '2');
+      if (req.session) (req.session as unknown as Record<symbol, boolean>)[skipSessionWrite] = true;
+      logger.warn({ event: 'db_busy', method: req.method, path: req.path }, 'database busy');
+    } else if (err instanceof AppError) {
       status = err.status;
       body = { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) };
     } else if (err instanceof ZodError) {
@@ -59,7 +70,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       status = err.status;
       body = { code: 'bad_request', message: err instanceof Error ? err.message : 'The request could not be read.' };
     }
-    if (status >= 500) logger.error({ err, method: req.method, path: req.path }, 'request failed');
+    if (status >= 500 && !busy) logger.error({ err, method: req.method, path: req.path }, 'request failed');
     if (res.headersSent) return;
     // a refusal or a failure depends on who asked and when: no cache keeps it
     res.status(status).set('Cache-Control', 'no-store').json({ error: body });

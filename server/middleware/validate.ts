@@ -1,5 +1,6 @@
 import type { Request, Response, NextFunction, RequestHandler } from 'express';
 import type { z } from 'zod';
+import { retryWhileBusy } from '../db/busy';
 
 type Schemas = { params?: z.ZodType; query?: z.ZodType; body?: z.ZodType };
 type Parsed<S extends Schemas> = {
@@ -9,6 +10,8 @@ type Parsed<S extends Schemas> = {
 /**
  * Parses params, query and body with the given zod schemas and hands the parsed values
  * to the handler, so it never re-reads the raw request. A failure becomes a 400 with fields.
+ * While another process holds the database, the handler runs again after short pauses that let
+ * other requests through (`retryWhileBusy`, up to DB_BUSY_WAIT_MS), as long as it has not answered yet.
  */
 export function validated<S extends Schemas>(
   schemas: S,
@@ -23,6 +26,11 @@ export function validated<S extends Schemas>(
       const raw = key === 'body' && req.body === undefined ? {} : req[key];
       input[key] = schema.parse(raw);
     }
-    await handler(input as Parsed<S>, req, res, next);
+    const waitMs = (req.app.locals.dbBusyWaitMs as number | undefined) ?? 0;
+    await retryWhileBusy(
+      () => handler(input as Parsed<S>, req, res, next),
+      waitMs,
+      () => !res.headersSent,
+    );
   };
 }

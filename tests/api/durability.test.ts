@@ -1,78 +1,20 @@
 import { afterAll, describe, expect, it } from 'vitest';
-import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import Database from 'better-sqlite3';
 import { freePort } from '../e2e/support/server';
+import { signedInClient as signedIn, startChildServer } from './support/child-server';
 
 // The server as a child process on its own database: a burst of submissions, SIGKILL in the
 // middle of it, a restart, and every submission that was acknowledged must still be there.
 
-const root = path.resolve(import.meta.dirname, '../..');
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'swapyard-durability-'));
-const dbFile = path.join(dir, 'durable.db');
+const dbFile = path.join(dir, 'server.db');
 afterAll(() => fs.rmSync(dir, { recursive: true, force: true }));
 
-async function start(port: number): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    cwd: root,
-    env: {
-      ...process.env,
-      NODE_ENV: 'test',
-      HOST: '127.0.0.1',
-      PORT: String(port),
-      APP_URL: `http://127.0.0.1:${port}`,
-      DATABASE_URL: dbFile,
-      UPLOAD_DIR: path.join(dir, 'uploads'),
-      // the API is all this test needs, and the client may not be built yet
-      SERVE_CLIENT: 'none',
-      SESSION_SECRET: 'durability-secret-durability-secret-00',
-      SEED_DEMO: 'auto',
-      SUBMISSION_RATE_LIMIT: '100000',
-      LOG_LEVEL: 'silent',
-    },
-    stdio: 'ignore',
-  });
-  for (let i = 0; i < 300; i++) {
-    const up = await fetch(`http://127.0.0.1:${port}/api/health`).then(
-      (r) => r.ok,
-      () => false,
-    );
-    if (up) return child;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  child.kill('SIGKILL');
-  throw new Error('server did not start');
-}
-
-/** A tiny cookie-keeping client that signs in through the fake provider like a browser would. */
-async function signedIn(base: string, login: string) {
-  const jar = new Map<string, string>();
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
-  const go = async (url: string, init: RequestInit = {}) => {
-    const res = await fetch(new URL(url, base), {
-      ...init,
-      redirect: 'manual',
-      headers: { ...(init.headers as object), cookie: cookie() },
-    });
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(';');
-      const i = pair.indexOf('=');
-      jar.set(pair.slice(0, i), pair.slice(i + 1));
-    }
-    return res;
-  };
-  let res = await go('/auth/github?returnTo=/');
-  const authorize = new URL(res.headers.get('location')!, base);
-  authorize.searchParams.set('login', login);
-  res = await go(authorize.pathname + authorize.search);
-  res = await go(res.headers.get('location')!);
-  expect(res.status).toBe(302);
-  const me = (await (await go('/api/me')).json()) as { user: { login: string } | null; csrfToken: string };
-  expect(me.user?.login).toBe(login);
-  return { go, csrf: me.csrfToken };
-}
+const start = async (port: number) =>
+  (await startChildServer(dir, port, { SEED_DEMO: 'auto', SUBMISSION_RATE_LIMIT: '100000', LOG_LEVEL: 'silent' })).child;
 
 const record = (n: number) => ({
   chassisId: 1,

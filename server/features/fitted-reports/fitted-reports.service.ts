@@ -2,7 +2,6 @@ import { and, count, desc, eq, inArray, isNull } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { fittedReports, reportHides, revisions, swaps, users, type FittedWheel } from '../../db/schema/index';
 import type { Storage } from '../../storage/disk-storage';
-import { newFileId } from '../../storage/disk-storage';
 import type { Clock } from '../../lib/clock';
 import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
@@ -15,7 +14,7 @@ import type {
   UpdateFittedReport,
 } from '../../../shared/schemas/fitted-reports';
 import { processPhoto } from '../photos/photo-processing';
-import { thumbId } from '../photos/photo-files';
+import { removePhotoFiles, storePhotoFiles } from '../photos/photo-files';
 import { personRef } from '../swaps/swap-views';
 
 type Deps = { db: Db; storage: Storage; clock: Clock };
@@ -72,17 +71,7 @@ function photoOf(fileId: string | null): FittedReportView['photo'] {
 
 async function storePhoto(storage: Storage, upload: ReportPhotoUpload): Promise<string | null> {
   if (!upload) return null;
-  const processed = await processPhoto(upload.buffer, 'photo');
-  const fileId = newFileId();
-  await storage.put(fileId, processed.full);
-  await storage.put(thumbId(fileId), processed.thumb);
-  return fileId;
-}
-
-async function removePhotoFiles(storage: Storage, fileId: string | null) {
-  if (!fileId) return;
-  await storage.remove(fileId);
-  await storage.remove(thumbId(fileId));
+  return storePhotoFiles(storage, await processPhoto(upload.buffer, 'photo'));
 }
 
 const cleanNote = (note: string) => stripHtml(note).trim();
@@ -204,35 +193,55 @@ export async function updateFittedReport(
   const report = myReport(db, swap.id, viewer.id);
   const revision = input.revisionNumber === undefined ? null : followedRevision(db, swap, input.revisionNumber);
   const newPhoto = await storePhoto(storage, upload);
-  const wheel: FittedWheel = {
-    diameterIn: input.diameterIn ?? report.wheel.diameterIn,
-    widthIn: input.widthIn ?? report.wheel.widthIn,
-    offsetMm: input.offsetMm ?? report.wheel.offsetMm,
-    spacerMm: input.spacerMm ?? report.wheel.spacerMm,
-  };
-  const photoFileId = newPhoto ?? (input.removePhoto ? null : report.photoFileId);
-  db.update(fittedReports)
-    .set({
-      wheel,
-      ...(revision ? { revisionId: revision.id } : {}),
-      ...(input.note !== undefined ? { note: cleanNote(input.note) } : {}),
-      photoFileId,
-      updatedAt: clock.now(),
-    })
-    .where(eq(fittedReports.id, report.id))
-    .run();
-  if (report.photoFileId && report.photoFileId !== photoFileId) await removePhotoFiles(storage, report.photoFileId);
+  let replaced: string | null;
+  try {
+    // read and replace the photo in one write: of two edits at once, each removes exactly the photo it replaced
+    replaced = db.transaction((tx) => {
+      const current = tx.select().from(fittedReports).where(eq(fittedReports.id, report.id)).get();
+      if (!current) throw AppError.notFound('Your fitted report');
+      const wheel: FittedWheel = {
+        diameterIn: input.diameterIn ?? current.wheel.diameterIn,
+        widthIn: input.widthIn ?? current.wheel.widthIn,
+        offsetMm: input.offsetMm ?? current.wheel.offsetMm,
+        spacerMm: input.spacerMm ?? current.wheel.spacerMm,
+      };
+      const photoFileId = newPhoto ?? (input.removePhoto ? null : current.photoFileId);
+      tx.update(fittedReports)
+        .set({
+          wheel,
+          ...(revision ? { revisionId: revision.id } : {}),
+          ...(input.note !== undefined ? { note: cleanNote(input.note) } : {}),
+          photoFileId,
+          updatedAt: clock.now(),
+        })
+        .where(eq(fittedReports.id, report.id))
+        .run();
+      return current.photoFileId !== photoFileId ? current.photoFileId : null;
+    });
+  } catch (err) {
+    await removePhotoFiles(storage, newPhoto);
+    throw err;
+  }
+  await removePhotoFiles(storage, replaced);
   return listFittedReports(db, slug, viewer);
 }
 
 export async function deleteFittedReport({ db, storage }: Deps, slug: string, viewer: SessionUser) {
   const swap = approvedSwap(db, slug);
   const report = myReport(db, swap.id, viewer.id);
-  db.transaction((tx) => {
+  // the photo as it is at the delete (an edit a moment earlier may have replaced it)
+  const photoFileId = db.transaction((tx) => {
+    const current = tx
+      .select({ photo: fittedReports.photoFileId })
+      .from(fittedReports)
+      .where(eq(fittedReports.id, report.id))
+      .get();
+    if (!current) throw AppError.notFound('Your fitted report');
     tx.delete(fittedReports).where(eq(fittedReports.id, report.id)).run();
     recount(tx as unknown as Db, swap.id);
+    return current.photo;
   });
-  await removePhotoFiles(storage, report.photoFileId);
+  await removePhotoFiles(storage, photoFileId);
 }
 
 function activeHide(db: Db, swapId: number, userId: number) {

@@ -4,11 +4,10 @@ import { singleLine } from '../../../shared/schemas/text';
 import { revisionPhotos, revisions } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
-import { newFileId } from '../../storage/disk-storage';
 import type { SessionUser } from '../../middleware/require-role';
 import type { PhotoView } from '../../../shared/schemas/views';
 import { processPhoto, type ProcessedPhoto } from '../photos/photo-processing';
-import { thumbId } from '../photos/photo-files';
+import { removePhotoFiles, storePhotoFiles } from '../photos/photo-files';
 import { photosOf } from '../swaps/swap-views';
 import { assertEditable, revisionFor } from './submission-views';
 import type { SubmissionDeps } from './submissions.service';
@@ -86,16 +85,10 @@ export async function addPhotos(
   const processed: ProcessedPhoto[] = [];
   for (const [i, f] of files.entries()) processed.push(await processPhoto(f.buffer, `photos.${i}`));
 
-  const written: string[] = [];
   const stored: { fileId: string; photo: ProcessedPhoto; caption: string }[] = [];
   try {
     for (const [i, photo] of processed.entries()) {
-      const fileId = newFileId();
-      await storage.put(fileId, photo.full);
-      written.push(fileId);
-      await storage.put(thumbId(fileId), photo.thumb);
-      written.push(thumbId(fileId));
-      stored.push({ fileId, photo, caption: stripHtml(captions[i] ?? '') });
+      stored.push({ fileId: await storePhotoFiles(storage, photo), photo, caption: stripHtml(captions[i] ?? '') });
     }
     const now = clock.now();
     db.transaction((tx) => {
@@ -133,7 +126,7 @@ export async function addPhotos(
       tx.update(revisions).set({ updatedAt: now }).where(eq(revisions.id, revisionId)).run();
     });
   } catch (err) {
-    for (const id of written) await storage.remove(id).catch(() => undefined);
+    for (const s of stored) await removePhotoFiles(storage, s.fileId);
     throw err;
   }
   return photosOfRevision(deps, revisionId);
@@ -185,13 +178,14 @@ export async function deletePhoto(
 ): Promise<PhotoView[]> {
   const { db, storage, clock } = deps;
   assertEditable(user, revisionFor(db, user, revisionId));
-  const removed = db
-    .delete(revisionPhotos)
-    .where(and(eq(revisionPhotos.revisionId, revisionId), eq(revisionPhotos.fileId, fileId)))
-    .run().changes;
-  if (!removed) throw AppError.notFound('That photo');
-  db.update(revisions).set({ updatedAt: clock.now() }).where(eq(revisions.id, revisionId)).run();
-  await storage.remove(fileId);
-  await storage.remove(thumbId(fileId));
+  db.transaction((tx) => {
+    const removed = tx
+      .delete(revisionPhotos)
+      .where(and(eq(revisionPhotos.revisionId, revisionId), eq(revisionPhotos.fileId, fileId)))
+      .run().changes;
+    if (!removed) throw AppError.notFound('That photo');
+    tx.update(revisions).set({ updatedAt: clock.now() }).where(eq(revisions.id, revisionId)).run();
+  });
+  await removePhotoFiles(storage, fileId);
   return photosOfRevision(deps, revisionId);
 }

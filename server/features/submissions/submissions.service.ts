@@ -20,7 +20,7 @@ import type {
   SubmissionView,
   UpdateSubmission,
 } from '../../../shared/schemas/submissions';
-import { thumbId } from '../photos/photo-files';
+import { removePhotoFiles, thumbId } from '../photos/photo-files';
 import { assertEditable, loadRevision, revisionFor, submissionView, type LoadedRevision, type SwapRow } from './submission-views';
 
 export type SubmissionDeps = { db: Db; clock: Clock; mailer: Mailer; storage: Storage; logger: Logger; appUrl: string };
@@ -413,10 +413,7 @@ export function removeRevision(tx: Tx, row: Pick<LoadedRevision, 'revision' | 's
 
 /** Removes stored photos (full size and thumbnail); a file already gone is no error. */
 export async function removeFiles(storage: Storage, fileIds: string[]) {
-  for (const id of fileIds) {
-    await storage.remove(id).catch(() => undefined);
-    await storage.remove(thumbId(id)).catch(() => undefined);
-  }
+  for (const id of fileIds) await removePhotoFiles(storage, id);
 }
 
 /** New files (full and thumbnail) with the same content as a revision's photos, and the rows to insert for them. */

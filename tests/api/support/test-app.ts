@@ -2,7 +2,8 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { loadConfig } from '../../../server/config';
-import { openDb, migrateDb, closeDb, type Db } from '../../../server/db/client';
+import { openDb, migrateDb, closeDb, setBusyTimeout, type Db } from '../../../server/db/client';
+import { SHORT_BUSY_TIMEOUT_MS } from '../../../server/db/busy';
 import { createApp } from '../../../server/app';
 import { createMailer } from '../../../server/mail/mailer';
 import { createDiskStorage } from '../../../server/storage/disk-storage';
@@ -31,6 +32,7 @@ export async function makeTestApp(env: Record<string, string> = {}, clock?: Cloc
   });
   const db: Db = openDb(config.databaseUrl);
   migrateDb(db);
+  setBusyTimeout(db, SHORT_BUSY_TIMEOUT_MS);
   const storage = createDiskStorage(config.uploadDir);
   const theClock = clock ?? { now: () => new Date() };
   const logger = options.logDestination ? createLogger('info', options.logDestination) : createLogger('silent');
