@@ -25,7 +25,12 @@ async function as(login: string) {
   return signedIn.get(login)!;
 }
 
-const rev1 = swapData('Vela four-piston calipers on the H31 front', { summary: 'First write-up', installHours: 6 });
+const rev1 = swapData('Vela four-piston calipers on the H31 front', {
+  summary: 'First write-up',
+  installHours: 6,
+  fasteners: [{ id: 'caliper-bolts', kind: 'caliper_mount', label: 'Caliper to bracket', thread: 'M12x1.5' }],
+  torque: [{ fastenerId: 'caliper-bolts', nm: 85 }],
+});
 
 beforeAll(async () => {
   t = await makeTestApp();
@@ -178,13 +183,19 @@ describe('following a shop link', () => {
     // the note is the shop's own: a customer opening the link does not get it
     expect(pinned.link.note).toBeNull();
     expect(pinned.shop.name).toBe('Ridgeway Performance');
-    expect(pinned.newerRevision).toEqual({ number: 2, summary: 'Changed: torque specs, install time, write-up.' });
+    expect(pinned.newerRevision).toEqual({
+      number: 2,
+      summary: 'Changed: fasteners and torque; install time and tools; write-up.',
+    });
 
     const item = ((await (await as('ridgeway_shop')).a.get('/api/shop-links')).body as ShopLinkList).items.find(
       (l) => l.code === code,
     )!;
     expect(item.revision.number).toBe(1);
-    expect(item.newerRevision).toEqual({ number: 2, summary: 'Changed: torque specs, install time, write-up.' });
+    expect(item.newerRevision).toEqual({
+      number: 2,
+      summary: 'Changed: fasteners and torque; install time and tools; write-up.',
+    });
     // a link made now pins revision 2 and has no notice
     const fresh = (await makeLink()).body.link as ShopLinkItem;
     expect(fresh.revision.number).toBe(2);

@@ -7,7 +7,7 @@ import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
 import type { SessionUser } from '../../middleware/require-role';
 import { can } from '../../../shared/roles';
-import { diffSwapData, summariseChanges } from '../../../shared/revision-diff';
+import { compareRevisions, summariseChanges } from '../../../shared/revision-changes';
 import type {
   CreateShopLink,
   NewerRevision,
@@ -100,7 +100,7 @@ function newerRevisionOf(
     current.number > pinned.number
       ? {
           number: current.number,
-          summary: summariseChanges(diffSwapData(pinned.data, current.data), pinned.body !== current.body),
+          summary: summariseChanges(compareRevisions(pinned, current)),
         }
       : null;
   cache.set(key, result);

@@ -5,7 +5,7 @@ import { revisionStatusLabels } from '@shared/schemas/enums';
 import { Page } from '../../../components/ui/page';
 import { Badge } from '../../../components/ui/badge';
 import { ErrorNotice, Loading } from '../../../components/ui/query-state';
-import { RevisionDiff } from '../../../components/revision-diff';
+import { RevisionChanges } from '../../../components/revision-changes';
 import { UntrustedMarkdown } from '../../../components/markdown';
 import { chassisLabel } from '../../../components/swap-card';
 import { paths } from '../../../config/paths';
@@ -152,13 +152,9 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
           {current && (
             <section aria-labelledby="diff-h">
               <h2 id="diff-h" className="mb-3 text-xl font-extrabold text-ink">
-                Changes against revision {current.number}
+                What this correction changes in revision {current.number}
               </h2>
-              <RevisionDiff
-                before={current}
-                after={{ data: revision.data, body: revision.body }}
-                labels={[`Revision ${current.number} (current)`, `This revision (${revision.number})`]}
-              />
+              <RevisionChanges before={current} after={{ data: revision.data, body: revision.body }} idPrefix="review-changes" />
             </section>
           )}
           <History history={history} />
