@@ -34,6 +34,7 @@ import {
   type RevisionStatus,
 } from '../../shared/schemas/enums';
 import { can, roleSchema } from '../../shared/roles';
+import { vehicleDataSchema } from '../../shared/schemas/vehicle';
 import { newFileId, type Storage } from '../storage/disk-storage';
 import type { Clock } from '../lib/clock';
 import { submissionReceived, submissionSentBack, type BuiltMessage } from '../mail/messages';
@@ -88,6 +89,7 @@ const carSchema = z.strictObject({
   wheelOffsetMm: z.number().min(-80).max(80),
   tyre: text(40).default(''),
   spacerMm: z.number().min(0).max(60).default(0),
+  vehicle: vehicleDataSchema.optional(),
 });
 
 const usersFileSchema = z.array(
@@ -127,6 +129,7 @@ const chassisFileSchema = z.array(
       tyre: text(40).min(1),
     }),
     stockBrakes: z.strictObject({ front: brakeCornerContent, rear: brakeCornerContent }),
+    vehicle: vehicleDataSchema.optional(),
     notes: text(2000).default(''),
   }),
 );

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { singleLine } from './text';
 import { parseTyreSize } from '../fitment/tyre';
 import { FitmentInputError } from '../fitment/errors';
+import { vehicleDataSchema, type VehicleData } from './vehicle';
 
 // API contract of "my cars": a member's own cars, used to check swaps against their wheel.
 
@@ -41,12 +42,15 @@ const carShape = {
   ),
   tyre: tyreSizeField,
   spacerMm: num(z.number().min(0, 'Between 0 and 60 mm').max(60, 'Between 0 and 60 mm')),
+  /** the car's own brake-distribution figures; null: the chassis' stock figures apply */
+  vehicle: vehicleDataSchema.nullable(),
 };
 
 export const carInputSchema = z.object({
   ...carShape,
   tyre: carShape.tyre.default(''),
   spacerMm: num(z.number().min(0, 'Between 0 and 60 mm').max(60, 'Between 0 and 60 mm'), 0),
+  vehicle: carShape.vehicle.default(null),
 });
 export type CarInput = z.infer<typeof carInputSchema>;
 
@@ -68,6 +72,8 @@ export type CarView = {
   wheelOffsetMm: number;
   tyre: string;
   spacerMm: number;
+  /** the car's own brake-distribution figures, or null when the chassis' stock figures apply */
+  vehicle: VehicleData | null;
   createdAt: string;
   updatedAt: string;
 };

@@ -1,6 +1,7 @@
 import type { Axle, Category, RevisionStatus } from './enums';
 import type { BrakeCorner, SwapData } from './swap-data';
 import type { Role } from '../roles';
+import type { VehicleData } from './vehicle';
 
 // Shapes of what the read API returns. The server builds them; the client types its queries with them.
 
@@ -24,6 +25,8 @@ export type ChassisView = {
   wheelBoltThread: string;
   stockWheel: { diameterIn: number; widthIn: number; offsetMm: number; tyre: string };
   stockBrakes: { front: StockBrakeCornerView; rear: StockBrakeCornerView };
+  /** stock figures for the brake-distribution analysis; null when the catalogue has none */
+  vehicle: VehicleData | null;
   notes: string;
 };
 

@@ -85,6 +85,47 @@ describe('/api/cars', () => {
     expect(t.db.select().from(cars).all()).toHaveLength(before);
   });
 
+  it('when the owner gives the car its own brake-balance figures, then they are kept and can be taken back to the stock ones', async () => {
+    const [car] = (await rosa.a.get('/api/cars')).body.items as CarView[];
+    expect(car!.vehicle).toBeNull();
+    const own = {
+      unladen: { massKg: 1230, frontStaticFraction: 0.52, cgHeightMm: 500 },
+      laden: { massKg: 1630, frontStaticFraction: 0.47, cgHeightMm: 535 },
+      wheelbaseMm: 2700,
+      tyreLoadedRadiusMm: { front: 298, rear: 298 },
+      rearValve: { kind: 'proportioning', kneeBar: 35, slope: 0.3 },
+      basis: 'Corner scales, full tank',
+    };
+    const res = await rosa.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', rosa.token).send({ vehicle: own });
+    expect(res.status).toBe(200);
+    expect((res.body.car as CarView).vehicle).toEqual(own);
+    expect(((await rosa.a.get('/api/cars')).body.items as CarView[])[0]!.vehicle).toEqual(own);
+
+    const back = await rosa.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', rosa.token).send({ vehicle: null });
+    expect((back.body.car as CarView).vehicle).toBeNull();
+    expect(t.db.select().from(cars).where(eq(cars.id, car!.id)).get()!.vehicle).toBeNull();
+  });
+
+  it('when the brake-balance figures are impossible, then it is 400 naming each field and the saved figures stay', async () => {
+    const [car] = (await rosa.a.get('/api/cars')).body.items as CarView[];
+    const res = await rosa.a
+      .patch(`/api/cars/${car!.id}`)
+      .set('x-csrf-token', rosa.token)
+      .send({
+        vehicle: {
+          unladen: { massKg: 1230, frontStaticFraction: 52, cgHeightMm: 500 },
+          laden: { massKg: 900, frontStaticFraction: 0.47, cgHeightMm: 535 },
+          wheelbaseMm: 2700,
+          tyreLoadedRadiusMm: { front: 298, rear: 298 },
+          rearValve: { kind: 'proportioning', kneeBar: 35, slope: 3 },
+        },
+      });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['vehicle.unladen.frontStaticFraction']).toBe('Between 20 and 80 %');
+    expect(res.body.error.fields['vehicle.rearValve.slope']).toBe('Between 0 and 1');
+    expect(t.db.select().from(cars).where(eq(cars.id, car!.id)).get()!.vehicle).toBeNull();
+  });
+
   it('when the owner edits a car, then only the fields sent change', async () => {
     const [car] = (await rosa.a.get('/api/cars')).body.items as CarView[];
     const res = await rosa.a

@@ -2,6 +2,7 @@ import { sqliteTable, text, integer, real, index } from 'drizzle-orm/sqlite-core
 import { timestamps } from './columns';
 import { partKinds } from '../../../shared/schemas/enums';
 import type { StockBrakeCornerView } from '../../../shared/schemas/views';
+import type { VehicleData } from '../../../shared/schemas/vehicle';
 
 export const chassis = sqliteTable('chassis', {
   id: integer('id').primaryKey({ autoIncrement: true }),
@@ -20,6 +21,8 @@ export const chassis = sqliteTable('chassis', {
   stockWheel: text('stock_wheel', { mode: 'json' }).$type<StockWheel>().notNull(),
   /** { front: BrakeCorner & { description }, rear: … } */
   stockBrakes: text('stock_brakes', { mode: 'json' }).$type<StockBrakes>().notNull(),
+  /** stock figures for the brake-distribution analysis (masses, weight split, centre of gravity, valve); null when unknown */
+  vehicle: text('vehicle', { mode: 'json' }).$type<VehicleData>(),
   notes: text('notes').notNull().default(''),
   /** proposed with a submission and not yet approved */
   proposed: integer('proposed', { mode: 'boolean' }).notNull().default(false),

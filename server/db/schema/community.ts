@@ -5,6 +5,7 @@ import { users, shops } from './users';
 import { swaps, revisions } from './swaps';
 import { chassis } from './catalogue';
 import { mailStatuses } from '../../../shared/schemas/enums';
+import type { VehicleData } from '../../../shared/schemas/vehicle';
 import { newMessageId } from '../../mail/message-id';
 
 export const fittedReports = sqliteTable(
@@ -122,6 +123,8 @@ export const cars = sqliteTable(
     wheelOffsetMm: real('wheel_offset_mm').notNull(),
     tyre: text('tyre').notNull().default(''),
     spacerMm: real('spacer_mm').notNull().default(0),
+    /** the member's own figures for the brake-distribution analysis; null: the chassis' stock figures apply */
+    vehicle: text('vehicle', { mode: 'json' }).$type<VehicleData>(),
     ...timestamps,
   },
   (t) => [index('cars_user_idx').on(t.userId)],

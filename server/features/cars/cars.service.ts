@@ -19,6 +19,7 @@ function carView(car: CarRow, c: ChassisRow): CarView {
     wheelOffsetMm: car.wheelOffsetMm,
     tyre: car.tyre,
     spacerMm: car.spacerMm,
+    vehicle: car.vehicle ?? null,
     createdAt: car.createdAt.toISOString(),
     updatedAt: car.updatedAt.toISOString(),
   };

@@ -30,6 +30,7 @@ export function chassisView(c: ChassisRow): ChassisView {
     wheelBoltThread: c.wheelBoltThread,
     stockWheel: c.stockWheel,
     stockBrakes: c.stockBrakes,
+    vehicle: c.vehicle ?? null,
     notes: c.notes,
   };
 }

@@ -8,6 +8,7 @@ import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
 import { useUnits } from '../../../lib/units';
 import { useChassisOptions } from '../api/get-cars';
+import { VehicleFields, vehicleFormOf, vehicleInputOf, type VehicleForm } from './vehicle-fields';
 
 type Form = Record<'chassisId' | 'nickname' | 'wheelDiameterIn' | 'wheelWidthIn' | 'wheelOffsetMm' | 'tyre' | 'spacer', string>;
 
@@ -47,6 +48,8 @@ export function CarForm({
   const imperial = units.system === 'imperial';
   const chassisList = useChassisOptions();
   const [form, setForm] = useState<Form>(() => (car ? fromCar(car, imperial) : blank));
+  const [vehicle, setVehicle] = useState<VehicleForm>(() => vehicleFormOf(car?.vehicle ?? null, imperial, Boolean(car?.vehicle)));
+  const chosen = chassisList.data?.find((c) => String(c.id) === form.chassisId) ?? null;
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [problem, setProblem] = useState<string | null>(null);
   const set = (key: keyof Form) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
@@ -57,7 +60,7 @@ export function CarForm({
     setProblem(null);
     const spacerRaw = form.spacer.trim().replace(',', '.');
     const spacerMm = spacerRaw === '' ? 0 : imperial ? Math.round(inToMm(Number(spacerRaw)) * 10) / 10 : Number(spacerRaw);
-    const parsed = carInputSchema.safeParse({ ...form, spacerMm, spacer: undefined });
+    const parsed = carInputSchema.safeParse({ ...form, spacerMm, spacer: undefined, vehicle: vehicleInputOf(vehicle, imperial) });
     if (!parsed.success) {
       const fields = fieldErrors(parsed.error.issues);
       setErrors(fields);
@@ -66,7 +69,10 @@ export function CarForm({
     setErrors({});
     try {
       await onSave(parsed.data);
-      if (!car) setForm(blank);
+      if (!car) {
+        setForm(blank);
+        setVehicle(vehicleFormOf(null, imperial, false));
+      }
     } catch (err) {
       if (err instanceof ApiError) {
         setErrors(err.fields);
@@ -85,7 +91,7 @@ export function CarForm({
       <div className="sm:col-span-2 lg:col-span-1">
         <ChassisCombobox
           options={chassisList.data ?? []}
-          value={chassisList.data?.find((c) => String(c.id) === form.chassisId)?.slug ?? null}
+          value={chosen?.slug ?? null}
           onChange={(slug) =>
             setForm((f) => ({ ...f, chassisId: String(chassisList.data?.find((c) => c.slug === slug)?.id ?? '') }))
           }
@@ -145,6 +151,14 @@ export function CarForm({
         onChange={set('spacer')}
         error={errors.spacerMm}
         hint="0 when none"
+      />
+      <VehicleFields
+        form={vehicle}
+        onChange={setVehicle}
+        errors={errors}
+        imperial={imperial}
+        stock={chosen?.vehicle ?? null}
+        chassisName={chosen ? `${chosen.make} ${chosen.model}` : null}
       />
       <div className="flex flex-wrap items-end gap-2 sm:col-span-2 lg:col-span-3">
         <Button type="submit" disabled={saving}>

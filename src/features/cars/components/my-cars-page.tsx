@@ -10,6 +10,7 @@ import { useUnits } from '../../../lib/units';
 import { useMyCars } from '../api/get-cars';
 import { useCreateCar, useDeleteCar, useUpdateCar } from '../api/save-car';
 import { CarForm } from './car-form';
+import { VehicleFiguresList } from '../../../components/vehicle-figures';
 
 export const wheelLabel = (w: { wheelDiameterIn: number; wheelWidthIn: number; wheelOffsetMm: number }) =>
   `${w.wheelDiameterIn}×${w.wheelWidthIn} ET${w.wheelOffsetMm}`;
@@ -21,7 +22,7 @@ export default function MyCarsPage() {
     <Page
       title="My cars"
       heading="My cars"
-      lead="Keep each car’s chassis, wheel and tyre here. Swap sheets can then fill ‘Check my wheel’ from a car in one click, and chassis pages mark which swaps clear your wheel."
+      lead="Keep each car’s chassis, wheel and tyre here. Swap sheets can then fill ‘Check my wheel’ from a car in one click, work out the brake balance from your car’s own figures, and chassis pages mark which swaps clear your wheel."
     >
       <div className="grid gap-8">
         {cars.isPending ? (
@@ -94,6 +95,15 @@ function CarCard({ car }: { car: CarView }) {
           <dd className="font-extrabold">{car.spacerMm > 0 ? units.length(car.spacerMm) : 'None'}</dd>
         </div>
       </dl>
+      <p className="mt-2 text-xs text-graphite-soft" data-car-figures>
+        {car.vehicle ? 'Brake balance: this car’s own figures.' : 'Brake balance: the chassis’ stock figures.'}
+      </p>
+      {car.vehicle && (
+        <details className="mt-1 text-xs">
+          <summary className="cursor-pointer font-bold text-ink">Show the figures</summary>
+          <VehicleFiguresList vehicle={car.vehicle} className="mt-1" />
+        </details>
+      )}
       <div className="mt-auto flex flex-wrap items-center gap-2 pt-4">
         <Button variant="secondary" onClick={() => setEditing(true)}>
           Edit

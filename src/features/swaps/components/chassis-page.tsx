@@ -8,6 +8,7 @@ import type { SwapCard as SwapCardData } from '@shared/schemas/views';
 import { useUnits } from '../../../lib/units';
 import { paths } from '../../../config/paths';
 import { ButtonLink } from '../../../components/ui/button';
+import { VehicleFiguresList } from '../../../components/vehicle-figures';
 
 type ChassisPageProps = {
   /** shown above the swap list (e.g. which of the member's cars the swaps were checked against) */
@@ -78,6 +79,15 @@ export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) 
             corner(k).description,
           ])}
         />
+        {c.vehicle && (
+          <div className="rounded-xl border border-ink/10 bg-paper-card p-4 md:col-span-3" data-chassis-vehicle>
+            <h3 className="font-extrabold text-ink">Figures for brake balance</h3>
+            <p className="mb-2 text-xs text-graphite-soft">
+              Stock figures the swap sheets use to work out which axle locks first; members can give their own car’s in my cars.
+            </p>
+            <VehicleFiguresList vehicle={c.vehicle} />
+          </div>
+        )}
       </section>
       <div className="mt-10 space-y-10">
         {intro?.(c.slug)}

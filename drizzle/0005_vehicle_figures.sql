@@ -1,0 +1,2 @@
+ALTER TABLE `chassis` ADD `vehicle` text;--> statement-breakpoint
+ALTER TABLE `cars` ADD `vehicle` text;
