@@ -86,7 +86,10 @@ export function createApp(deps: AppDeps) {
     startFakeProvider();
     app.use('/auth/fake', fakeAuthorizeRouter({ db: deps.db, config }));
   }
-  app.use('/auth', authRouter({ passport, appUrl: config.appUrl, endSessions }));
+  app.use(
+    '/auth',
+    authRouter({ passport, appUrl: config.appUrl, endSessions, db: deps.db, mailer: deps.mailer, clock: deps.clock }),
+  );
 
   // --- feature routers ---
   app.use('/api', meRouter(deps));

@@ -40,7 +40,7 @@ export function loadSessionUser(db: Db, id: number): SessionUser | null {
 }
 
 /** Logins are unique here; a provider rename can collide with someone else's old login. */
-function freeLogin(db: Db, wanted: string, exceptId: number | null): string {
+export function freeLogin(db: Db, wanted: string, exceptId: number | null): string {
   for (let n = 1; ; n++) {
     const candidate = n === 1 ? wanted : `${wanted}-${n}`;
     const holder = db.select({ id: users.id }).from(users).where(eq(users.login, candidate)).get();
@@ -65,6 +65,29 @@ export function signInFromProfile(db: Db, clock: Clock, profile: ProviderProfile
       .where(and(eq(users.provider, profile.provider), eq(users.providerId, profile.providerId)))
       .get();
     if (existing?.suspendedAt) return { ok: false as const, reason: 'suspended' as const, userId: existing.id };
+    // an account first made by an e-mail link, for the address the provider vouches for, gets this provider too
+    const byEmail =
+      !existing && profile.email
+        ? db
+            .select()
+            .from(users)
+            .where(and(eq(users.provider, 'email'), eq(users.providerId, profile.email.trim().toLowerCase())))
+            .get()
+        : undefined;
+    if (byEmail?.suspendedAt) return { ok: false as const, reason: 'suspended' as const, userId: byEmail.id };
+    if (byEmail) {
+      db.update(users)
+        .set({
+          provider: profile.provider,
+          providerId: profile.providerId,
+          avatarUrl: profile.avatarUrl,
+          lastSignInAt: now,
+          updatedAt: now,
+        })
+        .where(eq(users.id, byEmail.id))
+        .run();
+      return { ok: true as const, user: loadSessionUser(db, byEmail.id)!, created: false };
+    }
     if (existing) {
       db.update(users)
         .set({

@@ -24,8 +24,8 @@ export function createLogger(level: pino.LevelWithSilent = 'info', destination?:
 
 // OAuth codes, state and tokens travel in query strings (the callback, the authorize page's redirect);
 // they are credentials for a few minutes and never belong in a log line.
-const secretParams = new Set(['code', 'state', 'access_token', 'refresh_token', 'client_secret']);
-const secretInQuery = /([?&](?:code|state|access_token|refresh_token|client_secret)=)[^&#]*/gi;
+const secretParams = new Set(['code', 'state', 'token', 'access_token', 'refresh_token', 'client_secret']);
+const secretInQuery = /([?&](?:code|state|token|access_token|refresh_token|client_secret)=)[^&#]*/gi;
 
 export const scrubUrl = (url: string) => url.replace(secretInQuery, '$1[redacted]');
 

@@ -8,7 +8,8 @@ import type { BuiltMessage } from './messages';
 import { newMessageId } from './message-id';
 import { createSender } from './sender';
 
-export type Recipient = { id: number; email: string | null };
+/** `id` is null for an address with no account yet (a first e-mail sign-in link) */
+export type Recipient = { id: number | null; email: string | null };
 
 export type Mailer = {
   /**

@@ -3,7 +3,8 @@ import { neutraliseSingleLine } from '../../shared/schemas/text';
 // Builders of the messages the community loop sends. Each returns plain text and HTML; every string
 // that came from a member (titles, reasons, notes, names) is HTML-escaped in the HTML part.
 
-export type BuiltMessage = { subject: string; text: string; html: string };
+/** `secret`: the message acts for its recipient (a sign-in link), so staff never read its body */
+export type BuiltMessage = { subject: string; text: string; html: string; secret?: boolean };
 
 export function escapeHtml(s: string): string {
   return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
@@ -120,4 +121,20 @@ export function flagResolved(m: Base & { slug: string; reason: string; note: str
     { quote: m.note },
     { link: `${m.appUrl}/swaps/${m.slug}`, label: 'Open the swap sheet' },
   ]);
+}
+
+/** The one-time sign-in link. It says what to do if nobody here asked for it. */
+export function emailSignInLink(m: { link: string; minutes: number; known: boolean }): BuiltMessage {
+  const message = build('Your Swapyard sign-in link', 'Hello,', [
+    {
+      text: m.known
+        ? 'Someone asked to sign in to Swapyard with this address. If it was you, open the link below.'
+        : 'Someone asked to sign in to Swapyard with this address. If it was you, open the link below: it makes your member account on the way in.',
+    },
+    { link: m.link, label: 'Sign in to Swapyard' },
+    {
+      text: `The link works once, for ${m.minutes} minutes, in any browser. If you did not ask for it, ignore this message: nothing happens without the link.`,
+    },
+  ]);
+  return { ...message, secret: true };
 }

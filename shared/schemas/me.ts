@@ -24,3 +24,14 @@ export const updateMeSchema = z
   .strict()
   .refine((v) => v.name !== undefined || v.units !== undefined, { message: 'Send a name or a units preference to change' });
 export type UpdateMeInput = z.infer<typeof updateMeSchema>;
+
+/** `POST /auth/email`: ask for a one-time sign-in link. The answer is 202 whether or not the address is known. */
+export const emailSignInSchema = z
+  .object({
+    email: z.string().trim().max(254, 'An address is at most 254 characters').pipe(z.email('Enter an e-mail address like name@example.com')),
+    /** a path on this site to land on after signing in */
+    returnTo: z.string().max(512).optional(),
+  })
+  .strict();
+export type EmailSignInInput = z.infer<typeof emailSignInSchema>;
+export type EmailSignInResponse = { sent: true; minutes: number };

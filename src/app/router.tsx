@@ -22,6 +22,7 @@ export const routes: RouteObject[] = [
       { path: 'parts/:id', ...page(() => import('../features/swaps/components/part-page')) },
       { path: 'tools', ...page(() => import('../features/calculators/components/calculators-page')) },
       { path: 'admin', ...page(() => import('./routes/admin')) },
+      { path: 'signin', ...page(() => import('../features/account/components/sign-in-page')) },
       { path: 'signin-failed', ...page(() => import('../features/account/components/sign-in-failed-page')) },
       { path: 'submit', ...page(() => import('./routes/submit')) },
       { path: 'submissions/:id/edit', ...page(() => import('./routes/edit-submission')) },

@@ -18,5 +18,7 @@ export const paths = {
   shopLinks: () => '/shop/links',
   outbox: () => '/outbox',
   admin: () => '/admin',
-  signIn: (returnTo: string) => `/auth/github?returnTo=${encodeURIComponent(returnTo)}`,
+  /** the page offering both ways in */
+  signIn: (returnTo: string) => `/signin?returnTo=${encodeURIComponent(returnTo)}`,
+  providerSignIn: (returnTo: string) => `/auth/github?returnTo=${encodeURIComponent(returnTo)}`,
 } as const;

@@ -22,6 +22,8 @@ describe('sign-in through the fake provider', () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
     await page.goto(`${server.url}/tools`);
     await page.getByRole('link', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/signin\?returnTo=%2Ftools/);
+    await page.getByRole('link', { name: 'Continue with GitHub' }).click();
     await page.waitForURL(/\/auth\/fake\/authorize/);
     await page.getByRole('link', { name: /Mo Gauge/ }).click();
     await page.waitForURL(`${server.url}/tools`);

@@ -148,6 +148,8 @@ export const mailOutbox = sqliteTable(
     messageId: text('message_id')
       .unique()
       .$defaultFn(() => newMessageId()),
+    /** holds something that acts for its recipient (a sign-in link): its body is not shown on the desk */
+    secret: integer('secret', { mode: 'boolean' }).notNull().default(false),
     status: text('status', { enum: mailStatuses }).notNull().default('kept'),
     attempts: integer('attempts').notNull().default(0),
     lastError: text('last_error'),

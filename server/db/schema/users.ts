@@ -65,3 +65,22 @@ export const sessions = sqliteTable(
     index('sessions_user_idx').on(t.userId),
   ],
 );
+
+/**
+ * One-time sign-in links sent by e-mail. Only a hash of the token is kept, so the table cannot be
+ * used to sign anyone in; a link works once, for a short time.
+ */
+export const emailSignInTokens = sqliteTable(
+  'email_sign_in_tokens',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    tokenHash: text('token_hash').notNull().unique(),
+    /** lower-cased as typed; the account is found (or made) when the link is used */
+    email: text('email').notNull(),
+    returnTo: text('return_to'),
+    createdAt: timestamp('created_at').notNull(),
+    expiresAt: timestamp('expires_at').notNull(),
+    usedAt: timestamp('used_at'),
+  },
+  (t) => [index('email_sign_in_tokens_email_idx').on(t.email, t.createdAt)],
+);

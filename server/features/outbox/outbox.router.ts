@@ -7,7 +7,7 @@ import { listOutbox } from './outbox.service';
 export function outboxRouter({ db, config }: AppDeps) {
   const router = Router();
   router.get('/outbox', requireRole('moderator', 'admin'), (req, res) => {
-    const body: OutboxResponse = { items: listOutbox(db, req.user!.role), delivering: Boolean(config.smtpUrl) };
+    const body: OutboxResponse = { items: listOutbox(db, req.user!.role, { showSecrets: config.auth.mode === 'fake' }), delivering: Boolean(config.smtpUrl) };
     res.set('Cache-Control', 'private, no-store').json(body);
   });
   return router;

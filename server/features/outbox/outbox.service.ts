@@ -10,7 +10,10 @@ const iso = (d: Date | null) => (d ? d.toISOString() : null);
  * The newest messages first. Everyone on the desk sees what went out to which member and whether it
  * was delivered; the address and the mail server's answers (which often quote it) are for admins only.
  */
-export function listOutbox(db: Db, viewerRole: Role, limit = 200): OutboxMessage[] {
+const withheld = 'This message signs its recipient in, so its text is not shown here.';
+
+/** `showSecrets`: only with the local sign-in provider, where anyone may sign in as anyone anyway */
+export function listOutbox(db: Db, viewerRole: Role, { showSecrets = false, limit = 200 } = {}): OutboxMessage[] {
   const admin = can(viewerRole, 'manage_users');
   return db
     .select({
@@ -28,8 +31,8 @@ export function listOutbox(db: Db, viewerRole: Role, limit = 200): OutboxMessage
       recipient: login,
       to: admin ? m.to : null,
       subject: m.subject,
-      text: m.text,
-      html: m.html,
+      text: m.secret && !showSecrets ? withheld : m.text,
+      html: m.secret && !showSecrets ? `<p>${withheld}</p>` : m.html,
       createdAt: m.createdAt.toISOString(),
       status: m.status,
       sentAt: iso(m.sentAt),

@@ -19,6 +19,11 @@ const reasons: Record<string, { heading: string; lead: string; retry: boolean }>
     lead: 'You chose not to sign in. You can keep reading every swap without an account.',
     retry: true,
   },
+  link: {
+    heading: 'That sign-in link no longer works',
+    lead: 'A sign-in link works once, for a short time. This one has been used, has run out, or was not copied whole. Ask for a new one.',
+    retry: true,
+  },
   suspended: {
     heading: 'This account is suspended',
     lead: 'An admin has suspended this account, so it cannot sign in. If you think this is a mistake, contact the Swapyard moderators.',
@@ -28,7 +33,7 @@ const reasons: Record<string, { heading: string; lead: string; retry: boolean }>
 
 const unknown = { heading: 'Sign-in did not work', lead: 'Something went wrong while signing you in. Try again.', retry: true };
 
-/** Where a failed sign-in lands: `/signin-failed?reason=state|provider|denied|suspended`. */
+/** Where a failed sign-in lands: `/signin-failed?reason=state|provider|denied|link|suspended`. */
 export default function SignInFailedPage() {
   const [params] = useSearchParams();
   const r = reasons[params.get('reason') ?? ''] ?? unknown;
