@@ -19,6 +19,11 @@ const envSchema = z.object({
   /** per signed-in member and hour: new submissions and sends to review, and photo upload requests */
   SUBMISSION_RATE_LIMIT: z.coerce.number().int().min(1).default(60),
   UPLOAD_RATE_LIMIT: z.coerce.number().int().min(1).default(120),
+  /** photos a member may keep unpublished (drafts, sent back, in review) and on fitted reports, in MB */
+  STORAGE_QUOTA_MB: z.coerce.number().positive().default(200),
+  /** a draft untouched this many days gets an e-mail; untouched DRAFT_NOTICE_DAYS later, it is removed */
+  DRAFT_IDLE_DAYS: z.coerce.number().positive().default(90),
+  DRAFT_NOTICE_DAYS: z.coerce.number().positive().default(14),
   /** flags per member and hour */
   FLAG_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   /** shop-link lookups of unknown or retired codes per client address in 15 minutes */
@@ -50,6 +55,8 @@ export type Config = {
   sessionSecret: string;
   auth: { mode: 'github' | 'fake'; clientId: string; clientSecret: string; rateLimit: number };
   rateLimits: { submissionsPerHour: number; uploadsPerHour: number; flagsPerHour: number; linkMissesPer15Min: number };
+  storageQuotaBytes: number;
+  draftExpiry: { idleDays: number; noticeDays: number };
   smtpUrl?: string;
   mailFrom: string;
   mailDelivery: { timeoutMs: number; maxAttempts: number; retryMs: number };
@@ -104,6 +111,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       flagsPerHour: e.FLAG_RATE_LIMIT,
       linkMissesPer15Min: e.LINK_MISS_LIMIT,
     },
+    storageQuotaBytes: Math.round(e.STORAGE_QUOTA_MB * 1024 * 1024),
+    draftExpiry: { idleDays: e.DRAFT_IDLE_DAYS, noticeDays: e.DRAFT_NOTICE_DAYS },
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
     mailDelivery: { timeoutMs: e.SMTP_TIMEOUT_MS, maxAttempts: e.MAIL_MAX_ATTEMPTS, retryMs: e.MAIL_RETRY_MS },

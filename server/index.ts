@@ -11,6 +11,7 @@ import { systemClock } from './lib/clock';
 import { createLogger } from './lib/logger';
 import { staticClient, viteClient } from './client';
 import { seedDemo, isDatabaseEmpty } from './db/seed';
+import { startDraftExpiry } from './features/submissions/draft-expiry';
 
 async function main() {
   let config;
@@ -49,6 +50,15 @@ async function main() {
   });
 
   const requests = trackRequests(server);
+  const stopDraftExpiry = startDraftExpiry({
+    db,
+    storage,
+    mailer,
+    clock,
+    logger,
+    appUrl: config.appUrl,
+    expiry: config.draftExpiry,
+  });
 
   // Stop accepting, let requests in flight finish (at most STOP_TIMEOUT_MS), let a delivery in progress
   // record its result, then close the database so the WAL is checkpointed.
@@ -64,6 +74,7 @@ async function main() {
     }, deadline).unref();
     const cut = await requests.drain(config.stopTimeoutMs);
     if (cut) logger.warn({ cut }, 'requests still running at the stop timeout were cut off');
+    stopDraftExpiry();
     await mailer.stop();
     stopOrphanSweep();
     await vite?.close();

@@ -138,3 +138,18 @@ export function emailSignInLink(m: { link: string; minutes: number; known: boole
   ]);
   return { ...message, secret: true };
 }
+
+const longDate = (d: Date) => d.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+
+/** An untouched draft is about to be removed; the member can keep it. */
+export function draftExpiring(m: Base & { revisionId: number; lastChanged: Date; removeOn: Date; photos: number }): BuiltMessage {
+  return build(`Your draft will be removed: ${m.title}`, hello(m.name), [
+    {
+      text: `Your draft “${m.title}” has not changed since ${longDate(m.lastChanged)}. Drafts nobody works on are removed after a while${m.photos ? `, with their photos (this one has ${m.photos})` : ''}, so they do not take up space for good.`,
+    },
+    {
+      text: `It will be removed on ${longDate(m.removeOn)} unless you keep it: open it and choose “Keep this draft”, or save any change.`,
+    },
+    { link: `${m.appUrl}/submissions/${m.revisionId}/edit`, label: 'Open the draft' },
+  ]);
+}

@@ -96,7 +96,12 @@ export type SubmissionView = {
   updatedAt: string;
   /** the author may edit it now (draft or sent back) */
   editable: boolean;
+  /** an untouched draft the author was told about: when it will be removed unless saved or kept */
+  expiresAt: string | null;
 };
+
+/** GET /api/me/storage: bytes of the member's photos that count against their quota, and the quota */
+export type StorageUse = { usedBytes: number; quotaBytes: number };
 
 /** GET /api/me/submissions */
 export type MySubmissionItem = {

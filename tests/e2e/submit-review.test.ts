@@ -187,6 +187,12 @@ describe('submit and review journey', () => {
     await photos.getByRole('listitem').first().waitFor({ timeout: 20_000 });
     await page.getByRole('textbox', { name: 'Caption for photo 1' }).fill('Caliper on the bracket, 28 mm to the barrel');
     await page.getByRole('textbox', { name: 'Caption for photo 1' }).blur();
+    // the upload panel states the member's storage quota, and what the new photo takes of it
+    const stored1 = await page.evaluate(async (id) => (await fetch(`/api/submissions/${id}`)).json(), revisionId);
+    expect(stored1.photos).toHaveLength(1);
+    await expect
+      .poll(() => page.getByTestId('storage-use').innerText())
+      .toMatch(/Your photos not yet published use 0\.[1-9] MB of your 200\.0 MB\./);
 
     // a wrong type is refused with a clear message and nothing is added
     await page

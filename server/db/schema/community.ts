@@ -25,6 +25,8 @@ export const fittedReports = sqliteTable(
     wheel: text('wheel', { mode: 'json' }).$type<FittedWheel>().notNull(),
     note: text('note').notNull().default(''),
     photoFileId: text('photo_file_id'),
+    /** stored size of the photo, counted against the member's storage quota */
+    photoBytes: integer('photo_bytes').notNull().default(0),
     hiddenAt: timestamp('hidden_at'),
     hiddenById: integer('hidden_by_id').references(() => users.id),
     ...timestamps,

@@ -55,6 +55,9 @@ export const revisions = sqliteTable(
     reviewedAt: timestamp('reviewed_at'),
     reviewedById: integer('reviewed_by_id').references(() => users.id),
     reviewNote: text('review_note'),
+    /** when the author was told this untouched draft will be removed, and when; a later save (updated_at) cancels it */
+    expiryWarnedAt: timestamp('expiry_warned_at'),
+    expiresAt: timestamp('expires_at'),
     ...timestamps,
   },
   (t) => [
@@ -85,7 +88,11 @@ export const revisionPhotos = sqliteTable(
     sha256: text('sha256').notNull(),
     createdAt: timestamp('created_at').notNull(),
   },
-  (t) => [index('revision_photos_revision_idx').on(t.revisionId)],
+  (t) => [
+    index('revision_photos_revision_idx').on(t.revisionId),
+    // copies of a published photo (in a correction) are found by their content
+    index('revision_photos_sha256_idx').on(t.sha256),
+  ],
 );
 
 export const reviewEvents = sqliteTable(

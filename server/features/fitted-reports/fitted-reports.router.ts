@@ -38,9 +38,9 @@ function photoUpload(): RequestHandler {
   };
 }
 
-export function fittedReportsRouter({ db, storage, clock }: AppDeps) {
+export function fittedReportsRouter({ db, storage, clock, config }: AppDeps) {
   const router = Router();
-  const deps = { db, storage, clock };
+  const deps = { db, storage, clock, quotaBytes: config.storageQuotaBytes };
   const writeLimit = rateLimit({ windowMs: 15 * 60_000, limit: 60, standardHeaders: 'draft-8', legacyHeaders: false });
   const upload = photoUpload();
 

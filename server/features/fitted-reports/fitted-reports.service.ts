@@ -15,9 +15,10 @@ import type {
 } from '../../../shared/schemas/fitted-reports';
 import { processPhoto } from '../photos/photo-processing';
 import { removePhotoFiles, storePhotoFiles } from '../photos/photo-files';
+import { assertRoomFor } from '../photos/storage-quota';
 import { personRef } from '../swaps/swap-views';
 
-type Deps = { db: Db; storage: Storage; clock: Clock };
+type Deps = { db: Db; storage: Storage; clock: Clock; quotaBytes: number };
 export type ReportPhotoUpload = { buffer: Buffer } | undefined;
 
 const publicStatuses = ['approved', 'superseded'] as const;
@@ -69,9 +70,20 @@ function photoOf(fileId: string | null): FittedReportView['photo'] {
   return fileId ? { url: `/media/${fileId}`, thumbUrl: `/media/${fileId}?size=thumb` } : null;
 }
 
-async function storePhoto(storage: Storage, upload: ReportPhotoUpload): Promise<string | null> {
+/**
+ * Checks and stores a report's photo; it counts against the member's storage quota, less the photo it
+ * replaces (`freeing` bytes).
+ */
+async function storePhoto(
+  { db, storage, quotaBytes }: Deps,
+  userId: number,
+  upload: ReportPhotoUpload,
+  freeing = 0,
+): Promise<{ fileId: string; bytes: number } | null> {
   if (!upload) return null;
-  return storePhotoFiles(storage, await processPhoto(upload.buffer, 'photo'));
+  const processed = await processPhoto(upload.buffer, 'photo');
+  assertRoomFor(db, userId, processed.full.length - freeing, quotaBytes, 'photo');
+  return { fileId: await storePhotoFiles(storage, processed), bytes: processed.full.length };
 }
 
 const cleanNote = (note: string) => stripHtml(note).trim();
@@ -120,12 +132,13 @@ export function listFittedReports(db: Db, slug: string, viewer: SessionUser | un
 }
 
 export async function createFittedReport(
-  { db, storage, clock }: Deps,
+  deps: Deps,
   slug: string,
   viewer: SessionUser,
   input: CreateFittedReport,
   upload: ReportPhotoUpload,
 ) {
+  const { db, storage, clock } = deps;
   const swap = approvedSwap(db, slug);
   const refusal = refusalFor(viewer, swap);
   if (refusal === 'author') throw AppError.forbidden('You wrote this swap; fitted reports come from other members.');
@@ -141,7 +154,8 @@ export async function createFittedReport(
   // a moderator's hide of this member's reports on this swap outlives a deleted report
   const hide = activeHide(db, swap.id, viewer.id);
   // the photo is checked and stored before the row, so a bad photo loses nothing and a row never points at a missing file
-  const photoFileId = await storePhoto(storage, upload);
+  const photo = await storePhoto(deps, viewer.id, upload);
+  const photoFileId = photo?.fileId ?? null;
   const now = clock.now();
   try {
     db.transaction((tx) => {
@@ -153,6 +167,7 @@ export async function createFittedReport(
           wheel: { diameterIn: input.diameterIn, widthIn: input.widthIn, offsetMm: input.offsetMm, spacerMm: input.spacerMm },
           note: cleanNote(input.note),
           photoFileId,
+          photoBytes: photo?.bytes ?? 0,
           hiddenAt: hide ? hide.createdAt : null,
           hiddenById: hide ? hide.hiddenById : null,
           createdAt: now,
@@ -183,16 +198,17 @@ function myReport(db: Db, swapId: number, userId: number) {
 }
 
 export async function updateFittedReport(
-  { db, storage, clock }: Deps,
+  deps: Deps,
   slug: string,
   viewer: SessionUser,
   input: UpdateFittedReport,
   upload: ReportPhotoUpload,
 ) {
+  const { db, storage, clock } = deps;
   const swap = approvedSwap(db, slug);
   const report = myReport(db, swap.id, viewer.id);
   const revision = input.revisionNumber === undefined ? null : followedRevision(db, swap, input.revisionNumber);
-  const newPhoto = await storePhoto(storage, upload);
+  const newPhoto = await storePhoto(deps, viewer.id, upload, report.photoBytes);
   let replaced: string | null;
   try {
     // read and replace the photo in one write: of two edits at once, each removes exactly the photo it replaced
@@ -205,13 +221,14 @@ export async function updateFittedReport(
         offsetMm: input.offsetMm ?? current.wheel.offsetMm,
         spacerMm: input.spacerMm ?? current.wheel.spacerMm,
       };
-      const photoFileId = newPhoto ?? (input.removePhoto ? null : current.photoFileId);
+      const photoFileId = newPhoto?.fileId ?? (input.removePhoto ? null : current.photoFileId);
       tx.update(fittedReports)
         .set({
           wheel,
           ...(revision ? { revisionId: revision.id } : {}),
           ...(input.note !== undefined ? { note: cleanNote(input.note) } : {}),
           photoFileId,
+          photoBytes: newPhoto ? newPhoto.bytes : photoFileId ? current.photoBytes : 0,
           updatedAt: clock.now(),
         })
         .where(eq(fittedReports.id, report.id))
@@ -219,7 +236,7 @@ export async function updateFittedReport(
       return current.photoFileId !== photoFileId ? current.photoFileId : null;
     });
   } catch (err) {
-    await removePhotoFiles(storage, newPhoto);
+    await removePhotoFiles(storage, newPhoto?.fileId ?? null);
     throw err;
   }
   await removePhotoFiles(storage, replaced);

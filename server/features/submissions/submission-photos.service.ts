@@ -8,6 +8,7 @@ import type { SessionUser } from '../../middleware/require-role';
 import type { PhotoView } from '../../../shared/schemas/views';
 import { processPhoto, type ProcessedPhoto } from '../photos/photo-processing';
 import { removePhotoFiles, storePhotoFiles } from '../photos/photo-files';
+import { assertRoomFor } from '../photos/storage-quota';
 import { photosOf } from '../swaps/swap-views';
 import { assertEditable, revisionFor } from './submission-views';
 import type { SubmissionDeps } from './submissions.service';
@@ -56,9 +57,10 @@ function tooMany(existing: number, adding: number) {
   return new AppError('too_many_photos', message, 400, { photos: message });
 }
 
-/** Author and status check before the upload body is read, so a refused upload costs no parsing. */
-export function assertCanUpload(deps: SubmissionDeps, user: SessionUser, revisionId: number) {
+/** Author, status and quota checks before the upload body is read, so a refused upload costs no parsing. */
+export function assertCanUpload(deps: SubmissionDeps, user: SessionUser, revisionId: number, quotaBytes: number) {
   assertEditable(user, revisionFor(deps.db, user, revisionId));
+  assertRoomFor(deps.db, user.id, null, quotaBytes, 'photos');
 }
 
 /**
@@ -72,6 +74,7 @@ export async function addPhotos(
   revisionId: number,
   files: { buffer: Buffer }[],
   captions: string[],
+  quotaBytes: number,
 ): Promise<PhotoView[]> {
   const { db, storage, clock } = deps;
   assertEditable(user, revisionFor(db, user, revisionId));
@@ -84,6 +87,8 @@ export async function addPhotos(
 
   const processed: ProcessedPhoto[] = [];
   for (const [i, f] of files.entries()) processed.push(await processPhoto(f.buffer, `photos.${i}`));
+  const adding = processed.reduce((sum, p) => sum + p.full.length, 0);
+  assertRoomFor(db, user.id, adding, quotaBytes, 'photos');
 
   const stored: { fileId: string; photo: ProcessedPhoto; caption: string }[] = [];
   try {
@@ -102,6 +107,8 @@ export async function addPhotos(
         .where(eq(revisionPhotos.revisionId, revisionId))
         .get()!.n;
       if (count + stored.length > MAX_PHOTOS_PER_REVISION) throw tooMany(count, stored.length);
+      // and the quota, for uploads running side by side
+      assertRoomFor(tx, user.id, adding, quotaBytes, 'photos');
       const last =
         tx
           .select({ p: max(revisionPhotos.position) })

@@ -76,6 +76,11 @@ export function submissionView(db: Db, row: LoadedRevision, viewer?: SessionUser
     reviewedAt: iso(r.reviewedAt),
     updatedAt: r.updatedAt.toISOString(),
     editable: Boolean(viewer && viewer.id === r.authorId && editableStatuses.includes(r.status)),
+    // a notice stands while nothing was saved after it
+    expiresAt:
+      r.status === 'draft' && r.expiresAt && r.expiryWarnedAt && r.updatedAt < r.expiryWarnedAt
+        ? r.expiresAt.toISOString()
+        : null,
   };
 }
 

@@ -9,10 +9,12 @@ import { idParamSchema, photoIdSchema } from '../../../shared/schemas/params';
 import { createSubmissionSchema, photoOrderSchema, updateSubmissionSchema } from '../../../shared/schemas/submissions';
 import { MAX_PHOTO_BYTES } from '../photos/photo-processing';
 import { readUpload } from '../photos/photo-upload';
+import { storageUse } from '../photos/storage-quota';
 import {
   createSubmission,
   deleteSubmission,
   getSubmission,
+  keepDraft,
   listMySubmissions,
   submitForReview,
   updateSubmission,
@@ -87,6 +89,14 @@ export function submissionsRouter({ db, clock, mailer, storage, logger, config }
     }),
   );
 
+  router.post(
+    '/submissions/:id/keep',
+    requirePermission('submit'),
+    validated({ params: idParams }, ({ params }, req, res) => {
+      res.json(keepDraft(deps, req.user!, params.id));
+    }),
+  );
+
   router.delete(
     '/submissions/:id',
     requirePermission('submit'),
@@ -101,14 +111,14 @@ export function submissionsRouter({ db, clock, mailer, storage, logger, config }
     requirePermission('submit'),
     uploadLimit,
     validated({ params: idParams }, ({ params }, req, _res, next) => {
-      assertCanUpload(deps, req.user!, params.id);
+      assertCanUpload(deps, req.user!, params.id, config.storageQuotaBytes);
       next();
     }),
     upload,
     validated({ params: idParams }, async ({ params }, req, res) => {
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
       const captions = parseCaptions((req.body as Record<string, unknown> | undefined)?.captions);
-      res.status(201).json({ photos: await addPhotos(deps, req.user!, params.id, files, captions) });
+      res.status(201).json({ photos: await addPhotos(deps, req.user!, params.id, files, captions, config.storageQuotaBytes) });
     }),
   );
 
@@ -127,6 +137,10 @@ export function submissionsRouter({ db, clock, mailer, storage, logger, config }
       res.json({ photos: await deletePhoto(deps, req.user!, params.id, params.photoId) });
     }),
   );
+
+  router.get('/me/storage', requireUser, (req, res) => {
+    res.set('Cache-Control', 'private, no-store').json(storageUse(db, req.user!.id, config.storageQuotaBytes));
+  });
 
   router.get('/me/submissions', requireUser, (req, res) => {
     res.set('Cache-Control', 'private, no-store').json({ items: listMySubmissions(db, req.user!.id) });

@@ -451,6 +451,15 @@ async function copyPhotos(deps: SubmissionDeps, revisionId: number) {
   return copies;
 }
 
+/** POST /api/submissions/:id/keep: the author keeps an untouched draft they were told would be removed. */
+export function keepDraft(deps: SubmissionDeps, user: SessionUser, id: number): SubmissionView {
+  const { db, clock } = deps;
+  const row = revisionFor(db, user, id);
+  assertEditable(user, row);
+  db.update(revisions).set({ updatedAt: clock.now(), expiryWarnedAt: null, expiresAt: null }).where(eq(revisions.id, id)).run();
+  return viewOf(db, id, user);
+}
+
 export function listMySubmissions(db: Db, userId: number): MySubmissionItem[] {
   return db
     .select({ revision: revisions, slug: swaps.slug })

@@ -1,12 +1,13 @@
 import { useEffect, useId, useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import type { SubmissionView } from '@shared/schemas/submissions';
+import type { StorageUse, SubmissionView } from '@shared/schemas/submissions';
 import type { PhotoView } from '@shared/schemas/views';
 import { ApiError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { inputClass } from '../../../components/ui/field';
 import { submissionKeys } from '../api/submission-keys';
 import { deletePhoto, photoLimits, photosOf, savePhotoOrder, uploadPhoto } from '../api/photos';
+import { useStorageUse } from '../api/get-storage';
 
 type Upload = { key: string; name: string; progress: number; error: string | null };
 
@@ -28,6 +29,19 @@ function messageOf(err: unknown, name: string): string {
     return `${name}: ${field ?? err.message}`;
   }
   return `${name}: the upload failed. Try again.`;
+}
+
+/** The member's photo quota: what their unpublished photos use of it. */
+function StorageLine({ use }: { use: StorageUse }) {
+  const share = use.quotaBytes > 0 ? use.usedBytes / use.quotaBytes : 0;
+  return (
+    <p className="text-xs text-graphite-soft" data-testid="storage-use">
+      <span className={share >= 0.9 ? 'font-bold text-oxide' : ''}>
+        Your photos not yet published use {mb(use.usedBytes)} of your {mb(use.quotaBytes)}.
+      </span>{' '}
+      Photos count until a moderator publishes them; deleting a draft’s photos frees the space.
+    </p>
+  );
 }
 
 /**
@@ -56,12 +70,18 @@ export function PhotoUploader({
 
   const store = (next: PhotoView[]) => {
     setList(next);
+    // the quota line follows every upload and removal
+    void queryClient.invalidateQueries({ queryKey: submissionKeys.storage() });
     if (submissionId)
       queryClient.setQueryData<SubmissionView>(submissionKeys.detail(submissionId), (old) =>
         old ? { ...old, photos: next } : old,
       );
   };
-  const refresh = () => submissionId && queryClient.invalidateQueries({ queryKey: submissionKeys.detail(submissionId) });
+  const storage = useStorageUse();
+  const refresh = () => {
+    void queryClient.invalidateQueries({ queryKey: submissionKeys.storage() });
+    if (submissionId) void queryClient.invalidateQueries({ queryKey: submissionKeys.detail(submissionId) });
+  };
 
   const addFiles = (files: FileList | File[]) => {
     if (!submissionId || locked) return;
@@ -181,6 +201,7 @@ export function PhotoUploader({
             JPEG, PNG or WebP, up to {mb(photoLimits.maxBytes)} each and {photoLimits.maxCount} per revision. Location data is
             removed from every photo.
           </p>
+          {storage.data && <StorageLine use={storage.data} />}
         </div>
       )}
 

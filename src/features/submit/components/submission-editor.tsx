@@ -32,6 +32,7 @@ import { CalipersSection, RotorsSection } from './brake-parts-sections';
 import { BrakesSection, CostsSection, JobSection, WheelSection, WriteUpSection } from './figures-sections';
 import { LiveFigures } from './live-figures';
 import { PhotoUploader } from './photo-uploader';
+import { DraftExpiryNotice } from './draft-expiry-notice';
 import { FormSection } from './form-controls';
 
 export type EditorMode = { kind: 'new' } | { kind: 'correction'; swap: SwapSheetView } | { kind: 'edit'; view: SubmissionView };
@@ -231,6 +232,7 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
           <p className="mt-2 text-sm text-graphite-soft">Change what they asked for, then send it for review again.</p>
         </div>
       )}
+      {view?.expiresAt && <DraftExpiryNotice view={{ ...view, expiresAt: view.expiresAt }} />}
       {mode.kind === 'correction' && (
         <p className="mb-6 text-sm">
           <Link to={paths.swap(mode.swap.swap.slug)} className="font-bold text-ink underline">
