@@ -4,6 +4,7 @@ import type { CheckResult } from './schemas/submissions';
 import { brakeBalanceOf, pistonsPerSideOf, testedWheelVerdicts } from './fitment/swap-checks';
 import { MIN_CLEARANCE_MM } from './fitment/clearance';
 import { fastenerKindLabels } from './schemas/swap-data-labels';
+import type { VehicleFigures } from './schemas/vehicle';
 
 // The automatic checks the review desk shows for a revision. The submission form runs the same
 // function, so a member sees what the reviewer will see before sending it.
@@ -12,7 +13,8 @@ export type ReviewCheckInput = {
   data: SwapData;
   body: string;
   photoCount: number;
-  chassis: { wheelBoltThread: string };
+  /** `figures`: the chassis' stock figures, which decide which axle locks first, when the catalogue has them */
+  chassis: { wheelBoltThread: string; figures?: VehicleFigures | null };
   axle: Axle;
   /** when absent, a wheel requirement is expected whenever a caliper, rotor or spacer is listed */
   category?: Category;
@@ -132,7 +134,10 @@ function clearanceCheck(input: ReviewCheckInput): CheckResult {
   const fitting = verdicts.filter((v) => v.outcome !== 'does_not_fit');
   const measuredFits = fitting.filter((v) => v.figures.length > 0);
   const notFitting = verdicts.length - fitting.length;
-  const documented = notFitting > 0 ? ` It also documents ${notFitting} wheel${notFitting === 1 ? '' : 's'} that do${notFitting === 1 ? 'es' : ''} not fit.` : '';
+  const documented =
+    notFitting > 0
+      ? ` It also documents ${notFitting} wheel${notFitting === 1 ? '' : 's'} that do${notFitting === 1 ? 'es' : ''} not fit.`
+      : '';
   if (measuredFits.length === 0) {
     return {
       id: 'clearance',
@@ -141,7 +146,9 @@ function clearanceCheck(input: ReviewCheckInput): CheckResult {
       detail: `No wheel that fits has a measured clearance, so the fit rests on estimates only. Ask for a measurement on the smallest wheel that fits.${documented}`,
     };
   }
-  const tight = measuredFits.flatMap((v) => v.figures.filter((f) => !f.ok).map((f) => `${v.label}: ${fmt(f.clearanceMm)} at the ${f.where}`));
+  const tight = measuredFits.flatMap((v) =>
+    v.figures.filter((f) => !f.ok).map((f) => `${v.label}: ${fmt(f.clearanceMm)} at the ${f.where}`),
+  );
   if (tight.length > 0) {
     return {
       id: 'clearance',
@@ -176,7 +183,9 @@ function figuresCheck(data: SwapData): CheckResult {
     const corner = data.brakes?.after[axle];
     for (const r of rotorsOn(data, axle)) {
       if (corner?.kind === 'disc' && Math.abs(corner.rotorDiameterMm - r.diameterMm) > 0.5)
-        problems.push(`the ${axle} rotor is ${fmt(r.diameterMm)} but the ${axle} brake figures say ${fmt(corner.rotorDiameterMm)}`);
+        problems.push(
+          `the ${axle} rotor is ${fmt(r.diameterMm)} but the ${axle} brake figures say ${fmt(corner.rotorDiameterMm)}`,
+        );
       if (corner?.kind === 'drum') problems.push(`a ${axle} rotor is listed but the ${axle} brake figures describe a drum`);
     }
     for (const c of calipersOn(data, axle)) {
@@ -189,11 +198,15 @@ function figuresCheck(data: SwapData): CheckResult {
           );
       }
       if (c.bleedScrewWhenFitted === 'bottom')
-        problems.push(`the ${c.name} has its bleed screw at the bottom as fitted (left and right swapped?): air cannot be bled out`);
+        problems.push(
+          `the ${c.name} has its bleed screw at the bottom as fitted (left and right swapped?): air cannot be bled out`,
+        );
       const { thicknessMinMm: lo, thicknessMaxMm: hi } = c.designRotor;
       for (const r of rotorsOn(data, axle)) {
         if ((lo !== undefined && r.thicknessMm < lo) || (hi !== undefined && r.thicknessMm > hi))
-          problems.push(`the ${fmt(r.thicknessMm)} rotor is outside the ${c.name}'s designed range (${lo ?? '?'}–${hi ?? '?'} mm)`);
+          problems.push(
+            `the ${fmt(r.thicknessMm)} rotor is outside the ${c.name}'s designed range (${lo ?? '?'}–${hi ?? '?'} mm)`,
+          );
       }
       const ownJoint = data.shims.filter((s) => s.joint === 'caliper_to_bracket');
       const wrongWay = ownJoint.filter((s) => s.direction !== (c.mount.type === 'radial' ? 'radial' : 'axial'));
@@ -230,7 +243,7 @@ function centringProblem(data: SwapData): string | null {
 
 function balanceCheck(input: ReviewCheckInput): CheckResult {
   const label = 'Brake balance';
-  const balance = brakeBalanceOf(input.data);
+  const balance = brakeBalanceOf(input.data, input.chassis.figures ?? null);
   if (!balance) {
     return input.category === 'brakes'
       ? {
@@ -244,7 +257,13 @@ function balanceCheck(input: ReviewCheckInput): CheckResult {
   const { shift } = balance;
   const status = shift.severity === 'none' ? 'pass' : 'attention';
   const prefix = shift.severity === 'hazard' ? 'Hazard: ' : '';
-  return { id: 'balance', label, status, detail: `${prefix}${shift.headline} ${shift.severity === 'none' ? '' : shift.risk}`.trim() };
+  const basis = balance.figures ? ` (Worked out with the ${balance.figures.label}.)` : '';
+  return {
+    id: 'balance',
+    label,
+    status,
+    detail: `${prefix}${shift.headline} ${shift.severity === 'none' ? '' : shift.risk}${basis}`.replace(/\s+/g, ' ').trim(),
+  };
 }
 
 function costsCheck(data: SwapData): CheckResult {

@@ -150,6 +150,9 @@ export function minimumLineK(z: number): number | null {
   return k >= fromK - 1e-12 && k <= toK + 1e-12 ? k : null;
 }
 
+/** a move of the front share smaller than this (percentage points) is within the rounding of the figures */
+export const BALANCE_UNCHANGED_POINTS = 0.5;
+
 const CURVE_STEP_G = 0.01;
 const SCAN_STEP_G = 0.001;
 const EFFICIENCY_KS = Array.from({ length: 19 }, (_, i) => Math.round((0.1 + i * 0.05) * 100) / 100);
@@ -494,7 +497,7 @@ function summarise(
       ? `The swap moves the balance toward the front (${shares})`
       : comparison.direction === 'rear'
         ? `The swap moves the balance toward the rear (${shares})`
-        : `The swap leaves the front share at ${pct(comparison.frontShareAfter)}`;
+        : `The swap leaves the front share about where it was (${shares})`;
   const rearAfter = rearFirstClause(after);
   const rearBefore = rearFirstClause(before);
   if (rearAfter) {
@@ -535,7 +538,8 @@ export function analyseBrakeDistribution(input: DistributionInput): Distribution
   if (after) {
     const change = after.hydraulicFrontShare - before.hydraulicFrontShare;
     comparison = {
-      direction: change > 0.0005 ? 'front' : change < -0.0005 ? 'rear' : 'unchanged',
+      direction:
+        change * 100 >= BALANCE_UNCHANGED_POINTS ? 'front' : change * 100 <= -BALANCE_UNCHANGED_POINTS ? 'rear' : 'unchanged',
       frontShareBefore: before.hydraulicFrontShare,
       frontShareAfter: after.hydraulicFrontShare,
       fluidRatio: before.fluid && after.fluid ? after.fluid.mm3PerMmPadTravel / before.fluid.mm3PerMmPadTravel : null,

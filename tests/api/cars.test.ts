@@ -5,7 +5,7 @@ import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
 import { addUser, csrfToken, listen, signIn, type Agent } from './support/auth-helpers';
 import { addChassis } from './support/swap-fixtures';
-import { cars } from '../../server/db/schema/index';
+import { cars, chassis as chassisTable } from '../../server/db/schema/index';
 import type { CarView } from '../../shared/schemas/cars';
 
 let t: TestApp;
@@ -124,6 +124,45 @@ describe('/api/cars', () => {
     expect(res.body.error.fields['vehicle.unladen.frontStaticFraction']).toBe('Between 20 and 80 %');
     expect(res.body.error.fields['vehicle.rearValve.slope']).toBe('Between 0 and 1');
     expect(t.db.select().from(cars).where(eq(cars.id, car!.id)).get()!.vehicle).toBeNull();
+  });
+
+  it('when a new car comes with figures whose laden mass is below the unladen one, then it is 400 on that field and no car is added', async () => {
+    const before = t.db.select().from(cars).all().length;
+    const res = await rosa.a
+      .post('/api/cars')
+      .set('x-csrf-token', rosa.token)
+      .send({
+        ...greenCoupe,
+        chassisId: h31,
+        vehicle: {
+          unladen: { massKg: 1230, frontStaticFraction: 0.52, cgHeightMm: 500 },
+          laden: { massKg: 1100, frontStaticFraction: 0.47, cgHeightMm: 535 },
+          wheelbaseMm: 2700,
+          tyreLoadedRadiusMm: { front: 298, rear: 298 },
+          rearValve: { kind: 'load-sensing', kneeBarUnladen: 30, kneeBarLaden: 55, slope: 0.3 },
+        },
+      });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['vehicle.laden.massKg']).toBe('The laden mass is below the unladen mass');
+    expect(t.db.select().from(cars).all()).toHaveLength(before);
+  });
+
+  it('when a chassis carries stock figures, then its page and the chassis list return them, and a chassis without returns null', async () => {
+    const stock = {
+      unladen: { massKg: 1280, frontStaticFraction: 0.53, cgHeightMm: 520 },
+      laden: null,
+      wheelbaseMm: 2700,
+      tyreLoadedRadiusMm: { front: 290, rear: 290 },
+      rearValve: { kind: 'electronic' as const },
+      basis: 'Kerb weight with a driver',
+    };
+    t.db.update(chassisTable).set({ vehicle: stock }).where(eq(chassisTable.id, h31)).run();
+    const page = await request(t.app).get('/api/chassis/halden-h31');
+    expect(page.status).toBe(200);
+    expect(page.body.chassis.vehicle).toEqual(stock);
+    const list = (await request(t.app).get('/api/chassis')).body.items as { slug: string; vehicle: unknown }[];
+    expect(list.find((c) => c.slug === 'halden-h31')!.vehicle).toEqual(stock);
+    expect(list.find((c) => c.slug === 'halden-h40')!.vehicle).toBeNull();
   });
 
   it('when the owner edits a car, then only the fields sent change', async () => {

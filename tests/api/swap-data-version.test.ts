@@ -52,15 +52,37 @@ describe('swap data version 2 on the demo scenario', () => {
     expect(checks.balance.detail).toContain('toward the front');
   });
 
-  it('when the rear drum-in-hat swap is checked, then its rearward shift is flagged as a hazard', () => {
-    const id = t.db
-      .select({ id: swaps.currentRevisionId })
-      .from(swaps)
-      .where(eq(swaps.slug, 'h31-rear-regent-300-drum-in-hat'))
-      .get()!.id!;
-    const balance = checksFor(t.db, loadRevision(t.db, id)!).find((c) => c.id === 'balance')!;
+  const balanceOf = (slug: string) => {
+    const id = t.db.select({ id: swaps.currentRevisionId }).from(swaps).where(eq(swaps.slug, slug)).get()!.id!;
+    return checksFor(t.db, loadRevision(t.db, id)!).find((c) => c.id === 'balance')!;
+  };
+
+  it('when the H31 rear drum-in-hat swap is checked with the H31 stock figures, then the rear locking first above 0.60 g unladen is flagged as a hazard', () => {
+    // the H31's proportioning valve (knee 35 bar) cuts in only above the swapped car's lock-together point
+    const balance = balanceOf('h31-rear-regent-300-drum-in-hat');
     expect(balance.status).toBe('attention');
-    expect(balance.detail).toMatch(/^Hazard: Balance moves toward the rear: front share 70\.2 % → 64\.5 %/);
+    expect(balance.detail).toMatch(
+      /^Hazard: The swap moves the balance toward the rear \(front share 70\.2 % → 64\.5 %\): after it the rear locks first above 0\.60 g when unladen —/,
+    );
+    expect(balance.detail).toContain('(Worked out with the Halden H31 stock figures.)');
+  });
+
+  it('when the H40 rear drum-in-hat swap is checked with the H40 stock figures, then its load-sensing valve keeps the fronts first and it is no hazard', () => {
+    const balance = balanceOf('h40-rear-regent-300-drum-in-hat');
+    expect(balance.status).toBe('attention');
+    expect(balance.detail).not.toMatch(/^Hazard/);
+    expect(balance.detail).toContain('the front still locks first up to 1.00 g laden and unladen');
+  });
+
+  it('when a chassis loses its stock figures, then the same swap makes no lock-order claim and falls back to the share rule', () => {
+    const row = loadRevision(
+      t.db,
+      t.db.select({ id: swaps.currentRevisionId }).from(swaps).where(eq(swaps.slug, 'h40-rear-regent-300-drum-in-hat')).get()!
+        .id!,
+    )!;
+    const balance = checksFor(t.db, { ...row, chassis: { ...row.chassis, vehicle: null } }).find((c) => c.id === 'balance')!;
+    expect(balance.detail).toMatch(/^Hazard: Balance moves toward the rear: front share 70\.8 % → 68\.6 %/);
+    expect(balance.detail).toContain('none are known here');
   });
 
   it('when the sheet is read, then it serves version 2', async () => {

@@ -8,6 +8,7 @@ import type { SubmissionView, CheckResult } from '../../../shared/schemas/submis
 import type { RevisionStatus } from '../../../shared/schemas/enums';
 import type { SwapData } from '../../../shared/schemas/swap-data';
 import { automaticChecks, sameDonorCaliper } from '../../../shared/review-checks';
+import { chassisFigures } from '../../../shared/schemas/vehicle';
 import { chassisView, iso, personRef, photosOf } from '../swaps/swap-views';
 
 // Loading one revision with its swap, chassis and author, and the rules on who may see or change it.
@@ -113,7 +114,10 @@ export function checksFor(db: Db, row: LoadedRevision, photoCount?: number): Che
     data: row.revision.data,
     body: row.revision.body,
     photoCount: photoCount ?? photoCounts(db, [row.revision.id]).get(row.revision.id) ?? 0,
-    chassis: { wheelBoltThread: row.chassis.wheelBoltThread },
+    chassis: {
+      wheelBoltThread: row.chassis.wheelBoltThread,
+      figures: chassisFigures({ ...row.chassis, vehicle: row.chassis.vehicle ?? null }),
+    },
     axle: row.swap.axle,
     category: row.swap.category,
     duplicates: likelyDuplicates(db, row.swap, row.revision.data),

@@ -5,7 +5,7 @@ import { SwapSheet } from '../../features/swaps/components/swap-sheet-page';
 import { useSwap } from '../../features/swaps/api/get-swap';
 import { swapKeys } from '../../features/swaps/api/swap-keys';
 import { useMe } from '../../features/account/api/get-me';
-import { useCarWheelPresets } from '../../features/cars/components/car-checks';
+import { useCarFigures, useCarWheelPresets } from '../../features/cars/components/car-checks';
 import { FittedReportsSection } from '../../features/fitted-reports/components/fitted-reports-section';
 import { FlagSwapForm } from '../../features/swaps/components/flag-swap-form';
 import { MakeShopLinkPanel } from '../../features/shops/components/make-shop-link-panel';
@@ -17,7 +17,7 @@ import { ApiError } from '../../lib/api-client';
 
 /**
  * The swap sheet as the app composes it: the swaps feature's sheet, with the member's cars as wheel-check
- * presets, fitted reports, the shop-link panel for shop accounts, and, when opened through a shop link
+ * presets and as brake-balance figures, fitted reports, the shop-link panel for shop accounts, and, when opened through a shop link
  * (`?via=<code>`), the shop's banner and note over the revision it quoted.
  */
 export default function SwapSheetRoute() {
@@ -31,6 +31,7 @@ export default function SwapSheetRoute() {
   const user = me.data?.user ?? null;
   const qc = useQueryClient();
   const presets = useCarWheelPresets(sheet.data?.chassis.slug ?? '', Boolean(user));
+  const ownFigures = useCarFigures(Boolean(user));
 
   if (sheet.isPending || (via && pinned.isPending))
     return (
@@ -61,6 +62,7 @@ export default function SwapSheetRoute() {
       view={view}
       banner={banner}
       presets={presets}
+      ownFigures={ownFigures}
       extraSections={
         <>
           <FittedReportsSection

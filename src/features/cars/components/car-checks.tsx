@@ -1,5 +1,7 @@
 import { Link } from 'react-router';
+import { useMemo } from 'react';
 import type { CarView } from '@shared/schemas/cars';
+import { carFigures, type VehicleFigures } from '@shared/schemas/vehicle';
 import { paths } from '../../../config/paths';
 import { carsOnChassis, useMyCars } from '../api/get-cars';
 import { wheelLabel } from './my-cars-page';
@@ -16,6 +18,12 @@ export function useCarWheelPresets(chassisSlug: string, signedIn: boolean) {
     label: onChassis.includes(c) ? `${c.nickname} (${wheelLabel(c)})` : `${c.nickname} (${wheelLabel(c)}, other chassis)`,
     wheel: { diameterIn: c.wheelDiameterIn, widthIn: c.wheelWidthIn, offsetMm: c.wheelOffsetMm, spacerMm: c.spacerMm },
   }));
+}
+
+/** The member's cars that carry their own brake-balance figures, for the sheet's "worked out for" choice. */
+export function useCarFigures(signedIn: boolean): VehicleFigures[] {
+  const cars = useMyCars(signedIn);
+  return useMemo(() => (cars.data ?? []).flatMap((c) => carFigures(c) ?? []), [cars.data]);
 }
 
 /**

@@ -1,5 +1,7 @@
 import { useMemo } from 'react';
 import { useWatch } from 'react-hook-form';
+import type { ChassisView } from '@shared/schemas/views';
+import { chassisFigures } from '@shared/schemas/vehicle';
 import type { Axle, Category } from '@shared/schemas/enums';
 import { automaticChecks } from '@shared/review-checks';
 import { costRouteLabels, costRoutes } from '@shared/schemas/enums';
@@ -34,11 +36,14 @@ export function LiveFigures({
   axle,
   category,
   wheelBoltThread,
+  chassis,
   photoCount,
 }: {
   axle: Axle | null;
   category: Category | null;
   wheelBoltThread: string | null;
+  /** the chosen chassis, whose stock figures say which axle locks first */
+  chassis: Pick<ChassisView, 'make' | 'model' | 'vehicle'> | null;
   photoCount: number;
 }) {
   const values = useWatch<FormValues, 'data'>({ name: 'data' });
@@ -47,7 +52,8 @@ export function LiveFigures({
 
   const wheel = data.wheel;
   const tried = testedWheelVerdicts(data);
-  const balance = data.brakes ? attempt(() => brakeBalanceOf(data)) : null;
+  const figures = chassis ? chassisFigures(chassis) : null;
+  const balance = data.brakes ? attempt(() => brakeBalanceOf(data, figures)) : null;
   const costs = data.costs.length ? costSummaryOf(data) : null;
   const checks = axle
     ? attempt(() =>
@@ -55,7 +61,7 @@ export function LiveFigures({
           data,
           body: '',
           photoCount,
-          chassis: { wheelBoltThread: wheelBoltThread ?? 'M12x1.5' },
+          chassis: { wheelBoltThread: wheelBoltThread ?? 'M12x1.5', figures },
           axle,
           category: category ?? undefined,
           duplicates: [],
@@ -88,8 +94,8 @@ export function LiveFigures({
               {w.figures.map((f) => (
                 <p key={f.where} className={`tabular text-xs ${f.ok ? 'text-ink' : 'text-oxide'}`}>
                   <span aria-hidden>{f.ok ? '✓ ' : '✕ '}</span>
-                  {f.where === 'barrel' ? 'Barrel' : 'Spokes'} {units.length(f.clearanceMm)} ({f.ok ? 'at least' : 'under'} 3 mm, rule of
-                  thumb)
+                  {f.where === 'barrel' ? 'Barrel' : 'Spokes'} {units.length(f.clearanceMm)} ({f.ok ? 'at least' : 'under'} 3 mm,
+                  rule of thumb)
                 </p>
               ))}
               {w.contradiction && <p className="text-xs font-bold text-oxide">{w.contradiction}</p>}
@@ -109,6 +115,11 @@ export function LiveFigures({
           <Figure label="Front share after" value={pct(balance.value.frontShareAfter)} />
           <div className="col-span-2">
             <BalanceShiftNote shift={balance.value.shift} />
+            {balance.value.figures && (
+              <p className="mt-1 text-xs text-graphite-soft">
+                Which axle locks first: worked out with the {balance.value.figures.label}.
+              </p>
+            )}
           </div>
         </div>
       ) : null}

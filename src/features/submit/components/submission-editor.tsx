@@ -323,7 +323,13 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
                   ))}
                 </ul>
               </nav>
-              <LiveFigures axle={axle} category={category} wheelBoltThread={thread} photoCount={photos.length} />
+              <LiveFigures
+                axle={axle}
+                category={category}
+                wheelBoltThread={thread}
+                chassis={pickedChassis}
+                photoCount={photos.length}
+              />
               <Caution />
             </div>
           </aside>

@@ -1,5 +1,6 @@
 import { Link, useParams } from 'react-router';
 import type { SwapSheetView } from '@shared/schemas/views';
+import type { VehicleFigures } from '@shared/schemas/vehicle';
 import { categoryLabels, machiningLevelLabels } from '@shared/schemas/enums';
 import { machiningLevel } from '@shared/schemas/swap-data';
 import { useSwap } from '../api/get-swap';
@@ -58,11 +59,13 @@ type SwapSheetProps = {
   banner?: React.ReactNode;
   /** "Fill from" buttons of the wheel check (a member's saved cars) */
   presets?: WheelPreset[];
+  /** the reader's cars that carry their own brake-balance figures (from my cars) */
+  ownFigures?: VehicleFigures[];
   /** sections the app adds from other features (fitted reports, shop link panel), shown before the revision history */
   extraSections?: React.ReactNode;
 };
 
-export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetProps) {
+export function SwapSheet({ view, banner, presets, ownFigures, extraSections }: SwapSheetProps) {
   const { swap, chassis, revision, history, currentNumber } = view;
   const { data } = revision;
   const { length } = useUnits();
@@ -174,7 +177,7 @@ export function SwapSheet({ view, banner, presets, extraSections }: SwapSheetPro
             <WheelCheckPanel data={data} axle={swap.axle} wheelBoltThread={chassis.wheelBoltThread} presets={presets} />
           </div>
         )}
-        <BrakeBalanceSection data={data} />
+        <BrakeBalanceSection data={data} chassis={chassis} ownFigures={ownFigures} />
         <CostRoutesSection data={data} />
         {data.tools.length > 0 && (
           <SheetSection id="tools" title="Tools needed">
