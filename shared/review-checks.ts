@@ -257,7 +257,7 @@ function balanceCheck(input: ReviewCheckInput): CheckResult {
   const { shift } = balance;
   const status = shift.severity === 'none' ? 'pass' : 'attention';
   const prefix = shift.severity === 'hazard' ? 'Hazard: ' : '';
-  const basis = balance.figures ? ` (Worked out with the ${balance.figures.label}.)` : '';
+  const basis = balance.figures ? ` (Worked out with ${balance.figures.label}.)` : '';
   return {
     id: 'balance',
     label,

@@ -70,16 +70,16 @@ export type VehicleDataInput = z.input<typeof vehicleDataSchema>;
 export type VehicleFigures = {
   vehicle: VehicleData;
   source: 'chassis' | 'car';
-  /** e.g. "Halden H31 stock figures" or "your car Green coupe" */
+  /** e.g. "the Halden H31 stock figures" or "Green coupe’s own figures", to follow "worked out with" */
   label: string;
 };
 
 /** A chassis' stock figures, labelled for the page; null when the catalogue has none. */
 export function chassisFigures(c: { make: string; model: string; vehicle: VehicleData | null }): VehicleFigures | null {
-  return c.vehicle ? { vehicle: c.vehicle, source: 'chassis', label: `${c.make} ${c.model} stock figures` } : null;
+  return c.vehicle ? { vehicle: c.vehicle, source: 'chassis', label: `the ${c.make} ${c.model} stock figures` } : null;
 }
 
 /** A member's car's own figures, labelled for the page; null when the car uses its chassis' figures. */
 export function carFigures(car: { nickname: string; vehicle: VehicleData | null }): VehicleFigures | null {
-  return car.vehicle ? { vehicle: car.vehicle, source: 'car', label: `your car ${car.nickname}’s figures` } : null;
+  return car.vehicle ? { vehicle: car.vehicle, source: 'car', label: `${car.nickname}’s own figures (my cars)` } : null;
 }

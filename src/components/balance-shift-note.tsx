@@ -21,7 +21,8 @@ export function BalanceShiftNote({ shift }: { shift: BalanceShift }) {
     >
       <p className="text-xs font-extrabold uppercase tracking-wide text-graphite-soft">{word[shift.severity]}</p>
       <p className="tabular mt-1 font-extrabold text-graphite">{shift.headline}</p>
-      <p className="mt-1 text-sm text-graphite">{shift.risk}</p>
+      {/* the printed build sheet has room for the risk only where it is a hazard */}
+      <p className={`mt-1 text-sm text-graphite ${shift.severity === 'hazard' ? '' : 'print:hidden'}`}>{shift.risk}</p>
       <p className="mt-1 text-xs text-graphite-soft print:hidden">Rule: {shift.rule}</p>
     </div>
   );

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { swapDataSchema, type SwapDataInput } from '../../../shared/schemas/swap-data';
-import { vehicleDataSchema, type VehicleDataInput } from '../../../shared/schemas/vehicle';
+import { chassisFigures, vehicleDataSchema, type VehicleDataInput } from '../../../shared/schemas/vehicle';
 import { lockOrderOf, recordCorners, swapDistribution } from '../../../shared/fitment/swap-distribution';
 import { brakeBalanceOf, describeBalanceShift, LOCK_ORDER_UNKNOWN } from '../../../shared/fitment/swap-checks';
 import { automaticChecks } from '../../../shared/review-checks';
@@ -20,11 +20,8 @@ const referenceCar = (extra: Partial<VehicleDataInput> = {}) =>
     basis: 'Worked example',
     ...extra,
   });
-const figures = (extra: Partial<VehicleDataInput> = {}) => ({
-  vehicle: referenceCar(extra),
-  source: 'chassis' as const,
-  label: 'Halden H31 stock figures',
-});
+const figures = (extra: Partial<VehicleDataInput> = {}) =>
+  chassisFigures({ make: 'Halden', model: 'H31', vehicle: referenceCar(extra) })!;
 
 // Disc corners whose torques split exactly 70 : 30 at equal pressure (T = 2 μ p A r, textbook form; r = (D − pad) / 2):
 // front 54 mm piston, r = (274 − 50) / 2 = 112 mm; rear 36 mm piston, r = (256 − 40) / 2 = 108 mm;
@@ -142,7 +139,7 @@ describe('describeBalanceShift with the car figures: direction and which axle lo
       'The swap moves the balance toward the rear (front share 70.0 % → 65.7 %): after it the rear locks first above 0.40 g when unladen (before it: above 0.62 g when unladen) — fit a proportioning valve or keep the stock rear brakes.',
     );
     expect(balance.shift.risk).toContain('above 0.40 g when unladen, below 0.80 g');
-    expect(balance.figures!.label).toBe('Halden H31 stock figures');
+    expect(balance.figures!.label).toBe('the Halden H31 stock figures');
   });
 
   it('when the car figures are not known, then the shift keeps its direction, makes no lock-order claim and says what is missing', () => {

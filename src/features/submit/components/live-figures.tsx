@@ -117,7 +117,7 @@ export function LiveFigures({
             <BalanceShiftNote shift={balance.value.shift} />
             {balance.value.figures && (
               <p className="mt-1 text-xs text-graphite-soft">
-                Which axle locks first: worked out with the {balance.value.figures.label}.
+                Which axle locks first: worked out with {balance.value.figures.label}.
               </p>
             )}
           </div>

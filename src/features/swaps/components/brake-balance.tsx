@@ -56,21 +56,29 @@ export function BrakeBalanceSection({
           >
             {choices.map((c) => (
               <option key={c.label} value={c.label}>
-                {c.source === 'chassis' ? c.label : c.label.replace(/^your car /, 'my car ')}
+                {c.label.replace(/^the /, '')}
               </option>
             ))}
           </select>
         </label>
       )}
-      <p className="mb-2 text-sm text-graphite" data-balance-figures={figures?.source ?? 'none'}>
-        {figures
-          ? `Worked out with the ${figures.label} (${rearValveText(figures.vehicle.rearValve, units)}). An estimate from those figures, not a measurement: have the balance checked on a brake tester.`
-          : `The catalogue has no stock figures for the ${chassis.make} ${chassis.model}, so which axle locks first cannot be worked out here. Add your car’s own figures in My cars to see it.`}
+      <p className="mb-2 text-sm text-graphite print:mb-1 print:text-xs" data-balance-figures={figures?.source ?? 'none'}>
+        {figures ? (
+          <>
+            Worked out with {figures.label} ({rearValveText(figures.vehicle.rearValve, units)}).{' '}
+            <span className="print:hidden">
+              An estimate from those figures, not a measurement: have the balance checked on a brake tester.
+            </span>
+          </>
+        ) : (
+          `The catalogue has no stock figures for the ${chassis.make} ${chassis.model}, so which axle locks first cannot be worked out here. Add your car’s own figures in My cars to see it.`
+        )}
       </p>
       <BalanceShiftNote shift={balance.shift} />
 
       {analysis && analysis.after && (
-        <div className="mt-4 grid gap-3">
+        // the chart stays on screen: the printed build sheet keeps to two pages with the sentence above
+        <div className="mt-4 grid gap-3 print:hidden">
           {states.length > 1 && (
             <div role="group" aria-label="Load shown in the chart" className="flex gap-2 print:hidden">
               {states.map((state) => (
