@@ -50,16 +50,27 @@ export function vehicleStates(vehicle: VehicleData): Pick<DistributionInput, 'un
   };
 }
 
-/** Adhesion utilisation of the car before and after the swap, laden and unladen, with the car's own rear valve. */
+// The analysis scans deceleration finely and costs milliseconds; the submission form asks for it on every
+// keystroke (its live figures and its review checks), mostly with the same brakes and car. Keep the last one.
+let last: { key: string; analysis: DistributionAnalysis } | null = null;
+
+/**
+ * Adhesion utilisation of the car before and after the swap, laden and unladen, with the car's own rear valve.
+ * Callers with the same input share one result: treat it as read-only.
+ */
 export function swapDistribution(
   corners: { before: RecordCorners; after: RecordCorners },
   vehicle: VehicleData,
 ): DistributionAnalysis {
-  return analyseBrakeDistribution({
+  const key = JSON.stringify([corners, vehicle]);
+  if (last?.key === key) return last.analysis;
+  const analysis = analyseBrakeDistribution({
     ...vehicleStates(vehicle),
     before: { ...corners.before, rearValve: vehicle.rearValve },
     after: { ...corners.after, rearValve: vehicle.rearValve },
   });
+  last = { key, analysis };
+  return analysis;
 }
 
 export type RearFirst = { state: LoadState; fromG: number; beforeFromG: number | null };
