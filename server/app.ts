@@ -28,6 +28,7 @@ import { outboxRouter } from './features/outbox/outbox.router';
 import { fittedReportsRouter } from './features/fitted-reports/fitted-reports.router';
 import { carsRouter } from './features/cars/cars.router';
 import { shopLinkRedirectRouter, shopsRouter } from './features/shops/shops.router';
+import { graphRouter } from './features/graph/graph.router';
 
 export type AppDeps = {
   db: Db;
@@ -103,6 +104,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api', fittedReportsRouter(deps));
   app.use('/api', carsRouter(deps));
   app.use('/api', shopsRouter(deps));
+  app.use('/api', graphRouter(deps));
 
   app.use(mediaRouter(deps));
   app.use(shopLinkRedirectRouter(deps));

@@ -4,6 +4,7 @@ import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import fs from 'node:fs';
 import path from 'node:path';
 import * as schema from './schema/index';
+import { registerSqlFunctions } from './sql-functions';
 
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
 /** The handle a `db.transaction(...)` callback receives. */
@@ -23,6 +24,7 @@ export function openDb(file: string, { busyTimeoutMs = 5000 }: { busyTimeoutMs?:
   sqlite.pragma('synchronous = FULL');
   sqlite.pragma(`busy_timeout = ${busyTimeoutMs}`);
   sqlite.pragma('foreign_keys = ON');
+  registerSqlFunctions(sqlite);
   return drizzle(sqlite, { schema }) as Db;
 }
 

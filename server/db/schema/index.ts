@@ -2,3 +2,4 @@ export * from './users';
 export * from './catalogue';
 export * from './swaps';
 export * from './community';
+export * from './interchange';

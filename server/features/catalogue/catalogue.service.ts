@@ -46,8 +46,10 @@ export function getChassisPage(db: Db, slug: string, viewer: SessionUser | undef
 export function getPartPage(db: Db, id: number): PartPageView {
   const row = db.select().from(parts).where(eq(parts.id, id)).get();
   if (!row) throw AppError.notFound('That part');
-  // swaps whose current revision lists this catalogue part
-  const usesPart = sql`exists (select 1 from json_each(${revisions.data}, '$.parts') as p where json_extract(p.value, '$.partId') = ${row.id})`;
+  // swaps whose current revision lists this catalogue part, found through the part-line lookup (revision_parts)
+  // from the part outwards, so no revision is read that does not use it
+  const usesPart = sql`${swaps.id} in (select r.swap_id from revision_parts l join revisions r on r.id = l.revision_id where l.part_id = ${row.id})
+    and ${revisions.id} in (select l.revision_id from revision_parts l where l.part_id = ${row.id})`;
   return {
     part: {
       id: row.id,

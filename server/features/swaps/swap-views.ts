@@ -1,4 +1,4 @@
-import { desc, eq, inArray, type SQL } from 'drizzle-orm';
+import { desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { chassis, revisionPhotos, revisions, swaps, users } from '../../db/schema/index';
 import type { ChassisView, PersonRef, PhotoView, SwapCard } from '../../../shared/schemas/views';
@@ -62,7 +62,14 @@ export function photosOf(db: Db, revisionIds: number[]) {
 /** Cards of approved swaps matching the condition, newest approval first. */
 export function swapCards(db: Db, where?: SQL, limit = 500): SwapCard[] {
   const rows = db
-    .select({ swap: swaps, revision: revisions, chassis })
+    .select({
+      swap: swaps,
+      // a card shows three fields of the record: read them, rather than the whole record (the same paths in
+      // version 1 and 2), so a list of hundreds of cards costs no full parse of each record
+      card: sql<string>`json_extract(${revisions.data}, '$.title', '$.summary', '$.wheel.minDiameterIn')`,
+      revision: { id: revisions.id, number: revisions.number, reviewedAt: revisions.reviewedAt },
+      chassis,
+    })
     .from(swaps)
     .innerJoin(revisions, eq(revisions.id, swaps.currentRevisionId))
     .innerJoin(chassis, eq(chassis.id, swaps.chassisId))
@@ -74,17 +81,20 @@ export function swapCards(db: Db, where?: SQL, limit = 500): SwapCard[] {
     db,
     rows.map((r) => r.revision.id),
   );
-  return rows.map(({ swap, revision, chassis: c }) => ({
-    slug: swap.slug,
-    title: revision.data.title,
-    summary: revision.data.summary,
-    axle: swap.axle,
-    category: swap.category,
-    chassis: { slug: c.slug, make: c.make, model: c.model, code: c.code, yearFrom: c.yearFrom, yearTo: c.yearTo },
-    revisionNumber: revision.number,
-    approvedAt: iso(revision.reviewedAt),
-    fittedCount: swap.fittedCount,
-    minWheelIn: revision.data.wheel?.minDiameterIn ?? null,
-    thumbUrl: photos.get(revision.id)?.[0]?.thumbUrl ?? null,
-  }));
+  return rows.map(({ swap, card, revision, chassis: c }) => {
+    const [title, summary, minWheelIn] = JSON.parse(card) as [string, string | null, number | null];
+    return {
+      slug: swap.slug,
+      title,
+      summary: summary ?? '',
+      axle: swap.axle,
+      category: swap.category,
+      chassis: { slug: c.slug, make: c.make, model: c.model, code: c.code, yearFrom: c.yearFrom, yearTo: c.yearTo },
+      revisionNumber: revision.number,
+      approvedAt: iso(revision.reviewedAt),
+      fittedCount: swap.fittedCount,
+      minWheelIn: minWheelIn ?? null,
+      thumbUrl: photos.get(revision.id)?.[0]?.thumbUrl ?? null,
+    };
+  });
 }
