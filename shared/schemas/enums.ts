@@ -18,6 +18,16 @@ export const categoryLabels: Record<Category, string> = {
 export const partKinds = ['caliper', 'rotor', 'pad', 'adapter', 'shim', 'spacer', 'line', 'hardware'] as const;
 export const partKindSchema = z.enum(partKinds);
 export type PartKind = z.infer<typeof partKindSchema>;
+export const partKindLabels: Record<PartKind, string> = {
+  caliper: 'Caliper',
+  rotor: 'Rotor',
+  pad: 'Pads',
+  adapter: 'Adapter bracket',
+  shim: 'Shim',
+  spacer: 'Wheel spacer',
+  line: 'Brake line',
+  hardware: 'Hardware',
+};
 
 export const costRoutes = ['as_built', 'budget', 'new_kit'] as const;
 export const costRouteSchema = z.enum(costRoutes);

@@ -54,6 +54,10 @@ export const fitGroupSchema = z.object({
 });
 export type FitGroup = z.infer<typeof fitGroupSchema>;
 
+/** every chassis and swap the part reaches; `fits` / `reaches` list the chassis with most swaps first, cut at 48 */
+export const graphTotalsSchema = z.object({ chassis: z.number().int(), swaps: z.number().int() });
+export type GraphTotals = z.infer<typeof graphTotalsSchema>;
+
 export const numberSources = ['number', 'stamp'] as const;
 /** a number a catalogue record carries (`number`) or its notes name as an older stamp (`stamp`) */
 export const recordedNumberSchema = z.object({
@@ -72,7 +76,7 @@ export const partGraphSchema = z.object({
   /** vehicles it came on, across those records */
   cameOn: z.array(z.string()),
   fits: z.array(fitGroupSchema),
-  totals: z.object({ chassis: z.number().int(), swaps: z.number().int() }),
+  totals: graphTotalsSchema,
 });
 export type PartGraph = z.infer<typeof partGraphSchema>;
 
@@ -106,6 +110,6 @@ export const whereElseSchema = z.object({
   otherNumbers: z.array(recordedNumberSchema),
   cameOn: z.array(z.string()),
   reaches: z.array(fitGroupSchema),
-  totals: z.object({ chassis: z.number().int(), swaps: z.number().int() }),
+  totals: graphTotalsSchema,
 });
 export type WhereElse = z.infer<typeof whereElseSchema>;

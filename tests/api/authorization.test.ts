@@ -83,6 +83,10 @@ const table: Record<string, Row> = {
   'GET /api/chassis/:slug': publicRoute,
   'GET /api/parts/:id': publicRoute,
   'GET /api/search-index': publicRoute,
+  'GET /api/graph/parts/:id': publicRoute,
+  'GET /api/graph/chassis/:slug': publicRoute,
+  // without a number it is a 400 naming the field, for everyone alike
+  'GET /api/graph/where-else': publicRoute,
   'POST /api/submissions': signedIn(),
   // the world's revision is a never-submitted draft: private to its author, even from the review desk
   // (reviewers read a revision once it is sent to review; tests/api/drafts-private.test.ts)

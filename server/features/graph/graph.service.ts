@@ -9,6 +9,7 @@ import type {
   ChassisGraph,
   DonorPart,
   FitGroup,
+  GraphTotals,
   PartGraph,
   PartRef,
   RecordedNumber,
@@ -31,12 +32,20 @@ import {
 // The three views of the interchange graph. Lists of swaps are cut to a few per group (newest approval
 // first) with the full count beside them, so a part used by thousands of swaps still answers in one page.
 
-/** swaps shown per chassis: a few for the chassis with most swaps, one (the newest) for the rest */
-const SHOWN_BY_CHASSIS = { groups: 24, swaps: 4, rest: 1 };
+/** chassis shown per part (most swaps first; the totals count them all), and swaps shown per chassis */
+const SHOWN_CHASSIS = 48;
+const SWAPS_PER_CHASSIS = 3;
 const SWAPS_PER_DONOR = 3;
 const DONORS_PER_KIND = 16;
 
-const partRef = ({ id, slug, kind, name, maker, partNumbers }: DonorPart): PartRef => ({ id, slug, kind, name, maker, partNumbers });
+const partRef = ({ id, slug, kind, name, maker, partNumbers }: DonorPart): PartRef => ({
+  id,
+  slug,
+  kind,
+  name,
+  maker,
+  partNumbers,
+});
 
 function adapterOf(a: Record<string, unknown> | null | undefined): SwapLink['adapter'] {
   const text = (v: unknown) => (typeof v === 'string' ? v : '');
@@ -61,11 +70,17 @@ function oncePerSwap(rows: UseRow[]): UseRow[] {
   return rows.filter((r) => !seen.has(r.revisionId) && !!seen.add(r.revisionId));
 }
 
-/** Swaps grouped by the chassis they fit, most swaps first, with the catalogue adapters they use there. */
-function fitsByChassis(db: Db, uses: UseRow[], notAdapters: Set<number>): FitGroup[] {
+/**
+ * Swaps grouped by the chassis they fit, most swaps first, with the catalogue adapters they use there. Only the
+ * first groups are read in full (titles, adapters): a part on a thousand chassis still answers in one page.
+ */
+function fitsByChassis(db: Db, uses: UseRow[], notAdapters: Set<number>): { fits: FitGroup[]; totals: GraphTotals } {
   const groups = new Map<number, UseRow[]>();
   for (const row of oncePerSwap(uses)) groups.set(row.chassisId, [...(groups.get(row.chassisId) ?? []), row]);
-  const chassisOfRevision = new Map(uses.map((r) => [r.revisionId, r.chassisId]));
+  const ordered = [...groups.values()]
+    .sort((a, b) => b.length - a.length || a[0].make.localeCompare(b[0].make) || a[0].model.localeCompare(b[0].model))
+    .slice(0, SHOWN_CHASSIS);
+  const chassisOfRevision = new Map(ordered.flatMap((rows) => rows.map((r) => [r.revisionId, r.chassisId] as const)));
   const adapterIds = new Map<number, Set<number>>();
   for (const a of adaptersIn(db, [...chassisOfRevision.keys()])) {
     if (notAdapters.has(a.partId)) continue;
@@ -73,27 +88,25 @@ function fitsByChassis(db: Db, uses: UseRow[], notAdapters: Set<number>): FitGro
     adapterIds.set(chassisId, (adapterIds.get(chassisId) ?? new Set()).add(a.partId));
   }
   const adapters = new Map(donorParts(db, [...new Set([...adapterIds.values()].flatMap((s) => [...s]))]).map((p) => [p.id, p]));
-  const ordered = [...groups.entries()].sort(
-    ([, a], [, b]) => b.length - a.length || a[0].make.localeCompare(b[0].make) || a[0].model.localeCompare(b[0].model),
-  );
-  const shownOf = (i: number) => (i < SHOWN_BY_CHASSIS.groups ? SHOWN_BY_CHASSIS.swaps : SHOWN_BY_CHASSIS.rest);
   const titles = revisionTitles(
     db,
-    ordered.flatMap(([, rows], i) => rows.slice(0, shownOf(i)).map((r) => r.revisionId)),
+    ordered.flatMap((rows) => rows.slice(0, SWAPS_PER_CHASSIS).map((r) => r.revisionId)),
   );
-  return ordered.map(([chassisId, rows], i) => ({
-      chassis: {
-        slug: rows[0].chassisSlug,
-        make: rows[0].make,
-        model: rows[0].model,
-        code: rows[0].code,
-        yearFrom: rows[0].yearFrom,
-        yearTo: rows[0].yearTo,
-      },
-      swapCount: rows.length,
-      swaps: rows.slice(0, shownOf(i)).map((r) => linkFor(r, titles)),
-      adapters: [...(adapterIds.get(chassisId) ?? [])].map((id) => partRef(adapters.get(id)!)),
-    }));
+  const fits = ordered.map((rows) => ({
+    chassis: {
+      slug: rows[0].chassisSlug,
+      make: rows[0].make,
+      model: rows[0].model,
+      code: rows[0].code,
+      yearFrom: rows[0].yearFrom,
+      yearTo: rows[0].yearTo,
+    },
+    swapCount: rows.length,
+    swaps: rows.slice(0, SWAPS_PER_CHASSIS).map((r) => linkFor(r, titles)),
+    adapters: [...(adapterIds.get(rows[0].chassisId) ?? [])].map((id) => partRef(adapters.get(id)!)),
+  }));
+  const swapCount = [...groups.values()].reduce((n, rows) => n + rows.length, 0);
+  return { fits, totals: { chassis: groups.size, swaps: swapCount } };
 }
 
 /** each number once (by its key): carried numbers before stamps, the given record's before the others' */
@@ -105,7 +118,6 @@ function distinctNumbers(numbers: (RecordedNumber & { key: string })[], firstPar
 }
 
 const unique = (values: string[]) => [...new Set(values)];
-const totalsOf = (fits: FitGroup[]) => ({ chassis: fits.length, swaps: fits.reduce((n, f) => n + f.swapCount, 0) });
 const recorded = ({ number, partId, source }: RecordedNumber): RecordedNumber => ({ number, partId, source });
 
 /** A part page's graph: the vehicles it came on, and every chassis approved swaps fit it to, with how. */
@@ -114,14 +126,14 @@ export function partGraph(db: Db, partId: number): PartGraph {
   const records = donorParts(db, same);
   const part = records.find((p) => p.id === partId);
   if (!part) throw AppError.notFound('That part');
-  const fits = fitsByChassis(db, swapsUsing(db, same), new Set(same));
+  const { fits, totals } = fitsByChassis(db, swapsUsing(db, same), new Set(same));
   return {
     part,
     sameAs: records.filter((p) => p.id !== partId),
     numbers: distinctNumbers(recordedNumbers(db, same), partId).map(recorded),
     cameOn: unique(records.flatMap((p) => p.cameOn)),
     fits,
-    totals: totalsOf(fits),
+    totals,
   };
 }
 
@@ -154,13 +166,11 @@ export function chassisGraph(db: Db, slug: string): ChassisGraph {
     kinds: kinds.map(({ kind, partCount, shown }) => ({
       kind,
       partCount,
-      parts: shown.map(
-        (d): ChassisDonor => ({
-          part: d.part,
-          swapCount: d.rows.length,
-          swaps: d.rows.slice(0, SWAPS_PER_DONOR).map((r) => linkFor(r, titles)),
-        }),
-      ),
+      parts: shown.map((d): ChassisDonor => ({
+        part: d.part,
+        swapCount: d.rows.length,
+        swaps: d.rows.slice(0, SWAPS_PER_DONOR).map((r) => linkFor(r, titles)),
+      })),
     })),
     totals: { parts: donors.length, swaps: new Set(lines.map((l) => l.revisionId)).size },
   };
@@ -173,7 +183,7 @@ export function whereElse(db: Db, number: string): WhereElse {
   const matched = new Map(same.map((s) => [s.partId, s.matched]));
   const ids = same.map((s) => s.partId);
   const records = donorParts(db, ids);
-  const reaches = fitsByChassis(db, swapsUsing(db, ids), new Set(ids));
+  const { fits: reaches, totals } = fitsByChassis(db, swapsUsing(db, ids), new Set(ids));
   const order = { number: 0, stamp: 1, same_part: 2 } as const;
   return {
     number,
@@ -184,6 +194,6 @@ export function whereElse(db: Db, number: string): WhereElse {
       .map(recorded),
     cameOn: unique(records.flatMap((p) => p.cameOn)),
     reaches,
-    totals: totalsOf(reaches),
+    totals,
   };
 }

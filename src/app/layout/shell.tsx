@@ -7,6 +7,7 @@ import { AccountMenu } from '../../features/account/components/account-menu';
 
 const nav = [
   { to: '/search', label: 'Find a swap' },
+  { to: '/where-else', label: 'Where else' },
   { to: '/tools', label: 'Calculators' },
   { to: '/submit', label: 'Record a swap' },
 ];

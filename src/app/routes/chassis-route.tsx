@@ -2,11 +2,18 @@ import { useParams } from 'react-router';
 import ChassisPage from '../../features/swaps/components/chassis-page';
 import { useMe } from '../../features/account/api/get-me';
 import { useChassisCarMarks } from '../../features/cars/components/car-checks';
+import { ChassisDonors } from '../../features/graph/components/chassis-donors';
 
-/** The chassis page, marking which swaps clear the member's own wheel on this chassis. */
+/** The chassis page, marking which swaps clear the member's own wheel on this chassis, with the donor parts that fit it. */
 export default function ChassisRoute() {
   const { slug = '' } = useParams();
   const me = useMe();
   const marks = useChassisCarMarks(slug, Boolean(me.data?.user));
-  return <ChassisPage intro={() => marks.intro} cardNote={marks.intro ? marks.noteFor : undefined} />;
+  return (
+    <ChassisPage
+      intro={() => marks.intro}
+      cardNote={marks.intro ? marks.noteFor : undefined}
+      donors={(chassisSlug) => <ChassisDonors slug={chassisSlug} />}
+    />
+  );
 }

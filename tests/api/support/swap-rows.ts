@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import type { Db } from '../../../server/db/client';
 import { revisions, swaps } from '../../../server/db/schema/index';
-import { swapDataSchema, type SwapDataInput } from '../../../shared/schemas/swap-data';
+import { swapDataSchema, type SwapDataInput, type SwapPart } from '../../../shared/schemas/swap-data';
 import type { Axle, RevisionStatus } from '../../../shared/schemas/enums';
 
 // Rows for tests that need approved swaps without going through the review desk.
@@ -26,6 +26,19 @@ export function swapData(title: string, extra: Partial<SwapDataInput> = {}) {
     ...extra,
   });
 }
+
+/** a record's part line pointing at a catalogue part (the interchange graph follows `partId`) */
+export const catalogueLine = (partId: number, kind: SwapPart['kind'], name: string, partNumbers: string[]): SwapPart => ({
+  role: kind === 'adapter' ? 'Caliper bracket' : 'Front caliper',
+  kind,
+  name,
+  maker: kind === 'adapter' ? 'Northgate Fabrication' : 'Orsino',
+  partNumbers,
+  cameOn: [],
+  quantity: 1,
+  notes: '',
+  partId,
+});
 
 export type RevisionSpec = { status: RevisionStatus; data?: ReturnType<typeof swapData>; body?: string };
 

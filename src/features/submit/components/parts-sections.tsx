@@ -1,5 +1,5 @@
 import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
-import { axles, machiningOperations, partKinds } from '@shared/schemas/enums';
+import { axles, machiningOperations, partKindLabels, partKinds } from '@shared/schemas/enums';
 import {
   fastenerKindLabels,
   lubricationLabels,
@@ -15,16 +15,6 @@ import { AddButton, FArea, FCheck, FNum, FSelect, FText, FormSection, ListError,
 export const options = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));
 export const axleOptions = axles.map((a) => ({ value: a, label: a === 'front' ? 'Front' : 'Rear' }));
 
-const kindLabels: Record<(typeof partKinds)[number], string> = {
-  caliper: 'Caliper',
-  rotor: 'Rotor',
-  pad: 'Pads',
-  adapter: 'Adapter bracket',
-  shim: 'Shim',
-  spacer: 'Wheel spacer',
-  line: 'Brake line',
-  hardware: 'Hardware',
-};
 const operationLabels: Record<(typeof machiningOperations)[number], string> = {
   grind: 'Grind',
   machine: 'Machine',
@@ -56,7 +46,7 @@ export function PartsSection() {
           <FSelect
             name={`data.parts.${i}.kind`}
             label="Kind"
-            options={partKinds.map((k) => ({ value: k, label: kindLabels[k] }))}
+            options={partKinds.map((k) => ({ value: k, label: partKindLabels[k] }))}
           />
           <FText name={`data.parts.${i}.role`} label="Role in this swap" placeholder="front caliper, left" />
           <FText name={`data.parts.${i}.name`} label="Name" className="sm:col-span-2" />

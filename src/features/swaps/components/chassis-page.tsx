@@ -15,9 +15,11 @@ type ChassisPageProps = {
   intro?: (chassisSlug: string) => React.ReactNode;
   /** shown under a swap's card (e.g. that check's verdict) */
   cardNote?: (swap: SwapCardData) => React.ReactNode;
+  /** shown after the swap list (e.g. the donor parts that fit through those swaps) */
+  donors?: (chassisSlug: string) => React.ReactNode;
 };
 
-export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) {
+export default function ChassisPage({ intro, cardNote, donors }: ChassisPageProps = {}) {
   const { slug = '' } = useParams();
   const query = useChassisPage(slug);
   const { length } = useUnits();
@@ -74,10 +76,7 @@ export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) 
         />
         <SpecCard
           title="Stock brakes"
-          rows={(['front', 'rear'] as const).map((k) => [
-            k === 'front' ? 'Front' : 'Rear',
-            corner(k).description,
-          ])}
+          rows={(['front', 'rear'] as const).map((k) => [k === 'front' ? 'Front' : 'Rear', corner(k).description])}
         />
         {c.vehicle && (
           <div className="rounded-xl border border-ink/10 bg-paper-card p-4 md:col-span-3" data-chassis-vehicle>
@@ -120,6 +119,7 @@ export default function ChassisPage({ intro, cardNote }: ChassisPageProps = {}) 
             </section>
           );
         })}
+        {!proposed && donors?.(c.slug)}
       </div>
     </Page>
   );

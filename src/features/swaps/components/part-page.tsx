@@ -25,7 +25,12 @@ const specLabels: Record<string, string> = {
   padHeightMm: 'Pad height',
 };
 
-export default function PartPage() {
+type PartPageProps = {
+  /** shown between the part's specs and its swaps (e.g. the chassis it reaches) */
+  reach?: (partId: number) => React.ReactNode;
+};
+
+export default function PartPage({ reach }: PartPageProps = {}) {
   const { id } = useParams();
   const query = usePartPage(Number(id));
   const { length } = useUnits();
@@ -73,6 +78,7 @@ export default function PartPage() {
         </div>
       </div>
       {part.notes && <p className="mt-4 max-w-3xl text-graphite">{part.notes}</p>}
+      {reach?.(part.id)}
       <h2 className="mb-4 mt-10 text-xl font-extrabold text-ink">Swaps that use it</h2>
       {swaps.length === 0 ? (
         <p className="text-graphite-soft">No approved swap uses this part yet.</p>
