@@ -18,8 +18,8 @@ import { refuseCrossSite, requireCsrfToken } from './middleware/csrf';
 import { defaultCacheControl, noCookieOnSharedAnswers } from './middleware/shared-cache';
 import { meRouter } from './features/me/me.router';
 import { adminRouter } from './features/admin/admin.router';
-import { swapsRouter } from './features/swaps/swaps.router';
-import { catalogueRouter } from './features/catalogue/catalogue.router';
+import { swapPagesRouter, swapsRouter } from './features/swaps/swaps.router';
+import { cataloguePagesRouter, catalogueRouter } from './features/catalogue/catalogue.router';
 import { mediaRouter } from './features/photos/media.router';
 import { searchIndexRouter } from './features/search-index/search-index.router';
 import { submissionsRouter } from './features/submissions/submissions.router';
@@ -27,7 +27,7 @@ import { reviewRouter } from './features/review/review.router';
 import { outboxRouter } from './features/outbox/outbox.router';
 import { fittedReportsRouter } from './features/fitted-reports/fitted-reports.router';
 import { carsRouter } from './features/cars/cars.router';
-import { shopLinkRedirectRouter, shopsRouter } from './features/shops/shops.router';
+import { shopLinkRedirectRouter, shopPagesRouter, shopsRouter } from './features/shops/shops.router';
 import { graphRouter } from './features/graph/graph.router';
 
 export type AppDeps = {
@@ -110,7 +110,8 @@ export function createApp(deps: AppDeps) {
   app.use(shopLinkRedirectRouter(deps));
 
   app.use('/api', apiNotFound);
-  if (deps.client) app.use(deps.client);
+  // pages in front of the client, so an address naming nothing answers 404
+  if (deps.client) app.use(swapPagesRouter(deps), cataloguePagesRouter(deps), shopPagesRouter(deps), ...deps.client);
   app.use(errorHandler(logger));
   return app;
 }

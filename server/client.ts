@@ -1,8 +1,19 @@
-import express, { type RequestHandler } from 'express';
+import express, { type Request, type RequestHandler, type Response } from 'express';
 import path from 'node:path';
 import fs from 'node:fs';
+import { matchPage } from '../shared/page-routes';
 
 const root = path.resolve(import.meta.dirname, '..');
+
+/**
+ * The status a client page answers with: 404 for an address outside the page table, or whatever a page
+ * handler before the client decided (`res.locals.pageStatus`, e.g. 404 for a swap that does not exist).
+ */
+export function pageStatus(req: Request, res: Response): number {
+  const decided = res.locals.pageStatus as number | undefined;
+  if (decided) return decided;
+  return matchPage(req.path) ? 200 : 404;
+}
 
 /** Production: the built files, long-cached when hashed, and index.html for every client route. */
 export function staticClient(dist = path.join(root, 'dist')): RequestHandler[] {
@@ -21,8 +32,8 @@ export function staticClient(dist = path.join(root, 'dist')): RequestHandler[] {
     express.static(path.join(dist, 'assets'), { immutable: true, maxAge: '1y', index: false, fallthrough: false }),
   );
   router.use(express.static(dist, { index: false, maxAge: '1h' }));
-  router.get('/{*splat}', (_req, res) => {
-    res.set('Cache-Control', 'no-cache').type('html').send(currentIndex());
+  router.get('/{*splat}', (req, res) => {
+    res.status(pageStatus(req, res)).set('Cache-Control', 'no-cache').type('html').send(currentIndex());
   });
   return [router];
 }
@@ -37,7 +48,7 @@ export async function viteClient(): Promise<{ handlers: RequestHandler[]; close:
   router.get('/{*splat}', async (req, res, next) => {
     try {
       const html = await vite.transformIndexHtml(req.originalUrl, fs.readFileSync(indexFile, 'utf8'));
-      res.type('html').send(html);
+      res.status(pageStatus(req, res)).type('html').send(html);
     } catch (err) {
       vite.ssrFixStacktrace(err as Error);
       next(err);

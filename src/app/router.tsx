@@ -1,39 +1,49 @@
 import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router';
+import { pageRoutes, type PageName } from '@shared/page-routes';
 import { Shell } from './layout/shell';
 import { RouteError } from './routes/route-error';
 import HomePage from './routes/home';
 
+type PageModule = () => Promise<{ default: React.ComponentType }>;
+
 /** Route modules load on demand; each default-exports its page component. */
-const page = (load: () => Promise<{ default: React.ComponentType }>): Pick<RouteObject, 'lazy'> => ({
+const page = (load: PageModule): Pick<RouteObject, 'lazy'> => ({
   lazy: async () => ({ Component: (await load()).default }),
 });
+
+// one module per page of the shared table; a page added there without one here does not compile
+const pageModules: Record<Exclude<PageName, 'home'>, PageModule> = {
+  search: () => import('./routes/search-route'),
+  swap: () => import('./routes/swap-sheet-route'),
+  swapRevision: () => import('./routes/swap-sheet-route'),
+  swapCompare: () => import('../features/swaps/components/swap-compare-page'),
+  chassis: () => import('./routes/chassis-route'),
+  part: () => import('./routes/part-route'),
+  whereElse: () => import('../features/graph/components/where-else-page'),
+  tools: () => import('../features/calculators/components/calculators-page'),
+  admin: () => import('./routes/admin'),
+  signIn: () => import('../features/account/components/sign-in-page'),
+  signInFailed: () => import('../features/account/components/sign-in-failed-page'),
+  submit: () => import('./routes/submit'),
+  editSubmission: () => import('./routes/edit-submission'),
+  mySubmissions: () => import('./routes/my-submissions'),
+  review: () => import('./routes/review-desk'),
+  reviewRevision: () => import('./routes/review-revision'),
+  outbox: () => import('./routes/outbox'),
+  myCars: () => import('./routes/my-cars-route'),
+  shop: () => import('../features/shops/components/shop-page'),
+  shopLinks: () => import('./routes/shop-links-route'),
+};
 
 export const routes: RouteObject[] = [
   {
     element: <Shell />,
+    // the first page's module is still loading: the frame with a loading line, not a blank page
+    hydrateFallbackElement: <Shell loading />,
     errorElement: <RouteError />,
     children: [
-      { index: true, element: <HomePage /> },
-      { path: 'search', ...page(() => import('./routes/search-route')) },
-      { path: 'swaps/:slug', ...page(() => import('./routes/swap-sheet-route')) },
-      { path: 'swaps/:slug/r/:n', ...page(() => import('./routes/swap-sheet-route')) },
-      { path: 'swaps/:slug/compare', ...page(() => import('../features/swaps/components/swap-compare-page')) },
-      { path: 'chassis/:slug', ...page(() => import('./routes/chassis-route')) },
-      { path: 'parts/:id', ...page(() => import('./routes/part-route')) },
-      { path: 'where-else', ...page(() => import('../features/graph/components/where-else-page')) },
-      { path: 'tools', ...page(() => import('../features/calculators/components/calculators-page')) },
-      { path: 'admin', ...page(() => import('./routes/admin')) },
-      { path: 'signin', ...page(() => import('../features/account/components/sign-in-page')) },
-      { path: 'signin-failed', ...page(() => import('../features/account/components/sign-in-failed-page')) },
-      { path: 'submit', ...page(() => import('./routes/submit')) },
-      { path: 'submissions/:id/edit', ...page(() => import('./routes/edit-submission')) },
-      { path: 'me/submissions', ...page(() => import('./routes/my-submissions')) },
-      { path: 'review', ...page(() => import('./routes/review-desk')) },
-      { path: 'review/:revisionId', ...page(() => import('./routes/review-revision')) },
-      { path: 'outbox', ...page(() => import('./routes/outbox')) },
-      { path: 'me/cars', ...page(() => import('./routes/my-cars-route')) },
-      { path: 'shops/:slug', ...page(() => import('../features/shops/components/shop-page')) },
-      { path: 'shop/links', ...page(() => import('./routes/shop-links-route')) },
+      { path: pageRoutes.home, element: <HomePage /> },
+      ...Object.entries(pageModules).map(([name, load]) => ({ path: pageRoutes[name as keyof typeof pageModules], ...page(load) })),
       { path: '*', ...page(() => import('./routes/not-found')) },
     ],
   },

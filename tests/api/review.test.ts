@@ -218,22 +218,26 @@ describe('the whole lifecycle of a swap', () => {
 
     const approved2 = await post(mo, `/api/review/${corr.body.id}/approve`, {});
     expect(approved2.status).toBe(200);
-    const sheet2 = await request(server).get(`/api/swaps/${slug}`);
+    // the approved title changed, so the address follows it; the old one redirects
+    const renamed = 'h31-front-vela-four-piston-calipers-on-330-mm-rotors-corrected-torque';
+    expect((await request(server).get(`/api/swaps/${slug}`)).headers.location).toBe(`/api/swaps/${renamed}`);
+    const sheet2 = await request(server).get(`/api/swaps/${renamed}`);
     expect(sheet2.body.revision).toMatchObject({ number: 2, author: { login: 'camber_kai' } });
     expect(sheet2.body.history.map((h: { number: number; status: string }) => [h.number, h.status])).toEqual([
       [2, 'approved'],
       [1, 'superseded'],
     ]);
-    const old = await request(server).get(`/api/swaps/${slug}/revisions/1`);
+    const old = await request(server).get(`/api/swaps/${renamed}/revisions/1`);
     expect(old.status).toBe(200);
     expect(old.body.revision).toMatchObject({ number: 1, status: 'superseded' });
     const index2 = await request(server).get('/api/search-index');
-    expect(index2.body.documents.find((d: { slug: string }) => d.slug === slug).title).toBe(
+    expect(index2.body.documents.find((d: { slug: string }) => d.slug === renamed).title).toBe(
       'Vela four-piston calipers on 330 mm rotors, corrected torque',
     );
 
     // the corrector hears it was approved; the original author hears that their swap changed
     expect(outboxTo(kai)[0].subject).toBe('Approved: Vela four-piston calipers on 330 mm rotors, corrected torque');
+    expect(outboxTo(kai)[0].text).toContain(`/swaps/${renamed}`);
     const toOriginal = outboxTo(rosa)[0];
     expect(toOriginal.subject).toBe('Your swap was updated: Vela four-piston calipers on 330 mm rotors, corrected torque');
     expect(toOriginal.text).toContain('camber kai proposed a correction');
@@ -447,7 +451,7 @@ describe('flags', () => {
     const slug = t.db
       .select({ slug: swaps.slug })
       .from(swaps)
-      .where(eq(swaps.slug, 'h31-front-vela-four-piston-calipers-on-330-mm-rotors'))
+      .where(eq(swaps.slug, 'h31-front-vela-four-piston-calipers-on-330-mm-rotors-corrected-torque'))
       .get()!.slug;
     expect((await post(kai, `/api/swaps/${slug}/flags`, { reason: 'bad' })).status).toBe(400);
     const res = await post(kai, `/api/swaps/${slug}/flags`, {

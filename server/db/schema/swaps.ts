@@ -35,6 +35,22 @@ export const swaps = sqliteTable(
   (t) => [index('swaps_chassis_idx').on(t.chassisId)],
 );
 
+/**
+ * Addresses a swap had before a title change gave it a new slug. Shops and readers keep old addresses, so
+ * they are redirected to the swap's current one; no other swap may ever take a slug listed here.
+ */
+export const swapOldSlugs = sqliteTable(
+  'swap_old_slugs',
+  {
+    slug: text('slug').primaryKey(),
+    swapId: integer('swap_id')
+      .notNull()
+      .references((): AnySQLiteColumn => swaps.id, { onDelete: 'cascade' }),
+    retiredAt: timestamp('retired_at').notNull(),
+  },
+  (t) => [index('swap_old_slugs_swap_idx').on(t.swapId)],
+);
+
 export const revisions = sqliteTable(
   'revisions',
   {

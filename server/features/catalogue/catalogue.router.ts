@@ -4,6 +4,9 @@ import type { AppDeps } from '../../app';
 import { validated } from '../../middleware/validate';
 import { idParamSchema, slugSchema } from '../../../shared/schemas/params';
 import { getChassisPage, getPartPage, listChassis } from './catalogue.service';
+import { pageFound } from '../../lib/page-status';
+import { AppError } from '../../lib/app-error';
+import { pageRoutes } from '../../../shared/page-routes';
 
 export function catalogueRouter({ db }: AppDeps) {
   const router = Router();
@@ -23,6 +26,24 @@ export function catalogueRouter({ db }: AppDeps) {
     '/parts/:id',
     validated({ params: z.object({ id: idParamSchema }) }, ({ params }, _req, res) => {
       res.json(getPartPage(db, params.id));
+    }),
+  );
+  return router;
+}
+
+/** The chassis and part pages answer 404 for a chassis or part the reader cannot open. */
+export function cataloguePagesRouter({ db }: AppDeps) {
+  const router = Router();
+  router.get(
+    pageRoutes.chassis,
+    pageFound((req) => getChassisPage(db, String(req.params.slug), req.user)),
+  );
+  router.get(
+    pageRoutes.part,
+    pageFound((req) => {
+      const id = idParamSchema.safeParse(req.params.id);
+      if (!id.success) throw AppError.notFound('That part');
+      return getPartPage(db, id.data);
     }),
   );
   return router;

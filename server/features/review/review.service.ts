@@ -25,7 +25,9 @@ import type {
 import type { SwapData, SwapPart } from '../../../shared/schemas/swap-data';
 import { iso, personRef } from '../swaps/swap-views';
 import { checksFor, loadRevision, photoCounts, submissionView, type LoadedRevision } from '../submissions/submission-views';
-import { removeFiles, removeRevision, slugify, uniqueSlug, type SubmissionDeps } from '../submissions/submissions.service';
+import { removeFiles, removeRevision, type SubmissionDeps } from '../submissions/submissions.service';
+import { slugify, uniqueSlug } from '../../lib/slugs';
+import { slugAfterApproval } from '../swaps/swap-slugs';
 
 export type ReviewDeps = SubmissionDeps;
 export type Decision = 'approved' | 'sent_back' | 'declined';
@@ -249,12 +251,13 @@ export function approve(deps: ReviewDeps, actor: SessionUser, revisionId: number
         .run();
     }
     tx.update(swaps).set({ currentRevisionId: revisionId, updatedAt: now }).where(eq(swaps.id, swap.id)).run();
+    const slug = slugAfterApproval(tx, swap, previous?.data.title ?? null, row.revision.data.title, now);
     tx.update(chassis)
       .set({ proposed: false, updatedAt: now })
       .where(and(eq(chassis.id, swap.chassisId), eq(chassis.proposed, true)))
       .run();
     tx.insert(reviewEvents).values({ revisionId, actorId: actor.id, action: 'approved', note: cleanNote, at: now }).run();
-    tellApproved(deps, tx, row, cleanNote);
+    tellApproved(deps, tx, { ...row, swap: { ...row.swap, slug } }, cleanNote);
   });
   return submissionView(db, loadRevision(db, revisionId)!, actor);
 }

@@ -17,6 +17,8 @@ import {
   updateShopLinkNote,
   visitShopLink,
 } from './shops.service';
+import { pageFound } from '../../lib/page-status';
+import { pageRoutes } from '../../../shared/page-routes';
 import { retiredLinkPage, tooManyLookupsPage, unknownLinkPage } from './link-pages';
 import { perAddressLimit } from '../../middleware/rate-limit';
 import type { Config } from '../../config';
@@ -172,5 +174,15 @@ export function shopLinkRedirectRouter({ db, config }: AppDeps) {
       .type('html')
       .send(unknownLinkPage(code.slice(0, 40)));
   });
+  return router;
+}
+
+/** The shop page answers 404 for a shop that does not exist. */
+export function shopPagesRouter({ db }: AppDeps) {
+  const router = Router();
+  router.get(
+    pageRoutes.shop,
+    pageFound((req) => getShopPage(db, String(req.params.slug), req.user)),
+  );
   return router;
 }

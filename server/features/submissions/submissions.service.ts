@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, like, max, ne, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, max, ne, sql } from 'drizzle-orm';
 import { ZodError } from 'zod';
 import type { Db } from '../../db/client';
 import { chassis, parts, reviewEvents, revisionPhotos, revisions, swaps } from '../../db/schema/index';
@@ -21,35 +21,12 @@ import type {
   UpdateSubmission,
 } from '../../../shared/schemas/submissions';
 import { removePhotoFiles, thumbId } from '../photos/photo-files';
+import { slugify, uniqueSlug } from '../../lib/slugs';
+import { newSwapSlug, swapSlugBase } from '../swaps/swap-slugs';
 import { assertEditable, loadRevision, revisionFor, submissionView, type LoadedRevision, type SwapRow } from './submission-views';
 
 export type SubmissionDeps = { db: Db; clock: Clock; mailer: Mailer; storage: Storage; logger: Logger; appUrl: string };
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
-
-export function slugify(text: string, maxLength = 80): string {
-  return text
-    .normalize('NFKD')
-    .replace(/[\u0300-\u036f]/g, '')
-    .toLowerCase()
-    .replace(/[^a-z0-9]+/g, '-')
-    .slice(0, maxLength)
-    .replace(/^-+|-+$/g, '');
-}
-
-/** `base`, or `base-2`, `base-3` … the first that the table does not hold yet. */
-export function uniqueSlug(db: Db | Tx, table: typeof swaps | typeof chassis | typeof parts, base: string): string {
-  const root = base || 'untitled';
-  const taken = new Set(
-    db
-      .select({ slug: table.slug })
-      .from(table)
-      .where(like(table.slug, `${root}%`))
-      .all()
-      .map((r) => r.slug),
-  );
-  if (!taken.has(root)) return root;
-  for (let n = 2; ; n++) if (!taken.has(`${root}-${n}`)) return `${root}-${n}`;
-}
 
 /**
  * Raw HTML and invisible format characters (bidi overrides and the like) leave every string of the record
@@ -265,7 +242,7 @@ export async function createSubmission(
       ? catalogueChassisId(tx, input.chassisId)
       : proposeChassis(tx, clock, input.newChassis!, data);
     const code = tx.select({ code: chassis.code }).from(chassis).where(eq(chassis.id, chassisId)).get()!.code;
-    const slug = uniqueSlug(tx, swaps, slugify(`${code} ${input.axle} ${data.title}`));
+    const slug = newSwapSlug(tx, swapSlugBase(code, input.axle!, data.title));
     const swap = tx
       .insert(swaps)
       .values({

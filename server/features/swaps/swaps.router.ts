@@ -1,11 +1,13 @@
-import { Router, type Request, type Response } from 'express';
+import { Router, type Request, type RequestHandler, type Response } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../../app';
 import { validated } from '../../middleware/validate';
-import { getSwapSheet, recentSwaps, sheetFingerprint } from './swaps.service';
+import { getSwapSheet, hasPublicRevision, recentSwaps, sheetFingerprint } from './swaps.service';
 import { fingerprintCache, sendCachedJson } from '../../lib/cached-json';
 import { AppError } from '../../lib/app-error';
 import { slugSchema } from '../../../shared/schemas/params';
+import { pageRoutes } from '../../../shared/page-routes';
+import { findSwapAddress } from './swap-slugs';
 
 export function swapsRouter({ db }: AppDeps) {
   const router = Router();
@@ -21,7 +23,12 @@ export function swapsRouter({ db }: AppDeps) {
   const sheets = fingerprintCache();
   const sendSheet = (req: Request, res: Response, slug: string, n?: number) => {
     const fingerprint = sheetFingerprint(db, slug);
-    if (!fingerprint) throw AppError.notFound('That swap');
+    if (!fingerprint) {
+      // an address the swap had before its title changed
+      const moved = findSwapAddress(db, slug);
+      if (moved?.moved) return res.redirect(301, `/api/swaps/${moved.slug}${n === undefined ? '' : `/revisions/${n}`}`);
+      throw AppError.notFound('That swap');
+    }
     sendCachedJson(
       req,
       res,
@@ -46,5 +53,34 @@ export function swapsRouter({ db }: AppDeps) {
     ),
   );
 
+  return router;
+}
+
+/**
+ * The swap pages in front of the client: an old address (before a title change) is redirected to the
+ * current one, query included (a shop link's `?via=`), and a swap or revision nobody can read answers 404.
+ */
+export function swapPagesRouter({ db }: AppDeps) {
+  const router = Router();
+  const page =
+    (revisionOf?: (req: Request) => string | undefined): RequestHandler =>
+    (req, res, next) => {
+      const address = findSwapAddress(db, String(req.params.slug));
+      const n = revisionOf?.(req);
+      if (!address || (n !== undefined && !hasPublicRevision(db, address.id, n))) {
+        res.locals.pageStatus = 404;
+        return next();
+      }
+      if (!address.moved) return next();
+      const url = new URL(req.originalUrl, 'http://swapyard.invalid');
+      url.pathname = url.pathname.replace(/^\/swaps\/[^/]+/, `/swaps/${encodeURIComponent(address.slug)}`);
+      res.redirect(301, url.pathname + url.search);
+    };
+  router.get(pageRoutes.swap, page());
+  router.get(
+    pageRoutes.swapRevision,
+    page((req) => String(req.params.n)),
+  );
+  router.get(pageRoutes.swapCompare, page());
   return router;
 }

@@ -64,6 +64,18 @@ export function getSwapSheet(db: Db, slug: string, number?: number): SwapSheetVi
   };
 }
 
+/** Whether a reader may open revision `n` (as typed in an address) of the swap. */
+export function hasPublicRevision(db: Db, swapId: number, n: string): boolean {
+  if (!/^[1-9]\d{0,8}$/.test(n)) return false;
+  return (
+    db
+      .select({ id: revisions.id })
+      .from(revisions)
+      .where(and(eq(revisions.swapId, swapId), eq(revisions.number, Number(n)), inArray(revisions.status, [...publicStatuses])))
+      .get() !== undefined
+  );
+}
+
 export function recentSwaps(db: Db, limit: number): SwapCard[] {
   return swapCards(db, isNotNull(swaps.currentRevisionId), limit);
 }

@@ -25,7 +25,8 @@ function Logo() {
   );
 }
 
-export function Shell() {
+/** The frame of every page; `loading` while the first page's module arrives. */
+export function Shell({ loading = false }: { loading?: boolean }) {
   const [open, setOpen] = useState(false);
   const location = useLocation();
   const linkClass = ({ isActive }: { isActive: boolean }) =>
@@ -92,7 +93,13 @@ export function Shell() {
             </div>
           }
         >
-          <Outlet />
+          {loading ? (
+            <div className="mx-auto max-w-sheet px-4">
+              <Loading />
+            </div>
+          ) : (
+            <Outlet />
+          )}
         </Suspense>
       </main>
       <Footer />

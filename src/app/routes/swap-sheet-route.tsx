@@ -1,5 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
-import { useParams, useSearchParams } from 'react-router';
+import { Navigate, useLocation, useParams, useSearchParams } from 'react-router';
 import { can } from '@shared/roles';
 import { SwapSheet } from '../../features/swaps/components/swap-sheet-page';
 import { useSwap } from '../../features/swaps/api/get-swap';
@@ -14,6 +14,7 @@ import { usePinnedSheet } from '../../features/shops/api/shop-links';
 import { Page } from '../../components/ui/page';
 import { ErrorNotice, Loading } from '../../components/ui/query-state';
 import { ApiError } from '../../lib/api-client';
+import { paths } from '../../config/paths';
 
 /**
  * The swap sheet as the app composes it: the swaps feature's sheet, with the member's cars as wheel-check
@@ -30,6 +31,7 @@ export default function SwapSheetRoute() {
   const me = useMe();
   const user = me.data?.user ?? null;
   const qc = useQueryClient();
+  const location = useLocation();
   const presets = useCarWheelPresets(sheet.data?.chassis.slug ?? '', Boolean(user));
   const ownFigures = useCarFigures(Boolean(user));
 
@@ -47,6 +49,11 @@ export default function SwapSheetRoute() {
     );
 
   const view = sheet.data;
+  // an old address (the title has changed since): the server answered with the swap's current one
+  if (view.swap.slug !== slug) {
+    const to = location.pathname.replace(/^\/swaps\/[^/]+/, paths.swap(view.swap.slug));
+    return <Navigate replace to={`${to}${location.search}`} />;
+  }
   const pinnedView = pinned.data && pinned.data.sheet.swap.slug === view.swap.slug ? pinned.data : null;
   const banner = pinnedView ? (
     <ShopLinkBanner pinned={pinnedView} />

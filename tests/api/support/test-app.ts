@@ -10,12 +10,15 @@ import { createDiskStorage } from '../../../server/storage/disk-storage';
 import { createLogger } from '../../../server/lib/logger';
 import type { Clock } from '../../../server/lib/clock';
 import type { DestinationStream } from 'pino';
+import type { RequestHandler } from 'express';
 
 export type TestApp = Awaited<ReturnType<typeof makeTestApp>>;
 
 export type TestAppOptions = {
   /** where the app's real logger (createLogger: ISO times, redaction) writes its JSON lines; silent without it */
   logDestination?: DestinationStream;
+  /** the client's handlers (e.g. `staticClient` over a small built folder), for tests of page addresses */
+  client?: RequestHandler[];
 };
 
 /** A real app on a fresh SQLite file in a temp folder; each test file arranges its own rows. */
@@ -37,7 +40,7 @@ export async function makeTestApp(env: Record<string, string> = {}, clock?: Cloc
   const theClock = clock ?? { now: () => new Date() };
   const logger = options.logDestination ? createLogger('info', options.logDestination) : createLogger('silent');
   const mailer = createMailer({ db, clock: theClock, logger, config });
-  const app = createApp({ db, mailer, storage, clock: theClock, config, logger });
+  const app = createApp({ db, mailer, storage, clock: theClock, config, logger, client: options.client });
   return {
     app,
     db,

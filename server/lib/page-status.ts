@@ -1,0 +1,18 @@
+import type { Request, RequestHandler } from 'express';
+import { AppError } from './app-error';
+
+/**
+ * A page in front of the client that answers 404 when `load` finds nothing the reader may see there; the
+ * client still draws its own not-found page, the status just tells browsers and crawlers the truth.
+ */
+export function pageFound(load: (req: Request) => unknown): RequestHandler {
+  return (req, res, next) => {
+    try {
+      load(req);
+    } catch (err) {
+      if (!(err instanceof AppError && err.status === 404)) return next(err);
+      res.locals.pageStatus = 404;
+    }
+    next();
+  };
+}
