@@ -40,6 +40,8 @@ const markdownBody = markdownText().max(40_000, 'The write-up may be at most 40,
 export const createSubmissionSchema = z
   .object({
     swapSlug: z.string().max(120).optional(),
+    /** with `swapSlug`: the approved revision the correction was copied from (the swap's current one when absent) */
+    basedOnRevisionId: z.number().int().positive().optional(),
     chassisId: z.number().int().positive().optional(),
     newChassis: newChassisSchema.optional(),
     axle: axleSchema.optional(),
@@ -98,7 +100,16 @@ export type SubmissionView = {
   editable: boolean;
   /** an untouched draft the author was told about: when it will be removed unless saved or kept */
   expiresAt: string | null;
+  /** for a correction: the approved revision it started from (null when not recorded) */
+  basedOn: RevisionRef | null;
+  /**
+   * set while the swap's current revision is a newer one than this correction started from: it cannot be
+   * approved (it would undo that revision) until its author brings it up to date
+   */
+  behind: { current: RevisionRef } | null;
 };
+
+export type RevisionRef = { revisionId: number; number: number };
 
 /** GET /api/me/storage: bytes of the member's photos that count against their quota, and the quota */
 export type StorageUse = { usedBytes: number; quotaBytes: number };
@@ -153,6 +164,8 @@ export type ReviewDetail = {
   checks: CheckResult[];
   /** for a new revision of an approved swap: the current approved one to diff against */
   current: { number: number; data: SwapData; body: string } | null;
+  /** when the correction is behind: the revision it started from, to show what the newer approval changed */
+  basedOn: { number: number; data: SwapData; body: string } | null;
   history: { action: string; actor: PersonRef; note: string; at: string }[];
   canDecide: boolean;
 };
@@ -209,3 +222,25 @@ export type DecisionResponse = { revision: SubmissionView };
 export type BulkDeclineResponse = { declined: number[] };
 /** POST (201), PATCH and DELETE /api/submissions/:id/photos…: the revision's photos in order */
 export type PhotoListResponse = { photos: PhotoView[] };
+
+/** POST /api/submissions/:id/rebase — settle each conflict; `currentRevisionId` is the revision the author merged with */
+export const rebaseSubmissionSchema = z.object({
+  currentRevisionId: z.number().int().positive(),
+  choices: z
+    .record(z.string().min(1).max(300), z.enum(['theirs', 'mine']))
+    .refine((c) => Object.keys(c).length <= 2000, 'Too many choices')
+    .default({}),
+});
+export type RebaseSubmission = z.infer<typeof rebaseSubmissionSchema>;
+
+type MergeFieldView = { path: string; base: string | null; theirs: string | null; mine: string | null };
+/** GET /api/submissions/:id/rebase — the three-way merge of a correction with the revision approved since it started */
+export type RebasePreview = {
+  revision: RevisionRef;
+  base: RevisionRef & { data: SwapData; body: string };
+  current: RevisionRef & { data: SwapData; body: string };
+  /** settled without asking: from the newer approval, kept from the correction, or (write-up) both */
+  taken: (MergeFieldView & { from: 'theirs' | 'mine' | 'both' })[];
+  /** changed differently on both sides: the author picks one per field */
+  conflicts: MergeFieldView[];
+};

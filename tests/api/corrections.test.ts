@@ -163,23 +163,25 @@ describe('the migration that adds the rule', () => {
         .values({ slug: 's', chassisId: 1, axle: 'front', category: 'brakes', authorId: user.id, createdAt: now, updatedAt: now })
         .returning()
         .get();
+      // written with the columns the table had then (later migrations add more)
+      const insertOld = db.$client.prepare(
+        'insert into revisions (swap_id, number, author_id, status, data, created_at, updated_at) values (?, ?, ?, ?, ?, ?, ?)',
+      );
       for (const [number, status] of [
         [1, 'approved'],
         [2, 'draft'],
         [3, 'in_review'],
         [4, 'draft'],
       ] as const)
-        db.insert(revisions)
-          .values({
-            swapId: swap.id,
-            number,
-            authorId: user.id,
-            status,
-            data: swapData(`Revision ${number}`),
-            createdAt: now,
-            updatedAt: now,
-          })
-          .run();
+        insertOld.run(
+          swap.id,
+          number,
+          user.id,
+          status,
+          JSON.stringify(swapData(`Revision ${number}`)),
+          now.getTime(),
+          now.getTime(),
+        );
       migrate(db, { migrationsFolder: path.resolve(import.meta.dirname, '../../drizzle') });
       const rows = db.select().from(revisions).orderBy(revisions.number).all();
       expect(rows.map((r) => r.status)).toEqual(['approved', 'declined', 'declined', 'draft']);

@@ -59,6 +59,14 @@ export const revisions = sqliteTable(
       .notNull()
       .references((): AnySQLiteColumn => swaps.id, { onDelete: 'cascade' }),
     number: integer('number').notNull(),
+    /**
+     * for a correction: the approved revision it started from. Approval needs it to be the swap's current
+     * revision, so a correction never silently undoes one approved after it was started. Null for a new
+     * swap's first revision and for corrections written before this was recorded.
+     */
+    basedOnRevisionId: integer('based_on_revision_id').references((): AnySQLiteColumn => revisions.id, {
+      onDelete: 'set null',
+    }),
     authorId: integer('author_id')
       .notNull()
       .references(() => users.id),

@@ -24,7 +24,14 @@ import type {
 } from '../../../shared/schemas/submissions';
 import type { SwapData, SwapPart } from '../../../shared/schemas/swap-data';
 import { iso, personRef } from '../swaps/swap-views';
-import { checksFor, loadRevision, photoCounts, submissionView, type LoadedRevision } from '../submissions/submission-views';
+import {
+  behindConflict,
+  checksFor,
+  loadRevision,
+  photoCounts,
+  submissionView,
+  type LoadedRevision,
+} from '../submissions/submission-views';
 import { removeFiles, removeRevision, type SubmissionDeps } from '../submissions/submissions.service';
 import { slugify, uniqueSlug } from '../../lib/slugs';
 import { slugAfterApproval } from '../swaps/swap-slugs';
@@ -112,10 +119,20 @@ export function reviewDetail(deps: ReviewDeps, viewer: SessionUser, revisionId: 
     .where(eq(reviewEvents.revisionId, revisionId))
     .orderBy(asc(reviewEvents.at), asc(reviewEvents.id))
     .all();
+  const revision = submissionView(db, row, viewer);
+  const basedOn =
+    revision.behind && revision.basedOn
+      ? db
+          .select({ number: revisions.number, data: revisions.data, body: revisions.body })
+          .from(revisions)
+          .where(eq(revisions.id, revision.basedOn.revisionId))
+          .get()
+      : undefined;
   return {
-    revision: submissionView(db, row, viewer),
+    revision,
     checks: checksFor(db, row),
     current: currentRow ?? null,
+    basedOn: basedOn ?? null,
     history: history.map((h) => ({
       action: h.event.action,
       actor: personRef(h.actor),
@@ -215,16 +232,14 @@ export function approve(deps: ReviewDeps, actor: SessionUser, revisionId: number
   const now = clock.now();
   const cleanNote = stripHtml(note);
   db.transaction((tx) => {
-    // the swap as it is now, inside the write
+    // the swap as it is now, inside the write: approving a correction that started from an older revision
+    // than the current one would put back what the newer approval changed
     const swap = tx.select().from(swaps).where(eq(swaps.id, row.swap.id)).get()!;
+    const behind = behindConflict(tx as unknown as Db, { revision: row.revision, swap }, 'approve');
+    if (behind) throw behind;
     const previous = swap.currentRevisionId
       ? tx.select().from(revisions).where(eq(revisions.id, swap.currentRevisionId)).get()
       : undefined;
-    if (previous && previous.number > row.revision.number) {
-      throw AppError.conflict(
-        `Revision ${previous.number} was approved after this one was written; send this one back so its author can start from the current revision.`,
-      );
-    }
     const changed = tx
       .update(revisions)
       .set({

@@ -1,14 +1,15 @@
-import { and, eq, inArray, ne } from 'drizzle-orm';
+import { and, desc, eq, inArray, lt, ne } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { chassis, revisions, revisionPhotos, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
 import { canSeeUnpublishedRevision } from '../../../shared/roles';
 import type { SessionUser } from '../../middleware/require-role';
-import type { SubmissionView, CheckResult } from '../../../shared/schemas/submissions';
+import type { SubmissionView, CheckResult, RevisionRef } from '../../../shared/schemas/submissions';
 import type { RevisionStatus } from '../../../shared/schemas/enums';
 import type { SwapData } from '../../../shared/schemas/swap-data';
 import { automaticChecks, sameDonorCaliper } from '../../../shared/review-checks';
 import { chassisFigures } from '../../../shared/schemas/vehicle';
+import { mergeThreeWay, type MergeOutcome } from '../../../shared/revision-merge';
 import { chassisView, iso, personRef, photosOf } from '../swaps/swap-views';
 
 // Loading one revision with its swap, chassis and author, and the rules on who may see or change it.
@@ -56,6 +57,53 @@ export function assertEditable(user: SessionUser, row: LoadedRevision) {
   if (message) throw AppError.conflict(message);
 }
 
+const openStatuses: readonly RevisionStatus[] = ['draft', 'sent_back', 'in_review'];
+
+function revisionRef(db: Db, id: number | null): RevisionRef | null {
+  if (id === null) return null;
+  return (
+    db.select({ revisionId: revisions.id, number: revisions.number }).from(revisions).where(eq(revisions.id, id)).get() ?? null
+  );
+}
+
+/**
+ * The approved revision a correction started from. Corrections written before this was recorded are taken
+ * to have started from the newest approved revision numbered below them, the swap's current one when they
+ * were created unless an older correction was approved later.
+ */
+export function baseOf(db: Db, revision: Pick<RevisionRow, 'basedOnRevisionId' | 'swapId' | 'number'>): RevisionRef | null {
+  if (revision.basedOnRevisionId !== null) return revisionRef(db, revision.basedOnRevisionId);
+  if (revision.number === 1) return null;
+  return (
+    db
+      .select({ revisionId: revisions.id, number: revisions.number })
+      .from(revisions)
+      .where(
+        and(
+          eq(revisions.swapId, revision.swapId),
+          lt(revisions.number, revision.number),
+          inArray(revisions.status, ['approved', 'superseded']),
+        ),
+      )
+      .orderBy(desc(revisions.number))
+      .get() ?? null
+  );
+}
+
+/**
+ * An open correction is behind when the swap's current revision is not the one it started from: approving
+ * it as it is would put back what the newer approval changed.
+ */
+export function baseState(db: Db, row: Pick<LoadedRevision, 'revision' | 'swap'>): Pick<SubmissionView, 'basedOn' | 'behind'> {
+  const r = row.revision;
+  const basedOn = baseOf(db, r);
+  const currentId = row.swap.currentRevisionId;
+  if (!openStatuses.includes(r.status) || currentId === null || currentId === r.id || currentId === basedOn?.revisionId)
+    return { basedOn, behind: null };
+  const current = revisionRef(db, currentId);
+  return { basedOn, behind: current ? { current } : null };
+}
+
 export function submissionView(db: Db, row: LoadedRevision, viewer?: SessionUser): SubmissionView {
   const r = row.revision;
   return {
@@ -82,6 +130,7 @@ export function submissionView(db: Db, row: LoadedRevision, viewer?: SessionUser
       r.status === 'draft' && r.expiresAt && r.expiryWarnedAt && r.updatedAt < r.expiryWarnedAt
         ? r.expiresAt.toISOString()
         : null,
+    ...baseState(db, row),
   };
 }
 
@@ -122,4 +171,68 @@ export function checksFor(db: Db, row: LoadedRevision, photoCount?: number): Che
     category: row.swap.category,
     duplicates: likelyDuplicates(db, row.swap, row.revision.data),
   });
+}
+
+type Content = { data: SwapData; body: string };
+const contentOf = (db: Db, id: number): Content =>
+  db.select({ data: revisions.data, body: revisions.body }).from(revisions).where(eq(revisions.id, id)).get()!;
+
+/** The three-way merge of a behind correction (mine) with the swap's current revision (theirs), from its base. */
+export function mergeWithCurrent(
+  db: Db,
+  row: Pick<LoadedRevision, 'revision'>,
+  base: RevisionRef,
+  current: RevisionRef,
+  choices: Record<string, 'theirs' | 'mine'> = {},
+): MergeOutcome<Content> {
+  const mine: Content = { data: row.revision.data, body: row.revision.body };
+  return mergeThreeWay(contentOf(db, base.revisionId), contentOf(db, current.revisionId), mine, choices);
+}
+
+const MAX_FIELDS_LISTED = 40;
+const brief = (v: string | null, none: string) => (v === null ? none : v.length > 60 ? `${v.slice(0, 57)}…` : v);
+
+/**
+ * The 409 for a correction that is behind the swap's current revision, naming each field the newer approval
+ * changed that this correction would put back or also changed; null when it is up to date.
+ */
+export function behindConflict(
+  db: Db,
+  row: Pick<LoadedRevision, 'revision' | 'swap'>,
+  doing: 'approve' | 'submit',
+): AppError | null {
+  const { basedOn, behind } = baseState(db, row);
+  if (!behind) return null;
+  const { current } = behind;
+  const fields: Record<string, string> = {
+    basedOnRevisionId: basedOn
+      ? `This correction started from revision ${basedOn.number}; revision ${current.number} is the current one now.`
+      : `Revision ${current.number} was approved after this correction was written.`,
+  };
+  if (basedOn) {
+    const merge = mergeWithCurrent(db, row, basedOn, current);
+    const listed = [
+      ...merge.taken
+        .filter((f) => f.from === 'theirs')
+        .map(
+          (f) =>
+            [
+              f.path,
+              `Revision ${current.number} changed this (${brief(f.base, 'empty')} → ${brief(f.theirs, 'empty')}); this correction would put ${brief(f.base, 'nothing')} back.`,
+            ] as const,
+        ),
+      ...merge.conflicts.map((f) => [f.path, `Revision ${current.number} and this correction both changed this.`] as const),
+    ];
+    for (const [path, text] of listed.slice(0, MAX_FIELDS_LISTED)) fields[path] = text;
+  }
+  const next =
+    doing === 'approve'
+      ? 'Send it back so its author can bring it up to date; approving it now would undo that revision.'
+      : 'Bring it up to date first: the merge keeps both sides’ changes and asks you where they differ.';
+  return new AppError(
+    'behind_current',
+    `Revision ${current.number} of this swap was approved after this correction was started. ${next}`,
+    409,
+    fields,
+  );
 }

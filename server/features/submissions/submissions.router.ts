@@ -6,7 +6,12 @@ import { validated } from '../../middleware/validate';
 import { requirePermission, requireUser } from '../../middleware/require-role';
 import { perUserLimit } from '../../middleware/rate-limit';
 import { idParamSchema, photoIdSchema } from '../../../shared/schemas/params';
-import { createSubmissionSchema, photoOrderSchema, updateSubmissionSchema } from '../../../shared/schemas/submissions';
+import {
+  createSubmissionSchema,
+  photoOrderSchema,
+  rebaseSubmissionSchema,
+  updateSubmissionSchema,
+} from '../../../shared/schemas/submissions';
 import { MAX_PHOTO_BYTES } from '../photos/photo-processing';
 import { readUpload } from '../photos/photo-upload';
 import { storageUse } from '../photos/storage-quota';
@@ -28,6 +33,7 @@ import {
   parseCaptions,
   updatePhotos,
 } from './submission-photos.service';
+import { rebasePreview, rebaseSubmission } from './submission-rebase.service';
 
 const idParams = z.object({ id: idParamSchema });
 const photoParams = z.object({ id: idParamSchema, photoId: photoIdSchema });
@@ -94,6 +100,22 @@ export function submissionsRouter({ db, clock, mailer, storage, logger, config }
     requirePermission('submit'),
     validated({ params: idParams }, ({ params }, req, res) => {
       res.json(keepDraft(deps, req.user!, params.id));
+    }),
+  );
+
+  router.get(
+    '/submissions/:id/rebase',
+    requirePermission('submit'),
+    validated({ params: idParams }, ({ params }, req, res) => {
+      res.set('Cache-Control', 'private, no-store').json(rebasePreview(db, req.user!, params.id));
+    }),
+  );
+
+  router.post(
+    '/submissions/:id/rebase',
+    requirePermission('submit'),
+    validated({ params: idParams, body: rebaseSubmissionSchema }, ({ params, body }, req, res) => {
+      res.json(rebaseSubmission(deps, req.user!, params.id, body));
     }),
   );
 

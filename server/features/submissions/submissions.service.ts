@@ -23,7 +23,15 @@ import type {
 import { removePhotoFiles, thumbId } from '../photos/photo-files';
 import { slugify, uniqueSlug } from '../../lib/slugs';
 import { newSwapSlug, swapSlugBase } from '../swaps/swap-slugs';
-import { assertEditable, loadRevision, revisionFor, submissionView, type LoadedRevision, type SwapRow } from './submission-views';
+import {
+  assertEditable,
+  behindConflict,
+  loadRevision,
+  revisionFor,
+  submissionView,
+  type LoadedRevision,
+  type SwapRow,
+} from './submission-views';
 
 export type SubmissionDeps = { db: Db; clock: Clock; mailer: Mailer; storage: Storage; logger: Logger; appUrl: string };
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
@@ -32,13 +40,13 @@ type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
  * Raw HTML and invisible format characters (bidi overrides and the like) leave every string of the record
  * and the write-up; the cleaned record is checked again.
  */
-function cleanRecord(data: SwapData, body: string): { data: SwapData; body: string } {
+export function cleanRecord(data: SwapData, body: string): { data: SwapData; body: string } {
   const parsed = swapDataSchema.safeParse(neutraliseDeep(stripHtmlDeep(data)));
   if (!parsed.success) throw new ZodError(parsed.error.issues.map((i) => ({ ...i, path: ['data', ...i.path] })));
   return { data: parsed.data, body: stripHtml(body) };
 }
 
-function checkPartIds(db: Db | Tx, data: SwapData) {
+export function checkPartIds(db: Db | Tx, data: SwapData) {
   const ids = [...new Set(data.parts.flatMap((p) => (p.partId ? [p.partId] : [])))];
   if (ids.length === 0) return;
   const known = new Set(
@@ -172,6 +180,24 @@ function refuseSwapLevelChanges(swap: SwapRow, input: Pick<UpdateSubmission, 'ch
   if (Object.keys(fields).length) throw AppError.invalid(message, fields);
 }
 
+/**
+ * The approved revision a new correction starts from: the one the member's form was filled from, when the
+ * request names it (it may have been superseded since), else the swap's current one.
+ */
+function correctionBase(db: Db, swap: SwapRow, named: number | undefined): number {
+  if (named === undefined || named === swap.currentRevisionId) return swap.currentRevisionId!;
+  const row = db
+    .select({ swapId: revisions.swapId, status: revisions.status })
+    .from(revisions)
+    .where(eq(revisions.id, named))
+    .get();
+  if (!row || row.swapId !== swap.id || !['approved', 'superseded'].includes(row.status))
+    throw AppError.invalid('A correction starts from an approved revision of the same swap.', {
+      basedOnRevisionId: 'That is not an approved revision of this swap.',
+    });
+  return named;
+}
+
 /** POST /api/submissions: a new swap with its draft revision 1, or with `swapSlug` a draft correction N+1 of an approved swap. */
 export async function createSubmission(
   deps: SubmissionDeps,
@@ -190,6 +216,7 @@ export async function createSubmission(
     // a quick answer for the common case; the unique index decides when requests race (below)
     const open = openRevisionConflict(db, swap.id, user.id);
     if (open) throw open;
+    const basedOnRevisionId = correctionBase(db, swap, input.basedOnRevisionId);
     // the correction starts with copies of the current revision's photos, so it can change them without touching the approved one
     const copies = await copyPhotos(deps, swap.currentRevisionId);
     try {
@@ -205,6 +232,7 @@ export async function createSubmission(
           .values({
             swapId: swap.id,
             number: last + 1,
+            basedOnRevisionId,
             authorId: user.id,
             status: 'draft',
             data,
@@ -328,6 +356,8 @@ export function submitForReview(deps: SubmissionDeps, user: SessionUser, id: num
   const { db, clock } = deps;
   const row = revisionFor(db, user, id);
   assertEditable(user, row);
+  const behind = behindConflict(db, row, 'submit');
+  if (behind) throw behind;
   const now = clock.now();
   db.transaction((tx) => {
     tx.update(revisions)
