@@ -20,6 +20,7 @@ export const pageRoutes = {
   signInFailed: '/signin-failed',
   submit: '/submit',
   editSubmission: '/submissions/:id/edit',
+  updateSubmission: '/submissions/:id/update',
   mySubmissions: '/me/submissions',
   review: '/review',
   reviewRevision: '/review/:revisionId',

@@ -17,6 +17,14 @@ function diffLeaves(before: unknown, after: unknown, prefix: string): LeafChange
   const changes: LeafChange[] = [];
   const walk = (a: unknown, b: unknown, path: string) => {
     if (dequal(a, b)) return;
+    const key = rowKeyOf(a, b);
+    if (key) {
+      const named = (list: unknown) =>
+        new Map((Array.isArray(list) ? (list as Record<string, unknown>[]) : []).map((r) => [r[key] as string, r]));
+      const [ra, rb] = [named(a), named(b)];
+      for (const k of new Set([...ra.keys(), ...rb.keys()])) walk(ra.get(k), rb.get(k), `${path}[${k}]`);
+      return;
+    }
     const objA = a !== null && typeof a === 'object';
     const objB = b !== null && typeof b === 'object';
     if (objA || objB) {
@@ -58,10 +66,32 @@ function mergeText(base: string, theirs: string, mine: string): string | null {
   return merged === false ? null : merged;
 }
 
+/** rows are matched by what they are, never by position: */
+const rowKeys = ['id', 'fastenerId'] as const;
+
 /**
- * Merges `theirs` and `mine` against `base`, field by field. Groups recurse by key; lists recurse by position
- * when all three have the same length (an edit of one row leaves the others alone) and are otherwise one field,
- * since a row added or removed shifts every position after it. `choices` settles conflicts by path.
+ * The field that names each row of all three lists (a fastener's id, a torque line's fastener), when every
+ * row has one and no list holds it twice; null for any other list.
+ */
+function rowKeyOf(...lists: unknown[]): string | null {
+  if (!lists.every((l) => Array.isArray(l) || l === undefined || l === null)) return null;
+  const rows = lists.flatMap((l) => (Array.isArray(l) ? [l as unknown[]] : []));
+  if (rows.length < 2) return null;
+  return (
+    rowKeys.find((key) =>
+      rows.every((list) => {
+        const names = list.map((r) => (isRecord(r) && typeof r[key] === 'string' ? r[key] : null));
+        return names.every((n) => n !== null) && new Set(names).size === names.length;
+      }),
+    ) ?? null
+  );
+}
+
+/**
+ * Merges `theirs` and `mine` against `base`, field by field. Groups recurse by key. Lists whose rows name
+ * themselves (fasteners by id, torque lines by fastener) recurse row by row, matched by that name; any other
+ * list is one field, since pairing its rows by position would attach one side's edit to the wrong row once
+ * the other side added, removed or reordered rows. `choices` settles conflicts by path.
  */
 export function mergeThreeWay<T>(base: T, theirs: T, mine: T, choices: Record<string, MergeSide> = {}): MergeOutcome<T> {
   const taken: MergeOutcome<T>['taken'] = [];
@@ -97,8 +127,19 @@ export function mergeThreeWay<T>(base: T, theirs: T, mine: T, choices: Record<st
       }
       return out;
     }
-    if (Array.isArray(t) && Array.isArray(m) && Array.isArray(b) && t.length === m.length && m.length === b.length)
-      return m.map((item, i) => walk(b[i], t[i], item, join(path, i)));
+    const key = rowKeyOf(b, t, m);
+    if (key) {
+      const rows = (list: unknown) =>
+        new Map((Array.isArray(list) ? (list as Record<string, unknown>[]) : []).map((r) => [r[key] as string, r]));
+      const [rb, rt, rm] = [rows(b), rows(t), rows(m)];
+      // the correction's order, then rows only the newer approval added
+      const keys = [...rm.keys(), ...[...rt.keys()].filter((k) => !rm.has(k) && !rb.has(k))];
+      for (const k of rb.keys()) if (!keys.includes(k)) keys.push(k);
+      return keys.flatMap((k) => {
+        const v = walk(rb.get(k), rt.get(k), rm.get(k), `${path}[${k}]`);
+        return v === undefined ? [] : [v];
+      });
+    }
     if (typeof b === 'string' && typeof t === 'string' && typeof m === 'string' && /\n/.test(b + t + m)) {
       const text = mergeText(b, t, m);
       if (text !== null) {

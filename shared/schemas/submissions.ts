@@ -239,6 +239,8 @@ export type RebasePreview = {
   revision: RevisionRef;
   base: RevisionRef & { data: SwapData; body: string };
   current: RevisionRef & { data: SwapData; body: string };
+  /** the correction as it is now */
+  mine: { data: SwapData; body: string };
   /** settled without asking: from the newer approval, kept from the correction, or (write-up) both */
   taken: (MergeFieldView & { from: 'theirs' | 'mine' | 'both' })[];
   /** changed differently on both sides: the author picks one per field */

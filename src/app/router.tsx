@@ -26,6 +26,7 @@ const pageModules: Record<Exclude<PageName, 'home'>, PageModule> = {
   signInFailed: () => import('../features/account/components/sign-in-failed-page'),
   submit: () => import('./routes/submit'),
   editSubmission: () => import('./routes/edit-submission'),
+  updateSubmission: () => import('./routes/update-submission'),
   mySubmissions: () => import('./routes/my-submissions'),
   review: () => import('./routes/review-desk'),
   reviewRevision: () => import('./routes/review-revision'),

@@ -7,7 +7,8 @@ import { formatMoney } from '../lib/money';
 
 type Revision = { data: SwapData; body: string };
 
-function useShow() {
+/** Formats a change's value in the reader's units. */
+export function useShowChangeValue() {
   const units = useUnits();
   const imperial = units.system === 'imperial';
   return (v: ChangeValue): string => {
@@ -162,7 +163,7 @@ export function RevisionChanges({
   after: Revision;
   idPrefix?: string;
 }) {
-  const show = useShow();
+  const show = useShowChangeValue();
   const changes = useMemo(() => compareRevisions(before, after), [before, after]);
   const count = changes.sections.reduce((n, s) => n + s.rows.length, 0);
   if (count === 0 && changes.writeUp.length === 0)

@@ -13,6 +13,8 @@ export const paths = {
   tools: () => '/tools',
   submit: () => '/submit',
   editSubmission: (id: number) => `/submissions/${id}/edit`,
+  /** a correction behind the swap's current revision, merged with it */
+  updateSubmission: (id: number) => `/submissions/${id}/update`,
   mySubmissions: () => '/me/submissions',
   myCars: () => '/me/cars',
   review: () => '/review',

@@ -88,7 +88,7 @@ describe('two corrections of the same revision', () => {
     expect(refused.body.error.code).toBe('behind_current');
     expect(refused.body.error.message).toMatch(/Revision 2 .* approved after this correction was started/);
     expect(refused.body.error.fields.basedOnRevisionId).toMatch(/started from revision 1; revision 2 is the current one/);
-    expect(refused.body.error.fields['data.torque.1.nm']).toMatch(
+    expect(refused.body.error.fields['data.torque[bracket-bolts].nm']).toMatch(
       /changed this \(110 → 95\); this correction would put 110 back/,
     );
     // nothing moved: the first correction's figure stands and the second is still in review
@@ -111,7 +111,7 @@ describe('two corrections of the same revision', () => {
     expect(preview.body.conflicts).toEqual([]);
     expect(preview.body.taken).toEqual(
       expect.arrayContaining([
-        { path: 'data.torque.1.nm', base: '110', theirs: '95', mine: '110', from: 'theirs' },
+        { path: 'data.torque[bracket-bolts].nm', base: '110', theirs: '95', mine: '110', from: 'theirs' },
         expect.objectContaining({ path: 'data.title', from: 'mine' }),
       ]),
     );
@@ -138,25 +138,25 @@ describe('two corrections of the same revision', () => {
     const submit = await send(paul, 'post', `/api/submissions/${second}/submit`);
     expect(submit.status).toBe(409);
     expect(submit.body.error.code).toBe('behind_current');
-    expect(submit.body.error.fields['data.torque.1.nm']).toMatch(/both changed this/);
+    expect(submit.body.error.fields['data.torque[bracket-bolts].nm']).toMatch(/both changed this/);
 
     const preview = await send(paul, 'get', `/api/submissions/${second}/rebase`);
-    expect(preview.body.conflicts).toEqual([{ path: 'data.torque.1.nm', base: '110', theirs: '95', mine: '100' }]);
+    expect(preview.body.conflicts).toEqual([{ path: 'data.torque[bracket-bolts].nm', base: '110', theirs: '95', mine: '100' }]);
 
     const unpicked = await send(paul, 'post', `/api/submissions/${second}/rebase`, { currentRevisionId: first });
     expect(unpicked.status).toBe(400);
-    expect(unpicked.body.error.fields['data.torque.1.nm']).toMatch(/pick one/);
+    expect(unpicked.body.error.fields['data.torque[bracket-bolts].nm']).toMatch(/pick one/);
 
     const moved = await send(paul, 'post', `/api/submissions/${second}/rebase`, {
       currentRevisionId: swap.revisionIds[0],
-      choices: { 'data.torque.1.nm': 'mine' },
+      choices: { 'data.torque[bracket-bolts].nm': 'mine' },
     });
     expect(moved.status).toBe(409);
     expect(moved.body.error.code).toBe('record_moved');
 
     const picked = await send(paul, 'post', `/api/submissions/${second}/rebase`, {
       currentRevisionId: first,
-      choices: { 'data.torque.1.nm': 'mine' },
+      choices: { 'data.torque[bracket-bolts].nm': 'mine' },
     });
     expect(picked.status).toBe(200);
     expect(bracketNm(picked.body.data)).toBe(100);

@@ -25,7 +25,7 @@ describe('mergeThreeWay', () => {
     expect(out.value.title).toBe('Vela four-piston calipers on the H31');
     expect(out.taken).toEqual(
       expect.arrayContaining([
-        { path: 'torque.0.nm', base: '110', theirs: '95', mine: '110', from: 'theirs' },
+        { path: 'torque[bracket].nm', base: '110', theirs: '95', mine: '110', from: 'theirs' },
         { path: 'title', base: base.title, theirs: base.title, mine: mine.title, from: 'mine' },
       ]),
     );
@@ -37,6 +37,48 @@ describe('mergeThreeWay', () => {
     const out = mergeThreeWay(base, theirs, mine);
     expect(out.conflicts).toEqual([]);
     expect(out.value.torque.map((r) => r.nm)).toEqual([95, 125]);
+  });
+
+  it('when the correction reordered the torque lines and the newer approval changed one, then the change lands on the same fastener', () => {
+    const theirs = { ...base, torque: [{ fastenerId: 'bracket', nm: 95 }, base.torque[1]!] };
+    const mine = { ...base, torque: [base.torque[1]!, base.torque[0]!] };
+    const out = mergeThreeWay(base, theirs, mine);
+    expect(out.conflicts).toEqual([]);
+    expect(out.value.torque).toEqual([
+      { fastenerId: 'wheel', nm: 120 },
+      { fastenerId: 'bracket', nm: 95 },
+    ]);
+  });
+
+  it('when one side added a torque line and the other changed another, then both are kept', () => {
+    const theirs = { ...base, torque: [...base.torque, { fastenerId: 'banjo', nm: 9 }] };
+    const mine = { ...base, torque: [{ fastenerId: 'bracket', nm: 100 }, base.torque[1]!] };
+    const out = mergeThreeWay(base, theirs, mine);
+    expect(out.conflicts).toEqual([]);
+    expect(out.value.torque).toEqual([
+      { fastenerId: 'bracket', nm: 100 },
+      { fastenerId: 'wheel', nm: 120 },
+      { fastenerId: 'banjo', nm: 9 },
+    ]);
+  });
+
+  it('when one side removed a torque line the other changed, then it is a conflict over that line', () => {
+    const theirs = { ...base, torque: [base.torque[0]!] };
+    const mine = { ...base, torque: [base.torque[0]!, { fastenerId: 'wheel', nm: 125 }] };
+    const out = mergeThreeWay(base, theirs, mine);
+    expect(out.conflicts.map((c) => c.path)).toEqual(['torque[wheel]']);
+    expect(mergeThreeWay(base, theirs, mine, { 'torque[wheel]': 'theirs' }).value.torque).toEqual([base.torque[0]]);
+  });
+
+  it('when both sides changed different rows of a list whose rows do not name themselves, then the whole list is one field', () => {
+    const parts = [
+      { name: 'Vela caliper', quantity: 2 },
+      { name: 'Regent rotor', quantity: 2 },
+    ];
+    const theirs = { parts: [{ ...parts[0]!, quantity: 1 }, parts[1]!] };
+    const mine = { parts: [parts[1]!, parts[0]!] };
+    const out = mergeThreeWay({ parts }, theirs, mine);
+    expect(out.conflicts.map((c) => c.path)).toEqual(['parts']);
   });
 
   it('when both sides changed the same figure differently, then it is a conflict that keeps the correction until a choice is made', () => {

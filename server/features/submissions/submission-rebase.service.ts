@@ -40,6 +40,7 @@ export function rebasePreview(db: Db, user: SessionUser, id: number): RebasePrev
     revision: { revisionId: row.revision.id, number: row.revision.number },
     base: contentOf(db, base),
     current: contentOf(db, current),
+    mine: { data: row.revision.data, body: row.revision.body },
     taken: merge.taken,
     conflicts: merge.conflicts,
   };

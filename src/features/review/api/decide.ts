@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import { api, ApiError } from '../../../lib/api-client';
 import { reviewKeys } from './review-keys';
 
 export type Decision = 'approve' | 'send-back' | 'decline';
@@ -20,6 +20,11 @@ export function useDecide(revisionId: number) {
         queryClient.invalidateQueries({ queryKey: ['swaps'] }),
         queryClient.invalidateQueries({ queryKey: ['search-index'] }),
       ]);
+    },
+    onError: async (err) => {
+      // another correction was approved meanwhile: the page shows what it changed
+      if (err instanceof ApiError && err.code === 'behind_current')
+        await queryClient.invalidateQueries({ queryKey: reviewKeys.detail(revisionId) });
     },
   });
 }

@@ -19,8 +19,14 @@ const doneWords: Record<Decision, string> = { approve: 'Approved', 'send-back': 
 
 /** Approve, send back or decline one revision; the author is told by e-mail. */
 export function DecisionPanel({ revision, canDecide }: { revision: SubmissionView; canDecide: boolean }) {
-  const [decision, setDecision] = useState<Decision>('approve');
-  const [note, setNote] = useState('');
+  const { behind } = revision;
+  // a correction behind the current revision cannot be approved: sending it back is the way on
+  const [decision, setDecision] = useState<Decision>(behind ? 'send-back' : 'approve');
+  const [note, setNote] = useState(
+    behind
+      ? `Revision ${behind.current.number} was approved after you started this correction. Please bring it up to date (your draft offers the merge) and send it again.`
+      : '',
+  );
   const [error, setError] = useState<string | null>(null);
   const [done, setDone] = useState<Decision | null>(null);
   const noteRef = useRef<HTMLDivElement>(null);
@@ -82,25 +88,31 @@ export function DecisionPanel({ revision, canDecide }: { revision: SubmissionVie
       <form onSubmit={(e) => void send(e)} className="mt-3 space-y-4" noValidate>
         <fieldset className="space-y-2">
           <legend className="sr-only">Decision</legend>
-          {choices.map((c) => (
-            <label
-              key={c.value}
-              className={`flex cursor-pointer items-start gap-2 rounded-lg border p-2 text-sm ${decision === c.value ? 'border-ink bg-ink-faint/50' : 'border-graphite/15'}`}
-            >
-              <input
-                type="radio"
-                name="decision"
-                value={c.value}
-                checked={decision === c.value}
-                onChange={() => setDecision(c.value)}
-                className="mt-1 h-4 w-4 accent-ink"
-              />
-              <span>
-                <span className="font-bold">{c.label}</span>
-                <span className="block text-xs text-graphite-soft">{c.hint}</span>
-              </span>
-            </label>
-          ))}
+          {choices.map((c) => {
+            const blocked = c.value === 'approve' && behind !== null;
+            return (
+              <label
+                key={c.value}
+                className={`flex items-start gap-2 rounded-lg border p-2 text-sm ${blocked ? 'cursor-not-allowed opacity-60' : 'cursor-pointer'} ${decision === c.value ? 'border-ink bg-ink-faint/50' : 'border-graphite/15'}`}
+              >
+                <input
+                  type="radio"
+                  name="decision"
+                  value={c.value}
+                  checked={decision === c.value}
+                  disabled={blocked}
+                  onChange={() => setDecision(c.value)}
+                  className="mt-1 h-4 w-4 accent-ink"
+                />
+                <span>
+                  <span className="font-bold">{c.label}</span>
+                  <span className="block text-xs text-graphite-soft">
+                    {blocked ? `Not until its author brings it up to date with revision ${behind.current.number}.` : c.hint}
+                  </span>
+                </span>
+              </label>
+            );
+          })}
         </fieldset>
         {needsReason && <Templates onInsert={insert} />}
         <div ref={noteRef}>

@@ -121,7 +121,8 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
         <ErrorNotice error={query.error} />
       </Page>
     );
-  const { revision, checks, current, history, canDecide } = query.data;
+  const { revision, checks, current, basedOn, history, canDecide } = query.data;
+  const behind = revision.behind && basedOn ? { base: basedOn, current: revision.behind.current } : null;
   return (
     <Page
       title={`Review: ${revision.data.title}`}
@@ -148,8 +149,45 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
       </p>
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-10">
+          {behind && (
+            <section
+              aria-labelledby="behind-h"
+              className="rounded-xl border-l-4 border-oxide bg-oxide-soft/40 p-4"
+              data-testid="behind-current"
+            >
+              <h2 id="behind-h" className="text-xl font-extrabold text-ink">
+                The record moved on
+              </h2>
+              <p className="mt-2 text-graphite">
+                This correction started from revision {behind.base.number}; revision {behind.current.number} was approved since.
+                Approving it as it is would put back what revision {behind.current.number} changed, so it cannot be approved until
+                its author brings it up to date. Send it back: they are offered a merge that keeps both sides’ changes and asks
+                them where the two differ.
+              </p>
+            </section>
+          )}
           <Checks checks={checks} />
-          {current && (
+          {behind && current && (
+            <section aria-labelledby="newer-h">
+              <h2 id="newer-h" className="mb-3 text-xl font-extrabold text-ink">
+                What revision {behind.current.number} changed since revision {behind.base.number}
+              </h2>
+              <RevisionChanges before={behind.base} after={current} idPrefix="newer-changes" />
+            </section>
+          )}
+          {behind && (
+            <section aria-labelledby="diff-h">
+              <h2 id="diff-h" className="mb-3 text-xl font-extrabold text-ink">
+                What this correction changes in revision {behind.base.number}
+              </h2>
+              <RevisionChanges
+                before={behind.base}
+                after={{ data: revision.data, body: revision.body }}
+                idPrefix="review-changes"
+              />
+            </section>
+          )}
+          {!behind && current && (
             <section aria-labelledby="diff-h">
               <h2 id="diff-h" className="mb-3 text-xl font-extrabold text-ink">
                 What this correction changes in revision {current.number}
@@ -160,7 +198,7 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
           <History history={history} />
         </div>
         <div className="lg:sticky lg:top-4 lg:self-start">
-          <DecisionPanel revision={revision} canDecide={canDecide} />
+          <DecisionPanel key={behind ? 'behind' : 'current'} revision={revision} canDecide={canDecide} />
         </div>
       </div>
       <section aria-labelledby="sheet-h" className="mt-12 rounded-2xl border-2 border-dashed border-ink/20">

@@ -39,6 +39,13 @@ export function LockedSubmission({ view }: { view: SubmissionView }) {
           {when && <span className="text-sm text-graphite-soft">Sent {when}</span>}
         </div>
         <p className="mt-3 text-graphite">{explain[view.status]}</p>
+        {view.behind && (
+          <p className="mt-2 text-sm text-graphite" data-testid="behind-current">
+            Revision {view.behind.current.number} was approved after you started this correction, so it cannot be approved as it
+            is. The moderator will send it back; you then bring it up to date with revision {view.behind.current.number} in a few
+            clicks.
+          </p>
+        )}
         {view.reviewNote && (view.status === 'declined' || view.status === 'approved') && (
           <p className="mt-2 whitespace-pre-wrap text-sm text-graphite">
             <strong>Moderator’s note:</strong> {view.reviewNote}

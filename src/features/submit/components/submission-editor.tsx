@@ -7,7 +7,7 @@ import type { ChassisView, SwapSheetView } from '@shared/schemas/views';
 import { revisionStatusLabels, type Axle, type Category } from '@shared/schemas/enums';
 import { Page } from '../../../components/ui/page';
 import { Badge } from '../../../components/ui/badge';
-import { Button } from '../../../components/ui/button';
+import { Button, ButtonLink } from '../../../components/ui/button';
 import { Caution } from '../../../components/caution';
 import { ApiError } from '../../../lib/api-client';
 import { paths } from '../../../config/paths';
@@ -104,6 +104,7 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
     form,
     submissionId: view?.id ?? null,
     swapSlug,
+    basedOnRevisionId: mode.kind === 'correction' ? mode.swap.revision.id : null,
     enabled: true,
     backupKey,
     savedValues: view && !handedOver ? initial : null,
@@ -158,6 +159,9 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
         window.scrollTo({ top: 0 });
       } catch (err) {
         if (err instanceof ApiError) {
+          // a newer revision was approved meanwhile: the refreshed view offers the merge
+          if (err.code === 'behind_current' && view)
+            await queryClient.invalidateQueries({ queryKey: submissionKeys.detail(view.id) });
           for (const [path, message] of Object.entries(err.fields))
             form.setError(formPathOf(path) as never, { type: 'server', message });
           setSendError(err.message);
@@ -225,6 +229,18 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
         </div>
       }
     >
+      {view?.behind && (
+        <div role="alert" className="mb-6 rounded-xl border-l-4 border-oxide bg-oxide-soft/40 p-4" data-testid="behind-current">
+          <h2 className="font-extrabold text-ink">Revision {view.behind.current.number} was approved since you started</h2>
+          <p className="mt-2 text-graphite">
+            Your correction started from revision {view.basedOn?.number ?? 'an older revision'}. Bring it up to date before you
+            send it: what only one of you changed is kept, and where you both changed the same thing you pick which stays.
+          </p>
+          <ButtonLink to={paths.updateSubmission(view.id)} className="mt-3">
+            Bring it up to date
+          </ButtonLink>
+        </div>
+      )}
       {view?.status === 'sent_back' && (
         <div role="alert" className="mb-6 rounded-xl border-l-4 border-brass bg-brass-soft/40 p-4">
           <h2 className="font-extrabold text-ink">A moderator sent this back with these reasons</h2>

@@ -45,6 +45,8 @@ type Options = {
   form: UseFormReturn<FormValues>;
   submissionId: number | null;
   swapSlug: string | null;
+  /** for a new correction: the approved revision the form was filled from */
+  basedOnRevisionId?: number | null;
   enabled: boolean;
   backupKey: string;
   /** return true when another editor takes the new draft over; this one then stops saving */
@@ -65,6 +67,7 @@ export function useAutosave({
   form,
   submissionId,
   swapSlug,
+  basedOnRevisionId = null,
   enabled,
   backupKey,
   onCreated,
@@ -119,7 +122,7 @@ export function useAutosave({
         void _slug;
         view = await updateSubmission(idRef.current, rest as UpdateSubmission);
       } else {
-        view = await createSubmission(parsed.payload);
+        view = await createSubmission(basedOnRevisionId ? { ...parsed.payload, basedOnRevisionId } : parsed.payload);
         idRef.current = view.id;
         if (callbacks.current.onCreated(view) === true) handedOff.current = true;
       }
@@ -142,7 +145,7 @@ export function useAutosave({
       });
       return null;
     }
-  }, [form, swapSlug, backupKey, setState]);
+  }, [form, swapSlug, basedOnRevisionId, backupKey, setState]);
 
   const run = useCallback((): Promise<SubmissionView | null> => {
     // after a hand-over the adopting editor saves; two savers could land out of order
