@@ -7,6 +7,7 @@ import { Page } from '../../../components/ui/page';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice, Loading } from '../../../components/ui/query-state';
 import { RevisionChanges, useShowChangeValue } from '../../../components/revision-changes';
+import { Caution } from '../../../components/caution';
 import { ApiError } from '../../../lib/api-client';
 import { paths } from '../../../config/paths';
 import { useRebasePreview, useRebaseSubmission } from '../api/rebase-submission';
@@ -207,6 +208,16 @@ function Merge({ id, preview }: { id: number; preview: RebasePreview }) {
             ? `${picked} of ${conflicts.length} picked. Everything else merges on its own: your changes stay, and so do revision ${n}’s.`
             : `None of your changes touch what revision ${n} changed, so both are kept.`}
         </p>
+        {conflicts.length > 0 && (
+          <div className="mb-3">
+            <Caution topics={['fasteners']}>
+              <p className="mt-2">
+                Where you and revision {n} give different figures, keep the one you can back with the maker’s specification or a
+                measurement; say where it comes from in the write-up.
+              </p>
+            </Caution>
+          </div>
+        )}
         {conflicts.length > 0 && (
           <ol className="space-y-3">
             {conflicts.map((c, i) => (
