@@ -10,7 +10,7 @@ import { makeTestApp, type TestApp } from './support/test-app';
 import { listen, signedInMember, type Agent, type Member } from './support/auth-helpers';
 import { addChassis } from './support/swap-fixtures';
 import { addSwap, swapData } from './support/swap-rows';
-import { revisionPhotos, revisions, swaps, users } from '../../server/db/schema/index';
+import { revisionPhotos, revisions } from '../../server/db/schema/index';
 import { closeDb, openDb } from '../../server/db/client';
 import { processPhoto } from '../../server/features/photos/photo-processing';
 
@@ -151,20 +151,27 @@ describe('the migration that adds the rule', () => {
       fs.writeFileSync(journalFile, JSON.stringify({ ...journal, entries: journal.entries.slice(0, ruleAt) }));
       const db = openDb(path.join(dir, 'old.db'));
       migrate(db, { migrationsFolder: before });
-      const now = new Date();
-      const user = db
-        .insert(users)
-        .values({ provider: 'github', providerId: 'demo-x', login: 'camber_kai', createdAt: now, updatedAt: now })
-        .returning()
-        .get();
-      addChassis(db);
-      const swap = db
-        .insert(swaps)
-        .values({ slug: 's', chassisId: 1, axle: 'front', category: 'brakes', authorId: user.id, createdAt: now, updatedAt: now })
-        .returning()
-        .get();
-      // written with the columns the table had then (later migrations add more)
-      const insertOld = db.$client.prepare(
+      // rows written with the columns the tables had then: later migrations add more
+      const now = Date.now();
+      const sqlite = db.$client;
+      const userId = sqlite
+        .prepare(
+          "insert into users (provider, provider_id, login, created_at, updated_at) values ('github', 'demo-x', 'camber_kai', ?, ?)",
+        )
+        .run(now, now).lastInsertRowid;
+      const chassisId = sqlite
+        .prepare(
+          `insert into chassis (slug, make, model, code, year_from, lug_count, pcd_mm, centre_bore_mm, wheel_bolt_thread,
+             stock_wheel, stock_brakes, created_at, updated_at)
+           values ('halden-h31', 'Halden', 'H31', 'H31', 1991, 5, 112, 66.6, 'M12x1.5', '{}', '{}', ?, ?)`,
+        )
+        .run(now, now).lastInsertRowid;
+      const swapId = sqlite
+        .prepare(
+          "insert into swaps (slug, chassis_id, axle, category, author_id, created_at, updated_at) values ('s', ?, 'front', 'brakes', ?, ?, ?)",
+        )
+        .run(chassisId, userId, now, now).lastInsertRowid;
+      const insertOld = sqlite.prepare(
         'insert into revisions (swap_id, number, author_id, status, data, created_at, updated_at) values (?, ?, ?, ?, ?, ?, ?)',
       );
       for (const [number, status] of [
@@ -173,15 +180,7 @@ describe('the migration that adds the rule', () => {
         [3, 'in_review'],
         [4, 'draft'],
       ] as const)
-        insertOld.run(
-          swap.id,
-          number,
-          user.id,
-          status,
-          JSON.stringify(swapData(`Revision ${number}`)),
-          now.getTime(),
-          now.getTime(),
-        );
+        insertOld.run(swapId, number, userId, status, JSON.stringify(swapData(`Revision ${number}`)), now, now);
       migrate(db, { migrationsFolder: path.resolve(import.meta.dirname, '../../drizzle') });
       const rows = db.select().from(revisions).orderBy(revisions.number).all();
       expect(rows.map((r) => r.status)).toEqual(['approved', 'declined', 'declined', 'draft']);
