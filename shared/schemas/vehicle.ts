@@ -66,6 +66,10 @@ export const vehicleDataSchema = z
 export type VehicleData = z.infer<typeof vehicleDataSchema>;
 export type VehicleDataInput = z.input<typeof vehicleDataSchema>;
 
+/** A moderator sets a chassis' stock figures, or takes them away (null). */
+export const chassisVehicleInputSchema = z.object({ vehicle: vehicleDataSchema.nullable() });
+export type ChassisVehicleInput = z.infer<typeof chassisVehicleInputSchema>;
+
 /** Which figures a computation used, so the page can say so. */
 export type VehicleFigures = {
   vehicle: VehicleData;

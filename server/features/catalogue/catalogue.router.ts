@@ -3,12 +3,14 @@ import { z } from 'zod';
 import type { AppDeps } from '../../app';
 import { validated } from '../../middleware/validate';
 import { idParamSchema, slugSchema } from '../../../shared/schemas/params';
-import { getChassisPage, getPartPage, listChassis } from './catalogue.service';
 import { pageFound } from '../../lib/page-status';
 import { AppError } from '../../lib/app-error';
 import { pageRoutes } from '../../../shared/page-routes';
+import { requirePermission } from '../../middleware/require-role';
+import { chassisVehicleInputSchema } from '../../../shared/schemas/vehicle';
+import { getChassisPage, getPartPage, listChassis, setChassisVehicle } from './catalogue.service';
 
-export function catalogueRouter({ db }: AppDeps) {
+export function catalogueRouter({ db, clock }: AppDeps) {
   const router = Router();
   router.get('/chassis', (_req, res) => {
     res.json({ items: listChassis(db) });
@@ -20,6 +22,14 @@ export function catalogueRouter({ db }: AppDeps) {
       // a proposed chassis is answered only to its author and reviewers: never from a shared cache
       if (page.proposed) res.set('Cache-Control', 'private, no-store');
       res.json(page);
+    }),
+  );
+  // the stock figures that decide which axle locks first on every sheet of the chassis: reviewers keep them
+  router.patch(
+    '/chassis/:slug/vehicle',
+    requirePermission('review'),
+    validated({ params: z.object({ slug: slugSchema }), body: chassisVehicleInputSchema }, ({ params, body }, _req, res) => {
+      res.json({ chassis: setChassisVehicle(db, clock, params.slug, body.vehicle) });
     }),
   );
   router.get(

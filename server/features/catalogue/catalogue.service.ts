@@ -6,6 +6,8 @@ import type { ChassisPageView, PartPageView, ChassisView } from '../../../shared
 import { chassisView, swapCards } from '../swaps/swap-views';
 import type { SessionUser } from '../../middleware/require-role';
 import { canSeeUnpublishedRevision } from '../../../shared/roles';
+import type { Clock } from '../../lib/clock';
+import type { VehicleData } from '../../../shared/schemas/vehicle';
 
 export function listChassis(db: Db): ChassisView[] {
   return db
@@ -41,6 +43,18 @@ export function getChassisPage(db: Db, slug: string, viewer: SessionUser | undef
     proposed: row.proposed,
     swaps: swapCards(db, and(eq(swaps.chassisId, row.id), isNotNull(swaps.currentRevisionId))),
   };
+}
+
+/** Sets (or, with null, removes) a catalogue chassis' stock figures for the brake-distribution analysis. */
+export function setChassisVehicle(db: Db, clock: Clock, slug: string, vehicle: VehicleData | null): ChassisView {
+  const row = db
+    .update(chassis)
+    .set({ vehicle, updatedAt: clock.now() })
+    .where(and(eq(chassis.slug, slug), eq(chassis.proposed, false)))
+    .returning()
+    .get();
+  if (!row) throw AppError.notFound('That chassis');
+  return chassisView(row);
 }
 
 export function getPartPage(db: Db, id: number): PartPageView {

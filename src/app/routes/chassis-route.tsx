@@ -1,10 +1,11 @@
 import { useParams } from 'react-router';
+import { can } from '@shared/roles';
 import ChassisPage from '../../features/swaps/components/chassis-page';
 import { useMe } from '../../features/account/api/get-me';
 import { useChassisCarMarks } from '../../features/cars/components/car-checks';
 import { ChassisDonors } from '../../features/graph/components/chassis-donors';
 
-/** The chassis page, marking which swaps clear the member's own wheel on this chassis, with the donor parts that fit it. */
+/** The chassis page, marking which swaps clear the member's own wheel on this chassis, with the donor parts that fit it; reviewers keep its stock figures. */
 export default function ChassisRoute() {
   const { slug = '' } = useParams();
   const me = useMe();
@@ -14,6 +15,7 @@ export default function ChassisRoute() {
       intro={() => marks.intro}
       cardNote={marks.intro ? marks.noteFor : undefined}
       donors={(chassisSlug) => <ChassisDonors slug={chassisSlug} />}
+      canEditFigures={can(me.data?.user?.role, 'review')}
     />
   );
 }

@@ -8,7 +8,7 @@ import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
 import { useUnits } from '../../../lib/units';
 import { useChassisOptions } from '../api/get-cars';
-import { VehicleFields, vehicleFormOf, vehicleInputOf, type VehicleForm } from './vehicle-fields';
+import { VehicleFields, vehicleFormOf, vehicleInputOf, type VehicleForm } from '../../../components/vehicle-fields';
 
 type Form = Record<'chassisId' | 'nickname' | 'wheelDiameterIn' | 'wheelWidthIn' | 'wheelOffsetMm' | 'tyre' | 'spacer', string>;
 

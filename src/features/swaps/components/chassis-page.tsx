@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { useParams } from 'react-router';
 import { axles, categories, categoryLabels } from '@shared/schemas/enums';
 import { useChassisPage } from '../api/get-catalogue';
@@ -7,8 +8,9 @@ import { SwapCard, chassisLabel } from '../../../components/swap-card';
 import type { SwapCard as SwapCardData } from '@shared/schemas/views';
 import { useUnits } from '../../../lib/units';
 import { paths } from '../../../config/paths';
-import { ButtonLink } from '../../../components/ui/button';
+import { Button, ButtonLink } from '../../../components/ui/button';
 import { VehicleFiguresList } from '../../../components/vehicle-figures';
+import { ChassisFiguresEditor } from './chassis-figures-editor';
 
 type ChassisPageProps = {
   /** shown above the swap list (e.g. which of the member's cars the swaps were checked against) */
@@ -17,11 +19,14 @@ type ChassisPageProps = {
   cardNote?: (swap: SwapCardData) => React.ReactNode;
   /** shown after the swap list (e.g. the donor parts that fit through those swaps) */
   donors?: (chassisSlug: string) => React.ReactNode;
+  /** reviewers keep the chassis' stock brake-balance figures */
+  canEditFigures?: boolean;
 };
 
-export default function ChassisPage({ intro, cardNote, donors }: ChassisPageProps = {}) {
+export default function ChassisPage({ intro, cardNote, donors, canEditFigures = false }: ChassisPageProps = {}) {
   const { slug = '' } = useParams();
   const query = useChassisPage(slug);
+  const [editingFigures, setEditingFigures] = useState(false);
   const { length } = useUnits();
   if (query.isPending)
     return (
@@ -78,13 +83,31 @@ export default function ChassisPage({ intro, cardNote, donors }: ChassisPageProp
           title="Stock brakes"
           rows={(['front', 'rear'] as const).map((k) => [k === 'front' ? 'Front' : 'Rear', corner(k).description])}
         />
-        {c.vehicle && (
+        {(c.vehicle || (canEditFigures && !proposed)) && (
           <div className="rounded-xl border border-ink/10 bg-paper-card p-4 md:col-span-3" data-chassis-vehicle>
-            <h3 className="font-extrabold text-ink">Figures for brake balance</h3>
-            <p className="mb-2 text-xs text-graphite-soft">
-              Stock figures the swap sheets use to work out which axle locks first; members can give their own car’s in my cars.
-            </p>
-            <VehicleFiguresList vehicle={c.vehicle} />
+            <div className="flex flex-wrap items-baseline justify-between gap-2">
+              <h3 className="font-extrabold text-ink">Figures for brake balance</h3>
+              {canEditFigures && !proposed && !editingFigures && (
+                <Button variant="secondary" onClick={() => setEditingFigures(true)}>
+                  {c.vehicle ? 'Edit the stock figures' : 'Add stock figures'}
+                </Button>
+              )}
+            </div>
+            {editingFigures ? (
+              <ChassisFiguresEditor chassis={c} onDone={() => setEditingFigures(false)} />
+            ) : c.vehicle ? (
+              <>
+                <p className="mb-2 text-xs text-graphite-soft">
+                  Stock figures the swap sheets use to work out which axle locks first; members can give their own car’s in my
+                  cars.
+                </p>
+                <VehicleFiguresList vehicle={c.vehicle} />
+              </>
+            ) : (
+              <p className="text-xs text-graphite-soft">
+                No stock figures yet: the swap sheets of this chassis cannot say which axle locks first.
+              </p>
+            )}
           </div>
         )}
       </section>

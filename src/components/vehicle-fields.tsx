@@ -1,7 +1,7 @@
 import { rearValveKinds, rearValveLabels, type RearValveKind, type VehicleData } from '@shared/schemas/vehicle';
 import { barToPsi, inToMm, kgToLb, lbToKg, mmToIn, psiToBar } from '@shared/fitment/units';
-import { Select, TextInput } from '../../../components/ui/field';
-import { readNumber } from '../../../lib/number-text';
+import { Select, TextInput } from './ui/field';
+import { readNumber } from '../lib/number-text';
 
 // The car's own figures for "which axle locks first", typed in the reader's units and kept as text until saved.
 
@@ -105,7 +105,8 @@ export function vehicleInputOf(f: VehicleForm, imperial: boolean): unknown {
 
 /**
  * "Brake-balance figures" of the car form: off, the swap sheets use the chassis' stock figures; on, the
- * car's own (starting from the stock ones, so a member changes only what differs on their car).
+ * car's own (starting from the stock ones, so a member changes only what differs on their car). The chassis
+ * page's editor uses the same fields for the stock figures themselves.
  */
 export function VehicleFields({
   form,
@@ -114,6 +115,8 @@ export function VehicleFields({
   imperial,
   stock,
   chassisName,
+  intro,
+  toggleLabel = 'Use my own figures for this car',
 }: {
   form: VehicleForm;
   onChange: (next: VehicleForm) => void;
@@ -122,6 +125,9 @@ export function VehicleFields({
   /** the chosen chassis' stock figures, if the catalogue has them */
   stock: VehicleData | null;
   chassisName: string | null;
+  /** replaces the car form's explanation (the chassis page's editor has its own) */
+  intro?: string;
+  toggleLabel?: string;
 }) {
   const set = (key: keyof VehicleForm) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
     onChange({ ...form, [key]: e.target.value });
@@ -129,22 +135,26 @@ export function VehicleFields({
   const lengthUnit = imperial ? 'in' : 'mm';
   const pressureUnit = imperial ? 'psi' : 'bar';
   const err = (path: string) => errors[`vehicle.${path}`];
-  const toggle = (own: boolean) => onChange(own ? { ...vehicleFormOf(stock, imperial, true), ...keepTyped(form) } : { ...form, own });
+  const toggle = (own: boolean) =>
+    onChange(own ? { ...vehicleFormOf(stock, imperial, true), ...keepTyped(form) } : { ...form, own });
 
   return (
     <fieldset className="grid gap-3 rounded-lg border border-ink/15 p-3 sm:col-span-2 lg:col-span-3" data-vehicle-fields>
       <legend className="px-1 text-sm font-extrabold text-ink">Brake-balance figures</legend>
       <p className="text-xs text-graphite-soft">
-        Swap sheets work out which axle locks first from the car’s weight, its split, its centre of gravity and its rear valve.
-        {!chassisName
-          ? ' Without your own, they use the chassis’ stock figures.'
-          : stock
-            ? ` Without your own, they use the ${chassisName} stock figures.`
-            : ` The catalogue has no stock figures for the ${chassisName}, so give your own to see it.`}
+        {intro ??
+          'Swap sheets work out which axle locks first from the car’s weight, its split, its centre of gravity and its rear valve.'}
+        {intro !== undefined
+          ? ''
+          : !chassisName
+            ? ' Without your own, they use the chassis’ stock figures.'
+            : stock
+              ? ` Without your own, they use the ${chassisName} stock figures.`
+              : ` The catalogue has no stock figures for the ${chassisName}, so give your own to see it.`}
       </p>
       <label className="flex items-center gap-2 text-sm font-bold text-graphite">
         <input type="checkbox" className="h-5 w-5 accent-ink" checked={form.own} onChange={(e) => toggle(e.target.checked)} />
-        Use my own figures for this car
+        {toggleLabel}
       </label>
       {form.own && (
         <div className="grid gap-3 sm:grid-cols-3">
