@@ -110,4 +110,24 @@ describe('which axle locks first on the swap sheet', () => {
     expect(errors).toEqual([]);
     await context.close();
   });
+  it('when a moderator edits a chassis stock figures, then an impossible wheelbase is refused beside its field and a possible one is shown on the page', async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const { page, errors } = await signedInPage(context, server.url, 'gauge_mo', '/chassis/orsino-vela');
+    const card = page.locator('[data-chassis-vehicle]');
+    await card.getByRole('button', { name: 'Edit the stock figures' }).click();
+    const wheelbase = card.getByRole('textbox', { name: /^Wheelbase/ });
+    expect(await wheelbase.inputValue()).toBe('2540');
+    await wheelbase.fill('254');
+    await card.getByRole('button', { name: 'Save the stock figures' }).click();
+    await card.getByText('Between 1500 and 5000 mm').waitFor();
+    expect(await wheelbase.getAttribute('aria-invalid')).toBe('true');
+    await wheelbase.fill('2550');
+    await card.getByRole('button', { name: 'Save the stock figures' }).click();
+    await card.getByRole('button', { name: 'Edit the stock figures' }).waitFor();
+    expect(await card.innerText()).toContain('2,550 mm');
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
 });
