@@ -5,6 +5,8 @@ import { brakeBalanceOf, pistonsPerSideOf, testedWheelVerdicts } from './fitment
 import { MIN_CLEARANCE_MM } from './fitment/clearance';
 import { fastenerKindLabels } from './schemas/swap-data-labels';
 import type { VehicleFigures } from './schemas/vehicle';
+import { testedWheelFastenings } from './fitment/swap-fastening';
+import type { ChassisWheelFastening } from './schemas/wheel-fastening';
 
 // The automatic checks the review desk shows for a revision. The submission form runs the same
 // function, so a member sees what the reviewer will see before sending it.
@@ -13,8 +15,16 @@ export type ReviewCheckInput = {
   data: SwapData;
   body: string;
   photoCount: number;
-  /** `figures`: the chassis' stock figures, which decide which axle locks first, when the catalogue has them */
-  chassis: { wheelBoltThread: string; figures?: VehicleFigures | null };
+  /**
+   * `figures`: the chassis' stock figures, which decide which axle locks first, when the catalogue has them;
+   * the wheel fastening is checked when the chassis has one on record
+   */
+  chassis: {
+    wheelBoltThread: string;
+    figures?: VehicleFigures | null;
+    centreBoreMm?: number;
+    wheelFastening?: ChassisWheelFastening | null;
+  };
   axle: Axle;
   /** when absent, a wheel requirement is expected whenever a caliper, rotor or spacer is listed */
   category?: Category;
@@ -22,7 +32,17 @@ export type ReviewCheckInput = {
   duplicates: { slug: string; title: string }[];
 };
 
-export const checkIds = ['required', 'photos', 'torque', 'clearance', 'figures', 'balance', 'costs', 'duplicate'] as const;
+export const checkIds = [
+  'required',
+  'photos',
+  'torque',
+  'clearance',
+  'fastening',
+  'figures',
+  'balance',
+  'costs',
+  'duplicate',
+] as const;
 
 const wheelCategories: readonly Category[] = ['brakes', 'wheels_tyres'];
 const wheelKinds = new Set(['caliper', 'rotor', 'spacer']);
@@ -175,6 +195,60 @@ function clearanceCheck(input: ReviewCheckInput): CheckResult {
   };
 }
 
+/**
+ * The wheels the record says fit, held on the chassis' hubs with the record's wheel bolts or nuts: a seat that does not
+ * match, too little thread, a bolt that bottoms out or reaches behind the hub is a failure; wheels recorded as not
+ * fitting are documentation and are not held against the rules.
+ */
+function fasteningCheck(input: ReviewCheckInput): CheckResult {
+  const label = 'Wheel fastening';
+  const { data, chassis } = input;
+  const touches = data.spacers.length > 0 || (data.wheel?.testedWheels.length ?? 0) > 0;
+  if (!touches) return { id: 'fastening', label, status: 'pass', detail: 'No wheel or spacer in the record to fasten.' };
+  if (!chassis.wheelFastening || chassis.centreBoreMm === undefined)
+    return {
+      id: 'fastening',
+      label,
+      status: 'attention',
+      detail: 'The chassis has no wheel fastening on record (fastener, seat, hub thread), so the wheel bolts are not checked.',
+    };
+  const fastenings = testedWheelFastenings(data, input.axle, {
+    wheelBoltThread: chassis.wheelBoltThread,
+    centreBoreMm: chassis.centreBoreMm,
+    wheelFastening: chassis.wheelFastening,
+  }).filter((w) => w.outcome !== 'does_not_fit');
+  const failed = fastenings.filter((w) => w.result.failures.length > 0);
+  if (failed.length > 0)
+    return {
+      id: 'fastening',
+      label,
+      status: 'fail',
+      detail: `${failed.map((w) => `${w.label}: ${w.result.failures.join(', ')}`).join('; ')}. Fit fasteners that match, or correct the outcome.`,
+    };
+  const engaged = fastenings.filter((w) => w.result.engagement !== null);
+  if (data.spacers.some((s) => s.axle === input.axle) && engaged.length === 0)
+    return {
+      id: 'fastening',
+      label,
+      status: 'attention',
+      detail:
+        'A spacer changes the wheel-bolt length, but no fitting wheel has its thickness at the bolt recorded, so the thread engagement is not worked out. Ask for it.',
+    };
+  const seated = fastenings.filter((w) => w.result.checks.some((c) => c.id === 'seat'));
+  const least = engaged.length ? Math.min(...engaged.map((w) => w.result.engagement!.engagementMm)) : null;
+  return {
+    id: 'fastening',
+    label,
+    status: 'pass',
+    detail: [
+      seated.length ? `Seats match on ${seated.length} wheel${seated.length === 1 ? '' : 's'}.` : 'No wheel seat stated.',
+      least !== null
+        ? `Least thread engagement ${fmt(least)}, within the rule.`
+        : 'Thread engagement not worked out (no wheel thickness at the bolt).',
+    ].join(' '),
+  };
+}
+
 /** The record's figures agree with each other: rotors and calipers with the brake figures of their axle, shims with the mounting. */
 function figuresCheck(data: SwapData): CheckResult {
   const label = 'Figures agree';
@@ -301,6 +375,7 @@ export function automaticChecks(input: ReviewCheckInput): CheckResult[] {
     photosCheck(input.photoCount),
     torqueCheck(input.data),
     clearanceCheck(input),
+    fasteningCheck(input),
     figuresCheck(input.data),
     balanceCheck(input),
     costsCheck(input.data),

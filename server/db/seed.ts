@@ -35,6 +35,7 @@ import {
 } from '../../shared/schemas/enums';
 import { can, roleSchema } from '../../shared/roles';
 import { vehicleDataSchema } from '../../shared/schemas/vehicle';
+import { chassisWheelFasteningSchema, threadDesignation } from '../../shared/schemas/wheel-fastening';
 import { newFileId, type Storage } from '../storage/disk-storage';
 import type { Clock } from '../lib/clock';
 import { submissionReceived, submissionSentBack, type BuiltMessage } from '../mail/messages';
@@ -121,7 +122,7 @@ const chassisFileSchema = z.array(
     lugCount: z.number().int().min(3).max(10),
     pcdMm: z.number().positive().max(300),
     centreBoreMm: z.number().positive().max(200),
-    wheelBoltThread: z.string().regex(/^M\d{1,2}×\d(\.\d{1,2})?$/, 'a metric thread like M12×1.5'),
+    wheelBoltThread: threadDesignation(),
     stockWheel: z.strictObject({
       diameterIn: z.number().min(10).max(24),
       widthIn: z.number().min(4).max(13),
@@ -130,6 +131,7 @@ const chassisFileSchema = z.array(
     }),
     stockBrakes: z.strictObject({ front: brakeCornerContent, rear: brakeCornerContent }),
     vehicle: vehicleDataSchema.optional(),
+    wheelFastening: chassisWheelFasteningSchema.optional(),
     notes: text(2000).default(''),
   }),
 );

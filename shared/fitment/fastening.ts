@@ -123,7 +123,7 @@ const BALL_RADIUS_TOLERANCE_MM = 0.05;
 
 const seatNames: Record<SeatType, string> = { cone60: '60° cone', ball: 'ball', flat: 'flat' };
 
-function checkedSeat(seat: SeatSpec | undefined, field: string): SeatSpec {
+export function checkedSeat(seat: SeatSpec | undefined, field: string): SeatSpec {
   const type = seat?.type;
   if (type !== 'cone60' && type !== 'ball' && type !== 'flat') {
     throw new FitmentInputError(`${field}.type`, `${field}.type must be "cone60", "ball" or "flat" (got ${String(type)})`);
@@ -136,7 +136,8 @@ export function seatName(seat: SeatSpec): string {
   return seat.type === 'ball' && seat.ballRadiusMm ? `ball R${seat.ballRadiusMm}` : seatNames[seat.type];
 }
 
-function seatCheck(fastener: SeatSpec, wheel: SeatSpec): FitCheck {
+/** Whether the fastener's seat is the seat the wheel is made for (a mismatch is always a failure). */
+export function seatCheck(fastener: SeatSpec, wheel: SeatSpec): FitCheck {
   const same =
     fastener.type === wheel.type &&
     (fastener.type !== 'ball' || Math.abs(fastener.ballRadiusMm! - wheel.ballRadiusMm!) <= BALL_RADIUS_TOLERANCE_MM);
@@ -193,6 +194,37 @@ export function hubCentricRing(hubBoreMm: number, wheelBoreMm: number): HubRing 
   const needed = wheel - hub > RING_FREE_DIFFERENCE_MM;
   const shown = (n: number) => String(Number(n.toFixed(2)));
   return { needed, outerDiameterMm: wheel, innerDiameterMm: hub, label: `${shown(wheel)} → ${shown(hub)} mm` };
+}
+
+export const SPIGOT_CAUTION =
+  'The spacer swallows the hub spigot: the wheel centres on its fasteners only. Use a hub-centric spacer with its own spigot.';
+
+/** How much of the hub spigot still reaches into the wheel's bore past a slip-on spacer. */
+export function spigotCheck(spigotLengthMm: number, slipOnMm: number): FitCheck {
+  const remainingMm = requirePositive(spigotLengthMm, 'hubSpigotLengthMm') - requireNonNegative(slipOnMm, 'spacerMm');
+  return {
+    id: 'spigot',
+    label: slipOnMm > 0 ? 'Hub spigot left in the wheel bore past the spacer' : 'Hub spigot in the wheel bore',
+    ok: remainingMm > EPSILON_MM,
+    valueMm: remainingMm,
+    marginMm: remainingMm,
+    rule: SPIGOT_RULE,
+    source: SOURCE.geometry,
+  };
+}
+
+/** The wheel's centre bore against the hub spigot's diameter. */
+export function centreBoreCheck(hubBoreMm: number, wheelBoreMm: number): FitCheck {
+  const differenceMm = requirePositive(wheelBoreMm, 'wheelBoreMm') - requirePositive(hubBoreMm, 'hubBoreMm');
+  return {
+    id: 'centre-bore',
+    label: 'Wheel centre bore over the hub spigot',
+    ok: differenceMm >= -EPSILON_MM,
+    valueMm: differenceMm,
+    marginMm: differenceMm,
+    rule: CENTRE_BORE_RULE,
+    source: SOURCE.geometry,
+  };
 }
 
 export function wheelFasteningChain(input: WheelFasteningInput): WheelFastening {
@@ -345,21 +377,9 @@ export function wheelFasteningChain(input: WheelFasteningInput): WheelFastening 
     if (boltOn) {
       notes.push('A bolt-on spacer centres the wheel on its own spigot, if it has one; the hub spigot centres the spacer.');
     } else {
-      const remainingMm = spigotMm - slipOnMm;
-      checks.push({
-        id: 'spigot',
-        label: slipOnMm > 0 ? 'Hub spigot left in the wheel bore past the spacer' : 'Hub spigot in the wheel bore',
-        ok: remainingMm > EPSILON_MM,
-        valueMm: remainingMm,
-        marginMm: remainingMm,
-        rule: SPIGOT_RULE,
-        source: SOURCE.geometry,
-      });
-      if (remainingMm <= EPSILON_MM) {
-        cautions.push(
-          'The spacer swallows the hub spigot: the wheel centres on its fasteners only. Use a hub-centric spacer with its own spigot.',
-        );
-      }
+      const check = spigotCheck(spigotMm, slipOnMm);
+      checks.push(check);
+      if (!check.ok) cautions.push(SPIGOT_CAUTION);
     }
   }
 
@@ -368,15 +388,7 @@ export function wheelFasteningChain(input: WheelFasteningInput): WheelFastening 
     const hubBoreMm = requirePositive(input.hubBoreMm, 'hubBoreMm');
     const wheelBoreMm = requirePositive(input.wheelBoreMm, 'wheelBoreMm');
     hubRing = hubCentricRing(hubBoreMm, wheelBoreMm);
-    checks.push({
-      id: 'centre-bore',
-      label: 'Wheel centre bore over the hub spigot',
-      ok: hubRing !== null,
-      valueMm: wheelBoreMm - hubBoreMm,
-      marginMm: wheelBoreMm - hubBoreMm,
-      rule: CENTRE_BORE_RULE,
-      source: SOURCE.geometry,
-    });
+    checks.push(centreBoreCheck(hubBoreMm, wheelBoreMm));
   }
 
   return { thread, into, material, seatAllowanceMm, stackMm, engagement, hubRing, checks, cautions, notes };

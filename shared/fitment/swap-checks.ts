@@ -10,7 +10,9 @@ import {
   SPOKE_CLEARANCE_RULE,
 } from './clearance';
 import { spacerEffect, type SpacerEffect } from './wheel';
-import { parseMetricThread, threadEngagement, type ThreadEngagement } from './threads';
+import { fasteningFor, type FasteningChassis, type FasteningResult, type FasteningSpacer } from './swap-fastening';
+import type { SeatSpec } from './fastening';
+import { FitmentInputError } from './errors';
 import { routeTotals, savingsAgainstNewKit } from './costs';
 import { cornerTorqueNm as anyCornerTorqueNm, type AnyBrakeCorner } from './brakes';
 import { BALANCE_UNCHANGED_POINTS, PASSENGER_CAR_REFERENCE, type DistributionAnalysis } from './distribution-analysis';
@@ -41,9 +43,20 @@ export type WheelUnderTest = {
   /** measured on the reader's wheel; estimated from the record when absent */
   barrelInnerDiameterMm?: number;
   spokeInsetMm?: number;
-  /** for the thread-engagement check */
-  boltLengthMm?: number;
-  seatThicknessMm?: number;
+  /** the wheel fastening, as far as the reader measured or chose it */
+  fastening?: {
+    wheelSeat?: SeatSpec | null;
+    /** bolts or nuts other than the factory ones */
+    fastenerSeat?: SeatSpec | null;
+    /** wheel thickness at the fastener, from where its seat ends to the mounting face */
+    clampMm?: number;
+    /** the reader's own bolt or stud length, measured as the chassis records its stock length */
+    lengthMm?: number;
+    wheelBoreMm?: number;
+    spacerMounting?: FasteningSpacer['mounting'];
+    spacerMaterial?: FasteningSpacer['material'];
+    spacerHubCentric?: boolean | null;
+  };
 };
 
 export type MeasuredFigure = {
@@ -62,7 +75,10 @@ export type WheelCheck = {
   radial: ClearanceFigure | null;
   spoke: ClearanceFigure | null;
   offset: SpacerEffect;
-  engagement: ThreadEngagement | null;
+  /** null when the chassis has no wheel fastening on record */
+  fastening: FasteningResult | null;
+  /** why the fastening could not be checked (a thread or figure the computations refuse) */
+  fasteningError: string | null;
   boltNote: string;
   /** rule of thumb, never a verdict */
   maxRotor: { maxRotorMm: number; rotorMm: number; withinRule: boolean; rule: string } | null;
@@ -154,7 +170,7 @@ function spokeEstimate(data: SwapData, wheel: WheelUnderTest): EstimatedFigure |
   };
 }
 
-export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: string, wheel: WheelUnderTest): WheelCheck {
+export function checkWheelForSwap(data: SwapData, axle: Axle, chassis: FasteningChassis, wheel: WheelUnderTest): WheelCheck {
   const req = data.wheel;
   const offset = spacerEffect({ widthIn: wheel.widthIn, offsetMm: wheel.offsetMm }, wheel.spacerMm);
   const rotorMm = rotorDiameterOf(data, axle);
@@ -188,25 +204,39 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: s
         : spokeEstimate(data, wheel);
   }
 
-  let engagement: ThreadEngagement | null = null;
-  let thread: { diameterMm: number; pitchMm: number } | null;
+  const f = wheel.fastening ?? {};
+  let fastening: FasteningResult | null = null;
+  let fasteningError: string | null = null;
   try {
-    thread = parseMetricThread(wheelBoltThread);
-  } catch {
-    thread = null;
-  }
-  if (thread && wheel.boltLengthMm && wheel.seatThicknessMm !== undefined) {
-    engagement = threadEngagement({
-      ...thread,
-      boltLengthMm: wheel.boltLengthMm,
-      clampedMm: wheel.seatThicknessMm + wheel.spacerMm,
-      hubMaterial: 'steel',
+    fastening = fasteningFor(chassis, {
+      axle,
+      wheelSeat: f.wheelSeat,
+      fastenerSeat: f.fastenerSeat,
+      clampMm: f.clampMm,
+      lengthMm: f.lengthMm,
+      wheelBoreMm: f.wheelBoreMm,
+      spacer:
+        wheel.spacerMm > 0
+          ? {
+              thicknessMm: wheel.spacerMm,
+              mounting: f.spacerMounting ?? 'slip_on',
+              material: f.spacerMaterial ?? 'aluminium',
+              hubCentric: f.spacerHubCentric ?? null,
+            }
+          : null,
     });
+  } catch (error) {
+    if (!(error instanceof FitmentInputError)) throw error;
+    fasteningError = error.message;
   }
+  const noun = chassis.wheelFastening?.fastener === 'stud_nut' ? 'studs' : 'wheel bolts';
+  const boltOn = wheel.spacerMm > 0 && f.spacerMounting === 'bolt_on';
   const boltNote =
-    wheel.spacerMm > 0
-      ? `A slip-on spacer of ${wheel.spacerMm} mm needs wheel bolts ${wheel.spacerMm} mm longer than stock${thread ? ` to keep at least ${thread.diameterMm} mm of ${wheelBoltThread} thread engaged in a steel hub` : ''}.`
-      : 'No spacer: the stock wheel-bolt length applies.';
+    wheel.spacerMm === 0
+      ? `No spacer: the stock ${noun} apply.`
+      : boltOn
+        ? `A bolt-on spacer is held by its own fasteners; the wheel ${chassis.wheelFastening?.fastener === 'stud_nut' ? 'nuts run on its studs' : 'bolts screw into it'}.`
+        : `A slip-on spacer of ${wheel.spacerMm} mm needs ${noun} ${wheel.spacerMm} mm longer than stock to keep the stock thread engagement.`;
   const spacerNote =
     wheel.spacerMm > BOLT_ON_SPACER_FROM_MM
       ? `Spacers beyond about ${BOLT_ON_SPACER_FROM_MM} mm are usually the bolt-on kind with their own studs (common practice, no source).`
@@ -224,7 +254,8 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, wheelBoltThread: s
     radial,
     spoke,
     offset,
-    engagement,
+    fastening,
+    fasteningError,
     boltNote,
     maxRotor:
       rotorMm && wheel.diameterIn > 4
@@ -247,7 +278,7 @@ export function wheelCheckSummary(check: WheelCheck): WheelCheckSummary {
   if (check.minDiameter && !check.minDiameter.ok) fails.push(`the wheel is below the ${check.minDiameter.requiredIn}″ minimum`);
   if (check.radial?.basis === 'measured' && !check.radial.ok) fails.push('too little room at the barrel');
   if (check.spoke?.basis === 'measured' && !check.spoke.ok) fails.push('too little room at the spokes');
-  if (check.engagement && !check.engagement.ok) fails.push('too little thread on the wheel bolts');
+  if (check.fastening) fails.push(...check.fastening.failures);
   if (fails.length > 0) return { tone: 'fail', text: `Does not fit as entered: ${fails.join('; ')}.` };
   const figures = [check.radial, check.spoke].filter((f): f is ClearanceFigure => f !== null);
   const estimated = figures.filter((f) => f.basis === 'estimated');

@@ -1,8 +1,10 @@
 import { z } from 'zod';
 import { singleLine } from './text';
-import { parseTyreSize } from '../fitment/tyre';
-import { FitmentInputError } from '../fitment/errors';
 import { vehicleDataSchema, type VehicleData } from './vehicle';
+import { tyreSizeField } from './tyre-field';
+import type { ProfilePoint } from './swap-data';
+
+export { tyreSizeField };
 
 // API contract of "my cars": a member's own cars, used to check swaps against their wheel.
 
@@ -13,22 +15,6 @@ const num = (schema: z.ZodNumber, whenEmpty?: number) =>
       typeof v === 'string' ? (v.trim() === '' ? whenEmpty : Number(v.replace(',', '.'))) : v === undefined ? whenEmpty : v,
     schema,
   );
-
-export const tyreSizeField = z
-  .string()
-  .trim()
-  .max(40)
-  .superRefine((v, ctx) => {
-    if (v === '') return;
-    try {
-      parseTyreSize(v);
-    } catch (err) {
-      ctx.addIssue({
-        code: 'custom',
-        message: err instanceof FitmentInputError ? err.message : 'Not a tyre size like 205/55R16',
-      });
-    }
-  });
 
 const carShape = {
   chassisId: num(z.number({ error: 'Pick the chassis' }).int().positive('Pick the chassis')),
@@ -44,6 +30,32 @@ const carShape = {
   spacerMm: num(z.number().min(0, 'Between 0 and 60 mm').max(60, 'Between 0 and 60 mm')),
   /** the car's own brake-distribution figures; null: the chassis' stock figures apply */
   vehicle: vehicleDataSchema.nullable(),
+  wheelInsideProfile: z
+    .array(
+      z.object({
+        zMm: z
+          .number({ error: 'Enter z in mm, outboard positive' })
+          .min(-400, 'Between −400 and 400 mm')
+          .max(400, 'Between −400 and 400 mm'),
+        rMm: z.number({ error: 'Enter r in mm from the centre' }).min(0, 'A radius is 0 or more').max(500, 'At most 500 mm'),
+      }),
+    )
+    .min(2, 'Measure at least two points: one on the barrel, one on the spokes’ back face')
+    .max(40, 'At most 40 points')
+    .superRefine((points, ctx) => {
+      // One surface from the barrel inward (or the other way round): the radius never turns back.
+      const inward = points.length > 1 && points[points.length - 1].rMm <= points[0].rMm;
+      points.forEach((p, i) => {
+        const before = points[i - 1];
+        if (before && (inward ? p.rMm > before.rMm : p.rMm < before.rMm))
+          ctx.addIssue({
+            code: 'custom',
+            path: [i, 'rMm'],
+            message: `Radii run ${inward ? 'inward from the barrel' : 'outward to the barrel'}: this one turns back`,
+          });
+      });
+    })
+    .nullable(),
 };
 
 export const carInputSchema = z.object({
@@ -51,6 +63,7 @@ export const carInputSchema = z.object({
   tyre: carShape.tyre.default(''),
   spacerMm: num(z.number().min(0, 'Between 0 and 60 mm').max(60, 'Between 0 and 60 mm'), 0),
   vehicle: carShape.vehicle.default(null),
+  wheelInsideProfile: carShape.wheelInsideProfile.default(null),
 });
 export type CarInput = z.infer<typeof carInputSchema>;
 
@@ -74,6 +87,8 @@ export type CarView = {
   spacerMm: number;
   /** the car's own brake-distribution figures, or null when the chassis' stock figures apply */
   vehicle: VehicleData | null;
+  /** the wheel's inside in the plane through the axle (mounting face at z = 0, outboard positive); null until measured */
+  wheelInsideProfile: ProfilePoint[] | null;
   createdAt: string;
   updatedAt: string;
 };

@@ -3,6 +3,7 @@ import { markdownText, multiLine, singleLine } from './text';
 import { axleSchema, categorySchema, type Axle, type Category, type MailStatus, type RevisionStatus } from './enums';
 import { swapDataSchema, type SwapData } from './swap-data';
 import type { PersonRef, PhotoView, ChassisView } from './views';
+import { chassisWheelFasteningSchema, threadDesignation } from './wheel-fastening';
 
 // API contract of the community loop: submissions, photos, review desk, flags, outbox.
 
@@ -17,10 +18,10 @@ export const newChassisSchema = z.object({
   lugCount: z.number().int().min(3).max(10),
   pcdMm: z.number().positive().max(300),
   centreBoreMm: z.number().positive().max(200),
-  wheelBoltThread: z
-    .string()
-    .trim()
-    .regex(/^M\d{1,2}(?:[x×]\d(?:\.\d{1,2})?)$/i, 'A metric thread like M12x1.5'),
+  /** metric with its pitch (M12x1.5) or unified with threads per inch (1/2-20 UNF) */
+  wheelBoltThread: threadDesignation(),
+  /** how the wheels are held, as far as the proposer knows it */
+  wheelFastening: chassisWheelFasteningSchema.optional(),
   /** the wheel and tyre the chassis left the factory on; when absent, the submission's smallest wheel stands in */
   stockWheel: z
     .object({

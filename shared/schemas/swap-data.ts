@@ -1,11 +1,7 @@
 import { z } from 'zod';
-import {
-  axleSchema,
-  costRouteSchema,
-  machiningOperations,
-  partKindSchema,
-  type MachiningLevel,
-} from './enums';
+import { axleSchema, costRouteSchema, machiningOperations, partKindSchema, type MachiningLevel } from './enums';
+import { tyreSizeField } from './tyre-field';
+import { fastenerSeats } from './wheel-fastening';
 
 // The structured body of one swap revision, version 2. The seed, the submission form and the
 // server all validate against this one schema. Revisions stored as version 1 are upgraded on
@@ -87,7 +83,11 @@ export const caliperSchema = z
       ctx.addIssue({ code: 'custom', path: ['pistons'], message: 'A fixed caliper has pistons on both sides' });
     const { thicknessMinMm: lo, thicknessMaxMm: hi } = c.designRotor;
     if (lo !== undefined && hi !== undefined && lo > hi)
-      ctx.addIssue({ code: 'custom', path: ['designRotor', 'thicknessMaxMm'], message: 'The largest thickness is below the smallest' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['designRotor', 'thicknessMaxMm'],
+        message: 'The largest thickness is below the smallest',
+      });
   });
 export type Caliper = z.infer<typeof caliperSchema>;
 
@@ -182,7 +182,13 @@ export const machiningComponents = [
 ] as const;
 export type MachiningComponent = (typeof machiningComponents)[number];
 /** parts that carry braking or suspension loads: any work on them is structural, whatever the operation */
-export const structuralComponents: ReadonlySet<MachiningComponent> = new Set(['knuckle', 'caliper_body', 'bracket', 'hub', 'subframe']);
+export const structuralComponents: ReadonlySet<MachiningComponent> = new Set([
+  'knuckle',
+  'caliper_body',
+  'bracket',
+  'hub',
+  'subframe',
+]);
 
 export const machiningStepSchema = z.object({
   component: z.enum(machiningComponents),
@@ -225,6 +231,10 @@ export const fastenerSchema = z.object({
   /** ISO 898-1 property class (8.8, 10.9, 12.9) or a grade */
   propertyClass: text(12).default(''),
   quantity: z.number().int().min(1).max(64).optional(),
+  /** wheel bolts and nuts: the seat of the head or nut, matched against each wheel's seat */
+  seat: z.enum(fastenerSeats).optional(),
+  /** ball seats: the sphere's radius */
+  ballRadiusMm: z.number().positive().max(30).optional(),
 });
 export type Fastener = z.infer<typeof fastenerSchema>;
 
@@ -264,7 +274,11 @@ export const testedWheelSchema = z
     material: z.enum(wheelMaterials).default('not_stated'),
     centreBoreMm: z.number().positive().max(200).optional(),
     seat: z.enum(seatTypes).default('not_stated'),
-    tyre: text(40).default(''),
+    /** ball seats: the sphere's radius (wheels are made for 12, 13 or 14 mm and the bolts must match) */
+    ballRadiusMm: z.number().positive().max(30).optional(),
+    /** wheel thickness at the fastener, from where its seat ends to the mounting face: what the fastener clamps */
+    clampMm: z.number().positive().max(60).optional(),
+    tyre: tyreSizeField.default(''),
     /** measured gap between caliper and barrel; negative = overlap */
     radialClearanceMm: z.number().min(-50).max(200).optional(),
     /** measured gap between caliper face and the spokes' back face; negative = overlap */
@@ -400,6 +414,7 @@ export function machiningLevel(steps: SwapData['machining']): MachiningLevel {
 }
 
 /** the record's rotors on one axle */
-export const rotorsOn = (data: Pick<SwapData, 'rotors'>, axle: z.infer<typeof axleSchema>) => data.rotors.filter((r) => r.axle === axle);
+export const rotorsOn = (data: Pick<SwapData, 'rotors'>, axle: z.infer<typeof axleSchema>) =>
+  data.rotors.filter((r) => r.axle === axle);
 export const calipersOn = (data: Pick<SwapData, 'calipers'>, axle: z.infer<typeof axleSchema>) =>
   data.calipers.filter((c) => c.axle === axle);

@@ -2,6 +2,7 @@ import type { Axle, Category, RevisionStatus } from './enums';
 import type { BrakeCorner, SwapData } from './swap-data';
 import type { Role } from '../roles';
 import type { VehicleData } from './vehicle';
+import type { ChassisWheelFastening } from './wheel-fastening';
 
 // Shapes of what the read API returns. The server builds them; the client types its queries with them.
 
@@ -27,6 +28,8 @@ export type ChassisView = {
   stockBrakes: { front: StockBrakeCornerView; rear: StockBrakeCornerView };
   /** stock figures for the brake-distribution analysis; null when the catalogue has none */
   vehicle: VehicleData | null;
+  /** the factory wheel fastener and the hubs; null when not recorded */
+  wheelFastening: ChassisWheelFastening | null;
   notes: string;
 };
 

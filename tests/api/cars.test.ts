@@ -184,6 +184,56 @@ describe('/api/cars', () => {
     expect(t.db.select().from(cars).where(eq(cars.id, car!.id)).get()!.tyre).toBe('205/55R16');
   });
 
+  it('when the owner records the wheel’s inside profile, then it is kept in mm and read back; an edit that leaves it out keeps it', async () => {
+    const [car] = (await rosa.a.get('/api/cars')).body.items as CarView[];
+    const profile = [
+      { zMm: -120, rMm: 202 },
+      { zMm: 14, rMm: 202 },
+      { zMm: 31, rMm: 196 },
+      { zMm: 39, rMm: 182 },
+      { zMm: 40, rMm: 90 },
+    ];
+    const res = await rosa.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', rosa.token).send({ wheelInsideProfile: profile });
+    expect(res.status).toBe(200);
+    expect(res.body.car.wheelInsideProfile).toEqual(profile);
+    const other = await rosa.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', rosa.token).send({ wheelOffsetMm: 40 });
+    expect(other.body.car.wheelInsideProfile).toEqual(profile);
+    expect(t.db.select().from(cars).where(eq(cars.id, car!.id)).get()!.wheelInsideProfile).toEqual(profile);
+  });
+
+  it('when a profile point is bad, then it is 400 naming that point’s field, and the saved profile is untouched', async () => {
+    const [car] = (await rosa.a.get('/api/cars')).body.items as CarView[];
+    const saved = t.db.select().from(cars).where(eq(cars.id, car!.id)).get()!.wheelInsideProfile;
+    const send = (wheelInsideProfile: unknown) =>
+      rosa.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', rosa.token).send({ wheelInsideProfile });
+
+    const negative = await send([
+      { zMm: 0, rMm: 200 },
+      { zMm: 30, rMm: -5 },
+    ]);
+    expect(negative.status).toBe(400);
+    expect(negative.body.error.fields['wheelInsideProfile.1.rMm']).toBe('A radius is 0 or more');
+
+    const missing = await send([{ zMm: 0, rMm: 200 }, { rMm: 150 }]);
+    expect(missing.status).toBe(400);
+    expect(missing.body.error.fields['wheelInsideProfile.1.zMm']).toMatch(/Enter z/);
+
+    const turnsBack = await send([
+      { zMm: 0, rMm: 200 },
+      { zMm: 20, rMm: 180 },
+      { zMm: 30, rMm: 190 },
+      { zMm: 40, rMm: 100 },
+    ]);
+    expect(turnsBack.status).toBe(400);
+    expect(turnsBack.body.error.fields['wheelInsideProfile.2.rMm']).toMatch(/turns back/);
+
+    const one = await send([{ zMm: 0, rMm: 200 }]);
+    expect(one.status).toBe(400);
+    expect(one.body.error.fields.wheelInsideProfile).toMatch(/at least two points/);
+
+    expect(t.db.select().from(cars).where(eq(cars.id, car!.id)).get()!.wheelInsideProfile).toEqual(saved);
+  });
+
   it('when another member edits or deletes the car, then it is 404 and the car is untouched', async () => {
     const [car] = (await rosa.a.get('/api/cars')).body.items as CarView[];
     const edit = await kai.a.patch(`/api/cars/${car!.id}`).set('x-csrf-token', kai.token).send({ nickname: 'Mine now' });

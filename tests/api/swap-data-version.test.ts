@@ -48,8 +48,26 @@ describe('swap data version 2 on the demo scenario', () => {
       .get()!.id!;
     const checks = Object.fromEntries(checksFor(t.db, loadRevision(t.db, id)!).map((c) => [c.id, c]));
     expect(checks.clearance.status).toBe('pass');
-    expect(checks.clearance.detail).toContain('2 wheels that do not fit');
+    expect(checks.clearance.detail).toContain('3 wheels that do not fit');
     expect(checks.balance.detail).toContain('toward the front');
+  });
+
+  it('when the flagship record is checked, then its wheel fastening passes, the ball-seat wheel on its own ball-seat bolts', () => {
+    const id = t.db
+      .select({ id: swaps.currentRevisionId })
+      .from(swaps)
+      .where(eq(swaps.slug, 'h31-front-vela-four-piston-330'))
+      .get()!.id!;
+    const fastening = checksFor(t.db, loadRevision(t.db, id)!).find((c) => c.id === 'fastening')!;
+    expect(fastening.status).toBe('pass');
+    expect(fastening.detail).toMatch(/Seats match on 3 wheels/);
+  });
+
+  it('when the demo chassis are read, then the stud-and-nut pickup has its fastening and a unified thread', async () => {
+    const res = await request(t.app).get('/api/chassis/tamsin-kestrel');
+    expect(res.status).toBe(200);
+    expect(res.body.chassis.wheelBoltThread).toBe('1/2-20 UNF');
+    expect(res.body.chassis.wheelFastening).toMatchObject({ fastener: 'stud_nut', nutThreadMm: 16 });
   });
 
   const balanceOf = (slug: string) => {

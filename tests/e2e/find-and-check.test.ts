@@ -83,6 +83,19 @@ describe('find what fits', () => {
     await expect.poll(() => radial.getAttribute('data-verdict')).toBe('pass');
     await expect.poll(() => radial.textContent()).toContain('Margin');
     await expect.poll(() => panel.textContent()).toContain('ET28');
+    // a ball-seat wheel on the chassis' factory 60° cone bolts: a seat mismatch is a failure, with its caution
+    await panel.getByLabel('Wheel seat').selectOption('ball');
+    await panel.getByLabel(/Ball radius/).fill('13');
+    const seat = panel.locator('[data-check="seat"] [data-verdict]');
+    await expect.poll(() => seat.getAttribute('data-verdict')).toBe('fail');
+    await expect.poll(() => panel.getByTestId('wheel-summary').textContent()).toContain('the seat does not match');
+    // with the wheel's thickness at the bolt, the thread is worked out: 26 mm stock bolt − (13 + 10) = 3 mm, too little
+    await panel.getByLabel(/Wheel thickness at the bolt/).fill('13');
+    await expect.poll(() => panel.locator('[data-check="engagement"] [data-verdict]').getAttribute('data-verdict')).toBe('fail');
+    await expect.poll(() => panel.getByTestId('wheel-summary').textContent()).toContain('too little thread');
+    await panel.getByLabel('Wheel seat').selectOption('cone60');
+    await panel.getByLabel(/Wheel-bolt length/).fill('36');
+    await expect.poll(() => panel.locator('[data-check="engagement"] [data-verdict]').getAttribute('data-verdict')).toBe('pass');
 
     // print: the build sheet drops the interactive parts and fits two pages
     await page.emulateMedia({ media: 'print' });

@@ -77,6 +77,22 @@ function run(over: Partial<ReviewCheckInput> & { extra?: Partial<SwapDataInput> 
   return Object.fromEntries(results.map((r) => [r.id, r]));
 }
 
+/** bolts into a steel hub, as recorded for the chassis (invented figures) */
+const haldenHub = {
+  wheelBoltThread: 'M12×1.5',
+  centreBoreMm: 66.6,
+  wheelFastening: {
+    fastener: 'bolt' as const,
+    seat: 'cone60' as const,
+    stockLengthMm: 26,
+    lengthFrom: 'seat_end' as const,
+    nutClosed: false,
+    hubMaterial: 'steel' as const,
+    front: { threadDepthMm: 16, hole: 'through' as const, spigotLengthMm: 9 },
+    rear: {},
+  },
+};
+
 const wheelWith = (testedWheels: z.input<typeof testedWheelSchema>[]) => ({
   minDiameterIn: 16,
   caliperRadialProjectionMm: 12,
@@ -90,12 +106,22 @@ describe('automaticChecks', () => {
       data: record({ brakes: { ...referenceBrakes, after: { ...referenceBrakes.before, front: disc([54], 330, 50) } } }),
       body: '',
       photoCount: 1,
-      chassis: { wheelBoltThread: 'M12×1.5' },
+      chassis: haldenHub,
       axle: 'front',
       category: 'brakes',
       duplicates: [],
     });
-    expect(results.map((r) => r.id)).toEqual(['required', 'photos', 'torque', 'clearance', 'figures', 'balance', 'costs', 'duplicate']);
+    expect(results.map((r) => r.id)).toEqual([
+      'required',
+      'photos',
+      'torque',
+      'clearance',
+      'fastening',
+      'figures',
+      'balance',
+      'costs',
+      'duplicate',
+    ]);
     expect(results.filter((r) => r.status !== 'pass').map((r) => `${r.id}: ${r.detail}`)).toEqual([
       // 280 → 330 mm front rotor, same pistons: +4.2 points forward, within the advisory threshold
     ]);
@@ -111,7 +137,14 @@ describe('automaticChecks', () => {
   it('when the category needs no wheel and no wheel parts are listed, then a missing wheel requirement is fine', () => {
     const r = run({
       category: 'suspension',
-      extra: { wheel: null, parts: [{ ...caliper, kind: 'line', name: 'Braided hose set' }], adapter: null, rotors: [], fasteners: [], torque: [] },
+      extra: {
+        wheel: null,
+        parts: [{ ...caliper, kind: 'line', name: 'Braided hose set' }],
+        adapter: null,
+        rotors: [],
+        fasteners: [],
+        torque: [],
+      },
     });
     expect(r.required.status).toBe('pass');
     expect(r.clearance.status).toBe('pass');
@@ -165,7 +198,11 @@ describe('automaticChecks', () => {
       const fixed = run({
         extra: {
           spacers,
-          fasteners: [...base.fasteners, { id: 'spacer-nuts', kind: 'spacer_mount', label: 'Spacer to hub nuts' }, { id: 'wheel', kind: 'wheel', label: 'Wheel bolts' }],
+          fasteners: [
+            ...base.fasteners,
+            { id: 'spacer-nuts', kind: 'spacer_mount', label: 'Spacer to hub nuts' },
+            { id: 'wheel', kind: 'wheel', label: 'Wheel bolts' },
+          ],
           torque: [...base.torque, { fastenerId: 'spacer-nuts', nm: 110 }, { fastenerId: 'wheel', nm: 110 }],
         },
       });
@@ -175,7 +212,13 @@ describe('automaticChecks', () => {
     it('when nothing that takes a torque is listed, then it passes and says so', () => {
       const r = run({
         category: 'repair',
-        extra: { parts: [{ ...caliper, kind: 'pad', name: 'Sport pads' }], adapter: null, fasteners: [], torque: [], wheel: null },
+        extra: {
+          parts: [{ ...caliper, kind: 'pad', name: 'Sport pads' }],
+          adapter: null,
+          fasteners: [],
+          torque: [],
+          wheel: null,
+        },
       });
       expect(r.torque.status).toBe('pass');
       expect(r.torque.detail).toMatch(/No fasteners/);
@@ -187,7 +230,10 @@ describe('automaticChecks', () => {
       // before version 2 any tested wheel under 3 mm failed the record, so documenting a misfit was punished
       const r = run({
         extra: {
-          wheel: wheelWith([fits16, { diameterIn: 15, widthIn: 6, offsetMm: 38, outcome: 'does_not_fit', radialClearanceMm: -9 }]),
+          wheel: wheelWith([
+            fits16,
+            { diameterIn: 15, widthIn: 6, offsetMm: 38, outcome: 'does_not_fit', radialClearanceMm: -9 },
+          ]),
         },
       });
       expect(r.clearance.status).toBe('pass');
@@ -245,7 +291,9 @@ describe('automaticChecks', () => {
     });
 
     it('when a rotor disagrees with the brake figures of its axle, then it fails naming both', () => {
-      const r = run({ extra: { brakes: referenceBrakes, rotors: [{ axle: 'front', diameterMm: 320, thicknessMm: 28, vented: true }] } });
+      const r = run({
+        extra: { brakes: referenceBrakes, rotors: [{ axle: 'front', diameterMm: 320, thicknessMm: 28, vented: true }] },
+      });
       expect(r.figures.status).toBe('fail');
       expect(r.figures.detail).toContain('front rotor is 320 mm but the front brake figures say 330 mm');
     });
@@ -267,7 +315,9 @@ describe('automaticChecks', () => {
         { joint: 'bracket_to_knuckle' as const, direction: 'axial' as const, thicknessMm: 1, quantity: 4 },
         { joint: 'bracket_to_knuckle' as const, direction: 'axial' as const, thicknessMm: 0.5, quantity: 4 },
       ];
-      expect(run({ extra: { shims, centring: { joint: 'bracket_to_knuckle', gapMm: 1.5, positions: 4 } } }).figures.status).toBe('pass');
+      expect(run({ extra: { shims, centring: { joint: 'bracket_to_knuckle', gapMm: 1.5, positions: 4 } } }).figures.status).toBe(
+        'pass',
+      );
       const r = run({ extra: { shims, centring: { joint: 'bracket_to_knuckle', gapMm: 1.0, positions: 4 } } });
       expect(r.figures.status).toBe('fail');
       expect(r.figures.detail).toContain('1.5 mm per bolt, but the measured gap is 1 mm');

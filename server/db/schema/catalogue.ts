@@ -3,6 +3,7 @@ import { timestamps } from './columns';
 import { partKinds } from '../../../shared/schemas/enums';
 import type { StockBrakeCornerView } from '../../../shared/schemas/views';
 import type { VehicleData } from '../../../shared/schemas/vehicle';
+import type { ChassisWheelFastening } from '../../../shared/schemas/wheel-fastening';
 
 export const chassis = sqliteTable('chassis', {
   id: integer('id').primaryKey({ autoIncrement: true }),
@@ -23,6 +24,8 @@ export const chassis = sqliteTable('chassis', {
   stockBrakes: text('stock_brakes', { mode: 'json' }).$type<StockBrakes>().notNull(),
   /** stock figures for the brake-distribution analysis (masses, weight split, centre of gravity, valve); null when unknown */
   vehicle: text('vehicle', { mode: 'json' }).$type<VehicleData>(),
+  /** the factory wheel fastener and the hubs it screws into; null when nobody has recorded it */
+  wheelFastening: text('wheel_fastening', { mode: 'json' }).$type<ChassisWheelFastening>(),
   notes: text('notes').notNull().default(''),
   /** proposed with a submission and not yet approved */
   proposed: integer('proposed', { mode: 'boolean' }).notNull().default(false),

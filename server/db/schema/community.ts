@@ -6,6 +6,7 @@ import { swaps, revisions } from './swaps';
 import { chassis } from './catalogue';
 import { mailStatuses } from '../../../shared/schemas/enums';
 import type { VehicleData } from '../../../shared/schemas/vehicle';
+import type { ProfilePoint } from '../../../shared/schemas/swap-data';
 import { newMessageId } from '../../mail/message-id';
 
 export const fittedReports = sqliteTable(
@@ -127,6 +128,8 @@ export const cars = sqliteTable(
     spacerMm: real('spacer_mm').notNull().default(0),
     /** the member's own figures for the brake-distribution analysis; null: the chassis' stock figures apply */
     vehicle: text('vehicle', { mode: 'json' }).$type<VehicleData>(),
+    /** the wheel's inside surface in the plane through the axle, (z, r) points; null until the member measures it */
+    wheelInsideProfile: text('wheel_inside_profile', { mode: 'json' }).$type<ProfilePoint[]>(),
     ...timestamps,
   },
   (t) => [index('cars_user_idx').on(t.userId)],

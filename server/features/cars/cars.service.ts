@@ -20,6 +20,7 @@ function carView(car: CarRow, c: ChassisRow): CarView {
     tyre: car.tyre,
     spacerMm: car.spacerMm,
     vehicle: car.vehicle ?? null,
+    wheelInsideProfile: car.wheelInsideProfile ?? null,
     createdAt: car.createdAt.toISOString(),
     updatedAt: car.updatedAt.toISOString(),
   };

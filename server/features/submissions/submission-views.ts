@@ -166,6 +166,8 @@ export function checksFor(db: Db, row: LoadedRevision, photoCount?: number): Che
     chassis: {
       wheelBoltThread: row.chassis.wheelBoltThread,
       figures: chassisFigures({ ...row.chassis, vehicle: row.chassis.vehicle ?? null }),
+      centreBoreMm: row.chassis.centreBoreMm,
+      wheelFastening: row.chassis.wheelFastening,
     },
     axle: row.swap.axle,
     category: row.swap.category,

@@ -103,6 +103,7 @@ function chassisValues(input: NewChassis, data: SwapData) {
     pcdMm: input.pcdMm,
     centreBoreMm: input.centreBoreMm,
     wheelBoltThread: input.wheelBoltThread,
+    wheelFastening: input.wheelFastening ?? null,
     stockWheel,
     stockBrakes,
     notes: stripHtml(

@@ -31,6 +31,7 @@ export function chassisView(c: ChassisRow): ChassisView {
     stockWheel: c.stockWheel,
     stockBrakes: c.stockBrakes,
     vehicle: c.vehicle ?? null,
+    wheelFastening: c.wheelFastening ?? null,
     notes: c.notes,
   };
 }

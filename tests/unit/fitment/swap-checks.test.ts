@@ -24,6 +24,22 @@ function record(extra: Partial<SwapDataInput> = {}) {
   });
 }
 
+const noFastening = { wheelBoltThread: 'M12x1.5', centreBoreMm: 66.6, wheelFastening: null };
+const boltChassis = {
+  wheelBoltThread: 'M12x1.5',
+  centreBoreMm: 66.6,
+  wheelFastening: {
+    fastener: 'bolt' as const,
+    seat: 'cone60' as const,
+    stockLengthMm: 26,
+    lengthFrom: 'seat_end' as const,
+    nutClosed: false,
+    hubMaterial: 'steel' as const,
+    front: { threadDepthMm: 20, hole: 'through' as const, spigotLengthMm: 9 },
+    rear: {},
+  },
+};
+
 const wheelReq = (testedWheels: z.input<typeof testedWheelSchema>[], extra = {}) => ({
   minDiameterIn: 16,
   barrelInnerDiameterMm: 378,
@@ -73,7 +89,7 @@ describe('checkWheelForSwap: a verdict only from a measurement', () => {
 
   it('when the reader measured barrel and spokes, then both get a verdict against the 3 mm rule (common practice, no source)', () => {
     // radial: 400 / 2 − (330 / 2 + 20) = 15 mm; spokes: 40 + 0 − 34 = 6 mm (plane geometry, radius and axial differences)
-    const check = checkWheelForSwap(data, 'front', 'M12x1.5', {
+    const check = checkWheelForSwap(data, 'front', noFastening, {
       diameterIn: 17,
       widthIn: 8,
       offsetMm: 30,
@@ -89,7 +105,7 @@ describe('checkWheelForSwap: a verdict only from a measurement', () => {
   it('when a lower-offset, wider wheel is estimated from a measured one, then it gains no room and carries no verdict', () => {
     // the 17×7.5 ET42 wheel was measured at 6 mm; for a 17×8 ET30 the rim edge moves 12 + 6.35 mm outboard, but the
     // spokes need not follow, so the estimate keeps 6 mm rather than the 24.35 mm the rim edge would suggest
-    const check = checkWheelForSwap(data, 'front', 'M12x1.5', { diameterIn: 17, widthIn: 8, offsetMm: 30, spacerMm: 0 });
+    const check = checkWheelForSwap(data, 'front', noFastening, { diameterIn: 17, widthIn: 8, offsetMm: 30, spacerMm: 0 });
     expect(check.spoke?.basis).toBe('estimated');
     expect(check.spoke?.clearanceMm).toBeCloseTo(6, 9);
     expect(check.spoke).not.toHaveProperty('ok');
@@ -98,21 +114,26 @@ describe('checkWheelForSwap: a verdict only from a measurement', () => {
 
   it('when the estimated wheel has a higher offset, then the spokes come closer by the full shift', () => {
     // 17×7.5 ET52: the rim edge moves 10 mm inboard → 6 − 10 = −4 mm (errs towards less clearance)
-    const check = checkWheelForSwap(data, 'front', 'M12x1.5', { diameterIn: 17, widthIn: 7.5, offsetMm: 52, spacerMm: 0 });
+    const check = checkWheelForSwap(data, 'front', noFastening, { diameterIn: 17, widthIn: 7.5, offsetMm: 52, spacerMm: 0 });
     expect(check.spoke?.clearanceMm).toBeCloseTo(-4, 9);
     expect(wheelCheckSummary(check).tone).toBe('open');
   });
 
   it('when a spacer is added, then the spoke estimate moves by exactly its thickness (the wheel moves outboard by t)', () => {
-    const without = checkWheelForSwap(data, 'front', 'M12x1.5', { diameterIn: 17, widthIn: 7.5, offsetMm: 42, spacerMm: 0 });
-    const withSpacer = checkWheelForSwap(data, 'front', 'M12x1.5', { diameterIn: 17, widthIn: 7.5, offsetMm: 42, spacerMm: 10 });
+    const without = checkWheelForSwap(data, 'front', noFastening, { diameterIn: 17, widthIn: 7.5, offsetMm: 42, spacerMm: 0 });
+    const withSpacer = checkWheelForSwap(data, 'front', noFastening, {
+      diameterIn: 17,
+      widthIn: 7.5,
+      offsetMm: 42,
+      spacerMm: 10,
+    });
     expect(withSpacer.spoke!.clearanceMm - without.spoke!.clearanceMm).toBeCloseTo(10, 9);
   });
 
   it('when the barrel is estimated, then the smallest of the bases is used', () => {
     // bases for a 17″ wheel: nominal 17 × 25.4 − 28 = 403.8 mm → 403.8/2 − 185 = 16.9 mm;
     // the record's 378 mm barrel on 16″ scaled by 25.4 mm → 403.4 mm → 16.7 mm; the measured 17″ wheel: 17 mm
-    const check = checkWheelForSwap(data, 'front', 'M12x1.5', { diameterIn: 17, widthIn: 8, offsetMm: 30, spacerMm: 0 });
+    const check = checkWheelForSwap(data, 'front', noFastening, { diameterIn: 17, widthIn: 8, offsetMm: 30, spacerMm: 0 });
     expect(check.radial?.basis).toBe('estimated');
     expect(check.radial?.clearanceMm).toBeCloseTo((378 + MM_PER_IN) / 2 - 185, 9);
     expect(BARREL_ALLOWANCE_MM).toBe(28);
@@ -123,7 +144,12 @@ describe('checkWheelForSwap: a verdict only from a measurement', () => {
       rotors: [{ axle: 'front', diameterMm: 330, thicknessMm: 28, vented: true }],
       wheel: wheelReq([{ diameterIn: 15, widthIn: 6, offsetMm: 38, outcome: 'does_not_fit', radialClearanceMm: -9 }]),
     });
-    const check = checkWheelForSwap(withMisfit, 'front', 'M12x1.5', { diameterIn: 15, widthIn: 6.5, offsetMm: 35, spacerMm: 0 });
+    const check = checkWheelForSwap(withMisfit, 'front', noFastening, {
+      diameterIn: 15,
+      widthIn: 6.5,
+      offsetMm: 35,
+      spacerMm: 0,
+    });
     expect(check.radial?.clearanceMm).toBeLessThanOrEqual(-9);
     expect(check.minDiameter?.ok).toBe(false);
     expect(wheelCheckSummary(check)).toMatchObject({ tone: 'fail' });
@@ -131,18 +157,28 @@ describe('checkWheelForSwap: a verdict only from a measurement', () => {
   });
 
   it('when the wheel bolt is too short, then the summary names the thread, not the clearance', () => {
-    // M12×1.5: 1.0 × d = 12 mm of thread (common practice, no source); 36 − (10 + 16) = 10 mm < 12 mm
-    const check = checkWheelForSwap(data, 'front', 'M12x1.5', {
+    // M12×1.5 into a steel hub: 1.0 × d = 12 mm of thread (common practice, no source); 36 − (10 + 16) = 10 mm < 12 mm
+    const check = checkWheelForSwap(data, 'front', boltChassis, {
       diameterIn: 17,
       widthIn: 7.5,
       offsetMm: 42,
       spacerMm: 10,
-      boltLengthMm: 36,
-      seatThicknessMm: 16,
+      fastening: { clampMm: 16, lengthMm: 36, wheelSeat: { type: 'cone60' }, spacerHubCentric: true },
     });
-    expect(check.engagement?.ok).toBe(false);
+    expect(check.fastening?.engagement).toMatchObject({ engagementMm: 10, ok: false });
     expect(wheelCheckSummary(check).text).toContain('too little thread');
     expect(wheelCheckSummary(check).text).not.toMatch(/clear/);
+  });
+
+  it('when the chassis has no wheel fastening on record, then no fastening verdict is given', () => {
+    const check = checkWheelForSwap(data, 'front', noFastening, {
+      diameterIn: 17,
+      widthIn: 7.5,
+      offsetMm: 42,
+      spacerMm: 0,
+      fastening: { clampMm: 16, lengthMm: 36 },
+    });
+    expect(check.fastening).toBeNull();
   });
 });
 
@@ -163,7 +199,13 @@ describe('testedWheelVerdicts', () => {
 
 describe('brakeBalanceOf', () => {
   it('when a corner is a drum, then it is computed as a drum (Limpert, drum brake torque: 20.64 mm, 203.2 mm, C* 2.2, 40 bar → 299.15 N·m)', () => {
-    const drum = { kind: 'drum' as const, wheelCylinderBoreMm: 20.64, drumDiameterMm: 203.2, shoeType: 'leading_trailing' as const, brakeFactor: 2.2 };
+    const drum = {
+      kind: 'drum' as const,
+      wheelCylinderBoreMm: 20.64,
+      drumDiameterMm: 203.2,
+      shoeType: 'leading_trailing' as const,
+      brakeFactor: 2.2,
+    };
     const front = { kind: 'disc' as const, pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50 };
     const balance = brakeBalanceOf(
       record({ brakes: { linePressureBar: 40, padMu: 0.4, before: { front, rear: drum }, after: { front, rear: drum } } }),
@@ -204,7 +246,9 @@ describe('machining level and cautions by what the job touches', () => {
     expect(machiningLevel([{ component: 'knuckle', operation: 'grind', where: 'Casting lug', required: true, notes: '' }])).toBe(
       'structural',
     );
-    expect(machiningLevel([{ component: 'dust_shield', operation: 'trim', where: 'Edge', required: true, notes: '' }])).toBe('minor');
+    expect(machiningLevel([{ component: 'dust_shield', operation: 'trim', where: 'Edge', required: true, notes: '' }])).toBe(
+      'minor',
+    );
     expect(machiningLevel([{ component: 'wheel', operation: 'machine', where: 'Barrel lip', required: true, notes: '' }])).toBe(
       'major',
     );
@@ -230,9 +274,15 @@ describe('machining level and cautions by what the job touches', () => {
 
 describe('pistonsPerSideOf', () => {
   it('takes every piston of a floating caliper and one side of a fixed one', () => {
-    expect(pistonsPerSideOf({ type: 'floating', pistons: [{ diameterMm: 42, side: 'inboard' }, { diameterMm: 42, side: 'inboard' }] })).toEqual([
-      42, 42,
-    ]);
+    expect(
+      pistonsPerSideOf({
+        type: 'floating',
+        pistons: [
+          { diameterMm: 42, side: 'inboard' },
+          { diameterMm: 42, side: 'inboard' },
+        ],
+      }),
+    ).toEqual([42, 42]);
     const fixed = [40, 44].flatMap((d) => [
       { diameterMm: d, side: 'inboard' as const },
       { diameterMm: d, side: 'outboard' as const },

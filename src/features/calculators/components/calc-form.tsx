@@ -201,11 +201,7 @@ export function SubHeading({ children }: { children: ReactNode }) {
 }
 
 /** A signed figure: "+30 mm", "−2.5 mm", "0 mm" when it rounds to nothing. */
-export function withSign(value: number, format: (abs: number) => string): string {
-  const abs = format(Math.abs(value));
-  if (abs === format(0)) return abs;
-  return `${value > 0 ? '+' : '−'}${abs}`;
-}
+export { withSign } from '../../../components/fit-check-card';
 
 type ChoiceFieldProps = {
   params: CalcParams;

@@ -22,7 +22,7 @@ import {
   Waiting,
   withSign,
 } from './calc-form';
-import { FitCheckCard, type CheckWords } from './fit-check-card';
+import { FitCheckCard, type CheckWords } from '../../../components/fit-check-card';
 import { CaliperFitDrawing } from './caliper-fit-drawing';
 
 const joints = [

@@ -1,12 +1,13 @@
 import { wheelFasteningChain, type FastenerKind, type SeatType, type WheelFasteningInput } from '@shared/fitment/fastening';
 import { boltLengthWithSpacer, threadBasics, unifiedThreadBasics, type HubMaterial } from '@shared/fitment/threads';
 import { MM_PER_IN } from '@shared/fitment/units';
+import { fasteningCheckWords } from '@shared/fitment/swap-fastening';
 import { Caution } from '../../../components/caution';
 import { Figure } from '../../../components/verdict';
 import { round, useUnits } from '../../../lib/units';
 import { byField, Inputs, type CalcParams } from './calc-params';
 import { ChoiceField, choiceOf, FieldGrid, Fieldset, Panel, QuantityField, ResultGrid, SubHeading, Waiting } from './calc-form';
-import { FitCheckCard, type CheckWords } from './fit-check-card';
+import { FitCheckCard, type CheckWords } from '../../../components/fit-check-card';
 
 export const threadKeys = [
   'thread',
@@ -72,14 +73,7 @@ const spacerMaterialOptions = [
   ['steel', 'Steel'],
 ] as const;
 
-const words: CheckWords = {
-  seat: { pass: 'Seats match', fail: 'Seats do not match' },
-  engagement: { pass: 'Enough thread', fail: 'Too little thread' },
-  bottoming: { pass: 'Clear of the bottom', fail: 'Bottoms out' },
-  'too-long': { pass: 'Clear behind the hub', fail: 'Too long' },
-  spigot: { pass: 'Centres on the hub', fail: 'Spigot swallowed' },
-  'centre-bore': { pass: 'Fits over the spigot', fail: 'Bore too small' },
-};
+const words: CheckWords = fasteningCheckWords;
 
 export function ThreadPanel({ params }: { params: CalcParams }) {
   const { length } = useUnits();

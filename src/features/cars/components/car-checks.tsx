@@ -17,6 +17,7 @@ export function useCarWheelPresets(chassisSlug: string, signedIn: boolean) {
   return ordered.map((c) => ({
     label: onChassis.includes(c) ? `${c.nickname} (${wheelLabel(c)})` : `${c.nickname} (${wheelLabel(c)}, other chassis)`,
     wheel: { diameterIn: c.wheelDiameterIn, widthIn: c.wheelWidthIn, offsetMm: c.wheelOffsetMm, spacerMm: c.spacerMm },
+    insideProfile: c.wheelInsideProfile,
   }));
 }
 

@@ -9,6 +9,7 @@ import { ApiError } from '../../../lib/api-client';
 import { useUnits } from '../../../lib/units';
 import { useChassisOptions } from '../api/get-cars';
 import { VehicleFields, vehicleFormOf, vehicleInputOf, type VehicleForm } from '../../../components/vehicle-fields';
+import { profileOf, rowsOf, WheelProfileFields, type ProfileRow } from './wheel-profile-fields';
 
 type Form = Record<'chassisId' | 'nickname' | 'wheelDiameterIn' | 'wheelWidthIn' | 'wheelOffsetMm' | 'tyre' | 'spacer', string>;
 
@@ -50,6 +51,7 @@ export function CarForm({
   const [form, setForm] = useState<Form>(() => (car ? fromCar(car, imperial) : blank));
   const [vehicle, setVehicle] = useState<VehicleForm>(() => vehicleFormOf(car?.vehicle ?? null, imperial, Boolean(car?.vehicle)));
   const chosen = chassisList.data?.find((c) => String(c.id) === form.chassisId) ?? null;
+  const [profileRows, setProfileRows] = useState<ProfileRow[]>(() => rowsOf(car?.wheelInsideProfile ?? null, imperial));
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [problem, setProblem] = useState<string | null>(null);
   const set = (key: keyof Form) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
@@ -60,7 +62,13 @@ export function CarForm({
     setProblem(null);
     const spacerRaw = form.spacer.trim().replace(',', '.');
     const spacerMm = spacerRaw === '' ? 0 : imperial ? Math.round(inToMm(Number(spacerRaw)) * 10) / 10 : Number(spacerRaw);
-    const parsed = carInputSchema.safeParse({ ...form, spacerMm, spacer: undefined, vehicle: vehicleInputOf(vehicle, imperial) });
+    const parsed = carInputSchema.safeParse({
+      ...form,
+      spacerMm,
+      spacer: undefined,
+      vehicle: vehicleInputOf(vehicle, imperial),
+      wheelInsideProfile: profileOf(profileRows, imperial),
+    });
     if (!parsed.success) {
       const fields = fieldErrors(parsed.error.issues);
       setErrors(fields);
@@ -72,6 +80,7 @@ export function CarForm({
       if (!car) {
         setForm(blank);
         setVehicle(vehicleFormOf(null, imperial, false));
+        setProfileRows([]);
       }
     } catch (err) {
       if (err instanceof ApiError) {
@@ -160,6 +169,7 @@ export function CarForm({
         stock={chosen?.vehicle ?? null}
         chassisName={chosen ? `${chosen.make} ${chosen.model}` : null}
       />
+      <WheelProfileFields rows={profileRows} onChange={setProfileRows} errors={errors} />
       <div className="flex flex-wrap items-end gap-2 sm:col-span-2 lg:col-span-3">
         <Button type="submit" disabled={saving}>
           {saving ? 'Saving…' : car ? 'Save changes' : 'Add car'}

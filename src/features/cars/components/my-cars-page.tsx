@@ -104,6 +104,11 @@ function CarCard({ car }: { car: CarView }) {
           <VehicleFiguresList vehicle={car.vehicle} className="mt-1" />
         </details>
       )}
+      <p className="mt-1 text-xs text-graphite-soft" data-testid="profile-status">
+        {car.wheelInsideProfile
+          ? `Wheel inside profile: ${car.wheelInsideProfile.length} points, drawn on each swap’s sheet.`
+          : 'No wheel inside profile yet: edit the car to measure it.'}
+      </p>
       <div className="mt-auto flex flex-wrap items-center gap-2 pt-4">
         <Button variant="secondary" onClick={() => setEditing(true)}>
           Edit

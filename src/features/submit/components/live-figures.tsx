@@ -42,8 +42,8 @@ export function LiveFigures({
   axle: Axle | null;
   category: Category | null;
   wheelBoltThread: string | null;
-  /** the chosen chassis, whose stock figures say which axle locks first */
-  chassis: Pick<ChassisView, 'make' | 'model' | 'vehicle'> | null;
+  /** the chosen chassis: its stock figures say which axle locks first; its wheel fastening, when on record, is checked */
+  chassis: (Pick<ChassisView, 'make' | 'model' | 'vehicle'> & Partial<Pick<ChassisView, 'centreBoreMm' | 'wheelFastening'>>) | null;
   photoCount: number;
 }) {
   const values = useWatch<FormValues, 'data'>({ name: 'data' });
@@ -61,7 +61,12 @@ export function LiveFigures({
           data,
           body: '',
           photoCount,
-          chassis: { wheelBoltThread: wheelBoltThread ?? 'M12x1.5', figures },
+          chassis: {
+            wheelBoltThread: wheelBoltThread ?? 'M12x1.5',
+            figures,
+            centreBoreMm: chassis?.centreBoreMm,
+            wheelFastening: chassis?.wheelFastening ?? null,
+          },
           axle,
           category: category ?? undefined,
           duplicates: [],

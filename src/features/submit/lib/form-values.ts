@@ -36,6 +36,7 @@ import {
 import { createSubmissionSchema, type CreateSubmission, type NewChassis } from '@shared/schemas/submissions';
 import type { Axle, Category, CostRoute, PartKind, UnitSystem } from '@shared/schemas/enums';
 import { barToPsi, inToMm, lbfFtToNm, mmToIn, nmToLbfFt, psiToBar } from '@shared/fitment/units';
+import { parseThread } from '@shared/fitment/threads';
 import type { ChassisView } from '@shared/schemas/views';
 import { listItems, numberList, readNumber } from '../../../lib/number-text';
 
@@ -943,7 +944,10 @@ export function liveDataOf(v: FormValues['data']): SwapData {
 }
 
 export function newChassisReadable(v: FormValues['newChassis']): Pick<NewChassis, 'wheelBoltThread'> | null {
-  return /^M\d{1,2}(?:[x×]\d(?:\.\d{1,2})?)$/i.test(v.wheelBoltThread.trim())
-    ? { wheelBoltThread: v.wheelBoltThread.trim() }
-    : null;
+  try {
+    parseThread(v.wheelBoltThread);
+    return { wheelBoltThread: v.wheelBoltThread.trim() };
+  } catch {
+    return null;
+  }
 }

@@ -30,6 +30,7 @@ import { cautionTopicsOf } from '../../../components/caution';
 import { CostRoutesSection } from './cost-routes';
 import { BrakeBalanceSection } from './brake-balance';
 import { WheelCheckPanel, type WheelPreset } from './wheel-check-panel';
+import { SectionCheck, type ProfiledWheel } from './section-check';
 import { RevisionHistory } from './revision-history';
 
 const date = (iso: string | null) =>
@@ -172,9 +173,10 @@ export function SwapSheet({ view, banner, presets, ownFigures, extraSections }: 
             {data.wheel.notes && <p className="mt-2 text-sm text-graphite">{data.wheel.notes}</p>}
           </SheetSection>
         )}
+        {data.wheel && <SectionCheck data={data} axle={swap.axle} mine={profiledPresets(presets)} />}
         {data.wheel && (
           <div className="print:hidden">
-            <WheelCheckPanel data={data} axle={swap.axle} wheelBoltThread={chassis.wheelBoltThread} presets={presets} />
+            <WheelCheckPanel data={data} axle={swap.axle} chassis={chassis} presets={presets} />
           </div>
         )}
         <BrakeBalanceSection data={data} chassis={chassis} ownFigures={ownFigures} />
@@ -210,6 +212,15 @@ export function SwapSheet({ view, banner, presets, ownFigures, extraSections }: 
         </div>
       </div>
     </Page>
+  );
+}
+
+/** The reader's cars whose wheel inside is recorded, for the section check. */
+function profiledPresets(presets: WheelPreset[] = []): ProfiledWheel[] {
+  return presets.flatMap((p, i) =>
+    p.insideProfile && p.insideProfile.length >= 2
+      ? [{ key: `mine-${i}`, label: p.label, profile: p.insideProfile, spacerMm: p.wheel.spacerMm, mine: true }]
+      : [],
   );
 }
 

@@ -3,16 +3,28 @@ import type { SwapData } from '@shared/schemas/swap-data';
 import type { Axle } from '@shared/schemas/enums';
 import { checkWheelForSwap, wheelCheckSummary, type WheelUnderTest } from '@shared/fitment/swap-checks';
 import { FitmentInputError } from '@shared/fitment/errors';
+import { fasteningCheckWords, fastenerNoun, type FasteningChassis } from '@shared/fitment/swap-fastening';
+import type { SeatSpec } from '@shared/fitment/fastening';
+import type { SectionPoint } from '@shared/fitment/section';
 import { inToMm, mmToIn } from '@shared/fitment/units';
 import { useUnits } from '../../../lib/units';
-import { TextInput } from '../../../components/ui/field';
+import { Select, TextInput } from '../../../components/ui/field';
+import { FitCheckCard } from '../../../components/fit-check-card';
 import { ClearanceCard, Figure, Verdict } from '../../../components/verdict';
 import { Button } from '../../../components/ui/button';
 import { SheetSection } from './sheet-section';
 
-export type WheelPreset = { label: string; wheel: { diameterIn: number; widthIn: number; offsetMm: number; spacerMm: number } };
+export type WheelPreset = {
+  label: string;
+  wheel: { diameterIn: number; widthIn: number; offsetMm: number; spacerMm: number };
+  /** the wheel's inside, when its owner has recorded it: drawn in the section check */
+  insideProfile?: SectionPoint[] | null;
+};
 
-type Form = Record<'diameterIn' | 'widthIn' | 'offsetMm' | 'spacer' | 'barrel' | 'spokeInset' | 'boltLength' | 'seat', string>;
+type Form = Record<
+  'diameterIn' | 'widthIn' | 'offsetMm' | 'spacer' | 'barrel' | 'spokeInset' | 'seatType' | 'ballRadius' | 'clamp' | 'length',
+  string
+>;
 
 const empty: Form = {
   diameterIn: '',
@@ -21,8 +33,10 @@ const empty: Form = {
   spacer: '0',
   barrel: '',
   spokeInset: '',
-  boltLength: '',
-  seat: '',
+  seatType: '',
+  ballRadius: '',
+  clamp: '',
+  length: '',
 };
 
 function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors: Partial<Record<keyof Form, string>> } {
@@ -54,8 +68,16 @@ function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors:
   const spacer = num('spacer', { min: 0, max: 60, length: true }) ?? 0;
   const barrel = num('barrel', { min: 0, max: 660, length: true });
   const spokeInset = num('spokeInset', { min: -100, max: 200, length: true });
-  const boltLength = num('boltLength', { min: 0, max: 100, length: true });
-  const seat = num('seat', { min: 0, max: 50, length: true });
+  const clamp = num('clamp', { min: 1, max: 60, length: true });
+  const length = num('length', { min: 1, max: 150, length: true });
+  const ballRadius = num('ballRadius', { min: 5, max: 30, length: true });
+  if (form.seatType === 'ball' && ballRadius === undefined && !errors.ballRadius) errors.ballRadius = 'Give the ball’s radius';
+  const wheelSeat: SeatSpec | null =
+    form.seatType === 'cone60' || form.seatType === 'flat'
+      ? { type: form.seatType }
+      : form.seatType === 'ball' && ballRadius !== undefined
+        ? { type: 'ball', ballRadiusMm: ballRadius }
+        : null;
   if (Object.keys(errors).length || diameterIn === undefined || widthIn === undefined || offsetMm === undefined)
     return { errors };
   return {
@@ -67,8 +89,7 @@ function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors:
       spacerMm: spacer,
       barrelInnerDiameterMm: barrel,
       spokeInsetMm: spokeInset,
-      boltLengthMm: boltLength,
-      seatThicknessMm: seat,
+      fastening: { wheelSeat, clampMm: clamp, lengthMm: length },
     },
   };
 }
@@ -77,12 +98,12 @@ function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors:
 export function WheelCheckPanel({
   data,
   axle,
-  wheelBoltThread,
+  chassis,
   presets = [],
 }: {
   data: SwapData;
   axle: Axle;
-  wheelBoltThread: string;
+  chassis: FasteningChassis;
   presets?: WheelPreset[];
 }) {
   const units = useUnits();
@@ -93,14 +114,17 @@ export function WheelCheckPanel({
   const result = useMemo(() => {
     if (!wheel) return null;
     try {
-      return { check: checkWheelForSwap(data, axle, wheelBoltThread, wheel) };
+      return { check: checkWheelForSwap(data, axle, chassis, wheel) };
     } catch (err) {
       if (err instanceof FitmentInputError) return { error: err.message };
       throw err;
     }
-  }, [data, axle, wheelBoltThread, wheel]);
+  }, [data, axle, chassis, wheel]);
 
-  const set = (key: keyof Form) => (e: React.ChangeEvent<HTMLInputElement>) => setForm((f) => ({ ...f, [key]: e.target.value }));
+  const set = (key: keyof Form) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
+    setForm((f) => ({ ...f, [key]: e.target.value }));
+  const noun = chassis.wheelFastening ? fastenerNoun(chassis.wheelFastening) : 'bolt';
+  const stud = chassis.wheelFastening?.fastener === 'stud_nut';
   const u = units.lengthUnit;
   const fill = (w: WheelPreset['wheel']) =>
     setForm((f) => ({
@@ -110,7 +134,6 @@ export function WheelCheckPanel({
       offsetMm: String(w.offsetMm),
       spacer: imperial ? (w.spacerMm / 25.4).toFixed(2) : String(w.spacerMm),
     }));
-  const margin = (mm: number) => `${mm >= 0 ? '+' : '−'}${units.length(Math.abs(mm))}`;
 
   return (
     <SheetSection id="check" title="Check my wheel">
@@ -175,20 +198,42 @@ export function WheelCheckPanel({
                 onChange={set('spokeInset')}
                 error={errors.spokeInset}
               />
+              <Select
+                label="Wheel seat"
+                hint={`Where the ${noun} seats in the wheel`}
+                value={form.seatType}
+                onChange={set('seatType')}
+              >
+                <option value="">Not known</option>
+                <option value="cone60">60° cone</option>
+                <option value="ball">Ball (radius)</option>
+                <option value="flat">Flat</option>
+              </Select>
+              {form.seatType === 'ball' && (
+                <TextInput
+                  label={`Ball radius (${u})`}
+                  inputMode="decimal"
+                  value={form.ballRadius}
+                  onChange={set('ballRadius')}
+                  error={errors.ballRadius}
+                  placeholder="13"
+                />
+              )}
               <TextInput
-                label={`Wheel-bolt length (${u})`}
+                label={`Wheel thickness at the ${noun} (${u})`}
+                hint="From where the seat ends to the mounting face"
                 inputMode="decimal"
-                value={form.boltLength}
-                onChange={set('boltLength')}
-                error={errors.boltLength}
+                value={form.clamp}
+                onChange={set('clamp')}
+                error={errors.clamp}
               />
               <TextInput
-                label={`Wheel seat thickness (${u})`}
-                hint="Mounting pad of the wheel"
+                label={stud ? `Stud length out of the hub (${u})` : `Wheel-bolt length (${u})`}
+                hint={stud ? 'Empty: the factory studs' : 'Empty: the factory bolts'}
                 inputMode="decimal"
-                value={form.seat}
-                onChange={set('seat')}
-                error={errors.seat}
+                value={form.length}
+                onChange={set('length')}
+                error={errors.length}
               />
             </>
           )}
@@ -242,24 +287,40 @@ export function WheelCheckPanel({
                 value={`ET${Math.round(result.check.offset.offsetMm * 10) / 10}`}
                 note={`Backspacing ${units.length(result.check.offset.backspacingMm)} · track +${units.length(result.check.offset.trackChangeMm)} per axle`}
               />
-              {result.check.engagement ? (
-                <Verdict
-                  label="Wheel-bolt thread engagement"
-                  ok={result.check.engagement.ok}
-                  value={`${units.length(result.check.engagement.engagementMm)} (${result.check.engagement.turns.toFixed(1)} turns)`}
-                  margin={margin(result.check.engagement.marginMm)}
-                  rule={result.check.engagement.rule}
-                  words={{ pass: 'Enough thread', fail: 'Too little thread' }}
-                />
-              ) : (
+              {result.check.fastening?.checks.map((c) => (
+                <FitCheckCard key={c.id} check={c} words={fasteningCheckWords} />
+              ))}
+              {result.check.fastening?.engagement && (
                 <Figure
-                  label="Wheel-bolt length"
-                  value={
-                    form.spacer && Number(form.spacer) > 0
-                      ? `Stock + ${units.length(result.check.offset.outboardMm)}`
-                      : 'Stock length'
+                  label="Thread engaged"
+                  value={`${units.length(result.check.fastening.engagement.engagementMm)} (${result.check.fastening.engagement.turns.toFixed(1)} turns)`}
+                  note={
+                    result.check.fastening.engagement.limitedBy === 'hub_thread'
+                      ? 'Limited by the hub’s thread depth.'
+                      : `Limited by the ${noun}’s length.`
                   }
-                  note={result.check.boltNote}
+                />
+              )}
+              {!result.check.fastening?.engagement && (
+                <Figure
+                  label={stud ? 'Stud length' : 'Wheel-bolt length'}
+                  value={
+                    result.check.fastening?.lengthWithSpacerMm
+                      ? `${units.length(result.check.fastening.lengthWithSpacerMm)} to keep the stock engagement`
+                      : wheel.spacerMm > 0
+                        ? `Stock + ${units.length(result.check.offset.outboardMm)}`
+                        : 'Stock length'
+                  }
+                  note={
+                    <>
+                      {result.check.boltNote}
+                      {result.check.fastening && result.check.fastening.missing.length > 0 && (
+                        <> For the thread check, enter {result.check.fastening.missing.join(', ')}.</>
+                      )}
+                      {!chassis.wheelFastening && ' The chassis has no wheel fastening on record, so the thread is not checked.'}
+                      {result.check.fasteningError && ` ${result.check.fasteningError}`}
+                    </>
+                  }
                 />
               )}
               {result.check.maxRotor && (
@@ -277,6 +338,13 @@ export function WheelCheckPanel({
               )}
               {result.check.spacerNote && <Figure label="Spacer type" value="Consider bolt-on" note={result.check.spacerNote} />}
             </div>
+            {result.check.fastening && result.check.fastening.cautions.length > 0 && (
+              <ul className="mt-3 space-y-1 rounded-lg border border-oxide/40 bg-oxide-soft p-3 text-sm text-oxide" role="note">
+                {result.check.fastening.cautions.map((c) => (
+                  <li key={c}>{c}</li>
+                ))}
+              </ul>
+            )}
           </>
         ) : null}
       </div>

@@ -1,9 +1,15 @@
 import type { FitCheck } from '@shared/fitment/fit-check';
-import { Verdict } from '../../../components/verdict';
-import { useUnits } from '../../../lib/units';
-import { withSign } from './calc-form';
+import { Verdict } from './verdict';
+import { useUnits } from '../lib/units';
 
 export type CheckWords = Record<string, { pass: string; fail: string }>;
+
+/** "+1.2 mm" / "−0.4 mm"; a figure that shows as zero gets no sign */
+export function withSign(value: number, format: (abs: number) => string): string {
+  const abs = format(Math.abs(value));
+  if (abs === format(0)) return abs;
+  return `${value > 0 ? '+' : '−'}${abs}`;
+}
 
 /** One rule-based check from shared/fitment: its figure, margin, the rule and where the rule comes from. */
 export function FitCheckCard({ check, words, value }: { check: FitCheck; words?: CheckWords; value?: string }) {
