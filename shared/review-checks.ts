@@ -6,6 +6,7 @@ import { MIN_CLEARANCE_MM } from './fitment/clearance';
 import { fastenerKindLabels } from './schemas/swap-data-labels';
 import type { VehicleFigures } from './schemas/vehicle';
 import { testedWheelFastenings } from './fitment/swap-fastening';
+import { caliperFitsFor } from './fitment/swap-caliper-fit';
 import type { ChassisWheelFastening } from './schemas/wheel-fastening';
 
 // The automatic checks the review desk shows for a revision. The submission form runs the same
@@ -38,6 +39,7 @@ export const checkIds = [
   'torque',
   'clearance',
   'fastening',
+  'caliper_fit',
   'figures',
   'balance',
   'costs',
@@ -249,6 +251,39 @@ function fasteningCheck(input: ReviewCheckInput): CheckResult {
   };
 }
 
+/**
+ * Each caliper on the rotor the record gives its axle: a pad that overhangs the rotor edge or runs below the friction
+ * ring, a rotor outside the caliper's thickness range, or a caliper left off the ring's centre is a failure.
+ */
+function caliperFitCheck(input: ReviewCheckInput): CheckResult {
+  const label = 'Caliper on the rotor';
+  const fits = caliperFitsFor(input.data, input.axle);
+  if (fits.length === 0) return { id: 'caliper_fit', label, status: 'pass', detail: 'No caliper in the record.' };
+  const failed = fits.flatMap((f) =>
+    (f.fit?.checks ?? []).filter((c) => c.ok === false).map((c) => `${f.label}: ${c.label.toLowerCase()} (${c.rule})`),
+  );
+  if (failed.length > 0)
+    return { id: 'caliper_fit', label, status: 'fail', detail: `${failed.join('; ')}. Correct the figures or the parts.` };
+  const refused = fits.filter((f) => f.error);
+  if (refused.length > 0)
+    return { id: 'caliper_fit', label, status: 'attention', detail: refused.map((f) => `${f.label}: ${f.error}`).join('; ') };
+  const unchecked = fits.filter((f) => !f.fit);
+  if (unchecked.length > 0)
+    return {
+      id: 'caliper_fit',
+      label,
+      status: 'attention',
+      detail: `Not worked out for ${unchecked.map((f) => `${f.label} (needs ${f.missing.join(', ')})`).join('; ')}. Ask for the figures.`,
+    };
+  const overhang = fits.map((f) => f.fit!.checks.find((c) => c.id === 'pad-overhang')!.marginMm!);
+  return {
+    id: 'caliper_fit',
+    label,
+    status: 'pass',
+    detail: `Pad edge ${fmt(Math.min(...overhang))} inside the rotor edge at the least${fits.some((f) => f.fit!.checks.some((c) => c.id === 'axial-centring')) ? '; centred on the friction ring' : ''}.`,
+  };
+}
+
 /** The record's figures agree with each other: rotors and calipers with the brake figures of their axle, shims with the mounting. */
 function figuresCheck(data: SwapData): CheckResult {
   const label = 'Figures agree';
@@ -376,6 +411,7 @@ export function automaticChecks(input: ReviewCheckInput): CheckResult[] {
     torqueCheck(input.data),
     clearanceCheck(input),
     fasteningCheck(input),
+    caliperFitCheck(input),
     figuresCheck(input.data),
     balanceCheck(input),
     costsCheck(input.data),

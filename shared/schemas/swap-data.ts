@@ -72,6 +72,21 @@ export const caliperSchema = z
       })
       .default({}),
     padHeightMm: z.number().positive().max(120).optional(),
+    /** how the caliper sits on the fitted rotor, for the caliper–rotor fit (each figure as measured or from the maker) */
+    fit: z
+      .object({
+        /** how far the pad's outer edge sits inside the edge of the rotor the caliper was designed for */
+        padEdgeStepMm: z.number().min(0).max(40),
+        /** how far the bracket or adapter moves the caliper outward from its design position (negative: inward) */
+        radialLiftMm: z.number().min(-60).max(60).default(0),
+        /** from the caliper's mount face to its centre plane (half-way between the pad faces), positive outboard */
+        centreFromMountMm: z.number().min(-150).max(150).optional(),
+        /** from the hub face to the face the caliper mounts on, bracket fitted and before shims, positive inboard */
+        mountFaceInboardMm: z.number().min(-150).max(250).optional(),
+        /** which way a shim on the record's axial joint moves the caliper */
+        shimMoves: z.enum(['outboard', 'inboard']).optional(),
+      })
+      .optional(),
     /** where the bleed screw ends up with the caliper fitted on this car; at the bottom the air stays in */
     bleedScrewWhenFitted: z.enum(bleedPositions).nullable().default(null),
     notes: text(300).default(''),

@@ -302,7 +302,7 @@ export function SectionDrawing(props: SectionDrawingProps) {
           outboard → · ↑ from the axle
         </text>
       </svg>
-      <figcaption id={`${id}-caption`} className="mt-2 text-sm text-graphite">
+      <figcaption id={`${id}-caption`} className="mt-2 text-sm text-graphite print:mt-1 print:text-[7pt] print:leading-tight">
         {words}
       </figcaption>
     </figure>

@@ -25,7 +25,7 @@ describe('swap data version 2 on the demo scenario', () => {
   beforeAll(async () => {
     t = await makeTestApp();
     await seedDemo(t.db, { storage: t.storage, clock: { now: () => new Date('2026-12-01T12:00:00Z') } }, {});
-  });
+  }, 60_000); // the whole demo scenario, photos included
   afterAll(() => t.close());
 
   it('when every approved demo record runs through every automatic review check, then none fails', () => {
@@ -50,17 +50,25 @@ describe('swap data version 2 on the demo scenario', () => {
     expect(checks.clearance.status).toBe('pass');
     expect(checks.clearance.detail).toContain('3 wheels that do not fit');
     expect(checks.balance.detail).toContain('toward the front');
+    // pad edge 330/2 − 2 = 163 mm against the 165 mm rotor radius; ring centre 46 − 14 = 32 mm, caliper 53.5 − 20 = 33.5 mm,
+    // met by the record's 1.0 + 0.5 mm axial shims (plane geometry)
+    expect(checks.caliper_fit).toMatchObject({
+      status: 'pass',
+      detail: 'Pad edge 2 mm inside the rotor edge at the least; centred on the friction ring.',
+    });
   });
 
-  it('when the flagship record is checked, then its wheel fastening passes, the ball-seat wheel on its own ball-seat bolts', () => {
+  it('when the H40 four-piston record is checked, then its wheel fastening passes, the ball-seat wheel on its own ball-seat bolts', () => {
     const id = t.db
       .select({ id: swaps.currentRevisionId })
       .from(swaps)
-      .where(eq(swaps.slug, 'h31-front-vela-four-piston-330'))
+      .where(eq(swaps.slug, 'h40-front-vela-four-piston-330'))
       .get()!.id!;
     const fastening = checksFor(t.db, loadRevision(t.db, id)!).find((c) => c.id === 'fastening')!;
+    // 26 mm stock bolts through 12 and 13 mm alloys leave 14 and 13 mm; 28 mm ball-seat bolts through 14 mm leave 14 mm,
+    // all against 1.0 × 12 mm in a steel hub (common practice, no source)
     expect(fastening.status).toBe('pass');
-    expect(fastening.detail).toMatch(/Seats match on 3 wheels/);
+    expect(fastening.detail).toBe('Seats match on 3 wheels. Least thread engagement 13 mm, within the rule.');
   });
 
   it('when the demo chassis are read, then the stud-and-nut pickup has its fastening and a unified thread', async () => {

@@ -110,6 +110,32 @@ describe('find what fits', () => {
     await page.close();
   });
 
+  it('when a tested wheel fails only at the fillet, then the section shows it, and a spacer from the slider clears it', async () => {
+    const { page, problems } = await newPage(1280);
+    await page.goto(`${server.url}/swaps/h31-front-vela-four-piston-330`);
+    const section = page.locator('#section');
+    await section.locator('[data-section-drawing]').waitFor();
+    // the caliper sits on the rotor the record gives it: pad on the rotor, centred by the record's shims
+    const fit = page.locator('#caliper-fit');
+    expect(await fit.locator('[data-check="pad-overhang"] [data-verdict]').getAttribute('data-verdict')).toBe('pass');
+    expect(await fit.locator('[data-check="axial-centring"] [data-verdict]').getAttribute('data-verdict')).toBe('pass');
+    // the Vela alloy clears by 5.2 mm (rounded down); the flow-formed wheel's barrel (9 mm) and spokes (5 mm) each clear on
+    // their own, but the fillet between them overlaps the caliper corner
+    expect(await section.locator('[data-section-drawing] figcaption').innerText()).toContain('Nearest point: 5.2 mm');
+    await section.getByRole('combobox', { name: 'Wheel' }).selectOption({ label: '17×7 ET45 (tested: does not fit)' });
+    const verdict = section.locator('[data-verdict]').filter({ hasText: 'Clearance at the nearest point' });
+    await expect.poll(() => verdict.getAttribute('data-verdict')).toBe('fail');
+    expect(await section.locator('[data-section-drawing] figcaption').innerText()).toContain(
+      'The caliper overlaps the fillet by 1.1 mm',
+    );
+    const thinnest = section.locator('div', { hasText: /^Thinnest spacer that clears/ }).last();
+    expect(await thinnest.innerText()).toContain('5.4 mm');
+    await section.getByRole('button', { name: 'Try it on the slider' }).click();
+    await expect.poll(() => verdict.getAttribute('data-verdict')).toBe('pass');
+    expect(problems).toEqual([]);
+    await page.close();
+  });
+
   it('when the sheet is read on a phone, then nothing overflows sideways', async () => {
     const { page } = await newPage(390);
     await page.goto(`${server.url}/swaps/h31-front-vela-four-piston-330`);

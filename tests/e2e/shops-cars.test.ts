@@ -143,4 +143,58 @@ describe('shop links and my cars in the browser', () => {
     expect(errors).toEqual([]);
     await page.context().close();
   });
+
+  it('when a member records their wheel’s inside profile, then a bad point is named beside it, and the sheet draws the caliper against that wheel', async () => {
+    const { page, errors } = await signedInAs('rivet_rosa', '/me/cars');
+    const form = page.getByRole('form', { name: 'Add a car' });
+    await form.getByRole('combobox', { name: 'Chassis' }).fill('H31');
+    await form
+      .getByRole('option', { name: /Halden H31/ })
+      .first()
+      .click();
+    await form.getByRole('textbox', { name: 'Nickname' }).fill('Flow-formed saloon');
+    await form.getByRole('textbox', { name: /^Wheel diameter/ }).fill('17');
+    await form.getByRole('textbox', { name: /^Wheel width/ }).fill('7');
+    await form.getByRole('textbox', { name: /^Offset ET/ }).fill('45');
+    await form.getByRole('textbox', { name: /^Spacer fitted/ }).fill('0');
+    // barrel, fillet, spokes: z from the mounting face (outboard positive), r from the centre; the last r mistyped
+    const points = [
+      ['-120', '194'],
+      ['27', '186'],
+      ['35,5', '171'],
+      ['39', '-90'],
+    ];
+    for (const [i, [z, r]] of points.entries()) {
+      await form.getByRole('button', { name: 'Add a point' }).click();
+      await form.getByRole('textbox', { name: `Point ${i + 1} z` }).fill(z);
+      await form.getByRole('textbox', { name: `Point ${i + 1} r` }).fill(r);
+    }
+    await form.getByRole('button', { name: 'Add car' }).click();
+    const pointFour = form.getByRole('listitem', { name: 'Point 4' });
+    await pointFour.getByRole('alert').waitFor();
+    expect(await pointFour.getByRole('alert').innerText()).toContain('A radius is 0 or more');
+    await form.getByRole('textbox', { name: 'Point 4 r' }).fill('90');
+    await form.getByRole('button', { name: 'Add car' }).click();
+    const cars = page.getByRole('list', { name: 'Your cars' });
+    await cars.getByRole('heading', { name: 'Flow-formed saloon' }).waitFor();
+    expect(await cars.getByRole('listitem').filter({ hasText: 'Flow-formed saloon' }).innerText()).toContain(
+      'Wheel inside profile: 4 points',
+    );
+
+    // the sheet draws the record's caliper outline against the member's own wheel first; only the fillet reaches it
+    await page.goto(`${server.url}/swaps/${sheetSlug}`);
+    const section = page.locator('#section');
+    await section.getByRole('combobox', { name: 'Wheel' }).selectOption({ label: 'Your Flow-formed saloon (17×7 ET45)' });
+    const verdict = section.locator('[data-verdict]').filter({ hasText: 'Clearance at the nearest point' });
+    await expect.poll(() => verdict.getAttribute('data-verdict')).toBe('fail');
+    expect(await section.locator('[data-section-drawing] figcaption').innerText()).toContain(
+      'The caliper overlaps the fillet by 1.7 mm',
+    );
+    // the printed build sheet carries the drawing of the reader's own wheel beside the wheel requirement
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.locator('[data-testid="printed-section"]').isVisible()).toBe(true);
+    expect(await section.isVisible()).toBe(false);
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
 });

@@ -117,6 +117,7 @@ describe('automaticChecks', () => {
       'torque',
       'clearance',
       'fastening',
+      'caliper_fit',
       'figures',
       'balance',
       'costs',

@@ -23,6 +23,7 @@ import {
   withSign,
 } from './calc-form';
 import { FitCheckCard, type CheckWords } from '../../../components/fit-check-card';
+import { caliperFitCheckWords } from '@shared/fitment/swap-caliper-fit';
 import { CaliperFitDrawing } from './caliper-fit-drawing';
 
 const joints = [
@@ -82,15 +83,7 @@ const bleederOptions = [
   ['both', 'Bleed screws at both ends'],
 ] as const;
 
-const words: CheckWords = {
-  'pad-overhang': { pass: 'On the rotor', fail: 'Overhangs' },
-  'pad-inner-edge': { pass: 'On the ring', fail: 'Below the ring' },
-  'rotor-thickness': { pass: 'In range', fail: 'Out of range' },
-  'axial-centring': { pass: 'Centred', fail: 'Off centre' },
-  'line-caliper-end': { pass: 'Fittings match', fail: 'Fittings differ' },
-  'line-chassis-end': { pass: 'Fittings match', fail: 'Fittings differ' },
-  'bleed-screw': { pass: 'Bleeds', fail: 'Air stays in' },
-};
+const words: CheckWords = caliperFitCheckWords;
 
 export function CaliperFitPanel({ params }: { params: CalcParams }) {
   const { length } = useUnits();

@@ -96,95 +96,120 @@ export function SectionCheck({ data, axle, mine }: { data: SwapData; axle: Axle;
   const setSpacer = (mm: number) => chosen && setSpacerByWheel((s) => ({ ...s, [chosen.key]: mm }));
 
   return (
-    <SheetSection id="section" title="Section through the wheel">
-      {!chosen || !computed ? (
-        <p className="text-sm text-graphite-soft">
-          No wheel with its inside profile is on record for this swap.{' '}
-          <Link to={paths.myCars()} className="font-bold text-ink underline">
-            Record your wheel’s inside in my cars
-          </Link>{' '}
-          to see the caliper drawn against it.
-        </p>
-      ) : (
-        <div className="grid gap-4 lg:grid-cols-[3fr_2fr] print:block">
-          <div className="grid content-start gap-3">
-            <SectionDrawing
-              caliper={caliper.outline}
-              wheel={chosen.profile}
-              spacerMm={spacerMm}
-              rotorDiameterMm={rotorDiameterMm}
-              estimate={!measured}
-              title={`Caliper against the ${chosen.label}`}
-            />
-            {!measured && (
-              <p className="text-sm text-graphite-soft" data-testid="section-box">
-                This record has no caliper outline: the caliper is drawn as the box its two numbers describe (top at the rotor
-                edge plus {length(data.wheel!.caliperRadialProjectionMm)}, outer face {length(data.wheel!.caliperOutboardMm)}{' '}
-                outboard of the hub face). The clearance is an estimate.
-              </p>
-            )}
-          </div>
-          <div className="grid content-start gap-3 print:hidden">
-            {wheels.length > 1 && (
-              <Select label="Wheel" value={chosen.key} onChange={(e) => setChosenKey(e.target.value)}>
-                {wheels.map((w) => (
-                  <option key={w.key} value={w.key}>
-                    {w.mine ? `Your ${w.label}` : w.label}
-                  </option>
-                ))}
-              </Select>
-            )}
-            <div className="rounded-lg border border-graphite/15 bg-paper-card p-3">
-              <label
-                htmlFor="sheet-section-spacer"
-                className="flex items-baseline justify-between gap-3 text-sm font-bold text-graphite"
-              >
-                <span>Spacer</span>
-                <span className="tabular">{spacerMm > 0 ? length(spacerMm, 1) : 'none'}</span>
-              </label>
-              <input
-                id="sheet-section-spacer"
-                type="range"
-                min={0}
-                max={Math.max(SLIDER_MAX_MM, Math.ceil(spacerMm))}
-                step={0.5}
-                value={spacerMm}
-                aria-valuetext={spacerMm > 0 ? length(spacerMm, 1) : 'no spacer'}
-                onChange={(e) => setSpacer(Number(e.target.value))}
-                className="mt-2 h-8 w-full accent-[#1d4d3a]"
+    <div className="print:hidden">
+      <SheetSection id="section" title="Section through the wheel">
+        {!chosen || !computed ? (
+          <p className="text-sm text-graphite-soft">
+            No wheel with its inside profile is on record for this swap.{' '}
+            <Link to={paths.myCars()} className="font-bold text-ink underline">
+              Record your wheel’s inside in my cars
+            </Link>{' '}
+            to see the caliper drawn against it.
+          </p>
+        ) : (
+          <div className="grid gap-4 lg:grid-cols-[3fr_2fr] print:block">
+            <div className="grid content-start gap-3">
+              <SectionDrawing
+                caliper={caliper.outline}
+                wheel={chosen.profile}
+                spacerMm={spacerMm}
+                rotorDiameterMm={rotorDiameterMm}
+                estimate={!measured}
+                title={`Caliper against the ${chosen.label}`}
               />
-              <p className="text-xs text-graphite-soft">
-                Moves the wheel outboard: the spokes and the fillet move away, the barrel stays.
-              </p>
+              {!measured && (
+                <p className="text-sm text-graphite-soft" data-testid="section-box">
+                  This record has no caliper outline: the caliper is drawn as the box its two numbers describe (top at the rotor
+                  edge plus {length(data.wheel!.caliperRadialProjectionMm)}, outer face {length(data.wheel!.caliperOutboardMm)}{' '}
+                  outboard of the hub face). The clearance is an estimate.
+                </p>
+              )}
             </div>
-            {measured ? (
-              <Verdict
-                label="Clearance at the nearest point"
-                ok={!computed.result.interferes && computed.result.clearanceMm >= MIN_CLEARANCE_MM - 1e-9}
-                value={
-                  computed.result.interferes
-                    ? `${lengthToward(-computed.result.clearanceMm, 'up')} overlap`
-                    : lengthToward(computed.result.clearanceMm, 'down')
-                }
-                margin={withSign(computed.result.clearanceMm - MIN_CLEARANCE_MM, (v) => length(v, 1))}
-                rule={SECTION_CLEARANCE_RULE}
-              />
-            ) : (
-              <Estimate
-                label="Clearance at the nearest point"
-                value={
-                  computed.result.interferes
-                    ? `${lengthToward(-computed.result.clearanceMm, 'up')} overlap`
-                    : lengthToward(computed.result.clearanceMm, 'down')
-                }
-                basis="The caliper as a box from the record’s two numbers against the wheel’s recorded inside; measure the caliper’s outline for a verdict."
-              />
-            )}
-            <SpacerFigure spacer={computed.spacer} onTry={setSpacer} />
-            <RotorFigure growth={computed.growth} rotorDiameterMm={rotorDiameterMm} spacerMm={spacerMm} />
+            <div className="grid content-start gap-3 print:hidden">
+              {wheels.length > 1 && (
+                <Select label="Wheel" value={chosen.key} onChange={(e) => setChosenKey(e.target.value)}>
+                  {wheels.map((w) => (
+                    <option key={w.key} value={w.key}>
+                      {w.mine ? `Your ${w.label}` : w.label}
+                    </option>
+                  ))}
+                </Select>
+              )}
+              <div className="rounded-lg border border-graphite/15 bg-paper-card p-3">
+                <label
+                  htmlFor="sheet-section-spacer"
+                  className="flex items-baseline justify-between gap-3 text-sm font-bold text-graphite"
+                >
+                  <span>Spacer</span>
+                  <span className="tabular">{spacerMm > 0 ? length(spacerMm, 1) : 'none'}</span>
+                </label>
+                <input
+                  id="sheet-section-spacer"
+                  type="range"
+                  min={0}
+                  max={Math.max(SLIDER_MAX_MM, Math.ceil(spacerMm))}
+                  step={0.5}
+                  value={spacerMm}
+                  aria-valuetext={spacerMm > 0 ? length(spacerMm, 1) : 'no spacer'}
+                  onChange={(e) => setSpacer(Number(e.target.value))}
+                  className="mt-2 h-8 w-full accent-[#1d4d3a]"
+                />
+                <p className="text-xs text-graphite-soft">
+                  Moves the wheel outboard: the spokes and the fillet move away, the barrel stays.
+                </p>
+              </div>
+              {measured ? (
+                <Verdict
+                  label="Clearance at the nearest point"
+                  ok={!computed.result.interferes && computed.result.clearanceMm >= MIN_CLEARANCE_MM - 1e-9}
+                  value={
+                    computed.result.interferes
+                      ? `${lengthToward(-computed.result.clearanceMm, 'up')} overlap`
+                      : lengthToward(computed.result.clearanceMm, 'down')
+                  }
+                  margin={withSign(computed.result.clearanceMm - MIN_CLEARANCE_MM, (v) => length(v, 1))}
+                  rule={SECTION_CLEARANCE_RULE}
+                />
+              ) : (
+                <Estimate
+                  label="Clearance at the nearest point"
+                  value={
+                    computed.result.interferes
+                      ? `${lengthToward(-computed.result.clearanceMm, 'up')} overlap`
+                      : lengthToward(computed.result.clearanceMm, 'down')
+                  }
+                  basis="The caliper as a box from the record’s two numbers against the wheel’s recorded inside; measure the caliper’s outline for a verdict."
+                />
+              )}
+              <SpacerFigure spacer={computed.spacer} onTry={setSpacer} />
+              <RotorFigure growth={computed.growth} rotorDiameterMm={rotorDiameterMm} spacerMm={spacerMm} />
+            </div>
           </div>
-        </div>
-      )}
-    </SheetSection>
+        )}
+      </SheetSection>
+    </div>
+  );
+}
+
+/**
+ * The printed build sheet's section drawing: the reader's own wheel (their first car with a recorded inside), with its
+ * spacer, floated beside the wheel requirement. The record's tested wheels stay on screen, so a sheet printed for the
+ * garage shows the one wheel that matters to the reader and keeps to two pages.
+ */
+export function PrintedSection({ data, axle, mine }: { data: SwapData; axle: Axle; mine: ProfiledWheel[] }) {
+  const caliper = caliperOf(data, axle);
+  const wheel = mine[0];
+  if (!caliper || !wheel) return null;
+  return (
+    <div className="hidden print:float-right print:ml-4 print:block print:w-[60mm]" data-testid="printed-section">
+      <SectionDrawing
+        caliper={caliper.outline}
+        wheel={wheel.profile}
+        spacerMm={wheel.spacerMm}
+        rotorDiameterMm={rotorDiameterOf(data, axle) ?? undefined}
+        estimate={!caliper.recorded}
+        title={`Caliper against the ${wheel.label}`}
+      />
+    </div>
   );
 }

@@ -30,7 +30,8 @@ import { cautionTopicsOf } from '../../../components/caution';
 import { CostRoutesSection } from './cost-routes';
 import { BrakeBalanceSection } from './brake-balance';
 import { WheelCheckPanel, type WheelPreset } from './wheel-check-panel';
-import { SectionCheck, type ProfiledWheel } from './section-check';
+import { CaliperFitSection } from './caliper-fit-section';
+import { PrintedSection, SectionCheck, type ProfiledWheel } from './section-check';
 import { RevisionHistory } from './revision-history';
 
 const date = (iso: string | null) =>
@@ -152,11 +153,18 @@ export function SwapSheet({ view, banner, presets, ownFigures, extraSections }: 
         {data.adapter && <AdapterSection adapter={data.adapter} />}
         {data.calipers.length > 0 && <CalipersSection calipers={data.calipers} />}
         {data.rotors.length > 0 && <RotorsSection rotors={data.rotors} />}
+        {data.calipers.length > 0 && (
+          // on screen only: the printed build sheet keeps to two pages
+          <div className="print:hidden">
+            <CaliperFitSection data={data} axle={swap.axle} />
+          </div>
+        )}
         {(data.shims.length > 0 || data.spacers.length > 0) && <ShimsSpacersSection data={data} />}
         <MachiningSection steps={data.machining} />
         <TorqueSection data={data} />
         {data.wheel && (
           <SheetSection id="wheel" title="Wheel requirement">
+            <PrintedSection data={data} axle={swap.axle} mine={profiledPresets(presets)} />
             <dl className="tabular grid grid-cols-2 gap-3 text-sm sm:grid-cols-4">
               <Fact label="Minimum wheel" value={`${data.wheel.minDiameterIn}″`} />
               {data.wheel.barrelInnerDiameterMm && (

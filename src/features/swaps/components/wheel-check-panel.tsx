@@ -338,6 +338,13 @@ export function WheelCheckPanel({
               )}
               {result.check.spacerNote && <Figure label="Spacer type" value="Consider bolt-on" note={result.check.spacerNote} />}
             </div>
+            {result.check.fastening && result.check.fastening.notes.length > 0 && (
+              <ul className="mt-3 space-y-1 text-sm text-graphite-soft">
+                {result.check.fastening.notes.map((n) => (
+                  <li key={n}>{n}</li>
+                ))}
+              </ul>
+            )}
             {result.check.fastening && result.check.fastening.cautions.length > 0 && (
               <ul className="mt-3 space-y-1 rounded-lg border border-oxide/40 bg-oxide-soft p-3 text-sm text-oxide" role="note">
                 {result.check.fastening.cautions.map((c) => (
