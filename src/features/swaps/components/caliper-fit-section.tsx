@@ -20,7 +20,13 @@ export function CaliperFitSection({ data, axle }: { data: SwapData; axle: Axle }
             {f.fit ? (
               <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3 print:grid-cols-4 print:gap-1">
                 {f.fit.checks.map((c) => (
-                  <FitCheckCard key={c.id} check={c} words={caliperFitCheckWords} />
+                  <FitCheckCard
+                    key={c.id}
+                    check={c}
+                    words={caliperFitCheckWords}
+                    // the overhang itself reads backwards when the pad is on the rotor: show where its edge is
+                    value={c.id === 'pad-overhang' ? `${length(f.fit!.padOuterRadiusMm, 1)} from the axle` : undefined}
+                  />
                 ))}
                 {f.fit.centringShim && (
                   <Figure
