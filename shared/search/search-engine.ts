@@ -61,19 +61,20 @@ function mergeOrder(order: Int32Array, added: number[], docs: SearchDocument[], 
   return [out, rank] as const;
 }
 
-export function addDocuments(index: SearchIndex, docs: SearchDocument[]) {
+export function addDocuments(index: SearchIndex, docs: SearchDocument[], { text = true } = {}) {
   const base = index.docs.length;
-  index.docs.push(...docs);
-  index.text.add(docs);
+  for (const d of docs) index.docs.push(d);
+  if (text) index.text.add(docs);
   index.facets.add(docs);
   const added = docs.map((_, i) => base + i);
   [index.newest, index.newestRank] = mergeOrder(index.newest, [...added], index.docs, newestFirst);
   [index.fitted, index.fittedRank] = mergeOrder(index.fitted, added, index.docs, mostFitted);
 }
 
-export function buildIndex(docs: SearchDocument[]): SearchIndex {
+/** `text: false` builds only what browsing needs (orders and facets): no query can be answered. */
+export function buildIndex(docs: SearchDocument[], options: { text?: boolean } = {}): SearchIndex {
   const index = createIndex();
-  addDocuments(index, docs);
+  addDocuments(index, docs, options);
   return index;
 }
 

@@ -46,6 +46,9 @@ export const filterKeys = [
   'cost',
 ] as const satisfies readonly FilterKey[];
 
+/** results on one page of the search page (and in the first index's ready answers) */
+export const searchPageSize = 20;
+
 export type SearchRequest = { q?: string; filters?: SearchFilters; sort?: SearchSort; offset?: number; limit?: number };
 export type FacetValue = { value: string; label: string; count: number };
 export type SearchFacets = Record<FilterKey, FacetValue[]>;

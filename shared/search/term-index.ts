@@ -17,6 +17,10 @@ export type IndexStats = { documentCount: number; avgFieldLength: number[] };
 const F = fields.length;
 const BM25 = { k: 1.2, b: 0.7, d: 0.5 };
 const boostById = Float64Array.from(fields, (f) => fieldBoosts[f]);
+// Each contribution is rounded to a multiple of 2⁻²⁰, so sums are exact and a score does not depend
+// on the order its parts were added in (one shard at a time, or all at once).
+const GRID = 2 ** 20;
+const STEP = 1 / GRID;
 const isChassisField = fields.map((f) => chassisFields.includes(f));
 
 const hasDigit = /\d/;
@@ -74,11 +78,15 @@ export class TermIndex {
   /** token count of each field, by document position */
   private lengths: Uint16Array[] = Array.from({ length: F }, () => new Uint16Array(256));
   private readonly lengthSum = new Float64Array(F);
-  private readonly df = new Float64Array(F);
+  /** per term, documents holding it in any field, as loaded */
+  private docFreq = new Uint32Array(1024);
+  /** the whole collection's document frequency of a term, when only part of it is loaded */
+  private wholeDocFreq: ((term: string) => number | undefined) | null = null;
 
   add(docs: SearchDocument[]) {
     const base = this.size;
     const batch = new Map<number, { pos: number[]; tf: number[] }>();
+    const lastDoc = new Map<number, number>();
     this.lengths = this.lengths.map((l) => grow(l, base + docs.length));
     docs.forEach((doc, i) => {
       const p = base + i;
@@ -93,6 +101,10 @@ export class TermIndex {
           if (isChassisField[f] && !this.inChassisField.has(id)) {
             this.inChassisField.add(id);
             this.chassisTerms.add(term, id);
+          }
+          if (lastDoc.get(id) !== p) {
+            lastDoc.set(id, p);
+            this.docFreq[id]++;
           }
           const key = id * F + f;
           let list = batch.get(key);
@@ -146,6 +158,11 @@ export class TermIndex {
     this.partsFor = stats;
   }
 
+  /** Scores then count a term's rarity over the whole collection, not over the part loaded. */
+  useWholeDocFreq(lookup: (term: string) => number | undefined) {
+    this.wholeDocFreq = lookup;
+  }
+
   /** the figures scores are worked out with */
   stats(): IndexStats {
     return this.fixedStats ?? this.loadedStats();
@@ -160,6 +177,7 @@ export class TermIndex {
     this.sorted.add(term, id);
     this.lastSeg = grow(this.lastSeg, id + 1);
     this.lastSeg[id] = -1;
+    this.docFreq = grow(this.docFreq, id + 1);
     return id;
   }
 
@@ -197,22 +215,22 @@ export class TermIndex {
     if (t < 0) return;
     const stats = this.stats();
     if (this.partsFor !== stats) this.workOutParts(stats);
-    const { segPrev, segField, segStart, segEnd, position, part, df } = this;
-    df.fill(0);
-    for (let s = this.lastSeg[t]; s >= 0; s = segPrev[s]) df[segField[s]] += segEnd[s] - segStart[s];
+    const { segPrev, segField, segStart, segEnd, position, part } = this;
     const total = Math.max(stats.documentCount, this.size);
+    // one document frequency per term, whichever fields hold it: the shard tables carry it for the whole collection
+    const n = Math.max(this.wholeDocFreq?.(this.terms[t]) ?? 0, this.docFreq[t]);
+    const idf = Math.log(1 + (total - n + 0.5) / (n + 0.5));
     const { score, ids } = into;
     let count = into.count;
     for (let s = this.lastSeg[t]; s >= 0; s = segPrev[s]) {
       const f = segField[s];
       if (!(fieldMask & (1 << f))) continue;
-      const n = df[f];
-      const w = weight * boostById[f] * Math.log(1 + (total - n + 0.5) / (n + 0.5));
+      const w = weight * boostById[f] * idf;
       // Hits.add by hand: this loop runs once per posting of every matched term
       for (let i = segStart[s]; i < segEnd[s]; i++) {
         const p = position[i];
         if (score[p] === 0) ids[count++] = p;
-        score[p] += w * part[i];
+        score[p] += Math.round(w * part[i] * GRID) * STEP;
       }
     }
     into.count = count;
