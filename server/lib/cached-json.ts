@@ -6,7 +6,12 @@ import type { Request, Response } from 'express';
 export type CachedJson = { etag: string; json: Buffer; gzip: Buffer };
 
 export function cacheJson(value: unknown): CachedJson {
-  const json = Buffer.from(JSON.stringify(value));
+  return cacheJsonText(JSON.stringify(value));
+}
+
+/** The same, for JSON already written out. */
+export function cacheJsonText(text: string): CachedJson {
+  const json = Buffer.from(text);
   return { etag: `"${createHash('sha256').update(json).digest('base64url').slice(0, 27)}"`, json, gzip: gzipSync(json) };
 }
 

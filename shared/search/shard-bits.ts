@@ -1,4 +1,6 @@
-// Sets of shards as bitsets over the first index's shard list, sent as base64.
+// Sets of shards as bitsets over the first index's shard list. On the wire a set is the shorter of a
+// list of shard numbers in base 36 ("3.1k") or "*" and the bitset in base64: most terms sit in one
+// shard or a few, and a list of them is a few characters where a bitset over 170 shards is 28.
 
 export type Bits = Uint8Array;
 
@@ -10,16 +12,31 @@ export function bitsOf(indices: Iterable<number>, size: number): Bits {
   return bits;
 }
 
-export function encodeBits(bits: Bits): string {
+function toBase64(bits: Bits): string {
   let s = '';
   for (const b of bits) s += String.fromCharCode(b);
   return btoa(s);
 }
 
-export function decodeBits(text: string, size: number): Bits {
-  const raw = atob(text);
+/** The set as text: a dot-separated list of base-36 shard numbers, or "*" and the base64 bitset if that is shorter. */
+export function encodeShards(indices: Iterable<number>, size: number): string {
+  const sorted = [...new Set(indices)].sort((a, b) => a - b);
+  const list = sorted.map((i) => i.toString(36)).join('.');
+  const bitset = `*${toBase64(bitsOf(sorted, size))}`;
+  return list.length <= bitset.length ? list : bitset;
+}
+
+export function decodeShards(text: string, size: number): Bits {
   const bits = emptyBits(size);
-  for (let i = 0; i < Math.min(raw.length, bits.length); i++) bits[i] = raw.charCodeAt(i);
+  if (text.startsWith('*')) {
+    const raw = atob(text.slice(1));
+    for (let i = 0; i < Math.min(raw.length, bits.length); i++) bits[i] = raw.charCodeAt(i);
+  } else if (text.length > 0) {
+    for (const part of text.split('.')) {
+      const i = parseInt(part, 36);
+      if (i >= 0 && i < size) bits[i >> 3] |= 1 << (i & 7);
+    }
+  }
   return bits;
 }
 

@@ -2,7 +2,8 @@ import { foldTerm } from './normalise';
 import type { SearchDocument } from './search-document';
 import { buildIndex, search } from './search-engine';
 import { searchPageSize, type SearchResponse } from './search-types';
-import { bitsOf, encodeBits } from './shard-bits';
+import { encodeShards } from './shard-bits';
+import { fields } from './search-fields';
 import { documentTerms, isCodeTerm, type IndexStats } from './term-index';
 
 // The index in pieces: a small first index that every reader loads, and the documents in shards
@@ -12,7 +13,8 @@ import { documentTerms, isCodeTerm, type IndexStats } from './term-index';
 /** A shard holds one make's swaps, or part of them: whole models, up to about this many swaps. */
 export const shardTargetDocs = 400;
 
-export type ShardInfo = { id: string; count: number; etag: string };
+/** `hash` is of the shard's content: its address changes with it, so a copy may be kept for a year */
+export type ShardInfo = { id: string; count: number; hash: string };
 export type HeadChassis = SearchDocument['chassis'] & {
   /** approved swaps on this chassis */
   count: number;
@@ -22,7 +24,7 @@ export type HeadChassis = SearchDocument['chassis'] & {
 
 /** What a reader loads first: enough to route any query to the shards that can answer it. */
 export type SearchHead = {
-  /** changes with every change to the documents; a routing table answers for one generation */
+  /** changes with any shard: the code tables route to shards by their place in `shards`, so they are addressed by it */
   generation: string;
   documentCount: number;
   /** the whole collection's figures, so a partly loaded index scores like the whole */
@@ -30,7 +32,7 @@ export type SearchHead = {
   shards: ShardInfo[];
   /** every chassis of the catalogue, with or without swaps */
   chassis: HeadChassis[];
-  /** every word without a digit → the shards holding it (base64 bitset over `shards`), ":", the swaps holding it */
+  /** every word without a digit → the shards holding it (`encodeShards`), ":", the swaps holding it */
   words: Record<string, string>;
   /** page one without words or filters, in each order */
   browse: { newest: SearchResponse; fitted: SearchResponse };
@@ -52,6 +54,7 @@ const byText = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
 
 export type ShardPlan = {
   shards: SearchShard[];
+  stats: IndexStats;
   shardOfChassis: Map<string, number>;
   words: Record<string, string>;
   chunks: Map<string, Record<string, string>>;
@@ -93,10 +96,13 @@ export function planShards(docs: SearchDocument[], target = shardTargetDocs): Sh
 
   const shardOfChassis = new Map<string, number>();
   const where = new Map<string, { shards: Set<number>; docs: number }>();
+  const lengthSum = new Float64Array(fields.length);
   shards.forEach((s, i) => {
     for (const d of s.documents) {
       shardOfChassis.set(d.chassis.slug, i);
-      for (const t of new Set(documentTerms(d).flat())) {
+      const terms = documentTerms(d);
+      terms.forEach((t, f) => (lengthSum[f] += new Set(t).size));
+      for (const t of new Set(terms.flat())) {
         let entry = where.get(t);
         if (!entry) where.set(t, (entry = { shards: new Set(), docs: 0 }));
         entry.shards.add(i);
@@ -108,7 +114,7 @@ export function planShards(docs: SearchDocument[], target = shardTargetDocs): Sh
   const chunks = new Map<string, Record<string, string>>();
   for (const term of [...where.keys()].sort(byText)) {
     const { shards: holding, docs: n } = where.get(term)!;
-    const bits = `${encodeBits(bitsOf(holding, shards.length))}:${n}`;
+    const bits = `${encodeShards(holding, shards.length)}:${n}`;
     if (!isCodeTerm(term)) words[term] = bits;
     else {
       const key = termKey(term);
@@ -117,18 +123,21 @@ export function planShards(docs: SearchDocument[], target = shardTargetDocs): Sh
       chunk[term] = bits;
     }
   }
-  return { shards, shardOfChassis, words, chunks };
+  const stats = {
+    documentCount: docs.length,
+    avgFieldLength: Array.from(lengthSum, (sum) => (docs.length ? sum / docs.length : 0)),
+  };
+  return { shards, stats, shardOfChassis, words, chunks };
 }
 
 export function assembleHead(input: {
   plan: ShardPlan;
-  etags: string[];
+  hashes: string[];
   generation: string;
-  stats: IndexStats;
   catalogue: SearchDocument['chassis'][];
   browse: SearchHead['browse'];
 }): SearchHead {
-  const { plan, etags } = input;
+  const { plan, hashes } = input;
   const counts = new Map<string, number>();
   const currencies = new Set<string>();
   const chassis = new Map(input.catalogue.map((c) => [c.slug, c]));
@@ -140,9 +149,9 @@ export function assembleHead(input: {
     }
   return {
     generation: input.generation,
-    documentCount: input.stats.documentCount,
-    stats: input.stats,
-    shards: plan.shards.map((s, i) => ({ id: s.id, count: s.documents.length, etag: etags[i] })),
+    documentCount: plan.stats.documentCount,
+    stats: plan.stats,
+    shards: plan.shards.map((s, i) => ({ id: s.id, count: s.documents.length, hash: hashes[i] })),
     chassis: [...chassis.values()].map((c) => ({
       ...c,
       count: counts.get(c.slug) ?? 0,
@@ -152,6 +161,43 @@ export function assembleHead(input: {
     browse: input.browse,
     currency: currencies.size === 1 ? [...currencies][0] : null,
   };
+}
+
+/** Everything a reader may fetch, as the server sends it: shard bodies are JSON text, hashed for their addresses. */
+export type IndexPieces = {
+  head: SearchHead;
+  shards: { id: string; hash: string; json: string }[];
+  /** the code tables by key; a key not here has an empty table */
+  terms: Map<string, SearchTerms>;
+};
+
+/**
+ * Splits the documents and builds the first index over them. `hashOf` gives a short hash of a text
+ * (the server's, so this module needs no crypto of its own): a shard's address carries the hash of
+ * its body, and the code tables' addresses the hash of the whole shard list (`generation`), since
+ * they route by places in that list.
+ */
+export function buildPieces(
+  docs: SearchDocument[],
+  catalogue: SearchDocument['chassis'][],
+  hashOf: (text: string) => string,
+  target = shardTargetDocs,
+): IndexPieces {
+  const plan = planShards(docs, target);
+  const shards = plan.shards.map((s) => {
+    const json = JSON.stringify(s);
+    return { id: s.id, hash: hashOf(json), json };
+  });
+  const generation = hashOf(shards.map((s) => `${s.id}/${s.hash}`).join(' '));
+  const head = assembleHead({
+    plan,
+    hashes: shards.map((s) => s.hash),
+    generation,
+    catalogue,
+    browse: browseAnswers(docs),
+  });
+  const terms = new Map([...plan.chunks].map(([key, entries]) => [key, { generation, key, terms: entries }]));
+  return { head, shards, terms };
 }
 
 /** The answers the first index carries: page one of everything, newest first and most fitted first. */

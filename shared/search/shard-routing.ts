@@ -3,7 +3,7 @@ import { normalisePartNumber, tokenize } from './normalise';
 import { parseClauses, type Alternative, type Clause } from './query';
 import { maxEditsFor } from './search-fields';
 import { cleanFilters, searchPageSize, type SearchRequest } from './search-types';
-import { addBits, bitsOf, bothBits, decodeBits, emptyBits, encodeBits, indicesOf, noBits, type Bits } from './shard-bits';
+import { addBits, bothBits, decodeShards, emptyBits, encodeShards, indicesOf, noBits, type Bits } from './shard-bits';
 import { termKey, type SearchHead, type SearchTerms } from './shard-plan';
 import { SortedTerms } from './sorted-terms';
 import { isCodeTerm } from './term-index';
@@ -23,7 +23,7 @@ class TermTable {
   constructor(entries: Record<string, string>, size: number) {
     for (const [term, text] of Object.entries(entries)) {
       const [shards, docs] = text.split(':');
-      const bits = decodeBits(shards, size);
+      const bits = decodeShards(shards, size);
       this.bits.set(term, bits);
       this.docs.set(term, Number(docs));
       this.sorted.add(term, this.list.push(bits) - 1);
@@ -77,7 +77,7 @@ export class ShardRouter {
       for (const t of tokenize(`${c.make} ${c.model} ${c.code}`)) holding.set(t, [...(holding.get(t) ?? []), c.shard]);
     }
     this.chassisTerms = new TermTable(
-      Object.fromEntries([...holding].map(([t, shards]) => [t, `${encodeBits(bitsOf(shards, this.size))}:0`])),
+      Object.fromEntries([...holding].map(([t, shards]) => [t, `${encodeShards(shards, this.size)}:0`])),
       this.size,
     );
   }

@@ -7,6 +7,7 @@ import { addShop, addUser, csrfToken, signIn, type Agent } from './support/auth-
 import { addChassis } from './support/swap-fixtures';
 import { addSwap } from './support/swap-rows';
 import { swapData } from './support/swap-rows';
+import type { SearchHead } from '../../shared/search/shard-plan';
 import {
   cars,
   fittedReports,
@@ -88,6 +89,9 @@ const table: Record<string, Row> = {
   'GET /api/graph/chassis/:slug': publicRoute,
   // without a number it is a 400 naming the field, for everyone alike
   'GET /api/graph/where-else': publicRoute,
+  'GET /api/search-index/head': publicRoute,
+  'GET /api/search-index/shards/:shard/:hash': publicRoute,
+  'GET /api/search-index/terms/:generation/:key': publicRoute,
   'POST /api/submissions': signedIn(),
   // the world's revision is a never-submitted draft: private to its author, even from the review desk
   // (reviewers read a revision once it is sent to review; tests/api/drafts-private.test.ts)
@@ -288,6 +292,8 @@ async function world() {
     .values({ label: 'Photo', text: 'Add a photo', createdAt: now, updatedAt: now })
     .returning()
     .get();
+  // the search index's addresses carry hashes of their content: read them from the first index
+  const searchHead = (await request(t.app).get('/api/search-index/head')).body as SearchHead;
   const params: Record<string, Record<string, string | number>> = {
     default: { slug: approved.slug, n: 1, revisionId: inReview.revisionIds[0], photoId: photo.fileId, code: link.code },
     chassis: { slug: c.slug },
@@ -300,6 +306,9 @@ async function world() {
     flags: { id: flag.id },
     'fitted-reports': { id: report.id },
     media: { id: photo.fileId },
+    // the approved swap is on a Halden: the search index keeps each make's swaps in a shard named after it
+    shards: { shard: 'halden', hash: searchHead.shards.find((s) => s.id === 'halden')!.hash },
+    terms: { generation: searchHead.generation, key: 'h3' },
   };
   return { t, users, params, approvedRevisionId: approved.revisionIds[0] };
 }

@@ -3,6 +3,7 @@ import { buildIndex, search } from '../../shared/search/search-engine';
 import { toSearchDocument, type SearchDocument } from '../../shared/search/search-document';
 import { partNumbersIn } from '../../shared/search/normalise';
 import { swapDataSchema } from '../../shared/schemas/swap-data';
+import { expectSameWhenSharded, shardedOver } from './support/sharded-search';
 
 // The words readers really type: the trade's other names for a part, swapped letters, a part's
 // older number, and several words at once.
@@ -183,5 +184,14 @@ describe('fits my wheel', () => {
     // three swaps name no minimum; the 15″ and 16″ ones need bigger wheels
     expect(wheel.find((f) => f.value === '14')?.count).toBe(3);
     expect(wheel.find((f) => f.value === '16')?.count).toBe(5);
+  });
+});
+
+describe('the index in shards', () => {
+  it('when every model sits in a shard of its own, then other names, swapped letters, alternate numbers and all-words ranking answer as the whole index', async () => {
+    const { index: sharded } = shardedOver(docs);
+    const queries = ['disc', 'tire', 'parking brake', 'regnet', 'calpier', 'OV-355-101-L', 'ov355101l', 'Ov 355.101 l'];
+    for (const q of [...queries, 'H31 vela 15 inch', 'regent zzzqqq', 'vela', ''])
+      await expectSameWhenSharded(index, sharded, { q, limit: 50 });
   });
 });

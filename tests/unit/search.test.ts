@@ -1,9 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { normalisePartNumber, tokenize } from '../../shared/search/normalise';
 import { addDocuments, buildIndex, createIndex, search } from '../../shared/search/search-engine';
-import { cleanFilters } from '../../shared/search/search-types';
+import { cleanFilters, type SearchRequest } from '../../shared/search/search-types';
 import { statsOf } from '../../shared/search/term-index';
 import type { SearchDocument } from '../../shared/search/search-document';
+import { expectSameWhenSharded, shardedOver } from './support/sharded-search';
 
 const h31 = { slug: 'halden-h31', make: 'Halden', model: 'H31', code: 'H31', yearFrom: 1991, yearTo: 1999 };
 const h40 = { slug: 'halden-h40', make: 'Halden', model: 'H40', code: 'H40', yearFrom: 1999, yearTo: 2007 };
@@ -313,5 +314,30 @@ describe('an index filled in batches', () => {
       parts.hits.forEach((h, i) => expect(h.score).toBeCloseTo(whole.hits[i].score!, 9));
       expect(parts.facets).toEqual(whole.facets);
     }
+  });
+});
+
+describe('the index in shards', () => {
+  it('when every model sits in a shard of its own, then the worker answers each of these searches as the whole index', async () => {
+    const { index: sharded } = shardedOver(docs);
+    const requests: SearchRequest[] = [
+      ...['ov355104l', 'OV-355-104-L', 'ov-355', 'OV355', 'ov 355 104', 'Ov.355.104.L', 'OV-330-28', 'tr-290', 'H31'].map(
+        (q) => ({ q }),
+      ),
+      ...['regent', 'Haldan', 'halden h3l', 'Ors', 'calip', 'vela rotor', 'regent zzzqqq', 'zzzqqq', 'halden'].map((q) => ({
+        q,
+      })),
+      { q: 'caliper', sort: 'fitted' },
+      { limit: 50 },
+      { q: 'halden', filters: { wheel: 30 } },
+      { filters: { axle: 'rear' } },
+      { filters: { make: 'Halden' } },
+      { filters: { make: 'Halden', model: 'H40' } },
+      { q: 'caliper', filters: { machining: 'minor' } },
+      { filters: { wheel: 15, axle: 'front' } },
+      { filters: { chassis: 'orsino-vela-v2' } },
+      { q: 'vela', filters: { axle: 'rear', category: 'wheels_tyres' } },
+    ];
+    for (const r of requests) await expectSameWhenSharded(index, sharded, { limit: 50, ...r });
   });
 });

@@ -1,33 +1,43 @@
 import { queryOptions } from '@tanstack/react-query';
-import type { SearchIndexResponse } from '@shared/search/search-document';
 import type { SearchRequest } from '@shared/search/search-types';
+import type { ShardInfo } from '@shared/search/shard-plan';
 import type { SearchClient } from '../worker/search-client';
 
 export const searchKeys = {
   index: () => ['search-index'] as const,
-  query: (version: number, request: SearchRequest) => ['search-index', 'query', version, request] as const,
+  query: (version: number, loaded: number, request: SearchRequest) =>
+    ['search-index', 'query', version, loaded, request] as const,
 };
 
-export type SearchIndexFetch =
-  { status: 'unchanged' } | { status: 'fresh'; etag: string | null; documents: SearchIndexResponse['documents'] };
+export type Fetched<T> = { status: 'unchanged' } | { status: 'fresh'; etag: string | null; body: T };
+export type FetchIndexPart = <T>(path: string, etag: string | null) => Promise<Fetched<T>>;
+
+/** A shard or code table the first index named is gone: the first index has moved on and must be read again. */
+export class IndexPartGone extends Error {}
 
 /**
- * Reads the index, revalidating with the ETag the caller holds. Runs inside the search worker, so the
- * multi-megabyte parse never lands on the page's main thread.
+ * Reads one piece of the search index, revalidating with the ETag the caller holds. Runs inside the
+ * search worker, so parsing never lands on the page's main thread.
  */
-export async function getSearchIndex(etag: string | null, signal?: AbortSignal): Promise<SearchIndexFetch> {
-  const res = await fetch('/api/search-index', {
+export const fetchIndexPart: FetchIndexPart = async <T>(path: string, etag: string | null) => {
+  const res = await fetch(path, {
     headers: { accept: 'application/json', ...(etag ? { 'if-none-match': etag } : {}) },
     credentials: 'same-origin',
-    signal,
   });
   if (res.status === 304) return { status: 'unchanged' };
+  if (res.status === 404) throw new IndexPartGone('The swap index changed while it was loading.');
   if (!res.ok) throw new Error(`The swap index could not be loaded (HTTP ${res.status}). Try again in a moment.`);
-  const body = (await res.json()) as SearchIndexResponse;
-  return { status: 'fresh', etag: res.headers.get('etag'), documents: body.documents };
-}
+  return { status: 'fresh', etag: res.headers.get('etag'), body: (await res.json()) as T };
+};
 
-/** Loading (or revalidating) the index in the worker; the data is what the page needs to know about it. */
+/** The first index is revalidated on each visit; shards and code tables sit at addresses that change with their content. */
+export const searchIndexPaths = {
+  head: () => '/api/search-index/head',
+  shard: (s: Pick<ShardInfo, 'id' | 'hash'>) => `/api/search-index/shards/${encodeURIComponent(s.id)}/${s.hash}`,
+  terms: (generation: string, key: string) => `/api/search-index/terms/${generation}/${encodeURIComponent(key)}`,
+};
+
+/** Loading (or revalidating) the first index in the worker; the data is what the page needs to know about it. */
 export const searchIndexQueryOptions = (client: SearchClient) =>
   queryOptions({
     queryKey: searchKeys.index(),

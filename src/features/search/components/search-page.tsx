@@ -159,7 +159,7 @@ export default function SearchPage() {
           </Button>
         </ErrorNotice>
       ) : !info || !data ? (
-        <Loading label="Loading every approved swap…" />
+        <Loading label="Loading the swap index…" />
       ) : (
         <div className="grid gap-6 lg:grid-cols-[17rem_1fr] lg:gap-10">
           <aside aria-label="Filters" className="lg:sticky lg:top-4 lg:self-start">
@@ -196,6 +196,7 @@ export default function SearchPage() {
                 </h2>
                 <p className="text-xs text-graphite-soft">
                   out of <span className="tabular">{info.documentCount.toLocaleString('en-GB')}</span> approved
+                  {data.pending > 0 && <> · more arriving as the rest of the index loads</>}
                 </p>
               </div>
               <label className="flex items-center gap-2 text-sm font-bold text-graphite">
@@ -233,7 +234,9 @@ export default function SearchPage() {
 
             <WordsMatched data={data} q={state.q} />
 
-            {data.total === 0 ? (
+            {data.total === 0 && data.pending > 0 ? (
+              <Loading label="Searching the rest of the index…" />
+            ) : data.total === 0 ? (
               <NoResults
                 state={state}
                 data={data}

@@ -1,7 +1,12 @@
-import type { SearchRequest, SearchResponse } from '@shared/search/search-types';
-import type { FromWorker, IndexInfo, ToWorker } from './search-protocol';
+import type { SearchRequest } from '@shared/search/search-types';
+import type { FromWorker, IndexInfo, SearchAnswer, ToWorker } from './search-protocol';
 
-export type SearchClient = { load(): Promise<IndexInfo>; query(request: SearchRequest): Promise<SearchResponse> };
+export type SearchClient = {
+  load(): Promise<IndexInfo>;
+  query(request: SearchRequest): Promise<SearchAnswer>;
+  /** called with a growing count whenever more shards arrive; returns the unsubscribe */
+  onProgress(listener: (loaded: number) => void): () => void;
+};
 
 type WithoutId<T> = T extends unknown ? Omit<T, 'id'> : never;
 type Pending = { resolve: (m: FromWorker) => void; reject: (e: Error) => void };
@@ -11,10 +16,16 @@ function createSearchClient(): SearchClient {
   let worker: Worker | null = null;
   let seq = 0;
   const pending = new Map<number, Pending>();
+  const listeners = new Set<(loaded: number) => void>();
 
   const start = () => {
     const w = new Worker(new URL('./search.worker.ts', import.meta.url), { type: 'module', name: 'swap-search' });
     w.onmessage = (e: MessageEvent<FromWorker>) => {
+      if (e.data.id === null) {
+        const { loaded } = e.data;
+        listeners.forEach((l) => l(loaded));
+        return;
+      }
       const p = pending.get(e.data.id);
       if (!p) return;
       pending.delete(e.data.id);
@@ -47,6 +58,10 @@ function createSearchClient(): SearchClient {
       const m = await send({ type: 'query', request });
       if (m.type !== 'result') throw new Error('Unexpected answer from the search worker.');
       return m.response;
+    },
+    onProgress: (listener) => {
+      listeners.add(listener);
+      return () => listeners.delete(listener);
     },
   };
 }
