@@ -67,6 +67,8 @@ export class ShardRouter {
 
   /** terms of the chassis fields (make, model, code) → shards: the only terms a two-character prefix reaches */
   private readonly chassisTerms: TermTable;
+  /** a chassis's code, model and make as a query word would be written → the shards of the chassis so named */
+  private readonly named = new Map<string, number[]>();
 
   constructor(readonly head: SearchHead) {
     this.size = head.shards.length;
@@ -75,6 +77,8 @@ export class ShardRouter {
     for (const c of head.chassis) {
       if (c.shard === null) continue;
       for (const t of tokenize(`${c.make} ${c.model} ${c.code}`)) holding.set(t, [...(holding.get(t) ?? []), c.shard]);
+      for (const name of [c.code, c.model, c.make].map(normalisePartNumber))
+        this.named.set(name, [...(this.named.get(name) ?? []), c.shard]);
     }
     this.chassisTerms = new TermTable(
       Object.fromEntries([...holding].map(([t, shards]) => [t, `${encodeShards(shards, this.size)}:0`])),
@@ -176,13 +180,7 @@ export class ShardRouter {
 
   /** shards of a chassis the query names come first (its own swaps rank highest), then the larger ones */
   private likeliestFirst(shards: number[], clauses: Clause[]): number[] {
-    const words = new Set(clauses.flatMap((c) => c[0].chunks.map((ch) => ch.join(''))));
-    const named = new Set<number>();
-    for (const c of this.head.chassis) {
-      if (c.shard === null) continue;
-      const names = [c.code, c.model, c.make].map(normalisePartNumber);
-      if (names.some((n) => words.has(n))) named.add(c.shard);
-    }
+    const named = new Set(clauses.flatMap((c) => c[0].chunks.flatMap((ch) => this.named.get(ch.join('')) ?? [])));
     const count = (i: number) => this.head.shards[i].count;
     return [...shards].sort((a, b) => Number(named.has(b)) - Number(named.has(a)) || count(b) - count(a) || a - b);
   }

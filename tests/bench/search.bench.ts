@@ -7,9 +7,11 @@ import { chunkPieces, normalisePartNumber, parseQuery, processTerm, tokenize } f
 import { fieldBoosts, fields, fieldText, fuzzyFor, type Field } from '../../shared/search/search-fields';
 import type { SearchDocument } from '../../shared/search/search-document';
 import { makeDocuments, makeQueries, makeWorld } from './search-fixtures';
+import { measureShards } from './support/shard-figures';
 
 // npm run bench:search — client-side search at 1k / 10k / 50k approved swaps, beside a linear scan
-// and a server-side SQLite FTS5 query over the same documents, all in this one run.
+// and a server-side SQLite FTS5 query over the same documents, all in this one run; then the index in
+// shards as a reader loads it: bytes before the first result, and the worker's cost per keystroke.
 
 // SEARCH_BENCH_SIZES=10000,50000 runs only those sizes (the budgets are stated at 10k and 50k)
 const sizes = process.env.SEARCH_BENCH_SIZES ? process.env.SEARCH_BENCH_SIZES.split(',').map(Number) : [1_000, 10_000, 50_000];
@@ -142,6 +144,14 @@ type Row = {
   fts5P95Ms: number;
   fts5BuildMs: number;
   avgResults: number;
+  shards: number;
+  headGzBytes: number;
+  firstResultP50Bytes: number;
+  firstResultP95Bytes: number;
+  firstResultMaxBytes: number;
+  typedFirstResultP95Bytes: number;
+  keystrokeP50Ms: number;
+  keystrokeP95Ms: number;
 };
 
 const world = makeWorld();
@@ -178,6 +188,10 @@ for (const n of sizes) {
   const ftsTimes = timeQueries(queries, fts.run);
   fts.close();
 
+  const sharded = measureShards(docs, world.chassis, queries);
+  const first = await sharded.firstResult();
+  const keys = await sharded.keystrokeCost();
+
   const row: Row = {
     buildMs: round(buildMs, 1),
     docsJsonBytes: docsJson.length,
@@ -195,6 +209,14 @@ for (const n of sizes) {
     fts5P95Ms: round(ftsTimes.p95),
     fts5BuildMs: round(fts.buildMs, 1),
     avgResults: round(avgResults, 1),
+    shards: sharded.shardCount,
+    headGzBytes: sharded.headGz,
+    firstResultP50Bytes: first.opened.p50,
+    firstResultP95Bytes: first.opened.p95,
+    firstResultMaxBytes: first.opened.max,
+    typedFirstResultP95Bytes: first.typed.p95,
+    keystrokeP50Ms: round(keys.ms.p50),
+    keystrokeP95Ms: round(keys.ms.p95),
   };
   summary[String(n)] = row;
 
@@ -223,6 +245,19 @@ for (const n of sizes) {
     `  SQLite FTS5          p50 ${round(ftsTimes.p50)} ms, p95 ${row.fts5P95Ms} ms (prefix + bm25, no typos, no facets; build ${row.fts5BuildMs} ms)`,
   );
   log(`  results per query    ${row.avgResults} on average`);
+  const kib = (b: number) => `${(b / 1024).toFixed(1)} KiB`;
+  log(
+    `  sharded index        ${sharded.shardCount} shards (p50 ${kib(sharded.shardGz.p50)}, max ${kib(sharded.shardGz.max)} gzip); first index ${kib(sharded.headGz)} gzip, parsed with its routing tables in ${round(sharded.headParseMs, 1)} ms; split on the server in ${round(sharded.splitMs, 0)} ms`,
+  );
+  log(
+    `  before 1st result    link with the query: p50 ${kib(first.opened.p50)}, p95 ${kib(first.opened.p95)}, max ${kib(first.opened.max)} gzip (whole list ${kib(docsGz)}); first answer in the worker p95 ${round(first.firstAnswerMs.p95, 1)} ms`,
+  );
+  log(
+    `                       typing key by key: p50 ${kib(first.typed.p50)}, p95 ${kib(first.typed.p95)}, max ${kib(first.typed.max)} gzip until a keystroke shows a result`,
+  );
+  log(
+    `  keystroke (worker)   p50 ${row.keystrokeP50Ms} ms, p95 ${row.keystrokeP95Ms} ms, max ${round(keys.ms.max)} ms over ${keys.strokes} keystrokes (routing + match + filters + facets + page, every shard in; all ${sharded.shardCount} taken in within ${round(keys.loadAllMs, 0)} ms)`,
+  );
   log('');
 }
 
@@ -232,6 +267,13 @@ if (summary['10000'])
   log(`  p95 ≤ 1 ms at 10,000: ${summary['10000'].queryP95Ms} ms ${budget(summary['10000'].queryP95Ms <= 1)}`);
 if (summary['50000'])
   log(`  p95 ≤ 2 ms at 50,000: ${summary['50000'].queryP95Ms} ms ${budget(summary['50000'].queryP95Ms <= 2)}`);
+if (summary['50000']) {
+  const r = summary['50000'];
+  log(
+    `  ≤ 150 KB gzipped before the first result at 50,000 (p95 of links with a query): ${(r.firstResultP95Bytes / 1000).toFixed(1)} KB ${budget(r.firstResultP95Bytes <= 150_000)}`,
+  );
+  log(`  keystroke p95 ≤ 1 ms at 50,000, sharded: ${r.keystrokeP95Ms} ms ${budget(r.keystrokeP95Ms <= 1)}`);
+}
 log(
   `  ≤ 300 B/doc gzipped:  ${Math.max(...sizes.map((n) => summary[String(n)].gzBytesPerDoc))} B ${budget(sizes.every((n) => summary[String(n)].gzBytesPerDoc <= 300))}`,
 );
@@ -251,6 +293,14 @@ log(
           fts5P95Ms: r.fts5P95Ms,
           indexGzBytesPerDoc: r.indexGzBytesPerDoc,
           matchP95Ms: r.matchP95Ms,
+          shards: r.shards,
+          headGzBytes: r.headGzBytes,
+          firstResultP50Bytes: r.firstResultP50Bytes,
+          firstResultP95Bytes: r.firstResultP95Bytes,
+          firstResultMaxBytes: r.firstResultMaxBytes,
+          typedFirstResultP95Bytes: r.typedFirstResultP95Bytes,
+          keystrokeP50Ms: r.keystrokeP50Ms,
+          keystrokeP95Ms: r.keystrokeP95Ms,
         },
       ]),
     ),

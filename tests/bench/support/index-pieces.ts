@@ -26,21 +26,25 @@ export function servePieces(docs: SearchDocument[], catalogue: SearchDocument['c
     return n;
   };
 
-  const log: Fetch[] = [];
-  const fetchPart: FetchIndexPart = async <T>(path: string) => {
-    // like the server: a code table no term starts with is empty, an unknown shard is gone
-    const key = decodeURIComponent(path.split('/').at(-1)!);
-    if (!texts.has(path) && path === termsAt(key))
-      texts.set(path, JSON.stringify({ generation, key, terms: {} } satisfies SearchTerms));
-    if (!texts.has(path)) throw new IndexPartGone(`nothing at ${path}`);
-    const entry = { path, gzBytes: gzBytes(path), arrived: false };
-    log.push(entry);
-    // a real fetch resolves on a later turn; so do these, so the worker's ordering is exercised
-    await new Promise((resolve) => setImmediate(resolve));
-    entry.arrived = true;
-    return { status: 'fresh', etag: null, body: JSON.parse(texts.get(path)!) as T };
+  /** a reader's connection: its own log of what it fetched */
+  const connect = () => {
+    const log: Fetch[] = [];
+    const fetchPart: FetchIndexPart = async <T>(path: string) => {
+      // like the server: a code table no term starts with is empty, an unknown shard is gone
+      const key = decodeURIComponent(path.split('/').at(-1)!);
+      if (!texts.has(path) && path === termsAt(key))
+        texts.set(path, JSON.stringify({ generation, key, terms: {} } satisfies SearchTerms));
+      if (!texts.has(path)) throw new IndexPartGone(`nothing at ${path}`);
+      const entry = { path, gzBytes: gzBytes(path), arrived: false };
+      log.push(entry);
+      // a real fetch resolves on a later turn; so do these, so the worker's ordering is exercised
+      await new Promise((resolve) => setImmediate(resolve));
+      entry.arrived = true;
+      return { status: 'fresh', etag: null, body: JSON.parse(texts.get(path)!) as T };
+    };
+    /** gzipped bytes of every piece that has arrived so far */
+    const arrivedBytes = () => log.reduce((n, f) => n + (f.arrived ? f.gzBytes : 0), 0);
+    return { fetchPart, log, arrivedBytes };
   };
-  /** gzipped bytes of every piece that has arrived so far */
-  const arrivedBytes = () => log.reduce((n, f) => n + (f.arrived ? f.gzBytes : 0), 0);
-  return { pieces, fetchPart, log, gzBytes, arrivedBytes };
+  return { pieces, gzBytes, connect, ...connect() };
 }
