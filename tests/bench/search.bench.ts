@@ -16,6 +16,8 @@ import { measureShards } from './support/shard-figures';
 // SEARCH_BENCH_SIZES=10000,50000 runs only those sizes (the budgets are stated at 10k and 50k)
 const sizes = process.env.SEARCH_BENCH_SIZES ? process.env.SEARCH_BENCH_SIZES.split(',').map(Number) : [1_000, 10_000, 50_000];
 const QUERIES = 300;
+// SEARCH_BENCH_ONLY=shards measures only the index in shards (the comparisons take minutes at 50,000)
+const onlyShards = process.env.SEARCH_BENCH_ONLY === 'shards';
 
 const percentile = (xs: number[], p: number) => {
   const s = [...xs].sort((a, b) => a - b);
@@ -155,6 +157,41 @@ type Row = {
 };
 
 const world = makeWorld();
+
+type Sharded = ReturnType<typeof measureShards>;
+const shardRows: Record<string, { firstResultP95Bytes: number; keystrokeP95Ms: number }> = {};
+
+/** The index in shards at one size, as a reader meets it. */
+async function measureAndLogShards(n: number, docs: SearchDocument[], queries: string[], docsGz: number) {
+  const sharded = measureShards(docs, world.chassis, queries);
+  const first = await sharded.firstResult();
+  const keys = await sharded.keystrokeCost();
+  logShards(n, sharded, first, keys, docsGz);
+  return { sharded, first, keys };
+}
+
+function logShards(
+  n: number,
+  sharded: Sharded,
+  first: Awaited<ReturnType<Sharded['firstResult']>>,
+  keys: Awaited<ReturnType<Sharded['keystrokeCost']>>,
+  docsGz: number,
+) {
+  shardRows[String(n)] = { firstResultP95Bytes: first.opened.p95, keystrokeP95Ms: round(keys.ms.p95) };
+  const kib = (b: number) => `${(b / 1024).toFixed(1)} KiB`;
+  log(
+    `  sharded index        ${sharded.shardCount} shards (p50 ${kib(sharded.shardGz.p50)}, max ${kib(sharded.shardGz.max)} gzip); first index ${kib(sharded.headGz)} gzip, parsed with its routing tables in ${round(sharded.headParseMs, 1)} ms; split on the server in ${round(sharded.splitMs, 0)} ms`,
+  );
+  log(
+    `  before 1st result    link with the query: p50 ${kib(first.opened.p50)}, p95 ${kib(first.opened.p95)}, max ${kib(first.opened.max)} gzip (whole list ${kib(docsGz)}); first answer in the worker p95 ${round(first.firstAnswerMs.p95, 1)} ms`,
+  );
+  log(
+    `                       typing key by key: p50 ${kib(first.typed.p50)}, p95 ${kib(first.typed.p95)}, max ${kib(first.typed.max)} gzip until a keystroke shows a result`,
+  );
+  log(
+    `  keystroke (worker)   p50 ${round(keys.ms.p50)} ms, p95 ${round(keys.ms.p95)} ms, max ${round(keys.ms.max)} ms over ${keys.strokes} keystrokes (routing + match + filters + facets + page, every shard in; all ${sharded.shardCount} taken in within ${round(keys.loadAllMs, 0)} ms)`,
+  );
+}
 const summary: Record<string, Row> = {};
 const log = (s: string) => process.stdout.write(s + '\n');
 
@@ -162,6 +199,12 @@ log(`search benchmark — node ${process.version}, ${QUERIES} queries per size\n
 for (const n of sizes) {
   const docs = makeDocuments(n, world);
   const queries = makeQueries(QUERIES, docs, world);
+  if (onlyShards) {
+    log(`── ${n.toLocaleString('en')} documents`);
+    await measureAndLogShards(n, docs, queries, gzipSync(JSON.stringify({ documents: docs })).length);
+    log('');
+    continue;
+  }
 
   const docsJson = JSON.stringify({ documents: docs });
   const docsGz = gzipSync(docsJson).length;
@@ -188,9 +231,7 @@ for (const n of sizes) {
   const ftsTimes = timeQueries(queries, fts.run);
   fts.close();
 
-  const sharded = measureShards(docs, world.chassis, queries);
-  const first = await sharded.firstResult();
-  const keys = await sharded.keystrokeCost();
+  const { sharded, first, keys } = await measureAndLogShards(n, docs, queries, docsGz);
 
   const row: Row = {
     buildMs: round(buildMs, 1),
@@ -245,19 +286,6 @@ for (const n of sizes) {
     `  SQLite FTS5          p50 ${round(ftsTimes.p50)} ms, p95 ${row.fts5P95Ms} ms (prefix + bm25, no typos, no facets; build ${row.fts5BuildMs} ms)`,
   );
   log(`  results per query    ${row.avgResults} on average`);
-  const kib = (b: number) => `${(b / 1024).toFixed(1)} KiB`;
-  log(
-    `  sharded index        ${sharded.shardCount} shards (p50 ${kib(sharded.shardGz.p50)}, max ${kib(sharded.shardGz.max)} gzip); first index ${kib(sharded.headGz)} gzip, parsed with its routing tables in ${round(sharded.headParseMs, 1)} ms; split on the server in ${round(sharded.splitMs, 0)} ms`,
-  );
-  log(
-    `  before 1st result    link with the query: p50 ${kib(first.opened.p50)}, p95 ${kib(first.opened.p95)}, max ${kib(first.opened.max)} gzip (whole list ${kib(docsGz)}); first answer in the worker p95 ${round(first.firstAnswerMs.p95, 1)} ms`,
-  );
-  log(
-    `                       typing key by key: p50 ${kib(first.typed.p50)}, p95 ${kib(first.typed.p95)}, max ${kib(first.typed.max)} gzip until a keystroke shows a result`,
-  );
-  log(
-    `  keystroke (worker)   p50 ${row.keystrokeP50Ms} ms, p95 ${row.keystrokeP95Ms} ms, max ${round(keys.ms.max)} ms over ${keys.strokes} keystrokes (routing + match + filters + facets + page, every shard in; all ${sharded.shardCount} taken in within ${round(keys.loadAllMs, 0)} ms)`,
-  );
   log('');
 }
 
@@ -267,42 +295,45 @@ if (summary['10000'])
   log(`  p95 ≤ 1 ms at 10,000: ${summary['10000'].queryP95Ms} ms ${budget(summary['10000'].queryP95Ms <= 1)}`);
 if (summary['50000'])
   log(`  p95 ≤ 2 ms at 50,000: ${summary['50000'].queryP95Ms} ms ${budget(summary['50000'].queryP95Ms <= 2)}`);
-if (summary['50000']) {
-  const r = summary['50000'];
+if (shardRows['50000']) {
+  const r = shardRows['50000'];
   log(
     `  ≤ 150 KB gzipped before the first result at 50,000 (p95 of links with a query): ${(r.firstResultP95Bytes / 1000).toFixed(1)} KB ${budget(r.firstResultP95Bytes <= 150_000)}`,
   );
   log(`  keystroke p95 ≤ 1 ms at 50,000, sharded: ${r.keystrokeP95Ms} ms ${budget(r.keystrokeP95Ms <= 1)}`);
 }
-log(
-  `  ≤ 300 B/doc gzipped:  ${Math.max(...sizes.map((n) => summary[String(n)].gzBytesPerDoc))} B ${budget(sizes.every((n) => summary[String(n)].gzBytesPerDoc <= 300))}`,
-);
+if (!onlyShards)
+  log(
+    `  ≤ 300 B/doc gzipped:  ${Math.max(...sizes.map((n) => summary[String(n)].gzBytesPerDoc))} B ${budget(sizes.every((n) => summary[String(n)].gzBytesPerDoc <= 300))}`,
+  );
 log('');
-log(
-  JSON.stringify(
-    Object.fromEntries(
-      Object.entries(summary).map(([n, r]) => [
-        n,
-        {
-          buildMs: r.buildMs,
-          gzBytesPerDoc: r.gzBytesPerDoc,
-          loadMs: r.loadMs,
-          queryP50Ms: r.queryP50Ms,
-          queryP95Ms: r.queryP95Ms,
-          linearP95Ms: r.linearP95Ms,
-          fts5P95Ms: r.fts5P95Ms,
-          indexGzBytesPerDoc: r.indexGzBytesPerDoc,
-          matchP95Ms: r.matchP95Ms,
-          shards: r.shards,
-          headGzBytes: r.headGzBytes,
-          firstResultP50Bytes: r.firstResultP50Bytes,
-          firstResultP95Bytes: r.firstResultP95Bytes,
-          firstResultMaxBytes: r.firstResultMaxBytes,
-          typedFirstResultP95Bytes: r.typedFirstResultP95Bytes,
-          keystrokeP50Ms: r.keystrokeP50Ms,
-          keystrokeP95Ms: r.keystrokeP95Ms,
-        },
-      ]),
+if (onlyShards) log(JSON.stringify(shardRows));
+else
+  log(
+    JSON.stringify(
+      Object.fromEntries(
+        Object.entries(summary).map(([n, r]) => [
+          n,
+          {
+            buildMs: r.buildMs,
+            gzBytesPerDoc: r.gzBytesPerDoc,
+            loadMs: r.loadMs,
+            queryP50Ms: r.queryP50Ms,
+            queryP95Ms: r.queryP95Ms,
+            linearP95Ms: r.linearP95Ms,
+            fts5P95Ms: r.fts5P95Ms,
+            indexGzBytesPerDoc: r.indexGzBytesPerDoc,
+            matchP95Ms: r.matchP95Ms,
+            shards: r.shards,
+            headGzBytes: r.headGzBytes,
+            firstResultP50Bytes: r.firstResultP50Bytes,
+            firstResultP95Bytes: r.firstResultP95Bytes,
+            firstResultMaxBytes: r.firstResultMaxBytes,
+            typedFirstResultP95Bytes: r.typedFirstResultP95Bytes,
+            keystrokeP50Ms: r.keystrokeP50Ms,
+            keystrokeP95Ms: r.keystrokeP95Ms,
+          },
+        ]),
+      ),
     ),
-  ),
-);
+  );
