@@ -29,6 +29,8 @@ import { fittedReportsRouter } from './features/fitted-reports/fitted-reports.ro
 import { carsRouter } from './features/cars/cars.router';
 import { shopLinkRedirectRouter, shopPagesRouter, shopsRouter } from './features/shops/shops.router';
 import { graphRouter } from './features/graph/graph.router';
+import { exportRouter } from './features/export/export.router';
+import { openApiRouter } from './features/openapi/openapi.router';
 
 export type AppDeps = {
   db: Db;
@@ -105,9 +107,20 @@ export function createApp(deps: AppDeps) {
   app.use('/api', carsRouter(deps));
   app.use('/api', shopsRouter(deps));
   app.use('/api', graphRouter(deps));
+  app.use('/api', exportRouter(deps));
+  app.use('/api', openApiRouter(deps));
 
   app.use(mediaRouter(deps));
   app.use(shopLinkRedirectRouter(deps));
+  // the daily open-data dumps (npm run export:dump), for mirrors; a file is only ever renamed into place whole
+  app.use(
+    '/dumps',
+    express.static(config.dumpDir, {
+      index: false,
+      dotfiles: 'ignore',
+      setHeaders: (res) => res.set('Cache-Control', 'public, max-age=3600'),
+    }),
+  );
 
   app.use('/api', apiNotFound);
   // pages in front of the client, so an address naming nothing answers 404

@@ -10,6 +10,8 @@ const envSchema = z.object({
   APP_URL: z.url().optional(),
   DATABASE_URL: z.string().min(1).default('./data/swapyard.db'),
   UPLOAD_DIR: z.string().min(1).default('./data/uploads'),
+  /** where `npm run export:dump` writes the daily gzipped open-data files, served at /dumps/ */
+  DUMP_DIR: z.string().min(1).default('./data/dumps'),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
   GITHUB_CLIENT_ID: z.string().min(1).optional(),
   GITHUB_CLIENT_SECRET: z.string().min(1).optional(),
@@ -52,6 +54,7 @@ export type Config = {
   appUrl: string;
   databaseUrl: string;
   uploadDir: string;
+  dumpDir: string;
   sessionSecret: string;
   auth: { mode: 'github' | 'fake'; clientId: string; clientSecret: string; rateLimit: number };
   rateLimits: { submissionsPerHour: number; uploadsPerHour: number; flagsPerHour: number; linkMissesPer15Min: number };
@@ -98,6 +101,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     appUrl: e.APP_URL ?? `http://localhost:${e.PORT}`,
     databaseUrl: e.DATABASE_URL,
     uploadDir: path.resolve(e.UPLOAD_DIR),
+    dumpDir: path.resolve(e.DUMP_DIR),
     sessionSecret: e.SESSION_SECRET ?? developmentSecret(path.dirname(path.resolve(e.DATABASE_URL))),
     auth: {
       mode,

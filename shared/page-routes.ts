@@ -14,6 +14,8 @@ export const pageRoutes = {
   chassis: '/chassis/:slug',
   part: '/parts/:id',
   whereElse: '/where-else',
+  openData: '/open-data',
+  apiDocs: '/api-docs',
   tools: '/tools',
   admin: '/admin',
   signIn: '/signin',

@@ -92,6 +92,9 @@ const table: Record<string, Row> = {
   'GET /api/search-index/head': publicRoute,
   'GET /api/search-index/shards/:shard/:hash': publicRoute,
   'GET /api/search-index/terms/:generation/:key': publicRoute,
+  'GET /api/export/swaps.json': publicRoute,
+  'GET /api/export/swaps.csv': publicRoute,
+  'GET /api/openapi.json': publicRoute,
   'POST /api/submissions': signedIn(),
   // the world's revision is a never-submitted draft: private to its author, even from the review desk
   // (reviewers read a revision once it is sent to review; tests/api/drafts-private.test.ts)

@@ -1,28 +1,20 @@
 import fs from 'node:fs';
 import os from 'node:os';
-import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { sql } from 'drizzle-orm';
-import { openDb, migrateDb, closeDb, type Db } from '../../server/db/client';
+import { closeDb } from '../../server/db/client';
 import { chassisGraph, partGraph, whereElse } from '../../server/features/graph/graph.service';
 import { getPartPage } from '../../server/features/catalogue/catalogue.service';
-import { buildSyntheticWorld } from '../support/synthetic-catalogue';
+import { openBenchWorld } from '../support/bench-world';
 import { rng } from './search-fixtures';
 
 // npm run bench:graph — the interchange graph's page queries at 100,000 swaps and 20,000 catalogue parts:
 // the part page's graph, the chassis page's donor parts, the "where else" search, and the part page's
 // list of swaps, each over a few hundred pages picked at random (popular parts and chassis included).
 //
-// GRAPH_BENCH_SWAPS / GRAPH_BENCH_PARTS / GRAPH_BENCH_CHASSIS change the size. The world takes minutes to
-// build, so it is kept in the temp folder and reused by later runs of the same size (GRAPH_BENCH_FRESH=1
-// builds it again).
+// BENCH_SWAPS / BENCH_PARTS / BENCH_CHASSIS change the size (tests/support/bench-world.ts).
 
-const size = {
-  swaps: Number(process.env.GRAPH_BENCH_SWAPS ?? 100_000),
-  parts: Number(process.env.GRAPH_BENCH_PARTS ?? 20_000),
-  chassis: Number(process.env.GRAPH_BENCH_CHASSIS ?? 2_000),
-};
-const PAGES = Number(process.env.GRAPH_BENCH_PAGES ?? 300);
+const PAGES = Number(process.env.BENCH_PAGES ?? 300);
 
 const percentile = (xs: number[], p: number) => {
   const s = [...xs].sort((a, b) => a - b);
@@ -40,32 +32,7 @@ function measure<T>(inputs: T[], run: (input: T) => unknown) {
   return { p50: percentile(ms, 50), p95: percentile(ms, 95), max: Math.max(...ms) };
 }
 
-function openWorld(): { db: Db; file: string } {
-  const file = path.join(os.tmpdir(), `swapyard-graph-bench-${size.swaps}-${size.parts}-${size.chassis}.db`);
-  const migrations = fs.readdirSync(path.resolve(import.meta.dirname, '../../drizzle')).filter((f) => f.endsWith('.sql')).length;
-  const stale = () => {
-    const db = openDb(file);
-    const applied = db.$client.prepare('select count(*) as n from __drizzle_migrations').get() as { n: number };
-    closeDb(db);
-    return applied.n !== migrations;
-  };
-  if (process.env.GRAPH_BENCH_FRESH || !fs.existsSync(file) || stale()) {
-    for (const f of [file, `${file}-wal`, `${file}-shm`]) fs.rmSync(f, { force: true });
-    const db = openDb(file);
-    migrateDb(db);
-    const t0 = performance.now();
-    const w = buildSyntheticWorld(db, size);
-    db.$client.pragma('optimize');
-    console.log(
-      `built ${w.approvedSwaps} approved swaps (+${w.unpublishedSwaps} unpublished), ${size.parts} parts, ${size.chassis} chassis in ${round((performance.now() - t0) / 1000, 1)} s`,
-    );
-    return { db, file };
-  }
-  console.log(`reusing ${file}`);
-  return { db: openDb(file), file };
-}
-
-const { db, file } = openWorld();
+const { db, file } = openBenchWorld();
 const c = db.$client;
 const count = (q: string) => (c.prepare(q).get() as { n: number }).n;
 console.log(
@@ -104,5 +71,7 @@ console.log(
 );
 console.log('page query                                  p50 ms   p95 ms   max ms');
 for (const [name, m] of rows)
-  console.log(`${name.padEnd(42)} ${String(round(m.p50)).padStart(7)} ${String(round(m.p95)).padStart(8)} ${String(round(m.max)).padStart(8)}`);
+  console.log(
+    `${name.padEnd(42)} ${String(round(m.p50)).padStart(7)} ${String(round(m.p95)).padStart(8)} ${String(round(m.max)).padStart(8)}`,
+  );
 closeDb(db);

@@ -70,8 +70,20 @@ export function buildSyntheticWorld(db: Db, size: WorldSize): SyntheticWorld {
         wheelBoltThread: r.pick(['M12×1.5', 'M14×1.5']),
         stockWheel: { diameterIn: 15, widthIn: 6, offsetMm: 38, tyre: '195/60R15' },
         stockBrakes: {
-          front: { kind: 'disc' as const, pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50, description: 'Sliding caliper' },
-          rear: { kind: 'disc' as const, pistonsPerSideMm: [36], rotorDiameterMm: 260, padHeightMm: 40, description: 'Sliding caliper' },
+          front: {
+            kind: 'disc' as const,
+            pistonsPerSideMm: [54],
+            rotorDiameterMm: 280,
+            padHeightMm: 50,
+            description: 'Sliding caliper',
+          },
+          rear: {
+            kind: 'disc' as const,
+            pistonsPerSideMm: [36],
+            rotorDiameterMm: 260,
+            padHeightMm: 40,
+            description: 'Sliding caliper',
+          },
         },
         proposed: i % 50 === 49,
         createdAt: now,
@@ -92,10 +104,12 @@ export function buildSyntheticWorld(db: Db, size: WorldSize): SyntheticWorld {
       }
     }
     const publishedChassis = chassisIds.filter((id) => !proposedChassis.has(id));
-    const donorLabel = (i: number) => `${chassisRows[i].make} ${chassisRows[i].model} ${1 + (i % 3)}.${i % 10} (${chassisRows[i].yearFrom}–${chassisRows[i].yearTo})`;
+    const donorLabel = (i: number) =>
+      `${chassisRows[i].make} ${chassisRows[i].model} ${1 + (i % 3)}.${i % 10} (${chassisRows[i].yearFrom}–${chassisRows[i].yearTo})`;
 
     // ---- parts: numbers, older stamps in notes, some recorded twice under a shared number ----
-    const numberOf = (prefix: string, i: number, side: string) => `${prefix}-${100 + (i % 900)}-${String(i).padStart(5, '0')}-${side}`;
+    const numberOf = (prefix: string, i: number, side: string) =>
+      `${prefix}-${100 + (i % 900)}-${String(i).padStart(5, '0')}-${side}`;
     const partRows = Array.from({ length: size.parts }, (_, i) => {
       let roll = r.next();
       const k = kinds.find((x) => (roll -= x.share) < 0) ?? kinds[0];
@@ -105,7 +119,8 @@ export function buildSyntheticWorld(db: Db, size: WorldSize): SyntheticWorld {
       const numbers = [numberOf(prefix, i, side)];
       if (r.next() < 0.1) numbers.push(numberOf(prefix, i + size.parts, side)); // a later number for the same part
       let notes = `${k.names[0]} for ${chassisRows[donor].make} hubs.`;
-      if (r.next() < 0.1) notes += ` Early ones carry the stamp ${numberOf(prefix, i + 2 * size.parts, side)} and are the same casting.`;
+      if (r.next() < 0.1)
+        notes += ` Early ones carry the stamp ${numberOf(prefix, i + 2 * size.parts, side)} and are the same casting.`;
       return {
         slug: `synthetic-part-${i}`,
         kind: k.kind,
@@ -113,7 +128,10 @@ export function buildSyntheticWorld(db: Db, size: WorldSize): SyntheticWorld {
         maker: chassisRows[donor].make,
         partNumbers: numbers,
         specs: {},
-        cameOn: k.kind === 'adapter' ? [] : [donorLabel(donor), ...(r.next() < 0.3 ? [donorLabel(r.int(0, chassisRows.length - 1))] : [])],
+        cameOn:
+          k.kind === 'adapter'
+            ? []
+            : [donorLabel(donor), ...(r.next() < 0.3 ? [donorLabel(r.int(0, chassisRows.length - 1))] : [])],
         notes,
         createdAt: now,
         updatedAt: now,
@@ -121,8 +139,7 @@ export function buildSyntheticWorld(db: Db, size: WorldSize): SyntheticWorld {
     });
     // every twentieth part is a second record of the part before it (chains of two to four records)
     for (let i = 20; i < partRows.length; i += 20)
-      for (let j = 0; j < 1 + (i % 3); j++)
-        partRows[i + j]?.partNumbers.push(partRows[i + j - 1].partNumbers[0]);
+      for (let j = 0; j < 1 + (i % 3); j++) partRows[i + j]?.partNumbers.push(partRows[i + j - 1].partNumbers[0]);
     const partIds: number[] = [];
     const partNumbersOf = new Map<number, string[]>();
     const partById = new Map<number, (typeof partRows)[number]>();
@@ -142,7 +159,17 @@ export function buildSyntheticWorld(db: Db, size: WorldSize): SyntheticWorld {
     const pickOf = (kind: PartKind) => popular(byKind.get(kind) ?? partIds);
     const line = (id: number, role: string, quantity: number): SwapPart => {
       const p = partById.get(id)!;
-      return { partId: id, role, kind: p.kind, name: p.name, maker: p.maker, partNumbers: p.partNumbers.slice(0, 1), cameOn: p.cameOn, quantity, notes: '' };
+      return {
+        partId: id,
+        role,
+        kind: p.kind,
+        name: p.name,
+        maker: p.maker,
+        partNumbers: p.partNumbers.slice(0, 1),
+        cameOn: p.cameOn,
+        quantity,
+        notes: '',
+      };
     };
 
     // ---- swaps ----
@@ -151,7 +178,11 @@ export function buildSyntheticWorld(db: Db, size: WorldSize): SyntheticWorld {
     const pending: { swap: typeof swaps.$inferInsert; revs: { status: RevisionStatus; data: SwapData }[] }[] = [];
     const flush = () => {
       if (pending.length === 0) return;
-      const ids = tx.insert(swaps).values(pending.map((p) => p.swap)).returning({ id: swaps.id }).all();
+      const ids = tx
+        .insert(swaps)
+        .values(pending.map((p) => p.swap))
+        .returning({ id: swaps.id })
+        .all();
       const revRows = pending.flatMap((p, i) =>
         p.revs.map((rev, n) => ({
           swapId: ids[i].id,
@@ -166,7 +197,11 @@ export function buildSyntheticWorld(db: Db, size: WorldSize): SyntheticWorld {
           updatedAt: now,
         })),
       );
-      const revIds = tx.insert(revisions).values(revRows).returning({ id: revisions.id, swapId: revisions.swapId, status: revisions.status }).all();
+      const revIds = tx
+        .insert(revisions)
+        .values(revRows)
+        .returning({ id: revisions.id, swapId: revisions.swapId, status: revisions.status })
+        .all();
       const current = new Map<number, number>();
       for (const rev of revIds) if (rev.status === 'approved') current.set(rev.swapId, rev.id);
       const update = db.$client.prepare('update swaps set current_revision_id = ? where id = ?');
@@ -176,12 +211,28 @@ export function buildSyntheticWorld(db: Db, size: WorldSize): SyntheticWorld {
     for (let i = 0; i < size.swaps; i++) {
       // one in twenty is unpublished: only a draft, only in review, declined, or on a proposed chassis
       const unpublished = i % 20 === 7;
-      const chassisId = unpublished && i % 40 === 7 && proposedChassis.size ? r.pick([...proposedChassis]) : popular(publishedChassis);
+      const chassisId =
+        unpublished && i % 40 === 7 && proposedChassis.size ? r.pick([...proposedChassis]) : popular(publishedChassis);
       const axle = r.next() < 0.7 ? ('front' as const) : ('rear' as const);
-      const data = recordFor(r, i, axle, { caliper: pickOf('caliper'), rotor: pickOf('rotor'), pad: pickOf('pad'), adapter: pickOf('adapter'), hardware: pickOf('hardware') }, line, partById);
+      const data = recordFor(
+        r,
+        i,
+        axle,
+        {
+          caliper: pickOf('caliper'),
+          rotor: pickOf('rotor'),
+          pad: pickOf('pad'),
+          adapter: pickOf('adapter'),
+          hardware: pickOf('hardware'),
+        },
+        line,
+        partById,
+      );
       let revs: { status: RevisionStatus; data: SwapData }[];
       if (unpublished) {
-        revs = proposedChassis.has(chassisId) ? [{ status: 'in_review', data }] : [{ status: r.pick(['draft', 'in_review', 'declined'] as const), data }];
+        revs = proposedChassis.has(chassisId)
+          ? [{ status: 'in_review', data }]
+          : [{ status: r.pick(['draft', 'in_review', 'declined'] as const), data }];
         unpublishedSwaps++;
       } else {
         approvedSwaps++;
@@ -190,7 +241,18 @@ export function buildSyntheticWorld(db: Db, size: WorldSize): SyntheticWorld {
         if (i % 10 === 3) revs.unshift({ status: 'superseded', data: { ...data, title: `${data.title} (first write-up)` } });
         if (i % 10 === 5) revs.push({ status: 'in_review', data: { ...data, title: `${data.title} (correction in review)` } });
       }
-      pending.push({ swap: { slug: `synthetic-swap-${i}`, chassisId, axle, category: 'brakes', authorId: author.id, createdAt: now, updatedAt: now }, revs });
+      pending.push({
+        swap: {
+          slug: `synthetic-swap-${i}`,
+          chassisId,
+          axle,
+          category: 'brakes',
+          authorId: author.id,
+          createdAt: now,
+          updatedAt: now,
+        },
+        revs,
+      });
       if (pending.length === 300) flush();
     }
     flush();
@@ -222,7 +284,13 @@ function recordFor(
       line(picks.adapter, 'Caliper adapter (pair)', 1),
       line(picks.hardware, 'Bolts', 1),
     ],
-    adapter: { name: adapter.name, maker: adapter.maker, partNumber: adapter.partNumbers[0], hardwareIncluded: ['4 × M12×1.5 × 35 mm bolts'], notes: '' },
+    adapter: {
+      name: adapter.name,
+      maker: adapter.maker,
+      partNumber: adapter.partNumbers[0],
+      hardwareIncluded: ['4 × M12×1.5 × 35 mm bolts'],
+      notes: '',
+    },
     calipers: [
       {
         axle,
@@ -241,14 +309,43 @@ function recordFor(
         notes: '',
       },
     ],
-    rotors: [{ axle, diameterMm: rotorMm, thicknessMm: 28, minThicknessMm: 26, hatHeightMm: 46, vented: true, directional: false, partNumber: '', notes: '' }],
+    rotors: [
+      {
+        axle,
+        diameterMm: rotorMm,
+        thicknessMm: 28,
+        minThicknessMm: 26,
+        hatHeightMm: 46,
+        vented: true,
+        directional: false,
+        partNumber: '',
+        notes: '',
+      },
+    ],
     shims: [{ joint: 'bracket_to_knuckle', direction: 'axial', thicknessMm: 1, quantity: 4, notes: '' }],
     centring: { joint: 'bracket_to_knuckle', gapMm: 1, positions: 4 },
     spacers: [],
-    machining: i % 4 === 0 ? [{ component: 'dust_shield', operation: 'trim', where: 'Dust shield edge', required: true, notes: '' }] : [],
+    machining:
+      i % 4 === 0 ? [{ component: 'dust_shield', operation: 'trim', where: 'Dust shield edge', required: true, notes: '' }] : [],
     fasteners: [
-      { id: 'adapter-bolts', kind: 'bracket_mount', label: 'Adapter to knuckle', thread: 'M12x1.5', lengthMm: 35, propertyClass: '10.9', quantity: 4 },
-      { id: 'caliper-bolts', kind: 'caliper_mount', label: 'Caliper to adapter', thread: 'M10x1.25', lengthMm: 45, propertyClass: '12.9', quantity: 4 },
+      {
+        id: 'adapter-bolts',
+        kind: 'bracket_mount',
+        label: 'Adapter to knuckle',
+        thread: 'M12x1.5',
+        lengthMm: 35,
+        propertyClass: '10.9',
+        quantity: 4,
+      },
+      {
+        id: 'caliper-bolts',
+        kind: 'caliper_mount',
+        label: 'Caliper to adapter',
+        thread: 'M10x1.25',
+        lengthMm: 45,
+        propertyClass: '12.9',
+        quantity: 4,
+      },
     ],
     torque: [
       { fastenerId: 'adapter-bolts', nm: 95, lubrication: 'thread_locker', singleUse: false, notes: '' },
@@ -285,8 +382,14 @@ function recordFor(
         rear: { kind: 'disc', pistonsPerSideMm: [36], rotorDiameterMm: 260, padHeightMm: 40 },
       },
       after: {
-        front: axle === 'front' ? { kind: 'disc', pistonsPerSideMm: [40, 44], rotorDiameterMm: rotorMm, padHeightMm: 55 } : { kind: 'disc', pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50 },
-        rear: axle === 'rear' ? { kind: 'disc', pistonsPerSideMm: [40, 44], rotorDiameterMm: rotorMm, padHeightMm: 55 } : { kind: 'disc', pistonsPerSideMm: [36], rotorDiameterMm: 260, padHeightMm: 40 },
+        front:
+          axle === 'front'
+            ? { kind: 'disc', pistonsPerSideMm: [40, 44], rotorDiameterMm: rotorMm, padHeightMm: 55 }
+            : { kind: 'disc', pistonsPerSideMm: [54], rotorDiameterMm: 280, padHeightMm: 50 },
+        rear:
+          axle === 'rear'
+            ? { kind: 'disc', pistonsPerSideMm: [40, 44], rotorDiameterMm: rotorMm, padHeightMm: 55 }
+            : { kind: 'disc', pistonsPerSideMm: [36], rotorDiameterMm: 260, padHeightMm: 40 },
       },
     },
     currency: 'EUR',

@@ -13,6 +13,8 @@ describe('the page table', () => {
       ['chassis', paths.chassis('halden-h31')],
       ['part', paths.part(7)],
       ['whereElse', paths.whereElse('NGF-1')],
+      ['openData', paths.openData()],
+      ['apiDocs', paths.apiDocs()],
       ['tools', paths.tools()],
       ['submit', paths.submit()],
       ['editSubmission', paths.editSubmission(3)],

@@ -25,6 +25,16 @@ export function Footer() {
                 Record a swap you fitted
               </Link>
             </li>
+            <li>
+              <Link className="hover:text-ink" to="/open-data">
+                Open data (CC BY-SA 4.0)
+              </Link>
+            </li>
+            <li>
+              <Link className="hover:text-ink" to="/api-docs">
+                Public API
+              </Link>
+            </li>
           </ul>
         </nav>
         <p>

@@ -28,6 +28,7 @@ export async function makeTestApp(env: Record<string, string> = {}, clock?: Cloc
     NODE_ENV: 'test',
     DATABASE_URL: path.join(dir, 'test.db'),
     UPLOAD_DIR: path.join(dir, 'uploads'),
+    DUMP_DIR: path.join(dir, 'dumps'),
     SESSION_SECRET: 'test-secret-test-secret-test-secret-000',
     LOG_LEVEL: 'silent',
     SERVE_CLIENT: 'none',

@@ -48,6 +48,7 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
       APP_URL: url,
       DATABASE_URL: path.join(dir, 'e2e.db'),
       UPLOAD_DIR: path.join(dir, 'uploads'),
+      DUMP_DIR: path.join(dir, 'dumps'),
       SERVE_CLIENT: 'dist',
       SESSION_SECRET: 'e2e-secret-e2e-secret-e2e-secret-0000',
       SEED_DEMO: 'never',
