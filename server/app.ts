@@ -24,6 +24,7 @@ import { mediaRouter } from './features/photos/media.router';
 import { searchIndexRouter } from './features/search-index/search-index.router';
 import { submissionsRouter } from './features/submissions/submissions.router';
 import { reviewRouter } from './features/review/review.router';
+import { takedownsRouter } from './features/takedowns/takedowns.router';
 import { outboxRouter } from './features/outbox/outbox.router';
 import { fittedReportsRouter } from './features/fitted-reports/fitted-reports.router';
 import { carsRouter } from './features/cars/cars.router';
@@ -101,6 +102,8 @@ export function createApp(deps: AppDeps) {
   app.use('/api', catalogueRouter(deps));
   app.use('/api', searchIndexRouter(deps));
   app.use('/api', submissionsRouter(deps));
+  // before the review router, whose /review/:revisionId would read "takedowns" as a revision id
+  app.use('/api', takedownsRouter(deps));
   app.use('/api', reviewRouter(deps));
   app.use('/api', outboxRouter(deps));
   app.use('/api', fittedReportsRouter(deps));

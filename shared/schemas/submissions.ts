@@ -4,6 +4,7 @@ import { axleSchema, categorySchema, type Axle, type Category, type MailStatus, 
 import { swapDataSchema, type SwapData } from './swap-data';
 import type { PersonRef, PhotoView, ChassisView } from './views';
 import { chassisWheelFasteningSchema, threadDesignation } from './wheel-fastening';
+import type { TakedownItem } from './takedowns';
 
 // API contract of the community loop: submissions, photos, review desk, flags, outbox.
 
@@ -91,6 +92,8 @@ export type SubmissionView = {
   chassis: ChassisView;
   data: SwapData;
   body: string;
+  /** a moderator took the write-up of this (published) revision down; its author and the desk still see it */
+  bodyTakenDown: boolean;
   photos: PhotoView[];
   author: PersonRef;
   reviewNote: string | null;
@@ -169,6 +172,10 @@ export type ReviewDetail = {
   basedOn: { number: number; data: SwapData; body: string } | null;
   history: { action: string; actor: PersonRef; note: string; at: string }[];
   canDecide: boolean;
+  /** takedowns of this revision's photos or write-up, newest first (published revisions only) */
+  takedowns: TakedownItem[];
+  /** the viewer may revert a takedown (admins) */
+  canRevertTakedowns: boolean;
 };
 
 export const decisionNoteSchema = z.object({ note: multiLine().trim().max(4000).default('') });

@@ -33,7 +33,16 @@ export type ChassisView = {
   notes: string;
 };
 
-export type PhotoView = { id: string; caption: string; width: number; height: number; url: string; thumbUrl: string };
+export type PhotoView = {
+  id: string;
+  caption: string;
+  width: number;
+  height: number;
+  url: string;
+  thumbUrl: string;
+  /** a moderator took it down: only its author and the review desk get it, marked so */
+  takenDown?: boolean;
+};
 
 export type RevisionSummary = {
   number: number;
@@ -63,6 +72,8 @@ export type SwapSheetView = {
     submittedAt: string | null;
     author: PersonRef;
     photos: PhotoView[];
+    /** a moderator took the write-up down: `body` is empty and the sheet says why */
+    bodyTakenDown: boolean;
   };
   /** number of the swap's current (latest approved) revision */
   currentNumber: number | null;

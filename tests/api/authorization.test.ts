@@ -16,6 +16,7 @@ import {
   revisionPhotos,
   reviewReasonTemplates,
   shopLinks,
+  takedowns,
 } from '../../server/db/schema/index';
 
 // Every route the Express app really has, checked for every kind of visitor against the table below.
@@ -119,6 +120,10 @@ const table: Record<string, Row> = {
   'GET /api/review/flags': reviewers(),
   'POST /api/review/flags/bulk-resolve': reviewers(),
   'POST /api/review/flags/:id/resolve': reviewers(),
+  'GET /api/review/takedowns': reviewers(),
+  // the world's revisionId is in review: the route is the desk's, and it answers 409 (nothing public to take down)
+  'POST /api/review/revisions/:revisionId/takedowns': reviewers(),
+  'POST /api/review/takedowns/:id/revert': admins,
   'GET /api/review/:revisionId': reviewers(),
   'POST /api/review/:revisionId/approve': reviewers(),
   'POST /api/review/:revisionId/send-back': reviewers(),
@@ -290,6 +295,18 @@ async function world() {
     })
     .returning()
     .get();
+  const takedown = t.db
+    .insert(takedowns)
+    .values({
+      swapId: approved.swapId,
+      revisionId: approved.revisionIds[0]!,
+      target: 'body',
+      reason: 'Personal details',
+      createdById: users.moderator.id,
+      createdAt: now,
+    })
+    .returning()
+    .get();
   const template = t.db
     .insert(reviewReasonTemplates)
     .values({ label: 'Photo', text: 'Add a photo', createdAt: now, updatedAt: now })
@@ -307,6 +324,7 @@ async function world() {
     cars: { id: car.id },
     templates: { id: template.id },
     flags: { id: flag.id },
+    takedowns: { id: takedown.id },
     'fitted-reports': { id: report.id },
     media: { id: photo.fileId },
     // the approved swap is on a Halden: the search index keeps each make's swaps in a shard named after it
@@ -342,6 +360,7 @@ const bodies: Record<string, object> = {
   'POST /api/review/bulk-decline': { revisionIds: [999], note: 'Spam' },
   'POST /api/review/flags/:id/resolve': { note: 'Checked the figure' },
   'POST /api/review/flags/bulk-resolve': { ids: [1], note: 'Checked the figures' },
+  'POST /api/review/revisions/:revisionId/takedowns': { target: 'body', reason: 'Personal details' },
   'POST /api/review/:revisionId/send-back': { note: 'Add photos' },
   'POST /api/review/:revisionId/decline': { note: 'Duplicate' },
   'POST /api/swaps/:slug/flags': { reason: 'The torque figure looks wrong' },

@@ -142,3 +142,37 @@ export const reviewReasonTemplates = sqliteTable('review_reason_templates', {
   text: text('text').notNull(),
   ...timestamps,
 });
+
+/**
+ * A moderator's takedown of a published revision's photo or write-up. A photo is taken down by its content
+ * within the swap, so the copies later revisions carry of it go too. Recorded with who and why; only an
+ * admin reverts one (the record stays, with who reverted it and when).
+ */
+export const takedowns = sqliteTable(
+  'takedowns',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    swapId: integer('swap_id')
+      .notNull()
+      .references(() => swaps.id, { onDelete: 'cascade' }),
+    revisionId: integer('revision_id')
+      .notNull()
+      .references(() => revisions.id, { onDelete: 'cascade' }),
+    target: text('target', { enum: ['photo', 'body'] }).notNull(),
+    /** the photo's content hash ('' for a write-up): every photo of the swap with it is taken down */
+    photoSha256: text('photo_sha256').notNull().default(''),
+    /** the photo the moderator pointed at, for the record */
+    photoFileId: text('photo_file_id'),
+    reason: text('reason').notNull(),
+    createdById: integer('created_by_id')
+      .notNull()
+      .references(() => users.id),
+    createdAt: timestamp('created_at').notNull(),
+    revertedAt: timestamp('reverted_at'),
+    revertedById: integer('reverted_by_id').references(() => users.id),
+  },
+  (t) => [
+    index('takedowns_swap_idx').on(t.swapId),
+    uniqueIndex('takedowns_active_uq').on(t.swapId, t.target, t.photoSha256, t.revisionId).where(sql.raw('reverted_at is null')),
+  ],
+);

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { AppDeps } from '../../app';
 import { validated } from '../../middleware/validate';
 import { photoIdSchema } from '../../../shared/schemas/params';
-import { resolveMedia } from './media.service';
+import { PUBLIC_PHOTO_CACHE, resolveMedia } from './media.service';
 import { storedType, thumbId } from './photo-files';
 
 const params = z.object({ id: photoIdSchema });
@@ -23,7 +23,7 @@ export function mediaRouter({ db, storage }: AppDeps) {
         'Content-Type': storedType,
         'X-Content-Type-Options': 'nosniff',
         'Content-Disposition': 'inline',
-        'Cache-Control': media.public ? 'public, max-age=86400' : 'private, no-store',
+        'Cache-Control': media.public ? PUBLIC_PHOTO_CACHE : 'private, no-store',
       });
       res.send(data);
     }),

@@ -4,21 +4,37 @@ import { fittedReports, revisionPhotos, revisions } from '../../db/schema/index'
 import { can, canSeeUnpublishedRevision } from '../../../shared/roles';
 import type { SessionUser } from '../../middleware/require-role';
 import { AppError } from '../../lib/app-error';
+import { photoIsTakenDown } from '../takedowns/takedown-rules';
 
 const publicStatuses = new Set(['approved', 'superseded']);
 
 /**
+ * How long a shared cache or browser may keep a public photo without asking again. Photos can be taken
+ * down and fitted reports hidden; after that, a cached copy may go on being served for at most this long.
+ */
+export const PUBLIC_PHOTO_CACHE = 'public, max-age=300, must-revalidate';
+
+const takenDown = () => new AppError('taken_down', 'A moderator took this photo down.', 410);
+
+/**
  * Which stored file a reader may fetch for a photo id. Photos of approved (or superseded) revisions are
- * public; others only reach their author and reviewers. Unknown and hidden photos are the same 404.
+ * public; others only reach their author and reviewers. Unknown and hidden photos are the same 404; a
+ * photo a moderator took down answers 410 to readers.
  */
 export function resolveMedia(db: Db, fileId: string, viewer: SessionUser | undefined) {
   const row = db
-    .select({ photo: revisionPhotos, status: revisions.status, authorId: revisions.authorId })
+    .select({ photo: revisionPhotos, status: revisions.status, authorId: revisions.authorId, takenDown: photoIsTakenDown })
     .from(revisionPhotos)
     .innerJoin(revisions, eq(revisions.id, revisionPhotos.revisionId))
     .where(eq(revisionPhotos.fileId, fileId))
     .get();
   if (!row) return resolveFittedReportPhoto(db, fileId, viewer);
+  // a photo a moderator took down is gone for readers (410, never stored by a cache); its author and the
+  // review desk still get it privately, to see what was taken down and for an admin to put it back
+  if (row.takenDown) {
+    if (!(viewer && (viewer.id === row.authorId || can(viewer.role, 'review')))) throw takenDown();
+    return { fileId: row.photo.fileId, public: false };
+  }
   const visible = publicStatuses.has(row.status) || canSeeUnpublishedRevision(viewer, row);
   if (!visible) throw AppError.notFound('That photo');
   return { fileId: row.photo.fileId, public: publicStatuses.has(row.status) };

@@ -35,6 +35,7 @@ import {
 import { removeFiles, removeRevision, type SubmissionDeps } from '../submissions/submissions.service';
 import { slugify, uniqueSlug } from '../../lib/slugs';
 import { slugAfterApproval } from '../swaps/swap-slugs';
+import { listTakedowns as takedownsOfRevision } from '../takedowns/takedowns.service';
 
 export type ReviewDeps = SubmissionDeps;
 export type Decision = 'approved' | 'sent_back' | 'declined';
@@ -140,6 +141,8 @@ export function reviewDetail(deps: ReviewDeps, viewer: SessionUser, revisionId: 
       at: h.event.at.toISOString(),
     })),
     canDecide: row.revision.status === 'in_review' && row.revision.authorId !== viewer.id,
+    takedowns: takedownsOfRevision(db, row.revision.id),
+    canRevertTakedowns: viewer.role === 'admin',
   };
 }
 

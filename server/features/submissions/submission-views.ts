@@ -11,6 +11,7 @@ import { automaticChecks, sameDonorCaliper } from '../../../shared/review-checks
 import { chassisFigures } from '../../../shared/schemas/vehicle';
 import { mergeThreeWay, type MergeOutcome } from '../../../shared/revision-merge';
 import { chassisView, iso, personRef, photosOf } from '../swaps/swap-views';
+import { bodyIsTakenDown } from '../takedowns/takedown-rules';
 
 // Loading one revision with its swap, chassis and author, and the rules on who may see or change it.
 // Shared by the submissions and review services.
@@ -118,6 +119,7 @@ export function submissionView(db: Db, row: LoadedRevision, viewer?: SessionUser
     chassis: chassisView(row.chassis),
     data: r.data,
     body: r.body,
+    bodyTakenDown: bodyIsTakenDown(db, r.id),
     photos: photosOf(db, [r.id]).get(r.id) ?? [],
     author: personRef(row.author),
     reviewNote: r.reviewNote,

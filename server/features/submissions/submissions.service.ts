@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, max, ne, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, max, ne, not, sql } from 'drizzle-orm';
 import { ZodError } from 'zod';
 import type { Db } from '../../db/client';
 import { chassis, parts, reviewEvents, revisionPhotos, revisions, swaps } from '../../db/schema/index';
@@ -32,6 +32,7 @@ import {
   type LoadedRevision,
   type SwapRow,
 } from './submission-views';
+import { photoIsTakenDown } from '../takedowns/takedown-rules';
 
 export type SubmissionDeps = { db: Db; clock: Clock; mailer: Mailer; storage: Storage; logger: Logger; appUrl: string };
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
@@ -427,12 +428,15 @@ export async function removeFiles(storage: Storage, fileIds: string[]) {
 /** New files (full and thumbnail) with the same content as a revision's photos, and the rows to insert for them. */
 async function copyPhotos(deps: SubmissionDeps, revisionId: number) {
   const { db, storage } = deps;
+  // a photo a moderator took down is not carried into the correction
   const rows = db
-    .select()
+    .select({ photo: revisionPhotos })
     .from(revisionPhotos)
-    .where(eq(revisionPhotos.revisionId, revisionId))
+    .innerJoin(revisions, eq(revisions.id, revisionPhotos.revisionId))
+    .where(and(eq(revisionPhotos.revisionId, revisionId), not(photoIsTakenDown)))
     .orderBy(revisionPhotos.position, revisionPhotos.id)
-    .all();
+    .all()
+    .map((r) => r.photo);
   const copies: Omit<typeof revisionPhotos.$inferInsert, 'revisionId' | 'createdAt'>[] = [];
   try {
     for (const r of rows) {

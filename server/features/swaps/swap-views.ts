@@ -2,6 +2,7 @@ import { desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { chassis, revisionPhotos, revisions, swaps, users } from '../../db/schema/index';
 import type { ChassisView, PersonRef, PhotoView, SwapCard } from '../../../shared/schemas/views';
+import { photoIsTakenDown } from '../takedowns/takedown-rules';
 
 // Row → view helpers shared by the read services (sheet, chassis and part pages, shop pages).
 
@@ -36,7 +37,7 @@ export function chassisView(c: ChassisRow): ChassisView {
   };
 }
 
-export function photoView(p: typeof revisionPhotos.$inferSelect): PhotoView {
+export function photoView(p: typeof revisionPhotos.$inferSelect, takenDown = false): PhotoView {
   return {
     id: p.fileId,
     caption: p.caption,
@@ -44,19 +45,28 @@ export function photoView(p: typeof revisionPhotos.$inferSelect): PhotoView {
     height: p.height,
     url: `/media/${p.fileId}`,
     thumbUrl: `/media/${p.fileId}?size=thumb`,
+    ...(takenDown ? { takenDown: true } : {}),
   };
 }
 
-export function photosOf(db: Db, revisionIds: number[]) {
+/**
+ * The photos of each revision in order. Readers (`published`) never get a photo a moderator took down;
+ * its author and the desk still see it, marked.
+ */
+export function photosOf(db: Db, revisionIds: number[], { published = false } = {}) {
   if (revisionIds.length === 0) return new Map<number, PhotoView[]>();
   const rows = db
-    .select()
+    .select({ photo: revisionPhotos, takenDown: photoIsTakenDown })
     .from(revisionPhotos)
+    .innerJoin(revisions, eq(revisions.id, revisionPhotos.revisionId))
     .where(inArray(revisionPhotos.revisionId, revisionIds))
     .orderBy(revisionPhotos.position, revisionPhotos.id)
     .all();
   const byRevision = new Map<number, PhotoView[]>();
-  for (const r of rows) byRevision.set(r.revisionId, [...(byRevision.get(r.revisionId) ?? []), photoView(r)]);
+  for (const { photo, takenDown } of rows) {
+    if (takenDown && published) continue;
+    byRevision.set(photo.revisionId, [...(byRevision.get(photo.revisionId) ?? []), photoView(photo, Boolean(takenDown))]);
+  }
   return byRevision;
 }
 
@@ -81,6 +91,7 @@ export function swapCards(db: Db, where?: SQL, limit = 500): SwapCard[] {
   const photos = photosOf(
     db,
     rows.map((r) => r.revision.id),
+    { published: true },
   );
   return rows.map(({ swap, card, revision, chassis: c }) => {
     const [title, summary, minWheelIn] = JSON.parse(card) as [string, string | null, number | null];

@@ -4,6 +4,7 @@ import { chassis, revisions, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
 import type { SwapSheetView, SwapCard, RevisionSummary } from '../../../shared/schemas/views';
 import { chassisView, iso, personRef, photosOf, swapCards } from './swap-views';
+import { bodyIsTakenDown } from '../takedowns/takedown-rules';
 
 /** Statuses a reader may open by revision number. */
 const publicStatuses = ['approved', 'superseded'] as const;
@@ -31,6 +32,7 @@ export function getSwapSheet(db: Db, slug: string, number?: number): SwapSheetVi
   const shown = number === undefined ? current : history.find((h) => h.revision.number === number);
   if (!shown) throw AppError.notFound(`Revision ${number} of that swap`);
   const r = shown.revision;
+  const bodyTakenDown = bodyIsTakenDown(db, r.id);
 
   return {
     swap: {
@@ -48,11 +50,12 @@ export function getSwapSheet(db: Db, slug: string, number?: number): SwapSheetVi
       number: r.number,
       status: r.status,
       data: r.data,
-      body: r.body,
+      body: bodyTakenDown ? '' : r.body,
+      bodyTakenDown,
       approvedAt: iso(r.reviewedAt),
       submittedAt: iso(r.submittedAt),
       author: personRef(shown.author),
-      photos: photosOf(db, [r.id]).get(r.id) ?? [],
+      photos: photosOf(db, [r.id], { published: true }).get(r.id) ?? [],
     },
     currentNumber: current?.revision.number ?? null,
     history: history.map((h): RevisionSummary => ({
@@ -90,7 +93,9 @@ export function sheetFingerprint(db: Db, slug: string): string | null {
     select s.id, s.current_revision_id, s.fitted_count, s.updated_at, c.updated_at as chassis_at,
       (select max(r.updated_at) from revisions r where r.swap_id = s.id) as revisions_at,
       (select max(u.updated_at) from users u
-         where u.id = s.author_id or u.id in (select r.author_id from revisions r where r.swap_id = s.id)) as authors_at
+         where u.id = s.author_id or u.id in (select r.author_id from revisions r where r.swap_id = s.id)) as authors_at,
+      (select count(*) || '/' || coalesce(max(coalesce(t.reverted_at, t.created_at)), 0) from takedowns t where t.swap_id = s.id)
+        as takedowns
     from swaps s join chassis c on c.id = s.chassis_id
     where s.slug = ${slug}`);
   return row ? Object.values(row).join(':') : null;

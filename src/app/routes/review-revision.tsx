@@ -24,11 +24,13 @@ export function sheetViewOf(r: SubmissionView): SwapSheetView {
       number: r.number,
       status: r.status,
       data: r.data,
-      body: r.body,
+      // as readers will see it: without what a moderator took down
+      body: r.bodyTakenDown ? '' : r.body,
+      bodyTakenDown: r.bodyTakenDown,
       approvedAt: r.status === 'approved' ? r.reviewedAt : null,
       submittedAt: r.submittedAt,
       author: r.author,
-      photos: r.photos,
+      photos: r.photos.filter((p) => !p.takenDown),
     },
     // no "newer revision" banner: this is the revision under review
     currentNumber: null,

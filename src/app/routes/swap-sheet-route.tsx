@@ -1,5 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
-import { Navigate, useLocation, useParams, useSearchParams } from 'react-router';
+import { Link, Navigate, useLocation, useParams, useSearchParams } from 'react-router';
 import { can } from '@shared/roles';
 import { SwapSheet } from '../../features/swaps/components/swap-sheet-page';
 import { useSwap } from '../../features/swaps/api/get-swap';
@@ -79,6 +79,14 @@ export default function SwapSheetRoute() {
             onChanged={refreshSheet}
           />
           <FlagSwapForm slug={view.swap.slug} signedIn={Boolean(user)} />
+          {can(user?.role, 'review') && (
+            <p className="text-sm">
+              <Link to={paths.reviewRevision(view.revision.id)} className="font-bold text-ink underline">
+                Moderate revision {view.revision.number}
+              </Link>{' '}
+              — take down a photo or the write-up.
+            </p>
+          )}
           {shopName && (
             <MakeShopLinkPanel
               swapSlug={view.swap.slug}

@@ -11,6 +11,7 @@ import { chassisLabel } from '../../../components/swap-card';
 import { paths } from '../../../config/paths';
 import { useReviewDetail } from '../api/get-review-detail';
 import { DecisionPanel } from './decision-panel';
+import { TakedownPanel } from './takedown-panel';
 
 const when = (iso: string | null) =>
   iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : '—';
@@ -195,6 +196,7 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
               <RevisionChanges before={current} after={{ data: revision.data, body: revision.body }} idPrefix="review-changes" />
             </section>
           )}
+          {(revision.status === 'approved' || revision.status === 'superseded') && <TakedownPanel detail={query.data} />}
           <History history={history} />
         </div>
         <div className="lg:sticky lg:top-4 lg:self-start">

@@ -200,10 +200,16 @@ export function SwapSheet({ view, banner, presets, ownFigures, extraSections }: 
             </ul>
           </SheetSection>
         )}
-        {revision.body && (
+        {(revision.body || revision.bodyTakenDown) && (
           <div className="print:hidden">
             <SheetSection id="write-up" title="Write-up">
-              <Markdown>{revision.body}</Markdown>
+              {revision.bodyTakenDown ? (
+                <p role="note" className="rounded-lg border border-graphite/20 bg-paper-card p-3 text-sm text-graphite">
+                  A moderator took the write-up of this revision down. The structured record above stays as it was approved.
+                </p>
+              ) : (
+                <Markdown>{revision.body}</Markdown>
+              )}
             </SheetSection>
           </div>
         )}
