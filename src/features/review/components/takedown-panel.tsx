@@ -19,6 +19,7 @@ export function TakedownPanel({ detail }: { detail: ReviewDetail }) {
   const [choice, setChoice] = useState<Choice | null>(null);
   const [reason, setReason] = useState('');
   const [error, setError] = useState<string | null>(null);
+  const [choiceError, setChoiceError] = useState<string | null>(null);
   const takeDown = useTakeDown(revision.id);
   const revert = useRevertTakedown(revision.id);
   const active = takedowns.filter((t) => !t.revertedAt);
@@ -26,7 +27,8 @@ export function TakedownPanel({ detail }: { detail: ReviewDetail }) {
 
   const send = async (e: React.FormEvent) => {
     e.preventDefault();
-    if (!choice) return setError('Pick the photo or the write-up to take down.');
+    if (!choice) return setChoiceError('Pick the photo or the write-up to take down.');
+    setChoiceError(null);
     const parsed = takedownSchema.safeParse({ ...choice, reason });
     if (!parsed.success) return setError(parsed.error.issues[0]?.message ?? 'Check the reason');
     setError(null);
@@ -61,7 +63,7 @@ export function TakedownPanel({ detail }: { detail: ReviewDetail }) {
                     <img
                       src={p.thumbUrl}
                       alt={p.caption || `Photo ${i + 1}`}
-                      className="aspect-[4/3] w-full rounded object-cover"
+                      className={`aspect-[4/3] w-full rounded object-cover ${p.takenDown ? 'opacity-50 grayscale' : ''}`}
                     />
                     <span className="mt-1 flex items-center gap-1">
                       <input
@@ -69,7 +71,10 @@ export function TakedownPanel({ detail }: { detail: ReviewDetail }) {
                         name="takedown"
                         disabled={p.takenDown}
                         checked={choice?.target === 'photo' && choice.photoId === p.id}
-                        onChange={() => setChoice({ target: 'photo', photoId: p.id })}
+                        onChange={() => {
+                          setChoice({ target: 'photo', photoId: p.id });
+                          setChoiceError(null);
+                        }}
                         className="accent-oxide"
                       />
                       {p.takenDown ? 'Taken down' : `Photo ${i + 1}`}
@@ -85,11 +90,19 @@ export function TakedownPanel({ detail }: { detail: ReviewDetail }) {
               name="takedown"
               disabled={bodyDown || !revision.body}
               checked={choice?.target === 'body'}
-              onChange={() => setChoice({ target: 'body' })}
+              onChange={() => {
+                setChoice({ target: 'body' });
+                setChoiceError(null);
+              }}
               className="accent-oxide"
             />
             {bodyDown ? 'The write-up (taken down)' : revision.body ? 'The write-up' : 'The write-up (this revision has none)'}
           </label>
+          {choiceError && (
+            <p role="alert" className="text-sm font-semibold text-oxide">
+              {choiceError}
+            </p>
+          )}
         </fieldset>
         <TextArea
           label="Why (moderators and admins read this; the author and readers do not)"
