@@ -393,7 +393,7 @@ function duplicateCheck(duplicates: ReviewCheckInput['duplicates']): CheckResult
       id: 'duplicate',
       label: 'Likely duplicate',
       status: 'pass',
-      detail: 'No approved swap with the same chassis, axle and donor caliper.',
+      detail: 'No published swap with the same chassis, axle and donor caliper.',
     };
   return {
     id: 'duplicate',

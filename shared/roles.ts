@@ -21,6 +21,16 @@ export const roleLabels: Record<Role, string> = {
   admin: 'Admin',
 };
 
+/** what each permission lets a person do, in the words an admin confirms a role change with */
+export const permissionLabels: Record<Permission, string> = {
+  submit: 'record swaps and propose corrections',
+  report_fitted: 'report that they fitted a swap',
+  flag: 'flag a swap sheet that looks wrong',
+  review: 'decide at the review desk: publish revisions, send them back for rework, resolve flags',
+  manage_shop_links: 'make shop links for their shop',
+  manage_users: 'change members’ roles, link shop accounts and suspend accounts',
+};
+
 export function can(role: Role | null | undefined, permission: Permission): boolean {
   return role ? grants[role].includes(permission) : false;
 }

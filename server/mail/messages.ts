@@ -45,18 +45,18 @@ type Base = { appUrl: string; name: string; title: string };
 const hello = (name: string) => `Hello ${name},`;
 
 export function submissionReceived(m: Base & { revisionId: number; number: number }): BuiltMessage {
-  return build(`Received: ${m.title}`, hello(m.name), [
+  return build(`At the review desk: ${m.title}`, hello(m.name), [
     {
-      text: `Thank you — your ${m.number > 1 ? `revision ${m.number} of “${m.title}”` : `swap “${m.title}”`} is now in review. A moderator will look at it, usually within a few days; it stays locked while it is in review.`,
+      text: `Thank you — your ${m.number > 1 ? `revision ${m.number} of “${m.title}”` : `swap “${m.title}”`} is now at the review desk. A moderator will look at it, usually within a few days; it stays locked while it is at the desk.`,
     },
     { link: `${m.appUrl}/me/submissions`, label: 'Your submissions' },
   ]);
 }
 
 export function submissionApproved(m: Base & { slug: string; number: number; note: string }): BuiltMessage {
-  return build(`Approved: ${m.title}`, hello(m.name), [
+  return build(`Published: ${m.title}`, hello(m.name), [
     {
-      text: `Your ${m.number > 1 ? `revision ${m.number} of “${m.title}”` : `swap “${m.title}”`} was approved and is now public and searchable.`,
+      text: `Your ${m.number > 1 ? `revision ${m.number} of “${m.title}”` : `swap “${m.title}”`} passed the review desk and is now published and searchable.`,
     },
     ...(m.note ? [{ text: 'The moderator noted:' }, { quote: m.note }] : []),
     { link: `${m.appUrl}/swaps/${m.slug}`, label: 'Open the swap sheet' },
@@ -64,8 +64,8 @@ export function submissionApproved(m: Base & { slug: string; number: number; not
 }
 
 export function submissionSentBack(m: Base & { revisionId: number; reasons: string }): BuiltMessage {
-  return build(`Changes requested: ${m.title}`, hello(m.name), [
-    { text: `A moderator looked at “${m.title}” and asks for some changes before it can be approved:` },
+  return build(`Back for rework: ${m.title}`, hello(m.name), [
+    { text: `A moderator looked at “${m.title}” and sends it back for rework before it can be published:` },
     { quote: m.reasons },
     { text: 'Edit the submission and send it again; nothing you entered was lost.' },
     { link: `${m.appUrl}/submissions/${m.revisionId}/edit`, label: 'Edit the submission' },
@@ -74,8 +74,8 @@ export function submissionSentBack(m: Base & { revisionId: number; reasons: stri
 
 /** `removed`: the submission proposed a new chassis, and it was removed with that chassis. */
 export function submissionDeclined(m: Base & { reasons: string; removed?: boolean }): BuiltMessage {
-  return build(`Declined: ${m.title}`, hello(m.name), [
-    { text: `A moderator declined “${m.title}”, for this reason:` },
+  return build(`Not published: ${m.title}`, hello(m.name), [
+    { text: `A moderator decided not to publish “${m.title}”, for this reason:` },
     { quote: m.reasons },
     ...(m.removed
       ? [
@@ -91,7 +91,7 @@ export function submissionDeclined(m: Base & { reasons: string; removed?: boolea
 export function correctionApproved(m: Base & { slug: string; number: number; correctedBy: string }): BuiltMessage {
   return build(`Your swap was updated: ${m.title}`, hello(m.name), [
     {
-      text: `${m.correctedBy} proposed a correction to your swap “${m.title}”. It was reviewed and approved as revision ${m.number}; the earlier revisions stay readable in the swap's history.`,
+      text: `${m.correctedBy} proposed a correction to your swap “${m.title}”. It passed the review desk and is published as revision ${m.number}; the earlier revisions stay readable in the swap's history.`,
     },
     { link: `${m.appUrl}/swaps/${m.slug}`, label: 'See the swap sheet' },
   ]);

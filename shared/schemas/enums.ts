@@ -41,14 +41,18 @@ export const costRouteLabels: Record<CostRoute, string> = {
 export const revisionStatuses = ['draft', 'in_review', 'approved', 'sent_back', 'declined', 'superseded'] as const;
 export const revisionStatusSchema = z.enum(revisionStatuses);
 export type RevisionStatus = z.infer<typeof revisionStatusSchema>;
+/** the words people read for a revision's status (the stored values above stay as they are) */
 export const revisionStatusLabels: Record<RevisionStatus, string> = {
   draft: 'Draft',
-  in_review: 'In review',
-  approved: 'Approved',
-  sent_back: 'Sent back',
-  declined: 'Declined',
-  superseded: 'Superseded',
+  in_review: 'At the desk',
+  approved: 'Published',
+  sent_back: 'Back for rework',
+  declined: 'Not published',
+  superseded: 'Replaced',
 };
+
+/** the words of the automatic checks on the review desk, by result */
+export const checkStatusLabels = { pass: 'In order', fail: 'Fix needed', attention: 'Look closer' } as const;
 
 export const machiningOperations = ['grind', 'machine', 'drill', 'trim'] as const;
 export const machiningLevels = ['none', 'minor', 'major', 'structural'] as const;

@@ -62,7 +62,7 @@ describe('bidi and invisible formatting characters', () => {
     expect(stored.data.title).toBe('Vela calipers on the H31');
     expect((await send(rosa, 'post', `/api/submissions/${id}/submit`, {})).status).toBe(200);
     const mail = t.db.select().from(mailOutbox).all().at(-1)!;
-    expect(mail.subject).toBe('Received: Vela calipers on the H31');
+    expect(mail.subject).toBe('At the review desk: Vela calipers on the H31');
   });
 
   it('when the write-up and part notes carry them, then they are removed and line breaks stay', async () => {

@@ -64,7 +64,7 @@ describe('mail delivery through the outbox', () => {
     // written with the decision, then tried and refused by the closed port
     await expect.poll(() => rows(t)[0]?.status, { timeout: 5000 }).toBe('retrying');
     const waiting = rows(t)[0];
-    expect(waiting).toMatchObject({ to: 'rivet_rosa@members.swapyard.invalid', subject: expect.stringMatching(/^Approved: /) });
+    expect(waiting).toMatchObject({ to: 'rivet_rosa@members.swapyard.invalid', subject: expect.stringMatching(/^Published: /) });
     expect(waiting.attempts).toBeGreaterThanOrEqual(1);
     expect(waiting.lastError).toMatch(/ECONNREFUSED/);
 

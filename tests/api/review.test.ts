@@ -95,7 +95,7 @@ describe('the whole lifecycle of a swap', () => {
 
     // --- submitted: it reaches the desk, the author is told
     expect((await post(rosa, `/api/submissions/${id}/submit`)).status).toBe(200);
-    expect(outboxTo(rosa)[0].subject).toBe('Received: Vela four-piston calipers on 330 mm rotors');
+    expect(outboxTo(rosa)[0].subject).toBe('At the review desk: Vela four-piston calipers on 330 mm rotors');
     const queue = await mo.agent.get('/api/review/queue');
     expect(queue.status).toBe(200);
     const item = (queue.body as ReviewQueue).items.find((i) => i.revisionId === id)!;
@@ -125,7 +125,7 @@ describe('the whole lifecycle of a swap', () => {
       reviewNote: 'Clearance < 3 mm & the "bracket" photo missing',
     });
     const sentBackMail = outboxTo(rosa)[0];
-    expect(sentBackMail.subject).toBe('Changes requested: Vela four-piston calipers on 330 mm rotors');
+    expect(sentBackMail.subject).toBe('Back for rework: Vela four-piston calipers on 330 mm rotors');
     expect(sentBackMail.text).toContain('> Clearance < 3 mm & the "bracket" photo missing');
     expect(sentBackMail.html).toContain('Clearance &lt; 3 mm &amp; the &quot;bracket&quot; photo missing');
     expect(sentBackMail.html).not.toContain('<b>');
@@ -159,7 +159,7 @@ describe('the whole lifecycle of a swap', () => {
     const index = await request(server).get('/api/search-index');
     expect(index.headers.etag).not.toBe(indexBefore.headers.etag);
     expect(index.body.documents.map((d: { slug: string }) => d.slug)).toContain(slug);
-    expect(outboxTo(rosa)[0].subject).toBe('Approved: Vela four-piston calipers on 330 mm rotors');
+    expect(outboxTo(rosa)[0].subject).toBe('Published: Vela four-piston calipers on 330 mm rotors');
 
     // the new caliper joined the catalogue and the approved line points at it
     const row = t.db.select().from(revisions).where(eq(revisions.id, id)).get()!;
@@ -182,7 +182,7 @@ describe('the whole lifecycle of a swap', () => {
     // --- nobody edits an approved revision in place
     const locked = await patch(rosa, `/api/submissions/${id}`, { data: swapRecord({ title: 'Quietly changed afterwards' }) });
     expect(locked.status).toBe(409);
-    expect(locked.body.error.message).toMatch(/Approved revisions never change/);
+    expect(locked.body.error.message).toMatch(/Published revisions never change/);
 
     // --- another member proposes a correction: revision 2, while 1 stays public
     const corr = await post(kai, '/api/submissions', {
@@ -236,7 +236,7 @@ describe('the whole lifecycle of a swap', () => {
     );
 
     // the corrector hears it was approved; the original author hears that their swap changed
-    expect(outboxTo(kai)[0].subject).toBe('Approved: Vela four-piston calipers on 330 mm rotors, corrected torque');
+    expect(outboxTo(kai)[0].subject).toBe('Published: Vela four-piston calipers on 330 mm rotors, corrected torque');
     expect(outboxTo(kai)[0].text).toContain(`/swaps/${renamed}`);
     const toOriginal = outboxTo(rosa)[0];
     expect(toOriginal.subject).toBe('Your swap was updated: Vela four-piston calipers on 330 mm rotors, corrected torque');
@@ -287,11 +287,11 @@ describe('who may decide', () => {
     const res = await post(mo, `/api/review/${sub.id}/decline`, { note: 'Not a swap: an advert for <i>parts</i>' });
     expect(res.body.revision).toMatchObject({ status: 'declined', reviewNote: 'Not a swap: an advert for parts' });
     const mail = outboxTo(rosa)[0];
-    expect(mail.subject).toBe('Declined: A record that will be declined');
+    expect(mail.subject).toBe('Not published: A record that will be declined');
     expect(mail.text).toContain('Not a swap: an advert for parts');
     const edit = await patch(rosa, `/api/submissions/${sub.id}`, { data: swapRecord() });
     expect(edit.status).toBe(409);
-    expect(edit.body.error.message).toMatch(/declined/);
+    expect(edit.body.error.message).toMatch(/was not published/);
   });
 });
 

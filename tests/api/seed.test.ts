@@ -211,7 +211,7 @@ describe('demo seed', () => {
       .all()
       .filter((r) => r.status === 'in_review' || r.status === 'sent_back');
     expect(mails).toHaveLength(waiting.length);
-    expect(mails.filter((m) => m.subject.startsWith('Changes requested:'))).toHaveLength(
+    expect(mails.filter((m) => m.subject.startsWith('Back for rework:'))).toHaveLength(
       waiting.filter((r) => r.status === 'sent_back').length,
     );
     expect(

@@ -238,11 +238,11 @@ describe('POST /api/submissions/:id/submit and the lock', () => {
     expect(events.map((e) => [e.action, e.actorId])).toEqual([['submitted', rosa.id]]);
     const mail = t.db.select().from(mailOutbox).all().at(-1)!;
     expect(mail.to).toBe('rivet_rosa@members.swapyard.invalid');
-    expect(mail.subject).toBe(`Received: ${created.data.title}`);
+    expect(mail.subject).toBe(`At the review desk: ${created.data.title}`);
 
     const edit = await patch(rosa, `/api/submissions/${created.id}`, { data: swapRecord({ title: 'Changed while in review' }) });
     expect(edit.status).toBe(409);
-    expect(edit.body.error.message).toMatch(/in review and locked/);
+    expect(edit.body.error.message).toMatch(/at the review desk and locked/);
     expect((await post(rosa, `/api/submissions/${created.id}/submit`)).status).toBe(409);
     const del = await rosa.agent.delete(`/api/submissions/${created.id}`).set('x-csrf-token', rosa.token);
     expect(del.status).toBe(409);

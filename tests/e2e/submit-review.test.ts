@@ -206,8 +206,8 @@ describe('submit and review journey', () => {
 
     await page.getByRole('button', { name: 'Send for review' }).click();
     await page.getByTestId('locked-status').waitFor();
-    expect(await page.getByTestId('locked-status').innerText()).toContain('In review');
-    expect(await page.getByTestId('locked-status').innerText()).toContain('Locked while in review');
+    expect(await page.getByTestId('locked-status').innerText()).toContain('At the desk');
+    expect(await page.getByTestId('locked-status').innerText()).toContain('Locked while at the desk');
     expect(errors).toEqual([]);
 
     // ---- a moderator decides ----
@@ -236,8 +236,11 @@ describe('submit and review journey', () => {
     ).toBe(1);
 
     await mod.getByRole('textbox', { name: 'Note to the author (optional)' }).fill('Clear photos, thank you.');
-    await mod.getByRole('button', { name: 'Approve', exact: true }).click();
-    await mod.getByTestId('cannot-decide').filter({ hasText: 'Approved' }).waitFor();
+    // nothing is chosen until the moderator chooses
+    expect(await mod.getByRole('radio', { name: /^Publish/ }).isChecked()).toBe(false);
+    await mod.getByRole('radio', { name: /^Publish/ }).check();
+    await mod.getByRole('button', { name: 'Publish', exact: true }).click();
+    await mod.getByTestId('cannot-decide').filter({ hasText: 'Published' }).waitFor();
 
     // ---- anyone finds it in search ----
     await page.goto(`${server.url}/search?q=Vela`);
@@ -247,7 +250,7 @@ describe('submit and review journey', () => {
     await mod.goto(`${server.url}/outbox`);
     const outbox = mod.getByTestId('outbox');
     await outbox.waitFor();
-    const approved = outbox.getByRole('article').filter({ hasText: `Approved: ${title}` });
+    const approved = outbox.getByRole('article').filter({ hasText: `Published: ${title}` });
     await approved.waitFor();
     // moderators see whom it was for and how delivery went, never the address
     expect(await approved.innerText()).toContain('@rivet_rosa');

@@ -13,6 +13,7 @@ import {
 } from '../../mail/messages';
 import type { SessionUser } from '../../middleware/require-role';
 import { FLAG_PAGE_SIZE } from '../../../shared/schemas/submissions';
+import { revisionStatusLabels } from '../../../shared/schemas/enums';
 import type {
   FlagItem,
   FlagPage,
@@ -150,7 +151,9 @@ function assertDecidable(actor: SessionUser, row: LoadedRevision) {
   if (row.revision.authorId === actor.id)
     throw AppError.forbidden('You cannot decide on your own submission; another moderator has to review it.');
   if (row.revision.status !== 'in_review') {
-    throw AppError.conflict(`Only a revision in review can be decided; this one is ${row.revision.status.replace('_', ' ')}.`);
+    throw AppError.conflict(
+      `Only a revision at the review desk can be decided; this one is ${revisionStatusLabels[row.revision.status].toLowerCase()}.`,
+    );
   }
 }
 

@@ -45,10 +45,10 @@ export function revisionFor(db: Db, user: SessionUser, id: number): LoadedRevisi
 }
 
 const lockedMessages: Partial<Record<RevisionStatus, string>> = {
-  in_review: 'This revision is in review and locked until a moderator decides; you can edit it again if it is sent back.',
-  approved: 'Approved revisions never change. Propose a correction instead: it starts a new revision of the swap.',
-  superseded: 'This revision was replaced by a newer approved one and never changes.',
-  declined: 'This revision was declined and can no longer be edited. Start a new submission instead.',
+  in_review: 'This revision is at the review desk and locked until a moderator decides; you can edit it again if it is sent back for rework.',
+  approved: 'Published revisions never change. Propose a correction instead: it starts a new revision of the swap.',
+  superseded: 'This revision was replaced by a newer published one and never changes.',
+  declined: 'This revision was not published and can no longer be edited. Start a new submission instead.',
 };
 
 /** Only the author changes a revision, and only while it is a draft or sent back. */

@@ -9,10 +9,12 @@ type FieldProps = {
   error?: string;
   children: (props: { id: string; 'aria-invalid': boolean; 'aria-describedby'?: string }) => ReactNode;
   className?: string;
+  /** keep a line for the error even while there is none, so an error coming or going moves nothing below it */
+  reserveError?: boolean;
 };
 
 /** A label, the control, a hint and the field's error, wired together for screen readers. */
-export function Field({ label, hint, error, children, className = '' }: FieldProps) {
+export function Field({ label, hint, error, children, className = '', reserveError = false }: FieldProps) {
   const id = useId();
   const hintId = hint ? `${id}-hint` : undefined;
   const errorId = error ? `${id}-error` : undefined;
@@ -28,24 +30,29 @@ export function Field({ label, hint, error, children, className = '' }: FieldPro
           {hint}
         </p>
       )}
-      {error && (
-        <p id={errorId} role="alert" className="text-sm font-semibold text-oxide">
+      {error ? (
+        <p id={errorId} role="alert" className="min-h-5 text-sm font-semibold text-oxide">
           {error}
         </p>
+      ) : (
+        reserveError && <p aria-hidden className="min-h-5" data-error-slot />
       )}
     </div>
   );
 }
+
+type Labelled = { label: ReactNode; hint?: ReactNode; error?: string; reserveError?: boolean };
 
 export function TextInput({
   label,
   hint,
   error,
   className,
+  reserveError,
   ...props
-}: InputHTMLAttributes<HTMLInputElement> & { label: ReactNode; hint?: ReactNode; error?: string }) {
+}: InputHTMLAttributes<HTMLInputElement> & Labelled) {
   return (
-    <Field label={label} hint={hint} error={error} className={className}>
+    <Field label={label} hint={hint} error={error} className={className} reserveError={reserveError}>
       {(a11y) => <input className={inputClass} {...a11y} {...props} />}
     </Field>
   );
@@ -56,10 +63,11 @@ export function TextArea({
   hint,
   error,
   className,
+  reserveError,
   ...props
-}: TextareaHTMLAttributes<HTMLTextAreaElement> & { label: ReactNode; hint?: ReactNode; error?: string }) {
+}: TextareaHTMLAttributes<HTMLTextAreaElement> & Labelled) {
   return (
-    <Field label={label} hint={hint} error={error} className={className}>
+    <Field label={label} hint={hint} error={error} className={className} reserveError={reserveError}>
       {(a11y) => <textarea className={inputClass} {...a11y} {...props} />}
     </Field>
   );

@@ -41,6 +41,6 @@ describe('neutralising invisible formatting', () => {
       revisionId: 1,
       number: 1,
     });
-    expect(built.subject).toBe('Received: Vela swap');
+    expect(built.subject).toBe('At the review desk: Vela swap');
   });
 });

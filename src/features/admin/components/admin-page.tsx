@@ -1,6 +1,6 @@
 import { Fragment, useEffect, useMemo, useState } from 'react';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
-import { roleLabels, roles, type Role } from '@shared/roles';
+import { permissionLabels, permissionsOf, roleLabels, roles, type Role } from '@shared/roles';
 import type { AdminShop, AdminUser, AdminUserPatch, UserChange } from '@shared/schemas/admin';
 import { ApiError } from '../../../lib/api-client';
 import { Page } from '../../../components/ui/page';
@@ -49,6 +49,8 @@ export default function AdminPage() {
   const [notice, setNotice] = useState<Notice>(null);
   const [historyFor, setHistoryFor] = useState<number | null>(null);
   const [confirmSuspend, setConfirmSuspend] = useState<number | null>(null);
+  // a role change waits for the admin to confirm it, having read what the role grants
+  const [pendingRole, setPendingRole] = useState<{ userId: number; role: Role } | null>(null);
 
   const change = (user: AdminUser, patch: AdminUserPatch, done: string) => {
     setNotice(null);
@@ -88,12 +90,14 @@ export default function AdminPage() {
           <select
             aria-label={`Role of ${u.login}`}
             className={selectClass}
-            value={u.role}
+            value={pendingRole?.userId === u.id ? pendingRole.role : u.role}
             disabled={u.isYou || update.isPending}
             title={u.isYou ? 'Another admin has to change your own role' : undefined}
+            aria-controls={`role-confirm-${u.id}`}
             onChange={(e) => {
               const role = e.target.value as Role;
-              change(u, { role }, `${u.login} is now ${roleLabels[role]}.`);
+              setNotice(null);
+              setPendingRole(role === u.role ? null : { userId: u.id, role });
             }}
           >
             {roles.map((r) => (
@@ -186,7 +190,7 @@ export default function AdminPage() {
       }),
     ],
     // eslint-disable-next-line react-hooks/exhaustive-deps
-    [shops.data, update.isPending, historyFor, confirmSuspend],
+    [shops.data, update.isPending, historyFor, confirmSuspend, pendingRole],
   );
 
   const table = useReactTable({
@@ -268,6 +272,23 @@ export default function AdminPage() {
                       </td>
                     ))}
                   </tr>
+                  {pendingRole?.userId === row.original.id && (
+                    <tr id={`role-confirm-${row.original.id}`} className="bg-brass-soft/30">
+                      <td colSpan={row.getVisibleCells().length} className="px-3 py-3">
+                        <RoleConfirm
+                          user={row.original}
+                          role={pendingRole.role}
+                          busy={update.isPending}
+                          onConfirm={() => {
+                            const { role } = pendingRole;
+                            setPendingRole(null);
+                            change(row.original, { role }, `${row.original.login} is now ${roleLabels[role]}.`);
+                          }}
+                          onCancel={() => setPendingRole(null)}
+                        />
+                      </td>
+                    </tr>
+                  )}
                   {historyFor === row.original.id && (
                     <tr id={`history-${row.original.id}`} className="bg-paper">
                       <td colSpan={row.getVisibleCells().length} className="px-3 py-3">
@@ -289,6 +310,53 @@ export default function AdminPage() {
         </div>
       )}
     </Page>
+  );
+}
+
+/** What the new role grants and what the member loses, before the change is made. */
+function RoleConfirm({
+  user,
+  role,
+  busy,
+  onConfirm,
+  onCancel,
+}: {
+  user: AdminUser;
+  role: Role;
+  busy: boolean;
+  onConfirm: () => void;
+  onCancel: () => void;
+}) {
+  const now = permissionsOf(user.role);
+  const next = permissionsOf(role);
+  const lost = now.filter((p) => !next.includes(p));
+  return (
+    <div role="group" aria-label={`Confirm the role of ${user.login}`} className="max-w-3xl space-y-2" data-testid="role-confirm">
+      <p className="font-bold text-graphite">
+        Make {user.name || user.login} (@{user.login}) {roleLabels[role].toLowerCase() === 'admin' ? 'an' : 'a'}{' '}
+        {roleLabels[role]} instead of {roleLabels[user.role]}?
+      </p>
+      <p className="text-sm text-graphite">As {roleLabels[role]} they may:</p>
+      <ul className="list-disc pl-5 text-sm text-graphite">
+        {next.map((p) => (
+          <li key={p}>{permissionLabels[p]}</li>
+        ))}
+      </ul>
+      {lost.length > 0 && (
+        <p className="text-sm text-oxide">
+          They may no longer: {lost.map((p) => permissionLabels[p]).join('; ')}.
+        </p>
+      )}
+      <p className="text-xs text-graphite-soft">It applies on their next request and is recorded with your name.</p>
+      <div className="flex flex-wrap gap-2">
+        <Button className="!min-h-8 !px-3 !py-1" onClick={onConfirm} disabled={busy}>
+          Yes, make them {roleLabels[role]}
+        </Button>
+        <Button variant="quiet" className="!min-h-8 !px-3 !py-1" onClick={onCancel}>
+          Keep {roleLabels[user.role]}
+        </Button>
+      </div>
+    </div>
   );
 }
 

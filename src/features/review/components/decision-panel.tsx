@@ -2,6 +2,7 @@ import { useRef, useState } from 'react';
 import { Link } from 'react-router';
 import type { SubmissionView } from '@shared/schemas/submissions';
 import { decisionNoteSchema, reasonTemplateSchema, requiredReasonSchema } from '@shared/schemas/submissions';
+import { revisionStatusLabels } from '@shared/schemas/enums';
 import { Button } from '../../../components/ui/button';
 import { TextArea, TextInput } from '../../../components/ui/field';
 import { ApiError } from '../../../lib/api-client';
@@ -10,23 +11,33 @@ import { useDecide, type Decision } from '../api/decide';
 import { useCreateTemplate, useDeleteTemplate, useTemplates, useUpdateTemplate } from '../api/templates';
 
 const choices: { value: Decision; label: string; hint: string }[] = [
-  { value: 'approve', label: 'Approve', hint: 'It becomes the swap’s current revision and appears in search.' },
-  { value: 'send-back', label: 'Send back', hint: 'The author changes it and sends it again. Reasons required.' },
-  { value: 'decline', label: 'Decline', hint: 'Not published. Reason required.' },
+  { value: 'approve', label: 'Publish', hint: 'It becomes the swap’s current revision and appears in search.' },
+  { value: 'send-back', label: 'Send back for rework', hint: 'The author changes it and sends it again. Reasons required.' },
+  { value: 'decline', label: 'Don’t publish', hint: 'It is not published. Reason required.' },
 ];
 
-const doneWords: Record<Decision, string> = { approve: 'Approved', 'send-back': 'Sent back to the author', decline: 'Declined' };
+const doneWords: Record<Decision, string> = {
+  approve: 'Published',
+  'send-back': 'Sent back to the author for rework',
+  decline: 'Not published',
+};
 
-/** Approve, send back or decline one revision; the author is told by e-mail. */
+/**
+ * Publish, send back or don't publish one revision; the author is told by e-mail. Nothing is chosen
+ * until the moderator chooses: publishing a brake record is never one stray click away.
+ */
 export function DecisionPanel({ revision, canDecide }: { revision: SubmissionView; canDecide: boolean }) {
   const { behind } = revision;
-  // a correction behind the current revision cannot be approved: sending it back is the way on
-  const [decision, setDecision] = useState<Decision>(behind ? 'send-back' : 'approve');
+  // nothing is chosen until the moderator chooses; a correction behind the current revision cannot be
+  // published, so sending it back is the way on
+  const [decision, setDecision] = useState<Decision | null>(behind ? 'send-back' : null);
   const [note, setNote] = useState(
     behind
-      ? `Revision ${behind.current.number} was approved after you started this correction. Please bring it up to date (your draft offers the merge) and send it again.`
+      ? `Revision ${behind.current.number} was published after you started this correction. Please bring it up to date (your draft offers the merge) and send it again.`
       : '',
   );
+  // the note's own problem shows once the box has been left or a send was tried, and goes as soon as it is fixed
+  const [noteShown, setNoteShown] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const [done, setDone] = useState<Decision | null>(null);
   const noteRef = useRef<HTMLDivElement>(null);
@@ -42,7 +53,7 @@ export function DecisionPanel({ revision, canDecide }: { revision: SubmissionVie
           {done
             ? `${doneWords[done]}. The author has been told by e-mail.`
             : revision.status !== 'in_review'
-              ? `This revision is ${revision.status.replace('_', ' ')}; decisions are made only while it is in review.`
+              ? `This revision is ${revisionStatusLabels[revision.status].toLowerCase()}; decisions are made only while it is at the desk.`
               : 'You wrote this revision, so another moderator decides on it.'}
         </p>
         {(done === 'approve' || revision.status === 'approved') && (
@@ -66,11 +77,17 @@ export function DecisionPanel({ revision, canDecide }: { revision: SubmissionVie
     requestAnimationFrame(() => noteRef.current?.querySelector('textarea')?.focus());
   };
 
+  const noteCheck = (decision === 'send-back' || decision === 'decline' ? requiredReasonSchema : decisionNoteSchema).safeParse({
+    note,
+  });
+  const noteError = noteShown && !noteCheck.success ? (noteCheck.error.issues[0]?.message ?? 'Check the note') : undefined;
+
   const send = async (e: React.FormEvent) => {
     e.preventDefault();
     setError(null);
-    const parsed = (decision === 'approve' ? decisionNoteSchema : requiredReasonSchema).safeParse({ note });
-    if (!parsed.success) return setError(parsed.error.issues[0]?.message ?? 'Check the note');
+    setNoteShown(true);
+    if (!decision || !noteCheck.success) return;
+    const parsed = noteCheck;
     try {
       await decide.mutateAsync({ decision, note: parsed.data.note });
       setDone(decision);
@@ -79,7 +96,7 @@ export function DecisionPanel({ revision, canDecide }: { revision: SubmissionVie
     }
   };
 
-  const needsReason = decision !== 'approve';
+  const needsReason = decision === 'send-back' || decision === 'decline';
   return (
     <aside aria-labelledby="decide-h" className="rounded-xl border border-ink/20 bg-paper-card p-4 shadow-sm">
       <h2 id="decide-h" className="text-lg font-extrabold text-ink">
@@ -120,17 +137,26 @@ export function DecisionPanel({ revision, canDecide }: { revision: SubmissionVie
             label={needsReason ? 'Reasons (the author reads these)' : 'Note to the author (optional)'}
             rows={5}
             value={note}
-            onChange={(e) => setNote(e.target.value)}
-            error={error ?? undefined}
+            onChange={(e) => {
+              setNote(e.target.value);
+              setError(null);
+            }}
+            onBlur={() => setNoteShown(true)}
+            error={error ?? noteError}
+            reserveError
           />
         </div>
         <Button
           type="submit"
           variant={decision === 'decline' ? 'danger' : 'primary'}
           className="w-full"
-          disabled={decide.isPending}
+          disabled={decide.isPending || decision === null}
         >
-          {decide.isPending ? 'Saving the decision…' : choices.find((c) => c.value === decision)!.label}
+          {decide.isPending
+            ? 'Saving the decision…'
+            : decision === null
+              ? 'Choose a decision above'
+              : choices.find((c) => c.value === decision)!.label}
         </Button>
       </form>
     </aside>

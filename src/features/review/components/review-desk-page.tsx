@@ -11,7 +11,7 @@ import {
 } from '@tanstack/react-table';
 import type { ReviewQueueItem } from '@shared/schemas/submissions';
 import { bulkDeclineSchema } from '@shared/schemas/submissions';
-import { revisionStatusLabels } from '@shared/schemas/enums';
+import { checkStatusLabels, revisionStatusLabels } from '@shared/schemas/enums';
 import { Page } from '../../../components/ui/page';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
@@ -97,6 +97,14 @@ export default function ReviewDeskPage() {
               )}
               <Badge tone="ink">{row.original.axle === 'front' ? 'Front' : 'Rear'}</Badge>
             </div>
+            {/* on a phone the other columns fold into this line instead of scrolling sideways */}
+            <p className="mt-1.5 flex flex-wrap items-center gap-x-2 gap-y-1 text-xs text-graphite-soft sm:hidden">
+              <span>{row.original.chassis.label}</span>
+              <span>@{row.original.author.login}</span>
+              <span className="tabular">{age(row.original.submittedAt)}</span>
+              <span className="font-bold text-graphite">{revisionStatusLabels[row.original.status]}</span>
+              <CheckBadge failed={row.original.failedChecks} />
+            </p>
           </div>
         ),
       }),
@@ -119,8 +127,7 @@ export default function ReviewDeskPage() {
       col.accessor('status', { header: 'Status', cell: ({ getValue }) => revisionStatusLabels[getValue()] }),
       col.accessor('failedChecks', {
         header: 'Checks',
-        cell: ({ getValue }) =>
-          getValue() > 0 ? <Badge tone="oxide">{getValue()} failing</Badge> : <Badge tone="ink">All pass</Badge>,
+        cell: ({ getValue }) => <CheckBadge failed={getValue()} />,
       }),
     ],
     [],
@@ -147,12 +154,12 @@ export default function ReviewDeskPage() {
     <Page
       title="Review desk"
       heading="Review desk"
-      lead="Submissions and corrections waiting for a moderator, oldest first. A revision reaches search only when approved here."
+      lead="Submissions and corrections waiting for a moderator, oldest first. A revision reaches search only when it is published here."
     >
       {counts && (
         <ul className="mb-6 grid grid-cols-3 gap-2 sm:flex sm:flex-wrap sm:gap-3" aria-label="Counts">
-          <Count label="In review" value={counts.in_review} />
-          <Count label="Sent back" value={counts.sent_back} />
+          <Count label={revisionStatusLabels.in_review} value={counts.in_review} />
+          <Count label={revisionStatusLabels.sent_back} value={counts.sent_back} />
           <Count label="Open flags" value={counts.flags} href="#flags" />
         </ul>
       )}
@@ -163,8 +170,8 @@ export default function ReviewDeskPage() {
         aria-label="Filter the queue"
       >
         <Select label="Status" value={filters.status} onChange={(e) => setFilter('status', e.target.value)}>
-          <option value="in_review">In review</option>
-          <option value="sent_back">Sent back</option>
+          <option value="in_review">{revisionStatusLabels.in_review}</option>
+          <option value="sent_back">{revisionStatusLabels.sent_back}</option>
         </Select>
         <Select label="Chassis" value={filters.chassis} onChange={(e) => setFilter('chassis', e.target.value)}>
           <option value="">Any chassis</option>
@@ -196,7 +203,7 @@ export default function ReviewDeskPage() {
       ) : (
         <>
           <div className="overflow-x-auto rounded-xl border border-ink/10 bg-paper-card">
-            <table className="w-full min-w-[46rem] text-left text-sm">
+            <table className="w-full text-left text-sm sm:min-w-[46rem]">
               <caption className="sr-only">Review queue, {items.length} revisions</caption>
               <thead>
                 {table.getHeaderGroups().map((hg) => (
@@ -205,7 +212,7 @@ export default function ReviewDeskPage() {
                       <th
                         key={h.id}
                         scope="col"
-                        className="px-3 py-2 font-bold"
+                        className={`px-3 py-2 font-bold ${wideOnly.has(h.id) ? 'hidden sm:table-cell' : ''}`}
                         aria-sort={
                           h.column.getIsSorted() === 'asc'
                             ? 'ascending'
@@ -240,7 +247,7 @@ export default function ReviewDeskPage() {
                     className={`border-b border-graphite/10 align-top ${row.getIsSelected() ? 'bg-ink-faint/50' : ''}`}
                   >
                     {row.getVisibleCells().map((cell) => (
-                      <td key={cell.id} className="px-3 py-3">
+                      <td key={cell.id} className={`px-3 py-3 ${wideOnly.has(cell.column.id) ? 'hidden sm:table-cell' : ''}`}>
                         {flexRender(cell.column.columnDef.cell, cell.getContext())}
                       </td>
                     ))}
@@ -273,6 +280,22 @@ function Count({ label, value, href }: { label: string; value: number; href?: st
 }
 
 /** Obvious spam: decline the selected revisions at once, with one reason the authors will read. */
+/** the columns a phone folds into the swap's own cell */
+const wideOnly = new Set(['chassis', 'author', 'submittedAt', 'status', 'failedChecks']);
+
+/** the queue's summary of a revision's automatic checks, in the desk's words */
+function CheckBadge({ failed }: { failed: number }) {
+  return failed > 0 ? (
+    <span className="whitespace-nowrap rounded-sm bg-oxide px-1.5 py-0.5 text-xs font-extrabold text-paper">
+      {failed} {checkStatusLabels.fail.toLowerCase()}
+    </span>
+  ) : (
+    <span className="whitespace-nowrap rounded-sm border border-ink/40 px-1.5 py-0.5 text-xs font-extrabold text-ink">
+      {checkStatusLabels.pass}
+    </span>
+  );
+}
+
 function BulkDecline({ ids, onDone }: { ids: number[]; onDone: () => void }) {
   const [note, setNote] = useState('');
   const [error, setError] = useState<string | null>(null);
@@ -293,13 +316,13 @@ function BulkDecline({ ids, onDone }: { ids: number[]; onDone: () => void }) {
     }
     if (
       !window.confirm(
-        `Decline ${ids.length} ${ids.length === 1 ? 'revision' : 'revisions'}? The authors get this reason by e-mail.`,
+        `Publish none of these ${ids.length} ${ids.length === 1 ? 'revision' : 'revisions'}? The authors get this reason by e-mail.`,
       )
     )
       return;
     try {
       await bulk.mutateAsync(parsed.data);
-      setDone(`Declined ${ids.length} ${ids.length === 1 ? 'revision' : 'revisions'}.`);
+      setDone(`${ids.length} ${ids.length === 1 ? 'revision' : 'revisions'} not published.`);
       setNote('');
       onDone();
     } catch (err) {
@@ -308,7 +331,7 @@ function BulkDecline({ ids, onDone }: { ids: number[]; onDone: () => void }) {
   };
   return (
     <div className="mt-4 rounded-xl border border-oxide/40 bg-oxide-soft/40 p-4">
-      <h2 className="font-extrabold text-oxide">Decline {ids.length} selected</h2>
+      <h2 className="font-extrabold text-oxide">Don’t publish the {ids.length} selected</h2>
       <TextArea
         label="Reason (sent to every author)"
         rows={2}
@@ -318,7 +341,7 @@ function BulkDecline({ ids, onDone }: { ids: number[]; onDone: () => void }) {
         className="mt-2"
       />
       <Button variant="danger" className="mt-3" onClick={() => void send()} disabled={bulk.isPending}>
-        {bulk.isPending ? 'Declining…' : `Decline selected (${ids.length})`}
+        {bulk.isPending ? 'Saving…' : `Don’t publish the selected (${ids.length})`}
       </Button>
     </div>
   );

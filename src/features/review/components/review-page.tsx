@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link, useParams } from 'react-router';
 import type { CheckResult, ReviewDetail, SubmissionView } from '@shared/schemas/submissions';
-import { revisionStatusLabels } from '@shared/schemas/enums';
+import { checkStatusLabels, revisionStatusLabels } from '@shared/schemas/enums';
 import { Page } from '../../../components/ui/page';
 import { Badge } from '../../../components/ui/badge';
 import { ErrorNotice, Loading } from '../../../components/ui/query-state';
@@ -16,35 +16,55 @@ import { TakedownPanel } from './takedown-panel';
 const when = (iso: string | null) =>
   iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : '—';
 
-const checkLook: Record<CheckResult['status'], { mark: string; word: string; tone: string }> = {
-  pass: { mark: '✓', word: 'Pass', tone: 'border-ink/25 bg-ink-faint/50 text-ink' },
-  fail: { mark: '✕', word: 'Fails', tone: 'border-oxide/50 bg-oxide-soft text-oxide' },
-  attention: { mark: '!', word: 'Look closely', tone: 'border-brass/60 bg-brass-soft/50 text-brass-deep' },
+// the desk's own look: a tally of the three results, then one card per check with its tag
+const checkLook: Record<CheckResult['status'], { tag: string; card: string }> = {
+  fail: { tag: 'bg-oxide text-paper', card: 'border-l-oxide bg-oxide-soft/60' },
+  attention: { tag: 'bg-brass text-paper', card: 'border-l-brass bg-brass-soft/40' },
+  pass: { tag: 'border border-ink/40 text-ink', card: 'border-l-ink/40 bg-paper-card' },
 };
+const checkOrder: CheckResult['status'][] = ['fail', 'attention', 'pass'];
+
+export function CheckTally({ checks }: { checks: CheckResult[] }) {
+  return (
+    <p className="mb-3 flex flex-wrap gap-2 text-sm" data-testid="check-tally">
+      {checkOrder.map((status) => {
+        const n = checks.filter((c) => c.status === status).length;
+        return (
+          <span
+            key={status}
+            className={`rounded-sm px-2 py-0.5 font-bold ${n === 0 ? 'text-graphite-soft' : checkLook[status].tag}`}
+          >
+            <span className="tabular">{n}</span> {checkStatusLabels[status].toLowerCase()}
+          </span>
+        );
+      })}
+    </p>
+  );
+}
 
 function Checks({ checks }: { checks: CheckResult[] }) {
-  const failing = checks.filter((c) => c.status === 'fail').length;
-  const attention = checks.filter((c) => c.status === 'attention').length;
   return (
     <section aria-labelledby="checks-h">
       <h2 id="checks-h" className="text-xl font-extrabold text-ink">
         Automatic checks
       </h2>
-      <p className="mb-3 text-sm text-graphite-soft">
-        {failing === 0 && attention === 0
-          ? 'Every check passes.'
-          : `${failing} failing, ${attention} to look at closely, ${checks.length - failing - attention} passing.`}
-      </p>
+      <CheckTally checks={checks} />
       <ul className="space-y-2" data-testid="checks">
         {checks.map((c) => {
           const look = checkLook[c.status];
           return (
-            <li key={c.id} className={`rounded-lg border p-3 ${look.tone}`} data-check={c.id} data-status={c.status}>
-              <div className="flex items-baseline justify-between gap-3">
+            <li
+              key={c.id}
+              className={`rounded-md border border-l-4 border-graphite/15 p-3 ${look.card}`}
+              data-check={c.id}
+              data-status={c.status}
+            >
+              <div className="flex items-start justify-between gap-3">
                 <span className="font-bold text-graphite">{c.label}</span>
-                <span className="whitespace-nowrap text-xs font-extrabold uppercase tracking-wide">
-                  <span aria-hidden>{look.mark} </span>
-                  {look.word}
+                <span
+                  className={`shrink-0 rounded-sm px-1.5 py-0.5 text-[0.7rem] font-extrabold uppercase tracking-wider whitespace-nowrap ${look.tag}`}
+                >
+                  {checkStatusLabels[c.status]}
                 </span>
               </div>
               {c.detail && <p className="mt-1 text-sm text-graphite">{c.detail}</p>}
@@ -62,16 +82,16 @@ function Checks({ checks }: { checks: CheckResult[] }) {
 }
 
 const actionWords: Record<string, string> = {
-  submit: 'sent it for review',
-  submitted: 'sent it for review',
-  resubmit: 'sent it for review again',
-  approve: 'approved it',
-  approved: 'approved it',
-  'send-back': 'sent it back',
-  send_back: 'sent it back',
-  sent_back: 'sent it back',
-  decline: 'declined it',
-  declined: 'declined it',
+  submit: 'put it on the review desk',
+  submitted: 'put it on the review desk',
+  resubmit: 'put it on the review desk again',
+  approve: 'published it',
+  approved: 'published it',
+  'send-back': 'sent it back for rework',
+  send_back: 'sent it back for rework',
+  sent_back: 'sent it back for rework',
+  decline: 'decided not to publish it',
+  declined: 'decided not to publish it',
   create: 'started the draft',
   created: 'started the draft',
 };

@@ -11,11 +11,11 @@ import { paths } from '../../../config/paths';
 
 const explain: Record<RevisionStatus, string> = {
   draft: 'This draft can be edited.',
-  sent_back: 'A moderator sent this back; you can change it and send it again.',
+  sent_back: 'A moderator sent this back for rework; you can change it and send it again.',
   in_review: 'A moderator is reading it. It is locked until they decide; you will get an e-mail with the outcome.',
-  approved: 'Approved and published. Approved revisions never change — to change it, propose a correction.',
-  declined: 'A moderator declined this revision. It stays here for your records.',
-  superseded: 'A newer approved revision replaced this one.',
+  approved: 'Published. A published revision never changes — to change it, propose a correction.',
+  declined: 'A moderator decided not to publish this revision. It stays here for your records.',
+  superseded: 'A newer published revision replaced this one.',
 };
 
 const tone = (s: RevisionStatus) =>
@@ -35,7 +35,7 @@ export function LockedSubmission({ view }: { view: SubmissionView }) {
       <div role="status" className="mb-6 rounded-xl border border-ink/15 bg-paper-card p-4 sm:p-6" data-testid="locked-status">
         <div className="flex flex-wrap items-center gap-2">
           <Badge tone={tone(view.status)}>{revisionStatusLabels[view.status]}</Badge>
-          {view.status === 'in_review' && <span className="text-sm text-graphite-soft">🔒 Locked while in review</span>}
+          {view.status === 'in_review' && <span className="text-sm text-graphite-soft">🔒 Locked while at the desk</span>}
           {when && <span className="text-sm text-graphite-soft">Sent {when}</span>}
         </div>
         <p className="mt-3 text-graphite">{explain[view.status]}</p>

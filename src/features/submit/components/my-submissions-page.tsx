@@ -9,12 +9,12 @@ import { useMySubmissions } from '../api/get-my-submissions';
 
 const order: RevisionStatus[] = ['sent_back', 'draft', 'in_review', 'approved', 'declined', 'superseded'];
 const leads: Record<RevisionStatus, string> = {
-  sent_back: 'A moderator asked for changes. Edit and send again.',
+  sent_back: 'A moderator sent these back for rework. Edit and send again.',
   draft: 'Saved as you typed; not sent yet.',
   in_review: 'Waiting for a moderator. Locked until they decide.',
   approved: 'Published. To change one, propose a correction.',
   declined: 'Not published.',
-  superseded: 'Replaced by a newer approved revision.',
+  superseded: 'Replaced by a newer published revision.',
 };
 
 const date = (iso: string | null) =>
@@ -42,7 +42,7 @@ function Item({ item }: { item: MySubmissionItem }) {
       <div className="mt-3 flex flex-wrap gap-2">
         {editable ? (
           <ButtonLink to={paths.editSubmission(item.id)} variant={item.status === 'sent_back' ? 'primary' : 'secondary'}>
-            {item.status === 'sent_back' ? 'Revise and resend' : 'Continue editing'}
+            {item.status === 'sent_back' ? 'Rework and resend' : 'Continue editing'}
           </ButtonLink>
         ) : (
           <ButtonLink to={paths.editSubmission(item.id)} variant="secondary">

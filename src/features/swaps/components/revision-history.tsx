@@ -23,7 +23,7 @@ export function RevisionHistory({ slug, history, shown }: { slug: string; histor
               Revision {h.number}
             </Link>
             <span className="text-graphite-soft">
-              {h.status === 'approved' ? 'current' : 'replaced'} · by {h.author.name} · approved{' '}
+              {h.status === 'approved' ? 'current' : 'replaced'} · by {h.author.name} · published{' '}
               {h.approvedAt ? new Date(h.approvedAt).toLocaleDateString('en-GB') : '—'}
             </span>
           </li>

@@ -122,7 +122,7 @@ export function SwapSheet({ view, banner, presets, ownFigures, extraSections }: 
         {data.summary && <p className="mt-3 max-w-3xl text-lg text-graphite">{data.summary}</p>}
         <dl className="tabular mt-4 grid grid-cols-2 gap-3 text-sm sm:grid-cols-5">
           <Fact label="Revision" value={`${revision.number}${revision.status === 'approved' && !isOld ? ' (current)' : ''}`} />
-          <Fact label="Approved" value={date(revision.approvedAt)} />
+          <Fact label="Published" value={date(revision.approvedAt)} />
           <Fact label="Fitted by" value={`${swap.fittedCount} other ${swap.fittedCount === 1 ? 'member' : 'members'}`} />
           <Fact label="Install time" value={data.installHours ? `${data.installHours} h` : '—'} />
           <Fact label="Difficulty" value={data.difficulty ? `${data.difficulty} of 5` : '—'} />
