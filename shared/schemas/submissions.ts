@@ -38,6 +38,36 @@ export type NewChassis = z.infer<typeof newChassisSchema>;
 
 const markdownBody = markdownText().max(40_000, 'The write-up may be at most 40,000 characters').default('');
 
+/** the form's lists whose rows a draft may keep half-filled */
+export const incompleteRowLists = [
+  'parts',
+  'calipers',
+  'rotors',
+  'shims',
+  'spacers',
+  'machining',
+  'fasteners',
+  'testedWheels',
+  'costs',
+] as const;
+export type IncompleteRowList = (typeof incompleteRowLists)[number];
+
+/**
+ * A row of a draft that does not read yet (a fastener without its torque): kept as the author typed
+ * it, beside the valid record, so a save never waits for it and it is never dropped. Only its
+ * author sees it; a draft holding one cannot be sent for review.
+ */
+export const incompleteRowSchema = z.object({
+  list: z.enum(incompleteRowLists),
+  /** where the row stands in its list on the form */
+  index: z.number().int().min(0).max(200),
+  row: z
+    .record(z.string().max(60), z.unknown())
+    .refine((r) => JSON.stringify(r).length <= 8000, 'This row is too long to keep (at most 8,000 characters)'),
+});
+export type IncompleteRow = z.infer<typeof incompleteRowSchema>;
+const incompleteRows = z.array(incompleteRowSchema).max(60).default([]);
+
 /** POST /api/submissions — a new swap (chassis + axle + category) or, with `swapSlug`, a new revision of an approved swap */
 export const createSubmissionSchema = z
   .object({
@@ -50,6 +80,7 @@ export const createSubmissionSchema = z
     category: categorySchema.optional(),
     data: swapDataSchema,
     body: markdownBody,
+    incompleteRows,
   })
   .superRefine((v, ctx) => {
     if (v.swapSlug) return;
@@ -68,6 +99,7 @@ export const updateSubmissionSchema = z.object({
   category: categorySchema.optional(),
   data: swapDataSchema,
   body: markdownBody,
+  incompleteRows,
 });
 export type UpdateSubmission = z.infer<typeof updateSubmissionSchema>;
 
@@ -94,6 +126,8 @@ export type SubmissionView = {
   body: string;
   /** a moderator took the write-up of this (published) revision down; its author and the desk still see it */
   bodyTakenDown: boolean;
+  /** rows the author has not finished; only the author sees them (empty for anyone else) */
+  incompleteRows: IncompleteRow[];
   photos: PhotoView[];
   author: PersonRef;
   reviewNote: string | null;

@@ -43,6 +43,19 @@ export const blankVehicleForm: VehicleForm = {
   basis: '',
 };
 
+/** the figures typed in the reader's units, converted when the units toggle flips */
+export const vehicleQuantities = {
+  mass: 'mass',
+  ladenMass: 'mass',
+  cg: 'length',
+  ladenCg: 'length',
+  wheelbase: 'length',
+  radiusFront: 'length',
+  radiusRear: 'length',
+  knee: 'pressure',
+  kneeLaden: 'pressure',
+} as const;
+
 const trim = (x: number, digits: number) => String(Math.round(x * 10 ** digits) / 10 ** digits);
 
 /** A stored set of figures as the form shows it, in the reader's units. */

@@ -5,6 +5,7 @@ import { users } from './users';
 import { chassis } from './catalogue';
 import { axles, categories, revisionStatuses } from '../../../shared/schemas/enums';
 import type { SwapData } from '../../../shared/schemas/swap-data';
+import type { IncompleteRow } from '../../../shared/schemas/submissions';
 import { upgradeSwapData } from '../../../shared/schemas/swap-data-upgrade';
 
 /** JSON text; data written before version 2 is upgraded as it is read, so every reader sees version 2 */
@@ -75,6 +76,8 @@ export const revisions = sqliteTable(
     data: swapDataColumn('data').notNull(),
     /** markdown, raw HTML already stripped */
     body: text('body').notNull().default(''),
+    /** a draft's half-filled rows, validated by incompleteRowSchema; empty once it is sent for review */
+    incompleteRows: text('incomplete_rows', { mode: 'json' }).$type<IncompleteRow[]>().notNull().default([]),
     submittedAt: timestamp('submitted_at'),
     reviewedAt: timestamp('reviewed_at'),
     reviewedById: integer('reviewed_by_id').references(() => users.id),

@@ -120,6 +120,8 @@ export function submissionView(db: Db, row: LoadedRevision, viewer?: SessionUser
     data: r.data,
     body: r.body,
     bodyTakenDown: bodyIsTakenDown(db, r.id),
+    // what the author has not finished is theirs alone
+    incompleteRows: viewer?.id === r.authorId ? r.incompleteRows : [],
     photos: photosOf(db, [r.id]).get(r.id) ?? [],
     author: personRef(row.author),
     reviewNote: r.reviewNote,

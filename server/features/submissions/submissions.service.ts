@@ -14,6 +14,8 @@ import type { SessionUser } from '../../middleware/require-role';
 import { swapDataSchema, type SwapData } from '../../../shared/schemas/swap-data';
 import { neutraliseDeep } from '../../../shared/schemas/text';
 import type {
+  IncompleteRow,
+  IncompleteRowList,
   CreateSubmission,
   MySubmissionItem,
   NewChassis,
@@ -239,6 +241,7 @@ export async function createSubmission(
             status: 'draft',
             data,
             body,
+            incompleteRows: input.incompleteRows,
             createdAt: now,
             updatedAt: now,
           })
@@ -288,7 +291,17 @@ export async function createSubmission(
       .get();
     return tx
       .insert(revisions)
-      .values({ swapId: swap.id, number: 1, authorId: user.id, status: 'draft', data, body, createdAt: now, updatedAt: now })
+      .values({
+        swapId: swap.id,
+        number: 1,
+        authorId: user.id,
+        status: 'draft',
+        data,
+        body,
+        incompleteRows: input.incompleteRows,
+        createdAt: now,
+        updatedAt: now,
+      })
       .returning({ id: revisions.id })
       .get().id;
   });
@@ -344,7 +357,7 @@ export function updateSubmission(deps: SubmissionDeps, user: SessionUser, id: nu
     }
     const changed = tx
       .update(revisions)
-      .set({ data, body, updatedAt: now })
+      .set({ data, body, incompleteRows: input.incompleteRows, updatedAt: now })
       .where(and(eq(revisions.id, id), inArray(revisions.status, ['draft', 'sent_back'])))
       .run().changes;
     // the status moved between the check and the write (a submit from another tab)
@@ -353,11 +366,35 @@ export function updateSubmission(deps: SubmissionDeps, user: SessionUser, id: nu
   return viewOf(db, id, user);
 }
 
+const listWords: Record<IncompleteRowList, string> = {
+  parts: 'Parts',
+  calipers: 'Calipers',
+  rotors: 'Rotors',
+  shims: 'Shims',
+  spacers: 'Spacers',
+  machining: 'Machining',
+  fasteners: 'Fasteners & torque',
+  testedWheels: 'Tested wheels',
+  costs: 'Costs',
+};
+const formPathOfRow = (r: IncompleteRow) => `data.${r.list === 'testedWheels' ? 'wheel.testedWheels' : r.list}.${r.index}`;
+
+/** A draft with half-filled rows is kept, but a moderator only ever reads finished ones. */
+function refuseIncompleteRows(rows: IncompleteRow[]) {
+  if (rows.length === 0) return;
+  const first = rows[0]!;
+  throw AppError.invalid(
+    `${listWords[first.list]}, row ${first.index + 1} is incomplete: finish it or remove it before sending.`,
+    Object.fromEntries(rows.map((r) => [formPathOfRow(r), 'This row is incomplete: finish it or remove it'])),
+  );
+}
+
 /** POST /api/submissions/:id/submit: a draft or sent-back revision goes to the review desk. */
 export function submitForReview(deps: SubmissionDeps, user: SessionUser, id: number): SubmissionView {
   const { db, clock } = deps;
   const row = revisionFor(db, user, id);
   assertEditable(user, row);
+  refuseIncompleteRows(row.revision.incompleteRows);
   const behind = behindConflict(db, row, 'submit');
   if (behind) throw behind;
   const now = clock.now();

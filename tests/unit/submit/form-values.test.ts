@@ -5,16 +5,13 @@ import {
   emptyValues,
   numberList,
   formPathOf,
-  heldListText,
-  heldText,
   liveDataOf,
   parsePayload,
-  shownListText,
-  shownText,
   toPayload,
   valuesFromData,
   type FormValues,
 } from '../../../src/features/submit/lib/form-values';
+import { heldListText, heldText, shownListText, shownText } from '../../../src/lib/quantity-text';
 import { brakeBalanceOf, costSummaryOf } from '../../../shared/fitment/swap-checks';
 
 function filled(): FormValues {

@@ -7,8 +7,15 @@ import { ChassisCombobox } from '../../../components/chassis-combobox';
 import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
 import { useUnits } from '../../../lib/units';
+import { useTypedInUnits } from '../../../lib/use-typed-in-units';
 import { useChassisOptions } from '../api/get-cars';
-import { VehicleFields, vehicleFormOf, vehicleInputOf, type VehicleForm } from '../../../components/vehicle-fields';
+import {
+  VehicleFields,
+  vehicleFormOf,
+  vehicleInputOf,
+  vehicleQuantities,
+  type VehicleForm,
+} from '../../../components/vehicle-fields';
 import { profileOf, rowsOf, WheelProfileFields, type ProfileRow } from './wheel-profile-fields';
 
 type Form = Record<'chassisId' | 'nickname' | 'wheelDiameterIn' | 'wheelWidthIn' | 'wheelOffsetMm' | 'tyre' | 'spacer', string>;
@@ -48,8 +55,11 @@ export function CarForm({
   const units = useUnits();
   const imperial = units.system === 'imperial';
   const chassisList = useChassisOptions();
-  const [form, setForm] = useState<Form>(() => (car ? fromCar(car, imperial) : blank));
-  const [vehicle, setVehicle] = useState<VehicleForm>(() => vehicleFormOf(car?.vehicle ?? null, imperial, Boolean(car?.vehicle)));
+  const [form, setForm] = useTypedInUnits<Form>(() => (car ? fromCar(car, imperial) : blank), { spacer: 'length' });
+  const [vehicle, setVehicle] = useTypedInUnits<VehicleForm>(
+    () => vehicleFormOf(car?.vehicle ?? null, imperial, Boolean(car?.vehicle)),
+    vehicleQuantities,
+  );
   const chosen = chassisList.data?.find((c) => String(c.id) === form.chassisId) ?? null;
   const [profileRows, setProfileRows] = useState<ProfileRow[]>(() => rowsOf(car?.wheelInsideProfile ?? null, imperial));
   const [errors, setErrors] = useState<Record<string, string>>({});

@@ -9,6 +9,7 @@ import { Select, TextArea, TextInput } from '../../../components/ui/field';
 import { Loading } from '../../../components/ui/query-state';
 import { ApiError } from '../../../lib/api-client';
 import { useUnits } from '../../../lib/units';
+import { useTypedInUnits } from '../../../lib/use-typed-in-units';
 import { paths } from '../../../config/paths';
 import {
   useDeleteFittedReport,
@@ -262,14 +263,17 @@ function ReportForm({
   const imperial = units.system === 'imperial';
   const mine = view.mine;
   const save = useSaveFittedReport(slug, Boolean(mine), onChanged);
-  const [form, setForm] = useState({
-    revisionNumber: String(mine?.revisionNumber ?? shownNumber),
-    diameterIn: mine ? String(mine.wheel.diameterIn) : '',
-    widthIn: mine ? String(mine.wheel.widthIn) : '',
-    offsetMm: mine ? String(mine.wheel.offsetMm) : '',
-    spacer: mine ? String(imperial ? Math.round(mmToIn(mine.wheel.spacerMm) * 100) / 100 : mine.wheel.spacerMm) : '0',
-    note: mine?.note ?? '',
-  });
+  const [form, setForm] = useTypedInUnits(
+    {
+      revisionNumber: String(mine?.revisionNumber ?? shownNumber),
+      diameterIn: mine ? String(mine.wheel.diameterIn) : '',
+      widthIn: mine ? String(mine.wheel.widthIn) : '',
+      offsetMm: mine ? String(mine.wheel.offsetMm) : '',
+      spacer: mine ? String(imperial ? Math.round(mmToIn(mine.wheel.spacerMm) * 100) / 100 : mine.wheel.spacerMm) : '0',
+      note: mine?.note ?? '',
+    },
+    { spacer: 'length' },
+  );
   const [photo, setPhoto] = useState<File | null>(null);
   const [removePhoto, setRemovePhoto] = useState(false);
   const [errors, setErrors] = useState<Record<string, string>>({});

@@ -3,19 +3,21 @@ import type { SubmissionView } from '@shared/schemas/submissions';
 import { Page } from '../../../components/ui/page';
 import { ErrorNotice, Loading } from '../../../components/ui/query-state';
 import { useSubmission } from '../api/get-submission';
-import { valuesFromData, emptyValues, type FormValues } from '../lib/form-values';
+import { valuesFromData, emptyValues, withIncompleteRows, type FormValues } from '../lib/form-values';
 import { SubmissionEditor } from './submission-editor';
 import { LockedSubmission } from './locked-submission';
 
 function valuesOfView(view: SubmissionView): FormValues {
   const base = emptyValues();
-  return valuesFromData(view.data, view.body, {
+  const values = valuesFromData(view.data, view.body, {
     ...base,
     chassisMode: 'existing',
     chassisId: String(view.chassis.id),
     axle: view.axle,
     category: view.category,
   });
+  // the rows the author had not finished, back where they stood
+  return withIncompleteRows(values, view.incompleteRows);
 }
 
 /** `/submissions/:id/edit`: a draft or sent-back revision in the form; anything else read-only. */

@@ -1,27 +1,26 @@
 import { useState, type ChangeEvent, type ReactNode } from 'react';
-import { useController, useFormContext, useFormState, type Path } from 'react-hook-form';
+import { get, useController, useFormContext, useFormState, type Path } from 'react-hook-form';
 import type { UnitSystem } from '@shared/schemas/enums';
 import { Field, inputClass } from '../../../components/ui/field';
 import { Button } from '../../../components/ui/button';
 import { useUnits } from '../../../lib/units';
-import {
-  heldListText,
-  heldText,
-  messageAt,
-  shownListText,
-  shownText,
-  unitOf,
-  type FormValues,
-  type Quantity,
-} from '../lib/form-values';
+import { heldListText, heldText, shownListText, shownText, unitOf, type Quantity } from '../../../lib/quantity-text';
+import { messageAt, type FormValues } from '../lib/form-values';
 
 // Inputs bound to the submission form by name; each shows its own error beside it.
 
 type Name = Path<FormValues>;
 
+/**
+ * The field's problem, once the person has left the field or tried to send (never on a row just
+ * added); the server's reasons show at once. Each field keeps a line for it, so nothing moves.
+ */
 function useFieldError(name: string) {
-  const { errors } = useFormState<FormValues>({ name: name as Name });
-  return messageAt(errors, name);
+  const { errors, touchedFields, isSubmitted } = useFormState<FormValues>({ name: name as Name });
+  const message = messageAt(errors, name);
+  if (!message) return undefined;
+  const fromServer = (get(errors, name) as { type?: string } | undefined)?.type === 'server';
+  return isSubmitted || fromServer || get(touchedFields, name) ? message : undefined;
 }
 
 type Common = { name: Name; label: ReactNode; hint?: ReactNode; className?: string; disabled?: boolean };
@@ -38,7 +37,7 @@ export function FText({
   const { register } = useFormContext<FormValues>();
   const error = useFieldError(name);
   return (
-    <Field label={label} hint={hint} error={error} className={className}>
+    <Field label={label} hint={hint} error={error} className={className} reserveError>
       {(a11y) => (
         <input
           className={inputClass}
@@ -105,20 +104,10 @@ function MeasureNum(props: NumProps & { quantity: Quantity }) {
   return <NumInput {...props} unit={unit} input={input} />;
 }
 
-function NumInput({
-  name,
-  label,
-  hint,
-  className,
-  disabled,
-  unit,
-  placeholder,
-  signed,
-  input,
-}: NumProps & { input: object }) {
+function NumInput({ name, label, hint, className, disabled, unit, placeholder, signed, input }: NumProps & { input: object }) {
   const error = useFieldError(name);
   return (
-    <Field label={label} hint={hint} error={error} className={className}>
+    <Field label={label} hint={hint} error={error} className={className} reserveError>
       {(a11y) => (
         <div className="flex items-stretch">
           <input
@@ -157,7 +146,7 @@ export function FLengthList({
   const { unit, input } = useMeasure(name, 'length', true);
   const error = useFieldError(name);
   return (
-    <Field label={label} hint={hint(unit)} error={error} className={className}>
+    <Field label={label} hint={hint(unit)} error={error} className={className} reserveError>
       {(a11y) => <input className={inputClass} autoComplete="off" {...a11y} {...input} disabled={disabled} />}
     </Field>
   );
@@ -175,7 +164,7 @@ export function FArea({
   const { register } = useFormContext<FormValues>();
   const error = useFieldError(name);
   return (
-    <Field label={label} hint={hint} error={error} className={className}>
+    <Field label={label} hint={hint} error={error} className={className} reserveError>
       {(a11y) => (
         <textarea
           className={inputClass}
@@ -201,7 +190,7 @@ export function FSelect({
   const { register } = useFormContext<FormValues>();
   const error = useFieldError(name);
   return (
-    <Field label={label} hint={hint} error={error} className={className}>
+    <Field label={label} hint={hint} error={error} className={className} reserveError>
       {(a11y) => (
         <select className={inputClass} {...a11y} {...register(name)} disabled={disabled}>
           {options.map((o) => (

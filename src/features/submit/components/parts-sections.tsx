@@ -8,7 +8,8 @@ import {
   shimJointLabels,
 } from '@shared/schemas/swap-data-labels';
 import { useUnits } from '../../../lib/units';
-import { emptyFastener, emptyPart, unitOf, type FormValues } from '../lib/form-values';
+import { unitOf } from '../../../lib/quantity-text';
+import { emptyFastener, emptyPart, type FormValues } from '../lib/form-values';
 import { AddButton, FArea, FCheck, FNum, FSelect, FText, FormSection, ListError, ListRow, MoreFields } from './form-controls';
 
 /** select options from a label map, in the map's order */

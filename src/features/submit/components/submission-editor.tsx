@@ -15,10 +15,10 @@ import { submissionKeys } from '../api/submission-keys';
 import { useSubmitForReview } from '../api/submit-for-review';
 import { useDeleteSubmission } from '../api/delete-submission';
 import { useChassisOptions } from '../api/get-chassis-options';
-import { errorsOf, formPathOf, newChassisReadable, parsePayload, type FormValues } from '../lib/form-values';
+import { errorsOf, formPathOf, newChassisReadable, parsePayload, placeOf, type FormValues } from '../lib/form-values';
 import { clearBackup, readBackup, useAutosave } from '../lib/use-autosave';
 import { handOver, handedOverForm, releaseHandOver } from '../lib/form-handoff';
-import { SaveStatus } from './save-status';
+import { FieldLink, SaveStatus } from './save-status';
 import { ChassisSection } from './chassis-section';
 import {
   AdapterSection,
@@ -76,6 +76,8 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
   const backupKey = backupKeyOf(mode);
   const sending = useRef(false);
   const [sendError, setSendError] = useState<string | null>(null);
+  // the first field that holds back the send, named and linked beside the button
+  const [blocking, setBlocking] = useState<{ path: string; message: string; more: number } | null>(null);
   const [backup, setBackup] = useState(() => {
     const b = readBackup(backupKey);
     const savedAt = view ? Date.parse(view.updatedAt) : 0;
@@ -143,9 +145,20 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
     }
   };
 
+  /** scroll to a field and put the cursor in it (a row's own problem lands on its first field) */
+  const goTo = (path: string) => {
+    const section = document.getElementById(placeOf(path).section);
+    const field =
+      document.querySelector<HTMLElement>(`[name="${CSS.escape(path)}"]`) ??
+      document.querySelector<HTMLElement>(`[name^="${CSS.escape(path)}."]`);
+    (field ?? section)?.scrollIntoView({ block: 'center' });
+    field?.focus({ preventScroll: true });
+  };
+
   const onSend = form.handleSubmit(
     async () => {
       setSendError(null);
+      setBlocking(null);
       sending.current = true;
       try {
         const saved = await autosave.flush();
@@ -170,10 +183,12 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
         sending.current = false;
       }
     },
-    (errors) => {
-      const count = Object.keys(errors).length;
-      setSendError(count ? 'Some fields need attention before a moderator can read it — they are marked in red.' : null);
-      requestAnimationFrame(() => document.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus());
+    () => {
+      const parsed = parsePayload(form.getValues(), swapSlug);
+      const issues = parsed.ok ? [] : parsed.issues;
+      setSendError(issues.length ? 'It cannot be sent yet: a moderator reads only finished records.' : null);
+      setBlocking(issues[0] ? { ...issues[0], more: issues.length - 1 } : null);
+      if (issues[0]) goTo(issues[0].path);
     },
   );
 
@@ -202,7 +217,7 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
       ? `Correct “${mode.swap.revision.data.title}”`
       : view
         ? view.status === 'sent_back'
-          ? 'Revise and resend'
+          ? 'Rework and resend'
           : view.isCorrection
             ? 'Correction draft'
             : 'Draft swap'
@@ -225,7 +240,7 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
       actions={
         <div className="flex flex-col items-start gap-1 sm:items-end">
           {view && <Badge tone={view.status === 'sent_back' ? 'oxide' : 'plain'}>{revisionStatusLabels[view.status]}</Badge>}
-          <SaveStatus state={autosave.state} onRetry={() => void autosave.retry()} />
+          <SaveStatus state={autosave.state} onRetry={() => void autosave.retry()} onGo={goTo} />
         </div>
       }
     >
@@ -243,7 +258,7 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
       )}
       {view?.status === 'sent_back' && (
         <div role="alert" className="mb-6 rounded-xl border-l-4 border-brass bg-brass-soft/40 p-4">
-          <h2 className="font-extrabold text-ink">A moderator sent this back with these reasons</h2>
+          <h2 className="font-extrabold text-ink">A moderator sent this back for rework, with these reasons</h2>
           <p className="mt-2 whitespace-pre-wrap text-graphite">{view.reviewNote || 'No reason was given.'}</p>
           <p className="mt-2 text-sm text-graphite-soft">Change what they asked for, then send it for review again.</p>
         </div>
@@ -352,12 +367,19 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
           <div className="rounded-xl border border-ink/20 bg-paper-card p-4 sm:p-6 lg:col-start-1 lg:row-start-2">
             <h2 className="text-lg font-extrabold text-ink">Send for review</h2>
             <p className="mt-1 text-sm text-graphite-soft">
-              A moderator checks the record, the figures and the photos. While it is in review you cannot change it; you will get
-              an e-mail with the outcome.
+              A moderator checks the record, the figures and the photos. While it is at the desk you cannot change it; you will
+              get an e-mail with the outcome.
             </p>
             {sendError && (
-              <p role="alert" className="mt-3 font-semibold text-oxide">
+              <p role="alert" className="mt-3 font-semibold text-oxide" data-testid="send-error">
                 {sendError}
+                {blocking && (
+                  <>
+                    {' '}
+                    First: <FieldLink path={blocking.path} onGo={goTo} /> — {blocking.message.toLowerCase()}
+                    {blocking.more > 0 && ` (+${blocking.more} more, marked in red)`}.
+                  </>
+                )}
               </p>
             )}
             <div className="mt-4 flex flex-wrap items-center gap-3">

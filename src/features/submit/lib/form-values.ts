@@ -33,12 +33,17 @@ import {
   type wheelMaterials,
   type WheelOutcome,
 } from '@shared/schemas/swap-data';
-import { createSubmissionSchema, type CreateSubmission, type NewChassis } from '@shared/schemas/submissions';
-import type { Axle, Category, CostRoute, PartKind, UnitSystem } from '@shared/schemas/enums';
-import { barToPsi, inToMm, lbfFtToNm, mmToIn, nmToLbfFt, psiToBar } from '@shared/fitment/units';
+import {
+  createSubmissionSchema,
+  type CreateSubmission,
+  type IncompleteRow,
+  type IncompleteRowList,
+  type NewChassis,
+} from '@shared/schemas/submissions';
+import type { Axle, Category, CostRoute, PartKind } from '@shared/schemas/enums';
 import { parseThread } from '@shared/fitment/threads';
 import type { ChassisView } from '@shared/schemas/views';
-import { listItems, numberList, readNumber } from '../../../lib/number-text';
+import { numberList, readNumber } from '../../../lib/number-text';
 
 export { numberList };
 
@@ -426,63 +431,9 @@ const cornerValues = (c: BrakeCorner): CornerValues =>
 
 // ---------- the units toggle ----------
 // The form always holds lengths in mm, torque in N·m and pressure in bar, exactly as stored;
-// an input in imperial shows a text derived from that and converts what is typed back at once.
-// Switching the toggle re-derives the text and never rewrites the held value, so nothing drifts.
-
-export type Quantity = 'length' | 'torque' | 'pressure';
-
-const unitNames: Record<Quantity, Record<UnitSystem, string>> = {
-  length: { metric: 'mm', imperial: 'in' },
-  torque: { metric: 'N·m', imperial: 'lbf·ft' },
-  pressure: { metric: 'bar', imperial: 'psi' },
-};
-const toImperial: Record<Quantity, (v: number) => number> = { length: mmToIn, torque: nmToLbfFt, pressure: barToPsi };
-const fromImperial: Record<Quantity, (v: number) => number> = { length: inToMm, torque: lbfFtToNm, pressure: psiToBar };
-// Shown: 0.0001 in, 0.01 lbf·ft, 0.01 psi. Held: 0.0001 of the metric unit, fine enough that a
-// value typed in imperial (to the shown places) reads back exactly as typed.
-const shownPlaces: Record<Quantity, number> = { length: 4, torque: 2, pressure: 2 };
-const heldPlaces = 4;
-
-export const unitOf = (q: Quantity, system: UnitSystem) => unitNames[q][system];
-
-const fixed = (v: number, places: number) => {
-  const r = Number(v.toFixed(places));
-  return String(Object.is(r, -0) ? 0 : r);
-};
-
-function convertText(text: string, convert: (v: number) => number, places: number): string {
-  const v = num(text);
-  // empty stays empty; unreadable text is kept as typed so the schema names the field
-  if (v === undefined || !Number.isFinite(v)) return v === undefined ? '' : text;
-  return fixed(convert(v), places);
-}
-
-/** The text an input shows for a held metric value. */
-export function shownText(held: string, q: Quantity, system: UnitSystem): string {
-  return system === 'metric' ? held : convertText(held, toImperial[q], shownPlaces[q]);
-}
-
-/** The metric text the form holds for what was typed in the chosen system. */
-export function heldText(typed: string, q: Quantity, system: UnitSystem): string {
-  return system === 'metric' ? typed : convertText(typed, fromImperial[q], heldPlaces);
-}
-
-/** The same for a comma-separated list of lengths (piston diameters). */
-export function shownListText(held: string, q: Quantity, system: UnitSystem): string {
-  return system === 'metric'
-    ? held
-    : listItems(held)
-        .map((p) => shownText(p, q, system))
-        .join('; ');
-}
-export function heldListText(typed: string, q: Quantity, system: UnitSystem): string {
-  return system === 'metric'
-    ? typed
-    : listItems(typed)
-        .map((p) => heldText(p, q, system))
-        .join('; ');
-}
-
+// an input in imperial shows a text derived from that and converts what is typed back at once
+// (src/lib/quantity-text.ts). Switching the toggle re-derives the text and never rewrites the held
+// value, so nothing drifts.
 /** Only the amount is typed in major units (12.50); the record keeps integer minor units. */
 const toMinor = (text: string) => {
   const v = num(text);
@@ -950,4 +901,115 @@ export function newChassisReadable(v: FormValues['newChassis']): Pick<NewChassis
   } catch {
     return null;
   }
+}
+
+// ---------- a draft's half-filled rows ----------
+// A row that does not read yet (a fastener named, its torque still to come) never stops the rest of
+// the draft from saving: it is left out of the record and kept beside it, as typed, and put back in
+// its place when the draft opens again. Only sending for review waits for it.
+
+type Issue = { path: string; message: string };
+
+const rowIssue = /^data\.(parts|calipers|rotors|shims|spacers|machining|fasteners|costs|wheel\.testedWheels)\.(\d+)(?:\.|$)/;
+
+function rowsOf(v: FormValues, list: IncompleteRowList): unknown[] {
+  return list === 'testedWheels' ? v.data.wheel.testedWheels : (v.data[list] as unknown[]);
+}
+function setRowsOf(v: FormValues, list: IncompleteRowList, rows: unknown[]) {
+  if (list === 'testedWheels') v.data.wheel.testedWheels = rows as TestedWheelValues[];
+  else (v.data as Record<string, unknown>)[list] = rows;
+}
+
+export type DraftPayload =
+  { ok: true; payload: CreateSubmission; incompleteRows: IncompleteRow[]; unfinished: Issue[] } | { ok: false; issues: Issue[] };
+
+/** What a save sends: the record without the rows that do not read yet, and those rows as typed. */
+export function draftPayload(v: FormValues, swapSlug: string | null): DraftPayload {
+  const whole = parsePayload(v, swapSlug);
+  if (whole.ok) return { ok: true, payload: whole.payload, incompleteRows: [], unfinished: [] };
+  const bad = new Map<IncompleteRowList, Set<number>>();
+  for (const issue of whole.issues) {
+    const m = rowIssue.exec(issue.path);
+    if (!m) continue;
+    const list = (m[1] === 'wheel.testedWheels' ? 'testedWheels' : m[1]) as IncompleteRowList;
+    bad.set(list, (bad.get(list) ?? new Set()).add(Number(m[2])));
+  }
+  if (bad.size === 0) return { ok: false, issues: whole.issues };
+  const rest = structuredClone(v);
+  const incompleteRows: IncompleteRow[] = [];
+  for (const [list, indexes] of bad) {
+    const rows = rowsOf(v, list);
+    for (const index of [...indexes].sort((a, b) => a - b))
+      incompleteRows.push({ list, index, row: structuredClone(rows[index]) as Record<string, unknown> });
+    setRowsOf(
+      rest,
+      list,
+      rows.filter((_, i) => !indexes.has(i)),
+    );
+  }
+  const remainder = parsePayload(rest, swapSlug);
+  if (!remainder.ok) return { ok: false, issues: whole.issues };
+  return {
+    ok: true,
+    payload: remainder.payload,
+    incompleteRows,
+    unfinished: whole.issues.filter((i) => rowIssue.test(i.path)),
+  };
+}
+
+/** The form of a saved draft: its record with the unfinished rows back where they stood. */
+export function withIncompleteRows(values: FormValues, rows: readonly IncompleteRow[]): FormValues {
+  if (rows.length === 0) return values;
+  const out = structuredClone(values);
+  for (const r of [...rows].sort((a, b) => a.index - b.index)) {
+    const list = rowsOf(out, r.list);
+    list.splice(Math.min(r.index, list.length), 0, r.row);
+  }
+  return out;
+}
+
+const places: [RegExp, string, string][] = [
+  [/^(chassisMode|chassisId|newChassis|axle|category)/, 'chassis', 'Chassis'],
+  [/^data\.(title|summary)/, 'title', 'Title'],
+  [/^data\.parts/, 'parts', 'Parts'],
+  [/^data\.(hasAdapter|adapter)/, 'adapter', 'Adapter'],
+  [/^data\.calipers/, 'calipers', 'Calipers'],
+  [/^data\.rotors/, 'rotors', 'Rotors'],
+  [/^data\.(shims|centring|spacers)/, 'shims', 'Shims & spacers'],
+  [/^data\.machining/, 'machining', 'Machining'],
+  [/^data\.(fasteners|torque)/, 'torque', 'Fasteners & torque'],
+  [/^data\.(hasWheel|wheel)/, 'wheel', 'Wheel'],
+  [/^data\.(hasBrakes|brakes)/, 'brakes', 'Brakes'],
+  [/^data\.(costs|currency)/, 'costs', 'Costs'],
+  [/^data\./, 'job', 'The job'],
+  [/^body/, 'write-up', 'Write-up'],
+];
+const fieldWords: Record<string, string> = {
+  title: 'title',
+  summary: 'summary',
+  name: 'name',
+  role: 'role',
+  label: 'name',
+  thread: 'thread',
+  nm: 'torque',
+  thicknessMm: 'thickness',
+  diameterMm: 'diameter',
+  quantity: 'quantity',
+  amount: 'amount',
+  item: 'item',
+  where: 'where',
+  chassisId: 'chassis',
+  axle: 'axle',
+  category: 'category',
+};
+
+/** Where a field sits on the form, in words ("Fasteners & torque, row 3, torque") and as its section's anchor. */
+export function placeOf(path: string): { section: string; words: string } {
+  const [, section, title] = places.find(([re]) => re.test(path)) ?? [null, 'chassis', 'The form'];
+  const row = rowIssue.exec(path);
+  const field = fieldWords[path.split('.').at(-1) ?? ''];
+  return {
+    section,
+    words: [title, row ? `row ${Number(row[2]) + 1}` : null, field].filter(Boolean).join(', '),
+  };
 }

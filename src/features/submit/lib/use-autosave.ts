@@ -3,13 +3,14 @@ import type { UseFormReturn } from 'react-hook-form';
 import type { SubmissionView, UpdateSubmission } from '@shared/schemas/submissions';
 import { ApiError } from '../../../lib/api-client';
 import { createSubmission, updateSubmission } from '../api/save-submission';
-import { formPathOf, parsePayload, type FormValues } from './form-values';
+import { draftPayload, formPathOf, type FormValues } from './form-values';
 
 export type SaveState =
   | { kind: 'idle' }
   | { kind: 'pending' }
   | { kind: 'saving' }
-  | { kind: 'saved'; at: Date }
+  /** `unfinished`: rows the server holds as incomplete; they hold back only the send to review */
+  | { kind: 'saved'; at: Date; unfinished?: { path: string; message: string }[] }
   | { kind: 'incomplete'; issues: { path: string; message: string }[] }
   | { kind: 'error'; message: string; fields: number };
 
@@ -61,7 +62,8 @@ type Options = {
 /**
  * Saves the draft a moment after each change: the first save creates it (POST), later ones
  * replace it (PATCH). Saves run one at a time; a change during a save triggers one more.
- * An incomplete record is kept on this device until it passes the shared schema.
+ * A half-filled row is saved as incomplete beside the record; only a record that does not read
+ * without it (no title yet) waits on this device, and the status names the field it needs.
  */
 export function useAutosave({
   form,
@@ -88,8 +90,8 @@ export function useAutosave({
   const running = useRef<Promise<SubmissionView | null> | null>(null);
   const again = useRef(false);
   const [savedJson] = useState(() => {
-    const parsed = savedValues ? parsePayload(savedValues, swapSlug) : null;
-    return parsed?.ok ? JSON.stringify(parsed.payload) : null;
+    const draft = savedValues ? draftPayload(savedValues, swapSlug) : null;
+    return draft?.ok ? JSON.stringify({ ...draft.payload, incompleteRows: draft.incompleteRows }) : null;
   });
   const lastSaved = useRef<string | null>(savedJson);
   const changedSinceSave = useRef(false);
@@ -103,14 +105,16 @@ export function useAutosave({
   }, [submissionId]);
 
   const saveNow = useCallback(async (): Promise<SubmissionView | null> => {
-    const parsed = parsePayload(form.getValues(), swapSlug);
-    if (!parsed.ok) {
-      setState({ kind: 'incomplete', issues: parsed.issues });
+    const draft = draftPayload(form.getValues(), swapSlug);
+    if (!draft.ok) {
+      setState({ kind: 'incomplete', issues: draft.issues });
       return null;
     }
-    const json = JSON.stringify(parsed.payload);
+    const payload = { ...draft.payload, incompleteRows: draft.incompleteRows };
+    const unfinished = draft.unfinished;
+    const json = JSON.stringify(payload);
     if (json === lastSaved.current && idRef.current) {
-      setState((s) => (s.kind === 'saved' ? s : { kind: 'saved', at: new Date() }));
+      setState((s) => (s.kind === 'saved' ? { ...s, unfinished } : { kind: 'saved', at: new Date(), unfinished }));
       return null;
     }
     setState({ kind: 'saving' });
@@ -118,11 +122,11 @@ export function useAutosave({
     try {
       let view: SubmissionView;
       if (idRef.current) {
-        const { swapSlug: _slug, ...rest } = parsed.payload;
+        const { swapSlug: _slug, ...rest } = payload;
         void _slug;
         view = await updateSubmission(idRef.current, rest as UpdateSubmission);
       } else {
-        view = await createSubmission(basedOnRevisionId ? { ...parsed.payload, basedOnRevisionId } : parsed.payload);
+        view = await createSubmission(basedOnRevisionId ? { ...payload, basedOnRevisionId } : payload);
         idRef.current = view.id;
         if (callbacks.current.onCreated(view) === true) handedOff.current = true;
       }
@@ -130,7 +134,7 @@ export function useAutosave({
       if (serverErrorPaths.current.length) form.clearErrors(serverErrorPaths.current as never);
       serverErrorPaths.current = [];
       if (!changedSinceSave.current) clearBackup(backupKey);
-      setState({ kind: 'saved', at: new Date() });
+      setState({ kind: 'saved', at: new Date(), unfinished });
       callbacks.current.onSaved?.(view);
       return view;
     } catch (err) {

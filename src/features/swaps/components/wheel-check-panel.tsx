@@ -10,6 +10,7 @@ import { inToMm, mmToIn } from '@shared/fitment/units';
 import { useUnits } from '../../../lib/units';
 import { Select, TextInput } from '../../../components/ui/field';
 import { FitCheckCard } from '../../../components/fit-check-card';
+import { useTypedInUnits } from '../../../lib/use-typed-in-units';
 import { ClearanceCard, Figure, Verdict } from '../../../components/verdict';
 import { Button } from '../../../components/ui/button';
 import { SheetSection } from './sheet-section';
@@ -38,6 +39,15 @@ const empty: Form = {
   clamp: '',
   length: '',
 };
+/** the figures typed in the chosen length unit; they convert when the toggle flips */
+const lengths = {
+  spacer: 'length',
+  barrel: 'length',
+  spokeInset: 'length',
+  clamp: 'length',
+  length: 'length',
+  ballRadius: 'length',
+} as const;
 
 function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors: Partial<Record<keyof Form, string>> } {
   const errors: Partial<Record<keyof Form, string>> = {};
@@ -108,7 +118,7 @@ export function WheelCheckPanel({
 }) {
   const units = useUnits();
   const imperial = units.system === 'imperial';
-  const [form, setForm] = useState<Form>(empty);
+  const [form, setForm] = useTypedInUnits<Form>(empty, lengths);
   const [showMeasured, setShowMeasured] = useState(false);
   const { wheel, errors } = useMemo(() => parse(form, imperial), [form, imperial]);
   const result = useMemo(() => {

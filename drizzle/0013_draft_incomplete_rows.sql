@@ -1,0 +1,1 @@
+ALTER TABLE `revisions` ADD `incomplete_rows` text DEFAULT '[]' NOT NULL;
