@@ -16,7 +16,7 @@ export default defineConfig({
       },
       {
         extends: true,
-        test: { name: 'api', include: ['tests/api/**/*.test.ts'], environment: 'node', pool: 'forks', testTimeout: 20000 },
+        test: { name: 'api', include: ['tests/api/**/*.test.ts'], environment: 'node', pool: 'forks', testTimeout: 20000, hookTimeout: 30000 },
       },
       {
         extends: true,

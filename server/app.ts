@@ -28,6 +28,7 @@ import { takedownsRouter } from './features/takedowns/takedowns.router';
 import { outboxRouter } from './features/outbox/outbox.router';
 import { fittedReportsRouter } from './features/fitted-reports/fitted-reports.router';
 import { carsRouter } from './features/cars/cars.router';
+import { plansRouter } from './features/plans/plans.router';
 import { shopLinkRedirectRouter, shopPagesRouter, shopsRouter } from './features/shops/shops.router';
 import { graphRouter } from './features/graph/graph.router';
 import { exportRouter } from './features/export/export.router';
@@ -108,6 +109,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api', outboxRouter(deps));
   app.use('/api', fittedReportsRouter(deps));
   app.use('/api', carsRouter(deps));
+  app.use('/api', plansRouter(deps));
   app.use('/api', shopsRouter(deps));
   app.use('/api', graphRouter(deps));
   app.use('/api', exportRouter(deps));

@@ -28,6 +28,8 @@ export const pageRoutes = {
   reviewRevision: '/review/:revisionId',
   outbox: '/outbox',
   myCars: '/me/cars',
+  myPlans: '/me/plans',
+  plan: '/plans/:id',
   shop: '/shops/:slug',
   shopLinks: '/shop/links',
 } as const;

@@ -91,6 +91,18 @@ const carSchema = z.strictObject({
   tyre: text(40).default(''),
   spacerMm: z.number().min(0).max(60).default(0),
   vehicle: vehicleDataSchema.optional(),
+  /** approved swaps already fitted to the car, by slug */
+  fitted: z.array(slug).default([]),
+  otherChanges: text(1000).default(''),
+});
+
+/** a member's build plan; `car` names one of their cars by nickname */
+const planSchema = z.strictObject({
+  id: z.string().regex(/^[A-Za-z0-9_-]{10,32}$/),
+  title: text(80),
+  car: text(60).optional(),
+  swaps: z.array(slug).min(1),
+  at: date,
 });
 
 const usersFileSchema = z.array(
@@ -102,6 +114,7 @@ const usersFileSchema = z.array(
     shop: slug.optional(),
     joinedAt: date,
     cars: z.array(carSchema).default([]),
+    plans: z.array(planSchema).default([]),
   }),
 );
 
@@ -650,6 +663,9 @@ const deleteOrder = [
   'sessions',
   'mail_outbox',
   'user_changes',
+  'plan_swaps',
+  'plans',
+  'car_fitted_swaps',
   'shop_links',
   'flags',
   'fitted_reports',
@@ -909,12 +925,52 @@ function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, St
       .run();
   }
 
+  /** an approved swap by slug; the content names only approved swaps as fitted or planned */
+  const approvedSwap = (slug: string, where: string) => {
+    const row = tx.select().from(t.swaps).where(eq(t.swaps.slug, slug)).get();
+    if (!row || row.currentRevisionId === null) fail('users.json', `${where}: ${slug} is not an approved swap`);
+    return row!;
+  };
   for (const u of content.users) {
+    const carIds = new Map<string, number>();
     for (const car of u.cars) {
-      const { chassis: chassisSlug, ...rest } = car;
-      tx.insert(t.cars)
+      const { chassis: chassisSlug, fitted, ...rest } = car;
+      const carRow = tx
+        .insert(t.cars)
         .values({ userId: userId(u.login), chassisId: chassisIds.get(chassisSlug)!, ...rest, ...stamp(u.joinedAt) })
+        .returning()
+        .get();
+      carIds.set(car.nickname, carRow.id);
+      fitted.forEach((swapSlug, position) => {
+        const swap = approvedSwap(swapSlug, `${u.login}'s ${car.nickname}`);
+        tx.insert(t.carFittedSwaps)
+          .values({
+            carId: carRow.id,
+            swapId: swap.id,
+            revisionId: swap.currentRevisionId!,
+            position,
+            createdAt: new Date(u.joinedAt),
+          })
+          .run();
+      });
+    }
+    for (const plan of u.plans) {
+      const carId =
+        plan.car === undefined ? null : (carIds.get(plan.car) ?? fail('users.json', `${plan.id}: no car ${plan.car}`));
+      const swaps = plan.swaps.map((swapSlug) => approvedSwap(swapSlug, `plan ${plan.id}`));
+      tx.insert(t.plans)
+        .values({
+          id: plan.id,
+          title: plan.title,
+          chassisId: swaps[0]!.chassisId,
+          carId,
+          ownerId: userId(u.login),
+          ...stamp(plan.at),
+        })
         .run();
+      swaps.forEach((swap, position) =>
+        tx.insert(t.planSwaps).values({ planId: plan.id, swapId: swap.id, revisionId: swap.currentRevisionId!, position }).run(),
+      );
     }
   }
 

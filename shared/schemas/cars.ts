@@ -5,6 +5,8 @@ import { tyreSizeField } from './tyre-field';
 import type { ProfilePoint } from './swap-data';
 
 export { tyreSizeField };
+import { slugSchema } from './params';
+import type { PlanFittedView } from './plans';
 
 // API contract of "my cars": a member's own cars, used to check swaps against their wheel.
 
@@ -56,6 +58,12 @@ const carShape = {
       });
     })
     .nullable(),
+  /** approved swaps already fitted to the car: the car as it is */
+  fittedSwapSlugs: z
+    .array(slugSchema)
+    .max(12, 'At most 12 fitted swaps')
+    .refine((v) => new Set(v).size === v.length, 'A swap is listed twice'),
+  otherChanges: z.string().trim().max(1000, 'At most 1,000 characters'),
 };
 
 export const carInputSchema = z.object({
@@ -64,6 +72,8 @@ export const carInputSchema = z.object({
   spacerMm: num(z.number().min(0, 'Between 0 and 60 mm').max(60, 'Between 0 and 60 mm'), 0),
   vehicle: carShape.vehicle.default(null),
   wheelInsideProfile: carShape.wheelInsideProfile.default(null),
+  fittedSwapSlugs: carShape.fittedSwapSlugs.default([]),
+  otherChanges: carShape.otherChanges.default(''),
 });
 export type CarInput = z.infer<typeof carInputSchema>;
 
@@ -89,6 +99,9 @@ export type CarView = {
   vehicle: VehicleData | null;
   /** the wheel's inside in the plane through the axle (mounting face at z = 0, outboard positive); null until measured */
   wheelInsideProfile: ProfilePoint[] | null;
+  /** approved swaps fitted to the car, at the revision fitted */
+  fitted: PlanFittedView[];
+  otherChanges: string;
   createdAt: string;
   updatedAt: string;
 };

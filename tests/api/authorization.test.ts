@@ -13,6 +13,8 @@ import {
   fittedReports,
   flags,
   parts,
+  planSwaps,
+  plans,
   revisionPhotos,
   reviewReasonTemplates,
   shopLinks,
@@ -155,6 +157,15 @@ const table: Record<string, Row> = {
   'POST /api/cars': signedIn(),
   'PATCH /api/cars/:id': ownerOnly,
   'DELETE /api/cars/:id': ownerOnly,
+  // anyone makes a plan (a visitor's is kept by their device) and anyone with its address reads it;
+  // only its owner (or the device that made it) changes it
+  'POST /api/plans': publicRoute,
+  'GET /api/plans/:id': publicRoute,
+  'PATCH /api/plans/:id': { ...ownerOnly, anon: 'deny' },
+  'POST /api/plans/:id/refresh': { ...ownerOnly, anon: 'deny' },
+  'DELETE /api/plans/:id': { ...ownerOnly, anon: 'deny' },
+  'GET /api/me/plans': signedIn(),
+  'POST /api/me/plans/adopt': signedIn(),
   'GET /api/shops/:slug': publicRoute,
   'PATCH /api/shops/:slug': ownShop,
   'GET /api/shop-links': { ...ownShop, otherShop: 'ok', admin: 'ok' },
@@ -272,6 +283,14 @@ async function world() {
     })
     .returning()
     .get();
+  t.db
+    .insert(plans)
+    .values({ id: 'plan-owned-1', chassisId: c.id, carId: car.id, ownerId: users.owner.id, createdAt: now, updatedAt: now })
+    .run();
+  t.db
+    .insert(planSwaps)
+    .values({ planId: 'plan-owned-1', swapId: approved.swapId, revisionId: approved.revisionIds[0]!, position: 0 })
+    .run();
   const report = t.db
     .insert(fittedReports)
     .values({
@@ -322,6 +341,7 @@ async function world() {
     admin: { id: users.member.id },
     submissions: { id: draft.revisionIds[0] },
     cars: { id: car.id },
+    plans: { id: 'plan-owned-1' },
     templates: { id: template.id },
     flags: { id: flag.id },
     takedowns: { id: takedown.id },
@@ -369,6 +389,9 @@ const bodies: Record<string, object> = {
   'POST /api/cars': { chassisId: 1, nickname: 'Weekend car', wheelDiameterIn: 16, wheelWidthIn: 7, wheelOffsetMm: 38 },
   'PATCH /api/cars/:id': { nickname: 'Renamed' },
   'PATCH /api/chassis/:slug/vehicle': { vehicle: null },
+  'POST /api/plans': { chassisId: 1, swapSlugs: ['h31-vela-front'] },
+  'PATCH /api/plans/:id': { title: 'Both axles' },
+  'POST /api/me/plans/adopt': { plans: [{ id: 'plan-visitor-1', deviceKey: 'k'.repeat(24) }] },
   'PATCH /api/shops/:slug': { about: 'Brake work since 1998' },
   'POST /api/shop-links': { swapSlug: 'h31-vela-front', note: 'As quoted' },
   'PATCH /api/shop-links/:code': { note: 'Updated note' },

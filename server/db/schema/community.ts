@@ -130,6 +130,8 @@ export const cars = sqliteTable(
     vehicle: text('vehicle', { mode: 'json' }).$type<VehicleData>(),
     /** the wheel's inside surface in the plane through the axle, (z, r) points; null until the member measures it */
     wheelInsideProfile: text('wheel_inside_profile', { mode: 'json' }).$type<ProfilePoint[]>(),
+    /** what else was changed on the car, in the member's words */
+    otherChanges: text('other_changes').notNull().default(''),
     ...timestamps,
   },
   (t) => [index('cars_user_idx').on(t.userId)],

@@ -3,3 +3,4 @@ export * from './catalogue';
 export * from './swaps';
 export * from './community';
 export * from './interchange';
+export * from './plans';

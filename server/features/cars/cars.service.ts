@@ -5,11 +5,12 @@ import type { Clock } from '../../lib/clock';
 import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
 import { MAX_CARS, type CarInput, type CarUpdate, type CarView } from '../../../shared/schemas/cars';
+import { fittedSwapsOf, setFittedSwaps } from './fitted-swaps';
 
 type CarRow = typeof cars.$inferSelect;
 type ChassisRow = typeof chassis.$inferSelect;
 
-function carView(car: CarRow, c: ChassisRow): CarView {
+function carView(db: Db, car: CarRow, c: ChassisRow, fitted = fittedSwapsOf(db, [car.id])): CarView {
   return {
     id: car.id,
     nickname: car.nickname,
@@ -21,6 +22,8 @@ function carView(car: CarRow, c: ChassisRow): CarView {
     spacerMm: car.spacerMm,
     vehicle: car.vehicle ?? null,
     wheelInsideProfile: car.wheelInsideProfile ?? null,
+    fitted: (fitted.get(car.id) ?? []).map((f) => f.view),
+    otherChanges: car.otherChanges,
     createdAt: car.createdAt.toISOString(),
     updatedAt: car.updatedAt.toISOString(),
   };
@@ -34,14 +37,18 @@ function knownChassis(db: Db, chassisId: number) {
 }
 
 export function listCars(db: Db, userId: number): CarView[] {
-  return db
+  const rows = db
     .select({ car: cars, chassis })
     .from(cars)
     .innerJoin(chassis, eq(chassis.id, cars.chassisId))
     .where(eq(cars.userId, userId))
     .orderBy(asc(cars.createdAt), asc(cars.id))
-    .all()
-    .map((r) => carView(r.car, r.chassis));
+    .all();
+  const fitted = fittedSwapsOf(
+    db,
+    rows.map((r) => r.car.id),
+  );
+  return rows.map((r) => carView(db, r.car, r.chassis, fitted));
 }
 
 export function createCar(db: Db, clock: Clock, userId: number, input: CarInput): CarView {
@@ -49,12 +56,17 @@ export function createCar(db: Db, clock: Clock, userId: number, input: CarInput)
   const owned = db.select({ n: count() }).from(cars).where(eq(cars.userId, userId)).get()?.n ?? 0;
   if (owned >= MAX_CARS) throw AppError.conflict(`You can keep up to ${MAX_CARS} cars. Remove one first.`);
   const now = clock.now();
-  const row = db
-    .insert(cars)
-    .values({ ...input, nickname: stripHtml(input.nickname).trim() || 'My car', userId, createdAt: now, updatedAt: now })
-    .returning()
-    .get();
-  return carView(row, c);
+  const { fittedSwapSlugs, ...fields } = input;
+  const row = db.transaction(() => {
+    const inserted = db
+      .insert(cars)
+      .values({ ...fields, nickname: stripHtml(input.nickname).trim() || 'My car', userId, createdAt: now, updatedAt: now })
+      .returning()
+      .get();
+    setFittedSwaps(db, inserted.id, c.id, fittedSwapSlugs, now);
+    return inserted;
+  });
+  return carView(db, row, c);
 }
 
 /** Only the owner sees or changes a car; anyone else gets the same answer as for a car that does not exist. */
@@ -71,15 +83,24 @@ function ownCar(db: Db, userId: number, id: number) {
 export function updateCar(db: Db, clock: Clock, userId: number, id: number, input: CarUpdate): CarView {
   const existing = ownCar(db, userId, id);
   const c = knownChassis(db, input.chassisId ?? existing.chassisId);
-  const changes = Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)) as CarUpdate;
+  const { fittedSwapSlugs, ...changes } = Object.fromEntries(
+    Object.entries(input).filter(([, v]) => v !== undefined),
+  ) as CarUpdate;
   if (changes.nickname !== undefined) changes.nickname = stripHtml(changes.nickname).trim() || existing.nickname;
-  const row = db
-    .update(cars)
-    .set({ ...changes, updatedAt: clock.now() })
-    .where(eq(cars.id, existing.id))
-    .returning()
-    .get();
-  return carView(row, c);
+  const now = clock.now();
+  const row = db.transaction(() => {
+    const updated = db
+      .update(cars)
+      .set({ ...changes, updatedAt: now })
+      .where(eq(cars.id, existing.id))
+      .returning()
+      .get();
+    // a car moved to another chassis cannot keep swaps made for the old one
+    const slugs = fittedSwapSlugs ?? (input.chassisId !== undefined && input.chassisId !== existing.chassisId ? [] : undefined);
+    if (slugs !== undefined) setFittedSwaps(db, existing.id, c.id, slugs, now);
+    return updated;
+  });
+  return carView(db, row, c);
 }
 
 export function deleteCar(db: Db, userId: number, id: number) {

@@ -7,7 +7,6 @@ import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
 import type { SessionUser } from '../../middleware/require-role';
 import { can } from '../../../shared/roles';
-import { compareRevisions, summariseChanges } from '../../../shared/revision-changes';
 import type {
   CreateShopLink,
   NewerRevision,
@@ -20,6 +19,7 @@ import type {
 } from '../../../shared/schemas/shops';
 import { getSwapSheet } from '../swaps/swaps.service';
 import { swapCards } from '../swaps/swap-views';
+import { newerRevisionOf } from '../swaps/newer-revision';
 
 type ShopRow = typeof shops.$inferSelect;
 type LinkRow = typeof shopLinks.$inferSelect;
@@ -81,30 +81,6 @@ const alphabet = 'abcdefghjkmnpqrstuvwxyz23456789';
 function newCode(length = 7) {
   const bytes = crypto.randomBytes(length);
   return Array.from(bytes, (b) => alphabet[b % alphabet.length]).join('');
-}
-
-/** "A newer revision exists" for a link pinned to `revisionId`, with one line on what changed; null while it is still current. */
-function newerRevisionOf(
-  db: Db,
-  swap: typeof swaps.$inferSelect,
-  revisionId: number,
-  cache = new Map<string, NewerRevision | null>(),
-): NewerRevision | null {
-  if (swap.currentRevisionId === null || swap.currentRevisionId === revisionId) return null;
-  const key = `${revisionId}:${swap.currentRevisionId}`;
-  if (cache.has(key)) return cache.get(key)!;
-  const [pinned, current] = [revisionId, swap.currentRevisionId].map((id) =>
-    db.select().from(revisions).where(eq(revisions.id, id)).get()!,
-  );
-  const result =
-    current.number > pinned.number
-      ? {
-          number: current.number,
-          summary: summariseChanges(compareRevisions(pinned, current)),
-        }
-      : null;
-  cache.set(key, result);
-  return result;
 }
 
 function linkItems(

@@ -4,6 +4,8 @@ import { UnitsToggle } from '../../components/units-toggle';
 import { Footer } from './footer';
 import { Loading } from '../../components/ui/query-state';
 import { AccountMenu } from '../../features/account/components/account-menu';
+import { AdoptDevicePlans } from '../../features/plans/components/adopt-device-plans';
+import { useMe } from '../../features/account/api/get-me';
 
 const nav = [
   { to: '/search', label: 'Find a swap' },
@@ -29,10 +31,12 @@ function Logo() {
 export function Shell({ loading = false }: { loading?: boolean }) {
   const [open, setOpen] = useState(false);
   const location = useLocation();
+  const me = useMe();
   const linkClass = ({ isActive }: { isActive: boolean }) =>
     `rounded-md px-3 py-2 text-sm font-bold ${isActive ? 'bg-paper/15 text-paper' : 'text-paper/85 hover:text-paper'}`;
   return (
     <div className="flex min-h-screen flex-col">
+      <AdoptDevicePlans signedIn={Boolean(me.data?.user)} />
       <a
         href="#main"
         className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-paper focus:px-3 focus:py-2"

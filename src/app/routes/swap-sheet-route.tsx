@@ -11,6 +11,9 @@ import { FlagSwapForm } from '../../features/swaps/components/flag-swap-form';
 import { MakeShopLinkPanel } from '../../features/shops/components/make-shop-link-panel';
 import { RetiredLinkBanner, ShopLinkBanner } from '../../features/shops/components/shop-link-banner';
 import { usePinnedSheet } from '../../features/shops/api/shop-links';
+import { PlanTrayPanel } from '../../features/plans/components/plan-tray-panel';
+import { CarAsItIsNote } from '../../features/plans/components/car-as-it-is-note';
+import { carsOnChassis, useMyCars } from '../../features/cars/api/get-cars';
 import { Page } from '../../components/ui/page';
 import { ErrorNotice, Loading } from '../../components/ui/query-state';
 import { ApiError } from '../../lib/api-client';
@@ -34,6 +37,7 @@ export default function SwapSheetRoute() {
   const location = useLocation();
   const presets = useCarWheelPresets(sheet.data?.chassis.slug ?? '', Boolean(user));
   const ownFigures = useCarFigures(Boolean(user));
+  const myCars = useMyCars(Boolean(user));
 
   if (sheet.isPending || (via && pinned.isPending))
     return (
@@ -77,6 +81,11 @@ export default function SwapSheetRoute() {
             revisions={view.history}
             shownNumber={view.revision.number}
             onChanged={refreshSheet}
+          />
+          <CarAsItIsNote swapSlug={view.swap.slug} cars={carsOnChassis(myCars.data, view.chassis.slug)} />
+          <PlanTrayPanel
+            swap={{ slug: view.swap.slug, title: view.revision.data.title, axle: view.swap.axle }}
+            chassis={{ id: view.chassis.id, name: `${view.chassis.make} ${view.chassis.model}` }}
           />
           <FlagSwapForm slug={view.swap.slug} signedIn={Boolean(user)} />
           {can(user?.role, 'review') && (

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { CarList, CarView } from '@shared/schemas/cars';
-import type { ChassisView } from '@shared/schemas/views';
+import type { ChassisPageView, ChassisView } from '@shared/schemas/views';
 import { api } from '../../../lib/api-client';
 import { carKeys } from './car-keys';
 
@@ -26,3 +26,12 @@ export const useChassisOptions = () => useQuery(chassisOptionsQueryOptions());
 export function carsOnChassis(cars: CarView[] | undefined, chassisSlug: string) {
   return (cars ?? []).filter((c) => c.chassis.slug === chassisSlug);
 }
+
+/** The approved swaps of one chassis, offered as "fitted to this car". */
+export const useChassisSwaps = (slug: string | null) =>
+  useQuery({
+    queryKey: carKeys.chassisSwaps(slug ?? ''),
+    queryFn: () => api<ChassisPageView>(`/api/chassis/${slug}`).then((r) => r.swaps),
+    enabled: Boolean(slug),
+    staleTime: 5 * 60_000,
+  });

@@ -17,6 +17,7 @@ import {
   type VehicleForm,
 } from '../../../components/vehicle-fields';
 import { profileOf, rowsOf, WheelProfileFields, type ProfileRow } from './wheel-profile-fields';
+import { FittedSwapsFields, type FittedForm } from './fitted-swaps-fields';
 
 type Form = Record<'chassisId' | 'nickname' | 'wheelDiameterIn' | 'wheelWidthIn' | 'wheelOffsetMm' | 'tyre' | 'spacer', string>;
 
@@ -60,6 +61,10 @@ export function CarForm({
     () => vehicleFormOf(car?.vehicle ?? null, imperial, Boolean(car?.vehicle)),
     vehicleQuantities,
   );
+  const [fitted, setFitted] = useState<FittedForm>(() => ({
+    slugs: car?.fitted.map((f) => f.slug) ?? [],
+    otherChanges: car?.otherChanges ?? '',
+  }));
   const chosen = chassisList.data?.find((c) => String(c.id) === form.chassisId) ?? null;
   const [profileRows, setProfileRows] = useState<ProfileRow[]>(() => rowsOf(car?.wheelInsideProfile ?? null, imperial));
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -78,6 +83,8 @@ export function CarForm({
       spacer: undefined,
       vehicle: vehicleInputOf(vehicle, imperial),
       wheelInsideProfile: profileOf(profileRows, imperial),
+      fittedSwapSlugs: fitted.slugs,
+      otherChanges: fitted.otherChanges,
     });
     if (!parsed.success) {
       const fields = fieldErrors(parsed.error.issues);
@@ -91,6 +98,7 @@ export function CarForm({
         setForm(blank);
         setVehicle(vehicleFormOf(null, imperial, false));
         setProfileRows([]);
+        setFitted({ slugs: [], otherChanges: '' });
       }
     } catch (err) {
       if (err instanceof ApiError) {
@@ -111,9 +119,11 @@ export function CarForm({
         <ChassisCombobox
           options={chassisList.data ?? []}
           value={chosen?.slug ?? null}
-          onChange={(slug) =>
-            setForm((f) => ({ ...f, chassisId: String(chassisList.data?.find((c) => c.slug === slug)?.id ?? '') }))
-          }
+          onChange={(slug) => {
+            setForm((f) => ({ ...f, chassisId: String(chassisList.data?.find((c) => c.slug === slug)?.id ?? '') }));
+            // swaps are made for one chassis: a car moved to another starts with none fitted
+            if (slug !== chosen?.slug) setFitted((f) => ({ ...f, slugs: [] }));
+          }}
           placeholder={chassisList.isPending ? 'Loading chassis…' : 'Make, model, code or year'}
           hint="Type to pick, e.g. H31 or 1995"
         />
@@ -180,6 +190,7 @@ export function CarForm({
         chassisName={chosen ? `${chosen.make} ${chosen.model}` : null}
       />
       <WheelProfileFields rows={profileRows} onChange={setProfileRows} errors={errors} />
+      <FittedSwapsFields chassisSlug={chosen?.slug ?? null} form={fitted} onChange={setFitted} errors={errors} />
       <div className="flex flex-wrap items-end gap-2 sm:col-span-2 lg:col-span-3">
         <Button type="submit" disabled={saving}>
           {saving ? 'Saving…' : car ? 'Save changes' : 'Add car'}

@@ -95,6 +95,21 @@ function CarCard({ car }: { car: CarView }) {
           <dd className="font-extrabold">{car.spacerMm > 0 ? units.length(car.spacerMm) : 'None'}</dd>
         </div>
       </dl>
+      <div className="mt-2 text-sm" data-car-fitted>
+        <p className="font-bold text-graphite">{car.fitted.length ? 'Fitted' : 'Stock brakes and wheels'}</p>
+        {car.fitted.length > 0 && (
+          <ul className="list-disc pl-5 text-graphite">
+            {car.fitted.map((f) => (
+              <li key={f.slug}>
+                <Link to={paths.swapRevision(f.slug, f.revisionNumber)} className="text-ink underline">
+                  {f.title}
+                </Link>
+              </li>
+            ))}
+          </ul>
+        )}
+        {car.otherChanges && <p className="text-graphite-soft">Also: {car.otherChanges}</p>}
+      </div>
       <p className="mt-2 text-xs text-graphite-soft" data-car-figures>
         {car.vehicle ? 'Brake balance: this car’s own figures.' : 'Brake balance: the chassis’ stock figures.'}
       </p>
