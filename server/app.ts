@@ -33,6 +33,7 @@ import { shopLinkRedirectRouter, shopPagesRouter, shopsRouter } from './features
 import { graphRouter } from './features/graph/graph.router';
 import { exportRouter } from './features/export/export.router';
 import { openApiRouter } from './features/openapi/openapi.router';
+import { pageHeadsRouter, shareRouter } from './features/share/share.router';
 
 export type AppDeps = {
   db: Db;
@@ -126,10 +127,12 @@ export function createApp(deps: AppDeps) {
       setHeaders: (res) => res.set('Cache-Control', 'public, max-age=3600'),
     }),
   );
+  app.use(shareRouter(deps));
 
   app.use('/api', apiNotFound);
   // pages in front of the client, so an address naming nothing answers 404
-  if (deps.client) app.use(swapPagesRouter(deps), cataloguePagesRouter(deps), shopPagesRouter(deps), ...deps.client);
+  if (deps.client)
+    app.use(swapPagesRouter(deps), cataloguePagesRouter(deps), shopPagesRouter(deps), pageHeadsRouter(deps), ...deps.client);
   app.use(errorHandler(logger));
   return app;
 }

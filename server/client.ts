@@ -2,6 +2,7 @@ import express, { type Request, type RequestHandler, type Response } from 'expre
 import path from 'node:path';
 import fs from 'node:fs';
 import { matchPage } from '../shared/page-routes';
+import { withPageHead, type PageHead } from './lib/page-head';
 
 const root = path.resolve(import.meta.dirname, '..');
 
@@ -13,6 +14,12 @@ export function pageStatus(req: Request, res: Response): number {
   const decided = res.locals.pageStatus as number | undefined;
   if (decided) return decided;
   return matchPage(req.path) ? 200 : 404;
+}
+
+/** The page's HTML with its own head, when the pages in front of the client decided one. */
+function pageHtml(res: Response, html: string): string {
+  const head = res.locals.pageHead as PageHead | undefined;
+  return head ? withPageHead(html, head) : html;
 }
 
 /** Production: the built files, long-cached when hashed, and index.html for every client route. */
@@ -33,7 +40,7 @@ export function staticClient(dist = path.join(root, 'dist')): RequestHandler[] {
   );
   router.use(express.static(dist, { index: false, maxAge: '1h' }));
   router.get('/{*splat}', (req, res) => {
-    res.status(pageStatus(req, res)).set('Cache-Control', 'no-cache').type('html').send(currentIndex());
+    res.status(pageStatus(req, res)).set('Cache-Control', 'no-cache').type('html').send(pageHtml(res, currentIndex()));
   });
   return [router];
 }
@@ -48,7 +55,7 @@ export async function viteClient(): Promise<{ handlers: RequestHandler[]; close:
   router.get('/{*splat}', async (req, res, next) => {
     try {
       const html = await vite.transformIndexHtml(req.originalUrl, fs.readFileSync(indexFile, 'utf8'));
-      res.status(pageStatus(req, res)).type('html').send(html);
+      res.status(pageStatus(req, res)).type('html').send(pageHtml(res, html));
     } catch (err) {
       vite.ssrFixStacktrace(err as Error);
       next(err);

@@ -3,9 +3,9 @@ import type { SwapCard as SwapCardData } from '@shared/schemas/views';
 import { categoryLabels } from '@shared/schemas/enums';
 import { Badge } from './ui/badge';
 import { paths } from '../config/paths';
+import { chassisLabel } from '@shared/chassis-label';
 
-export const chassisLabel = (c: { make: string; model: string; code: string; yearFrom: number; yearTo: number | null }) =>
-  `${c.make} ${c.model} (${c.code === c.model ? '' : `${c.code}, `}${c.yearFrom}–${c.yearTo ?? 'on'})`;
+export { chassisLabel } from '@shared/chassis-label';
 
 export function SwapCard({ swap }: { swap: SwapCardData }) {
   return (

@@ -179,6 +179,9 @@ const table: Record<string, Row> = {
   // the photo in the world belongs to the owner's never-submitted draft: only its author may see it
   'GET /media/:id': { anon: 404, member: 404, owner: 'ok', shop: 404, otherShop: 404, moderator: 404, admin: 404 },
   'GET /l/:code': publicRoute,
+  // the same for everyone: approved swaps and the catalogue only
+  'GET /sitemap.xml': publicRoute,
+  'GET /robots.txt': publicRoute,
 };
 
 type Layer = { route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: Layer[] }; rawPath?: unknown };

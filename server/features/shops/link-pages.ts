@@ -1,8 +1,7 @@
 // The two small pages GET /l/:code answers with when it cannot redirect. They are plain server HTML, so
 // a customer scanning a QR code on a slow phone sees the answer at once.
 
-const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+import { escapeHtml } from '../../lib/html';
 
 function page(title: string, body: string) {
   return `<!doctype html>

@@ -41,7 +41,7 @@ export default function SwapSheetRoute() {
 
   if (sheet.isPending || (via && pinned.isPending))
     return (
-      <Page title="Swap">
+      <Page>
         <Loading label="Loading the swap sheet…" />
       </Page>
     );

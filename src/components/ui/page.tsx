@@ -1,6 +1,9 @@
 import { useEffect, type ReactNode } from 'react';
 
-/** Sets the document title and gives the page its heading and width. */
+/**
+ * Sets the document title and gives the page its heading and width. A page still loading passes no title,
+ * so the title the server wrote for the address stays until the page knows its own (the same words).
+ */
 export function Page({
   title,
   heading,
@@ -8,14 +11,14 @@ export function Page({
   actions,
   children,
 }: {
-  title: string;
+  title?: string;
   heading?: ReactNode;
   lead?: ReactNode;
   actions?: ReactNode;
   children: ReactNode;
 }) {
   useEffect(() => {
-    document.title = `${title} · Swapyard`;
+    if (title) document.title = `${title} · Swapyard`;
   }, [title]);
   return (
     <div className="mx-auto w-full max-w-sheet px-4 py-6 sm:px-6 sm:py-10 print:max-w-none print:p-0">

@@ -18,7 +18,7 @@ export default function ShopPage() {
   const [editing, setEditing] = useState(false);
   if (query.isPending)
     return (
-      <Page title="Shop">
+      <Page>
         <Loading label="Loading the shop…" />
       </Page>
     );

@@ -30,7 +30,7 @@ export default function ChassisPage({ intro, cardNote, donors, canEditFigures = 
   const { length } = useUnits();
   if (query.isPending)
     return (
-      <Page title="Chassis">
+      <Page>
         <Loading />
       </Page>
     );

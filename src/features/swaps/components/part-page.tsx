@@ -36,7 +36,7 @@ export default function PartPage({ reach }: PartPageProps = {}) {
   const { length } = useUnits();
   if (query.isPending)
     return (
-      <Page title="Part">
+      <Page>
         <Loading />
       </Page>
     );

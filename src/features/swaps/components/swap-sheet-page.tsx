@@ -43,7 +43,7 @@ export default function SwapSheetPage() {
   const query = useSwap(slug, Number.isInteger(number) ? number : undefined);
   if (query.isPending)
     return (
-      <Page title="Swap">
+      <Page>
         <Loading label="Loading the swap sheet…" />
       </Page>
     );
