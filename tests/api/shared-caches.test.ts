@@ -4,6 +4,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { makeTestApp, type TestApp } from './support/test-app';
 import { addUser, csrfToken, signIn } from './support/auth-helpers';
+import { addChassis } from './support/swap-fixtures';
+import { addSwap } from './support/swap-rows';
 import { createApp } from '../../server/app';
 import { staticClient } from '../../server/client';
 import { sharedCacheMayStore } from '../../server/middleware/shared-cache';
@@ -36,7 +38,9 @@ describe('the built client behind a shared cache', () => {
     });
     const server = app.listen(0);
     try {
-      addUser(t.db, 'gauge_mo', 'moderator');
+      const moderator = addUser(t.db, 'gauge_mo', 'moderator');
+      // a swap page answers 404 unless the swap exists
+      addSwap(t.db, { slug: 'h31-vela-front', chassisId: addChassis(t.db).id, authorId: moderator.id, revisions: [{ status: 'approved' }] });
       const mo = request.agent(server);
       await signIn(mo, 'gauge_mo');
       await csrfToken(mo);
