@@ -1,7 +1,7 @@
 import { and, asc, eq, gt, sql } from 'drizzle-orm';
 import { stringify } from 'csv-stringify/sync';
 import type { Db } from '../../db/client';
-import { chassis, revisions, swaps, users } from '../../db/schema/index';
+import { chassis, revisions, swaps, takedowns, users } from '../../db/schema/index';
 import { licenceLine, OPEN_DATA_LICENCE, type ExportedSwap } from '../../../shared/schemas/export';
 import { SWAP_DATA_VERSION, type SwapData } from '../../../shared/schemas/swap-data';
 import { upgradeSwapData } from '../../../shared/schemas/swap-data-upgrade';
@@ -21,7 +21,11 @@ function batchAfter(db: Db, afterId: number) {
         number: revisions.number,
         reviewedAt: revisions.reviewedAt,
         updatedAt: revisions.updatedAt,
-        body: revisions.body,
+        // a write-up a moderator took down is published as empty, as the sheet shows it
+        body: sql<string>`case when exists (
+          select 1 from ${takedowns} t
+          where t.revision_id = ${revisions.id} and t.target = 'body' and t.reverted_at is null
+        ) then '' else ${revisions.body} end`,
       },
       // the stored text, not the column's reading of it: see `recordOf`
       data: sql<string>`${revisions.data}`,
