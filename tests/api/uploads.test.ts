@@ -260,7 +260,7 @@ describe('POST /api/submissions/:id/photos — refused, and nothing changes', ()
     await expectNothingStored(() => request(server).post(`/api/submissions/${id}/photos`).attach('photos', jpeg, 'a.jpg'), 401);
     expect((await rosa.agent.post(`/api/submissions/${id}/submit`).set('x-csrf-token', rosa.token)).status).toBe(200);
     const res = await expectNothingStored(() => upload(rosa, id).attach('photos', jpeg, 'a.jpg'), 409);
-    expect(res.body.error.message).toMatch(/in review/);
+    expect(res.body.error.message).toMatch(/at the review desk/);
   });
 });
 
