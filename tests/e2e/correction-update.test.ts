@@ -119,7 +119,7 @@ describe('a correction behind the current revision', () => {
     expect((await newer.locator('li', { hasText: 'Wheel to hub' }).innerText()).replace(/\s+/g, ' ')).toMatch(
       /Torque was 110 N·m now 120 N·m/i,
     );
-    await expect.poll(() => page.getByRole('radio', { name: /Approve/ }).isDisabled()).toBe(true);
+    await expect.poll(() => page.getByRole('radio', { name: /Publish/ }).isDisabled()).toBe(true);
     expect(await page.getByRole('radio', { name: /Send back/ }).isChecked()).toBe(true);
     await page.getByRole('button', { name: 'Send back' }).click();
     await page.getByTestId('cannot-decide').getByText('Sent back to the author').waitFor();
