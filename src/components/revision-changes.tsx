@@ -42,7 +42,7 @@ const stamps: Record<RowChange['change'], { word: string; look: string; row: str
     look: 'border border-graphite/40 text-graphite-soft',
     row: 'border-dashed border-graphite/30 bg-paper',
   },
-  changed: { word: 'Changed', look: 'bg-brass text-paper', row: 'border-brass/40 bg-paper-card' },
+  changed: { word: 'Changed', look: 'bg-brass-deep text-paper', row: 'border-brass/40 bg-paper-card' },
 };
 
 function Stamp({ change }: { change: RowChange['change'] }) {

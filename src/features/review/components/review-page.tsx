@@ -19,7 +19,7 @@ const when = (iso: string | null) =>
 // the desk's own look: a tally of the three results, then one card per check with its tag
 const checkLook: Record<CheckResult['status'], { tag: string; card: string }> = {
   fail: { tag: 'bg-oxide text-paper', card: 'border-l-oxide bg-oxide-soft/60' },
-  attention: { tag: 'bg-brass text-paper', card: 'border-l-brass bg-brass-soft/40' },
+  attention: { tag: 'bg-brass-deep text-paper', card: 'border-l-brass bg-brass-soft/40' },
   pass: { tag: 'border border-ink/40 text-ink', card: 'border-l-ink/40 bg-paper-card' },
 };
 const checkOrder: CheckResult['status'][] = ['fail', 'attention', 'pass'];

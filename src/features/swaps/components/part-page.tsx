@@ -64,6 +64,8 @@ export default function PartPage({ reach }: PartPageProps = {}) {
         </span>
       }
     >
+      {/* the cards' headings sit under this one, so the page's outline has no gap */}
+      <h2 className="sr-only">About the part</h2>
       <div className="grid gap-4 md:grid-cols-3">
         <SpecCard title="Specs" rows={Object.entries(part.specs).map(([k, v]) => [specLabels[k] ?? k, show(k, v)])} />
         <SpecCard
