@@ -27,6 +27,7 @@ import {
   shimJointLabels,
   wheelMaterialLabels,
   wheelOutcomeLabels,
+  axleWord,
 } from './schemas/swap-data-labels';
 
 // What changed between two revisions of a swap, in the words of the sheet: rows of a list are
@@ -193,8 +194,6 @@ function single<T>(before: T | null, after: T | null, fields: Fields<T>, name: s
   if (before) return [{ change: 'removed', name, fields: facts(before, fields, 'before') }];
   return [];
 }
-
-const axleWord = (axle: 'front' | 'rear') => (axle === 'front' ? 'Front' : 'Rear');
 
 // ---------- the sections ----------
 

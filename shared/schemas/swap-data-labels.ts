@@ -48,8 +48,14 @@ export const wheelOutcomeLabels: Record<WheelOutcome, string> = {
   fits_with_change: 'Fits with a change',
 };
 
-export const caliperTypeLabels: Labels<typeof caliperTypes> = { fixed: 'Fixed (opposed pistons)', floating: 'Floating (sliding)' };
-export const mountTypeLabels: Labels<typeof mountTypes> = { axial: 'Axial (bolts along the axle)', radial: 'Radial (bolts towards the axle)' };
+export const caliperTypeLabels: Labels<typeof caliperTypes> = {
+  fixed: 'Fixed (opposed pistons)',
+  floating: 'Floating (sliding)',
+};
+export const mountTypeLabels: Labels<typeof mountTypes> = {
+  axial: 'Axial (bolts along the axle)',
+  radial: 'Radial (bolts towards the axle)',
+};
 export const shimJointLabels: Labels<typeof shimJoints> = {
   bracket_to_knuckle: 'Between bracket and knuckle',
   caliper_to_bracket: 'Between caliper and bracket',
@@ -83,3 +89,6 @@ export const drumShoeTypeLabels: Labels<typeof drumShoeTypes> = {
   twin_leading: 'Twin leading',
   duo_servo: 'Duo-servo',
 };
+
+/** an axle in a label: "Front", "Rear" */
+export const axleWord = (axle: 'front' | 'rear') => (axle === 'front' ? 'Front' : 'Rear');

@@ -1,7 +1,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { carFittedSwaps, cars, revisions, swaps } from '../../db/schema/index';
-import { AppError } from '../../lib/app-error';
+import { approvedSwapsOn } from '../swaps/approved-swaps';
 import type { PlanSwap } from '../../../shared/fitment/plan';
 import type { WheelUnderTest } from '../../../shared/fitment/swap-checks';
 import type { PlanFittedView, PlanView } from '../../../shared/schemas/plans';
@@ -33,15 +33,13 @@ export function fittedSwapsOf(db: Db, carIds: number[]): Map<number, Fitted[]> {
 
 /** Replaces the car's fitted swaps; each must be approved and for the car's chassis. Run inside the car's write. */
 export function setFittedSwaps(db: Db, carId: number, chassisId: number, slugs: string[], now: Date) {
-  const rows = slugs.length ? db.select().from(swaps).where(inArray(swaps.slug, slugs)).all() : [];
-  const fields: Record<string, string> = {};
-  const found = slugs.map((slug, i) => {
-    const row = rows.find((r) => r.slug === slug);
-    if (!row || row.currentRevisionId === null) fields[`fittedSwapSlugs.${i}`] = `No approved swap “${slug}”`;
-    else if (row.chassisId !== chassisId) fields[`fittedSwapSlugs.${i}`] = 'That swap is for another chassis';
-    return row!;
-  });
-  if (Object.keys(fields).length) throw AppError.invalid('Fitted swaps are approved swaps for the car’s chassis.', fields);
+  const found = approvedSwapsOn(
+    db,
+    slugs,
+    chassisId,
+    'fittedSwapSlugs',
+    'Fitted swaps are approved swaps for the car’s chassis.',
+  );
 
   const before = new Map(
     db

@@ -19,6 +19,7 @@ import type {
 import type { NewerRevision } from '../../../shared/schemas/shops';
 import { chassisView } from '../swaps/swap-views';
 import { newerRevisionOf } from '../swaps/newer-revision';
+import { approvedSwapsOn } from '../swaps/approved-swaps';
 import { carAsItIs } from '../cars/fitted-swaps';
 
 type SwapRow = typeof swaps.$inferSelect;
@@ -27,18 +28,8 @@ type PlanRow = typeof plans.$inferSelect;
 const randomId = (bytes: number) => crypto.randomBytes(bytes).toString('base64url');
 const hashKey = (key: string) => crypto.createHash('sha256').update(key).digest('hex');
 
-/** The approved swaps a plan names, in its order; every problem names the list position it is at. */
 function approvedSwaps(db: Db, slugs: string[], chassisId: number): SwapRow[] {
-  const rows = db.select().from(swaps).where(inArray(swaps.slug, slugs)).all();
-  const fields: Record<string, string> = {};
-  const found = slugs.map((slug, i) => {
-    const row = rows.find((r) => r.slug === slug);
-    if (!row || row.currentRevisionId === null) fields[`swapSlugs.${i}`] = `No approved swap “${slug}”`;
-    else if (row.chassisId !== chassisId) fields[`swapSlugs.${i}`] = 'That swap is for another chassis';
-    return row;
-  });
-  if (Object.keys(fields).length) throw AppError.invalid('A plan is made of approved swaps for its chassis.', fields);
-  return found as SwapRow[];
+  return approvedSwapsOn(db, slugs, chassisId, 'swapSlugs', 'A plan is made of approved swaps for its chassis.');
 }
 
 function revisionData(db: Db, ids: number[]) {

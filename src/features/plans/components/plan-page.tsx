@@ -1,3 +1,4 @@
+import { axleWord } from '@shared/schemas/swap-data-labels';
 import { useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router';
 import type { PlanView } from '@shared/schemas/plans';
@@ -19,8 +20,6 @@ import {
   PlanTorque,
   PlanWheels,
 } from './plan-sections';
-
-const axleWord = (axle: 'front' | 'rear') => (axle === 'front' ? 'Front' : 'Rear');
 
 /**
  * A build plan: several swaps on one car, computed together from the car as it is. `cars` are the

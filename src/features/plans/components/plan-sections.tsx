@@ -1,15 +1,13 @@
 import type { ReactNode } from 'react';
 import type { PlanView } from '@shared/schemas/plans';
 import type { CarBrakes, CornerSource } from '@shared/fitment/plan';
-import type { Axle } from '@shared/schemas/enums';
 import { costRouteLabels, costRoutes } from '@shared/schemas/enums';
-import { fastenerKindLabels, lubricationLabels, machiningComponentLabels } from '@shared/schemas/swap-data-labels';
+import { axleWord, fastenerKindLabels, lubricationLabels, machiningComponentLabels } from '@shared/schemas/swap-data-labels';
 import { AdhesionChart } from '../../../components/adhesion-chart';
 import { BalanceShiftNote } from '../../../components/balance-shift-note';
 import { formatMoney } from '../../../lib/money';
 import { round, useUnits } from '../../../lib/units';
 
-const axleWord = (axle: Axle) => (axle === 'front' ? 'Front' : 'Rear');
 const pct = (share: number) => `${round(share * 100, 1)} %`;
 const titleOf = (plan: PlanView, slug: string | null) => plan.swaps.find((s) => s.slug === slug)?.title ?? slug;
 

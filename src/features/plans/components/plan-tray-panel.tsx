@@ -1,3 +1,4 @@
+import { axleWord } from '@shared/schemas/swap-data-labels';
 import { useNavigate } from 'react-router';
 import type { Axle } from '@shared/schemas/enums';
 import { paths } from '../../../config/paths';
@@ -5,8 +6,6 @@ import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
 import { addToTray, clearTray, removeFromTray, usePlanTray } from '../api/device-plans';
 import { useMakePlan } from '../api/plans';
-
-const axleWord = (axle: Axle) => (axle === 'front' ? 'Front' : 'Rear');
 
 /**
  * On a swap sheet: gather swaps for one car (front and rear, wheels), then make a plan that computes them
