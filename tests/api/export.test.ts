@@ -1,8 +1,7 @@
 import fs from 'node:fs';
-import http from 'node:http';
 import path from 'node:path';
 import zlib from 'node:zlib';
-import type { AddressInfo, Socket } from 'node:net';
+import net, { type AddressInfo, type Socket } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { parse } from 'csv-parse/sync';
@@ -232,35 +231,53 @@ describe('the export at scale', () => {
         let tail = '';
         let swapsSeen = 0;
         let writtenWhilePaused = 0;
+        let headBytes = 0;
+        // A raw socket, not http.get: the app answers the fake sign-in provider through an in-process
+        // interceptor that wraps every http client socket of this process and buffers what it is sent, which
+        // would hide whether the server waits for the reader. HTTP/1.0, so the body is not chunked and
+        // ends with the connection.
         await new Promise<void>((resolve, reject) => {
-          http
-            .get({ port, path: '/api/export/swaps.json', headers: { 'accept-encoding': 'identity' } }, (res) => {
-              expect(res.headers['content-length']).toBeUndefined();
-              res.setEncoding('utf8');
-              let paused = false;
-              res.on('data', (chunk: string) => {
-                bytes += Buffer.byteLength(chunk);
-                // one swap per line: count them without keeping the file
-                const lines = (tail + chunk).split('\n');
-                tail = lines.pop()!;
-                swapsSeen += lines.filter((l) => /^,?\{"slug"/.test(l)).length;
-                // pause early: the kernel's loopback buffers grow with a fast reader (up to tens of MB), which
-                // would hide whether the server waits for the reader
-                if (!paused && bytes > 2 ** 16) {
-                  paused = true;
-                  res.pause();
-                  setTimeout(() => {
-                    // bytesWritten counts what the server handed the socket, queued or sent
-                    // less what this (client) side already holds: read, or buffered by the paused response
-                    writtenWhilePaused = socket!.bytesWritten - bytes - res.readableLength - (res.socket?.readableLength ?? 0);
-                    res.resume();
-                  }, 1500);
-                }
-              });
-              res.on('end', resolve);
-              res.on('error', reject);
-            })
-            .on('error', reject);
+          const client = net.connect(port, '127.0.0.1', () => {
+            client.write('GET /api/export/swaps.json HTTP/1.0\r\nHost: localhost\r\nAccept-Encoding: identity\r\n\r\n');
+          });
+          client.setEncoding('utf8');
+          let head: string | null = '';
+          let paused = false;
+          const take = (chunk: string) => {
+            bytes += Buffer.byteLength(chunk);
+            // one swap per line: count them without keeping the file
+            const lines = (tail + chunk).split('\n');
+            tail = lines.pop()!;
+            swapsSeen += lines.filter((l) => /^,?\{"slug"/.test(l)).length;
+          };
+          client.on('data', (chunk: string) => {
+            if (head !== null) {
+              head += chunk;
+              const at = head.indexOf('\r\n\r\n');
+              if (at < 0) return;
+              const headers = head.slice(0, at);
+              expect(headers).toMatch(/^HTTP\/1\.[01] 200/);
+              expect(headers).not.toMatch(/content-length/i);
+              const body = head.slice(at + 4);
+              head = null;
+              headBytes = Buffer.byteLength(headers) + 4;
+              take(body);
+            } else take(chunk);
+            // pause early: the kernel's loopback buffers grow with a fast reader (up to tens of MB), which
+            // would hide whether the server waits for the reader
+            if (!paused && bytes > 2 ** 16) {
+              paused = true;
+              client.pause();
+              setTimeout(() => {
+                // bytesWritten counts what the server handed the socket, queued or sent, headers included;
+                // less what this side already holds: read, or buffered by the paused socket
+                writtenWhilePaused = socket!.bytesWritten - headBytes - bytes - client.readableLength;
+                client.resume();
+              }, 1500);
+            }
+          });
+          client.on('end', resolve);
+          client.on('error', reject);
         });
         expect(swapsSeen).toBe(world.approvedSwaps);
         expect(tail).toBe('');
