@@ -38,6 +38,10 @@ export const costRouteLabels: Record<CostRoute, string> = {
   new_kit: 'New kit',
 };
 
+/** a fitted report is `held` for a moderator when a new member wrote it, `live` otherwise */
+export const fittedReportStates = ['held', 'live'] as const;
+export type FittedReportState = (typeof fittedReportStates)[number];
+
 export const revisionStatuses = ['draft', 'in_review', 'approved', 'sent_back', 'declined', 'superseded'] as const;
 export const revisionStatusSchema = z.enum(revisionStatuses);
 export type RevisionStatus = z.infer<typeof revisionStatusSchema>;

@@ -4,7 +4,8 @@ import { timestamp, timestamps } from './columns';
 import { users, shops } from './users';
 import { swaps, revisions } from './swaps';
 import { chassis } from './catalogue';
-import { mailStatuses } from '../../../shared/schemas/enums';
+import { fittedReportStates, mailStatuses } from '../../../shared/schemas/enums';
+import { flagKinds, flagOutcomes } from '../../../shared/schemas/flags';
 import type { VehicleData } from '../../../shared/schemas/vehicle';
 import type { ProfilePoint } from '../../../shared/schemas/swap-data';
 import { newMessageId } from '../../mail/message-id';
@@ -28,11 +29,21 @@ export const fittedReports = sqliteTable(
     photoFileId: text('photo_file_id'),
     /** stored size of the photo, counted against the member's storage quota */
     photoBytes: integer('photo_bytes').notNull().default(0),
+    /** smallest gap the member measured between caliper and wheel, in mm; null when they did not measure */
+    clearanceMm: real('clearance_mm'),
+    /** `held`: written by a new member, waiting for a moderator (not public, not counted); `live` otherwise */
+    state: text('state', { enum: fittedReportStates }).notNull().default('live'),
+    releasedAt: timestamp('released_at'),
+    releasedById: integer('released_by_id').references(() => users.id, { onDelete: 'set null' }),
     hiddenAt: timestamp('hidden_at'),
     hiddenById: integer('hidden_by_id').references(() => users.id),
     ...timestamps,
   },
-  (t) => [uniqueIndex('fitted_reports_swap_user_uq').on(t.swapId, t.userId)],
+  (t) => [
+    uniqueIndex('fitted_reports_swap_user_uq').on(t.swapId, t.userId),
+    index('fitted_reports_state_idx').on(t.state, t.createdAt),
+    index('fitted_reports_user_idx').on(t.userId),
+  ],
 );
 export type FittedWheel = { diameterIn: number; widthIn: number; offsetMm: number; spacerMm: number };
 
@@ -68,17 +79,25 @@ export const flags = sqliteTable(
     reporterId: integer('reporter_id')
       .notNull()
       .references(() => users.id),
+    kind: text('kind', { enum: flagKinds }).notNull().default('other'),
     reason: text('reason').notNull(),
     status: text('status', { enum: ['open', 'resolved'] })
       .notNull()
       .default('open'),
+    /** the correction that answers it; approving that correction resolves the flag */
+    correctionRevisionId: integer('correction_revision_id').references(() => revisions.id, { onDelete: 'set null' }),
+    outcome: text('outcome', { enum: flagOutcomes }),
     resolutionNote: text('resolution_note'),
+    /** when the reporter was mailed this outcome; null while it waits for their next daily message */
+    reporterNotifiedAt: timestamp('reporter_notified_at'),
     resolvedById: integer('resolved_by_id').references(() => users.id),
     resolvedAt: timestamp('resolved_at'),
     ...timestamps,
   },
   (t) => [
     index('flags_status_idx').on(t.status),
+    index('flags_swap_status_idx').on(t.swapId, t.status),
+    index('flags_reporter_notified_idx').on(t.reporterId, t.reporterNotifiedAt),
     // one open flag per member and swap, held by the database itself
     uniqueIndex('flags_one_open_per_reporter_uq').on(t.swapId, t.reporterId).where(sql.raw(`status = 'open'`)),
   ],

@@ -82,6 +82,8 @@ export const revisions = sqliteTable(
     reviewedAt: timestamp('reviewed_at'),
     reviewedById: integer('reviewed_by_id').references(() => users.id),
     reviewNote: text('review_note'),
+    /** a correction's "what changed and why", in its author's words; required when it goes to review */
+    changeNote: text('change_note'),
     /** when the author was told this untouched draft will be removed, and when; a later save (updated_at) cancels it */
     expiryWarnedAt: timestamp('expiry_warned_at'),
     expiresAt: timestamp('expires_at'),

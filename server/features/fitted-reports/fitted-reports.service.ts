@@ -53,12 +53,12 @@ function refusalFor(viewer: SessionUser | undefined, swap: typeof swaps.$inferSe
   return null;
 }
 
-/** Keeps swaps.fitted_count equal to the number of visible reports, so search and its "most fitted" sort see it. */
+/** Keeps swaps.fitted_count equal to the number of public reports (live, not hidden), so search and its "most fitted" sort see it. */
 function recount(db: Db, swapId: number) {
   const row = db
     .select({ n: count() })
     .from(fittedReports)
-    .where(and(eq(fittedReports.swapId, swapId), isNull(fittedReports.hiddenAt)))
+    .where(and(eq(fittedReports.swapId, swapId), eq(fittedReports.state, 'live'), isNull(fittedReports.hiddenAt)))
     .get();
   db.update(swaps)
     .set({ fittedCount: row?.n ?? 0 })
