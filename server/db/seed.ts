@@ -150,6 +150,7 @@ const chassisFileSchema = z.array(
 );
 
 const positive = z.number().positive();
+const fastenerSpecs = z.looseObject({ thread: z.string().optional(), lengthMm: positive.optional(), seat: z.string().optional() });
 const specSchemas: Record<z.infer<typeof partKindSchema>, z.ZodType> = {
   caliper: z.looseObject({
     pistonsPerSideMm: z.array(positive.max(80)).min(1).max(6),
@@ -183,7 +184,18 @@ const specSchemas: Record<z.infer<typeof partKindSchema>, z.ZodType> = {
     centreBoreMm: positive,
   }),
   line: z.looseObject({}),
-  hardware: z.looseObject({ thread: z.string().optional(), lengthMm: positive.optional(), seat: z.string().optional() }),
+  hose: z.looseObject({}),
+  wheel: z.looseObject({
+    diameterIn: positive.max(30).optional(),
+    widthIn: positive.max(15).optional(),
+    offsetMm: z.number().min(-100).max(100).optional(),
+  }),
+  wheel_fastener: fastenerSpecs,
+  anti_roll_bar: z.looseObject({ diameterMm: positive.max(60).optional() }),
+  bush: z.looseObject({ boreMm: positive.optional() }),
+  thread_insert: fastenerSpecs,
+  hardware: fastenerSpecs,
+  other: z.looseObject({}),
 };
 
 const partsFileSchema = z.array(

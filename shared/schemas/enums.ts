@@ -15,7 +15,23 @@ export const categoryLabels: Record<Category, string> = {
   repair: 'Repair',
 };
 
-export const partKinds = ['caliper', 'rotor', 'pad', 'adapter', 'shim', 'spacer', 'line', 'hardware'] as const;
+export const partKinds = [
+  'caliper',
+  'rotor',
+  'pad',
+  'adapter',
+  'shim',
+  'spacer',
+  'line',
+  'hose',
+  'wheel',
+  'wheel_fastener',
+  'anti_roll_bar',
+  'bush',
+  'thread_insert',
+  'hardware',
+  'other',
+] as const;
 export const partKindSchema = z.enum(partKinds);
 export type PartKind = z.infer<typeof partKindSchema>;
 export const partKindLabels: Record<PartKind, string> = {
@@ -26,7 +42,14 @@ export const partKindLabels: Record<PartKind, string> = {
   shim: 'Shim',
   spacer: 'Wheel spacer',
   line: 'Brake line',
+  hose: 'Hose',
+  wheel: 'Wheel',
+  wheel_fastener: 'Wheel bolt / stud / nut',
+  anti_roll_bar: 'Anti-roll bar',
+  bush: 'Bush',
+  thread_insert: 'Thread insert',
   hardware: 'Hardware',
+  other: 'Other',
 };
 
 export const costRoutes = ['as_built', 'budget', 'new_kit'] as const;

@@ -1,5 +1,7 @@
 import { sqliteTable, text, integer, real, index } from 'drizzle-orm/sqlite-core';
-import { timestamps } from './columns';
+import { timestamp, timestamps } from './columns';
+import { users } from './users';
+import { catalogueActions, catalogueSubjects } from '../../../shared/schemas/catalogue-admin';
 import { partKinds } from '../../../shared/schemas/enums';
 import type { StockBrakeCornerView } from '../../../shared/schemas/views';
 import type { VehicleData } from '../../../shared/schemas/vehicle';
@@ -52,4 +54,26 @@ export const parts = sqliteTable(
     ...timestamps,
   },
   (t) => [index('parts_kind_idx').on(t.kind)],
+);
+
+/**
+ * Who changed the catalogue and how, one row per changed field (edits), per merge or per approval. The
+ * subject is named as it was at the time, since a merge removes the record it folded away.
+ */
+export const catalogueChanges = sqliteTable(
+  'catalogue_changes',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    subject: text('subject', { enum: catalogueSubjects }).notNull(),
+    /** the chassis or part changed, or (for a merge) the one kept */
+    subjectId: integer('subject_id').notNull(),
+    subjectLabel: text('subject_label').notNull(),
+    actorId: integer('actor_id').references(() => users.id, { onDelete: 'set null' }),
+    action: text('action', { enum: catalogueActions }).notNull(),
+    field: text('field'),
+    fromValue: text('from_value'),
+    toValue: text('to_value'),
+    at: timestamp('at').notNull(),
+  },
+  (t) => [index('catalogue_changes_subject_idx').on(t.subject, t.subjectId), index('catalogue_changes_at_idx').on(t.at)],
 );
