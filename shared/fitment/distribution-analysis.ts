@@ -40,6 +40,8 @@ export interface DistributionInput {
   tyreLoadedRadiusMm: { front: number; rear: number };
   before: BrakeSetup;
   after?: BrakeSetup;
+  /** what turns "before" into "after", as the summary's subject: "The swap" (default) or "The plan" */
+  change?: string;
   pedal?: PedalInput;
   /** top of the curves in g (default 1) */
   maxDecelerationG?: number;
@@ -492,12 +494,13 @@ function summarise(
       : `The front locks first up to ${g2(maxG)} ${statesText(before)}, the stable order.`;
   }
   const shares = `front share ${pct(comparison.frontShareBefore)} → ${pct(comparison.frontShareAfter)}`;
+  const change = input.change ?? 'The swap';
   const direction =
     comparison.direction === 'front'
-      ? `The swap moves the balance toward the front (${shares})`
+      ? `${change} moves the balance toward the front (${shares})`
       : comparison.direction === 'rear'
-        ? `The swap moves the balance toward the rear (${shares})`
-        : `The swap leaves the front share about where it was (${shares})`;
+        ? `${change} moves the balance toward the rear (${shares})`
+        : `${change} leaves the front share about where it was (${shares})`;
   const rearAfter = rearFirstClause(after);
   const rearBefore = rearFirstClause(before);
   if (rearAfter) {

@@ -5,7 +5,9 @@ import type { VehicleData } from '../schemas/vehicle';
 import { DEFAULT_PAD_MU, frontShare, type AnyBrakeCorner } from './brakes';
 import { COST_ROUTES, routeTotals, savingsAgainstNewKit, type CostRoute, type RouteTotals, type Saving } from './costs';
 import { analyseBrakeDistribution, type DistributionAnalysis } from './distribution-analysis';
-import { fitmentCorner, vehicleStates } from './swap-distribution';
+import { brakeAxlesChanged, fitmentCorner, vehicleStates } from './swap-distribution';
+
+export { brakeAxlesChanged };
 import type { FasteningChassis } from './swap-fastening';
 import {
   checkWheelForSwap,
@@ -42,8 +44,6 @@ export type PlanInput = {
   swaps: PlanSwap[];
 };
 
-const AXLES: readonly Axle[] = ['front', 'rear'];
-
 // ---------- brakes ----------
 
 /** Where an axle's brakes in a state of the car come from: the factory, or a swap (by slug). */
@@ -64,17 +64,6 @@ export type PlanBrakes = {
   /** swaps in the plan that change the same axle's brakes as an earlier one: the later one wins */
   overridden: Array<{ axle: Axle; slug: string; by: string }>;
 };
-
-function sameCorner(a: BrakeCorner, b: BrakeCorner): boolean {
-  return JSON.stringify(a) === JSON.stringify(b);
-}
-
-/** The axles whose brakes a swap changes: where its brake figures differ before and after. */
-export function brakeAxlesChanged(data: SwapData): Axle[] {
-  const b = data.brakes;
-  if (!b) return [];
-  return AXLES.filter((axle) => !sameCorner(b.before[axle], b.after[axle]));
-}
 
 function stockCorners(stock: PlanInput['chassis']['stockBrakes']): CarBrakes {
   // The factory corners carry no pad friction of their own; the default applies to both axles alike,
@@ -102,8 +91,13 @@ function applySwaps(start: CarBrakes, swaps: PlanSwap[], overridden?: PlanBrakes
   return out;
 }
 
+/** A car's brakes as they are: the factory's, with the fitted swaps' brakes on the axles they change. */
+export function carBrakesAsIs(stock: PlanInput['chassis']['stockBrakes'], fitted: PlanSwap[]): CarBrakes {
+  return applySwaps(stockCorners(stock), fitted);
+}
+
 export function planBrakes(input: PlanInput): PlanBrakes {
-  const asIs = applySwaps(stockCorners(input.chassis.stockBrakes), input.car?.fitted ?? []);
+  const asIs = carBrakesAsIs(input.chassis.stockBrakes, input.car?.fitted ?? []);
   const overridden: PlanBrakes['overridden'] = [];
   const planned = applySwaps(asIs, input.swaps, overridden);
   const frontShareAsIs = frontShare(asIs.front.corner, asIs.rear.corner);
@@ -117,6 +111,7 @@ export function planBrakes(input: PlanInput): PlanBrakes {
       ...vehicleStates(vehicle),
       before: { front: asIs.front.corner, rear: asIs.rear.corner, rearValve: vehicle.rearValve },
       after: { front: planned.front.corner, rear: planned.rear.corner, rearValve: vehicle.rearValve },
+      change: 'The plan',
     });
   }
   return {

@@ -17,12 +17,14 @@ import { routeTotals, savingsAgainstNewKit } from './costs';
 import { cornerTorqueNm as anyCornerTorqueNm, type AnyBrakeCorner } from './brakes';
 import { BALANCE_UNCHANGED_POINTS, PASSENGER_CAR_REFERENCE, type DistributionAnalysis } from './distribution-analysis';
 import {
+  cornersOnCar,
   fitmentCorner,
   lockOrderOf,
   recordCorners,
   swapDistribution,
   type LockOrderReading,
   type RearFirst,
+  type RecordCorners,
 } from './swap-distribution';
 import type { VehicleFigures } from '../schemas/vehicle';
 import { MM_PER_IN } from './units';
@@ -494,10 +496,15 @@ export { fitmentCorner };
  * Front share of brake torque at equal line pressure, before and after the swap, and what the change means.
  * With the car's figures (a chassis' stock ones or a member's own), also which axle locks first.
  */
-export function brakeBalanceOf(data: SwapData, figures: VehicleFigures | null = null): BrakeBalance | null {
+export function brakeBalanceOf(
+  data: SwapData,
+  figures: VehicleFigures | null = null,
+  /** the reader's car's brakes as they are (swaps fitted), instead of the stock brakes the record starts from */
+  onCar: { brakesAsIs: RecordCorners; fittedHere: boolean } | null = null,
+): BrakeBalance | null {
   const b = data.brakes;
   if (!b) return null;
-  const corners = recordCorners(data)!;
+  const corners = onCar ? cornersOnCar(data, onCar.brakesAsIs, onCar.fittedHere)! : recordCorners(data)!;
   const torque = (c: AnyBrakeCorner) => anyCornerTorqueNm(c, b.linePressureBar);
   const torqueNm = {
     before: { front: torque(corners.before.front), rear: torque(corners.before.rear) },

@@ -40,6 +40,39 @@ export function recordCorners(data: SwapData): { before: RecordCorners; after: R
   };
 }
 
+const AXLES = ['front', 'rear'] as const;
+
+function sameCorner(a: BrakeCorner, b: BrakeCorner): boolean {
+  return JSON.stringify(a) === JSON.stringify(b);
+}
+
+/** The axles whose brakes a swap changes: where its brake figures differ before and after. */
+export function brakeAxlesChanged(data: SwapData): Array<'front' | 'rear'> {
+  const b = data.brakes;
+  if (!b) return [];
+  return AXLES.filter((axle) => !sameCorner(b.before[axle], b.after[axle]));
+}
+
+/**
+ * The record's corners on a car that is not stock. After the swap: its brakes on the axles it changes, the
+ * car's own on the others. Before it: the car's brakes as they are — or, on a car that already has this swap
+ * fitted, the car without it (what the swap replaced on its axles).
+ */
+export function cornersOnCar(
+  data: SwapData,
+  asIs: RecordCorners,
+  fittedHere = false,
+): { before: RecordCorners; after: RecordCorners } | null {
+  const own = recordCorners(data);
+  if (!own) return null;
+  const changed = brakeAxlesChanged(data);
+  const pick = (axle: 'front' | 'rear', swapped: RecordCorners) => (changed.includes(axle) ? swapped[axle] : asIs[axle]);
+  return {
+    before: fittedHere ? { front: pick('front', own.before), rear: pick('rear', own.before) } : asIs,
+    after: { front: pick('front', own.after), rear: pick('rear', own.after) },
+  };
+}
+
 /** The stored figures as the analysis takes them: each load state with the car's wheelbase. */
 export function vehicleStates(vehicle: VehicleData): Pick<DistributionInput, 'unladen' | 'laden' | 'tyreLoadedRadiusMm'> {
   const withWheelbase = (s: VehicleData['unladen']) => ({ ...s, wheelbaseMm: vehicle.wheelbaseMm });

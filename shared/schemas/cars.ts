@@ -1,12 +1,13 @@
 import { z } from 'zod';
 import { singleLine } from './text';
-import { vehicleDataSchema, type VehicleData } from './vehicle';
+import { vehicleDataSchema, type VehicleData, type VehicleFigures } from './vehicle';
 import { tyreSizeField } from './tyre-field';
 import type { ProfilePoint } from './swap-data';
 
 export { tyreSizeField };
 import { slugSchema } from './params';
 import type { PlanFittedView } from './plans';
+import type { RecordCorners } from '../fitment/swap-distribution';
 
 // API contract of "my cars": a member's own cars, used to check swaps against their wheel.
 
@@ -101,9 +102,30 @@ export type CarView = {
   wheelInsideProfile: ProfilePoint[] | null;
   /** approved swaps fitted to the car, at the revision fitted */
   fitted: PlanFittedView[];
+  /**
+   * the car's brakes as they are when a fitted swap changed them (the stock corners elsewhere), for a sheet's
+   * brake balance to start from; null when the car's brakes are stock
+   */
+  brakesAsIs: RecordCorners | null;
   otherChanges: string;
   createdAt: string;
   updatedAt: string;
+};
+
+/**
+ * Where a sheet's brake balance starts from: the stock car, or one of the reader's cars as it is (its own
+ * figures when it has them, and its brakes with the swaps already fitted).
+ */
+export type BalanceStart = {
+  key: string;
+  /** follows "Worked out for" */
+  label: string;
+  figures: VehicleFigures | null;
+  brakesAsIs: RecordCorners | null;
+  /** titles of the other swaps fitted to the car */
+  fittedTitles: string[];
+  /** the car already has this swap fitted: "before" is the car without it */
+  fittedHere: boolean;
 };
 
 /** GET /api/cars */

@@ -6,6 +6,7 @@ import { addShop, listen, signedInMember, type Agent, type Member } from './supp
 import { addChassis } from './support/swap-fixtures';
 import { addSwap, approveNewRevision, swapData } from './support/swap-rows';
 import type { BrakeCorner } from '../../shared/schemas/swap-data';
+import { DEFAULT_PAD_MU } from '../../shared/fitment/brakes';
 import type { PlanView } from '../../shared/schemas/plans';
 import type { CarView } from '../../shared/schemas/cars';
 
@@ -210,6 +211,11 @@ describe('the car as it is', () => {
     const view = car.body.car as CarView;
     expect(view.fitted.map((f) => f.slug)).toEqual(['h31-front-single']);
     expect(view.otherChanges).toBe('Braided hoses all round');
+    // the car's brakes as they are, for a sheet opened for it: the fitted front with the stock rear
+    expect(view.brakesAsIs).toMatchObject({
+      front: { ...disc([57], 300, 52), padMu: otherFront.brakes!.padMu },
+      rear: { ...STOCK.rear, padMu: DEFAULT_PAD_MU },
+    });
 
     const made = await rosa.agent
       .post('/api/plans')
@@ -222,6 +228,15 @@ describe('the car as it is', () => {
     expect(plan.brakes.planned.front.source).toMatchObject({ kind: 'swap', slug: 'h31-front-single' });
     expect(plan.brakes.planned.rear.source).toMatchObject({ kind: 'swap', slug: 'h31-rear-bigger' });
     expect(plan.wheels.checks).toHaveLength(1);
+  });
+
+  it('when a car has no swap fitted, then its brakes are the stock ones and no car-as-it-is start is given', async () => {
+    const car = await rosa.agent
+      .post('/api/cars')
+      .set('x-csrf-token', rosa.token)
+      .send({ chassisId: h31, nickname: 'Stock saloon', wheelDiameterIn: 16, wheelWidthIn: 7, wheelOffsetMm: 38 });
+    expect(car.status).toBe(201);
+    expect((car.body.car as CarView).brakesAsIs).toBeNull();
   });
 
   it('when a fitted swap is for another chassis, then the car is not saved and the field is named', async () => {

@@ -79,7 +79,7 @@ describe('which axle locks first on the swap sheet', () => {
     await page.close();
   });
 
-  it('when a member picks their own car on the sheet, then the lock order is worked out from its figures, and impossible figures in my cars get a field reason and change nothing', async () => {
+  it('when a member opens a sheet, then the balance starts from their car as it is, they can pick another start, and impossible figures in my cars get a field reason and change nothing', async () => {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     const { page, errors } = await signedInPage(context, server.url, 'rivet_rosa', '/swaps/h31-rear-regent-300-drum-in-hat');
     const section = page.locator('#balance');
@@ -88,13 +88,24 @@ describe('which axle locks first on the swap sheet', () => {
     await choice.waitFor();
     expect(await choice.locator('option').allTextContents()).toEqual([
       'Halden H31 stock figures',
-      'Green coupe’s own figures (my cars)',
+      'Green coupe as it is',
+      'Winter saloon as it is',
     ]);
-    await choice.selectOption({ label: 'Green coupe’s own figures (my cars)' });
+    // the Green coupe has this rear swap and the four-piston front fitted: the sheet starts from it
+    expect(await choice.locator('option:checked').textContent()).toBe('Green coupe as it is');
+    const start = section.locator('[data-balance-start]');
+    expect(await start.innerText()).toContain('this swap is already fitted, so “before” is the car without it');
     // the Green coupe is lowered: its centre of gravity is lower, so the valve keeps the fronts first
     await expect.poll(() => note(page).getAttribute('data-severity')).toBe('advisory');
     expect(await note(page).innerText()).toContain('the front still locks first up to 1.00 g laden and unladen');
     expect(await section.locator('[data-balance-figures]').innerText()).toContain('Worked out with Green coupe’s own figures');
+
+    // the Winter saloon has a front swap fitted: "before" is that car's brakes now
+    await choice.selectOption({ label: 'Winter saloon as it is' });
+    expect(await start.innerText()).toContain('fitted, “before” is that car’s brakes now');
+    expect(await section.locator('[data-balance-figures]').innerText()).toContain('Worked out with the Halden H31 stock figures');
+    await choice.selectOption({ label: 'Halden H31 stock figures' });
+    expect(await start.count()).toBe(0);
 
     await page.goto(`${server.url}/me/cars`);
     await page.getByRole('button', { name: 'Edit' }).first().click();

@@ -6,11 +6,15 @@ import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
 import { MAX_CARS, type CarInput, type CarUpdate, type CarView } from '../../../shared/schemas/cars';
 import { fittedSwapsOf, setFittedSwaps } from './fitted-swaps';
+import { carBrakesAsIs } from '../../../shared/fitment/plan';
 
 type CarRow = typeof cars.$inferSelect;
 type ChassisRow = typeof chassis.$inferSelect;
 
 function carView(db: Db, car: CarRow, c: ChassisRow, fitted = fittedSwapsOf(db, [car.id])): CarView {
+  const fittedInputs = (fitted.get(car.id) ?? []).map((f) => f.input);
+  const brakes = carBrakesAsIs(c.stockBrakes, fittedInputs);
+  const changed = brakes.front.source.kind === 'swap' || brakes.rear.source.kind === 'swap';
   return {
     id: car.id,
     nickname: car.nickname,
@@ -23,6 +27,7 @@ function carView(db: Db, car: CarRow, c: ChassisRow, fitted = fittedSwapsOf(db, 
     vehicle: car.vehicle ?? null,
     wheelInsideProfile: car.wheelInsideProfile ?? null,
     fitted: (fitted.get(car.id) ?? []).map((f) => f.view),
+    brakesAsIs: changed ? { front: brakes.front.corner, rear: brakes.rear.corner } : null,
     otherChanges: car.otherChanges,
     createdAt: car.createdAt.toISOString(),
     updatedAt: car.updatedAt.toISOString(),

@@ -5,7 +5,7 @@ import { SwapSheet } from '../../features/swaps/components/swap-sheet-page';
 import { useSwap } from '../../features/swaps/api/get-swap';
 import { swapKeys } from '../../features/swaps/api/swap-keys';
 import { useMe } from '../../features/account/api/get-me';
-import { useCarFigures, useCarWheelPresets } from '../../features/cars/components/car-checks';
+import { useCarBalanceStarts, useCarWheelPresets } from '../../features/cars/components/car-checks';
 import { FittedReportsSection } from '../../features/fitted-reports/components/fitted-reports-section';
 import { FlagSwapForm } from '../../features/swaps/components/flag-swap-form';
 import { MakeShopLinkPanel } from '../../features/shops/components/make-shop-link-panel';
@@ -18,6 +18,8 @@ import { Page } from '../../components/ui/page';
 import { ErrorNotice, Loading } from '../../components/ui/query-state';
 import { ApiError } from '../../lib/api-client';
 import { paths } from '../../config/paths';
+
+const NO_CHASSIS = { slug: '', make: '', model: '', vehicle: null };
 
 /**
  * The swap sheet as the app composes it: the swaps feature's sheet, with the member's cars as wheel-check
@@ -36,7 +38,10 @@ export default function SwapSheetRoute() {
   const qc = useQueryClient();
   const location = useLocation();
   const presets = useCarWheelPresets(sheet.data?.chassis.slug ?? '', Boolean(user));
-  const ownFigures = useCarFigures(Boolean(user));
+  const carStarts = useCarBalanceStarts(
+    { swapSlug: sheet.data?.swap.slug ?? slug, chassis: sheet.data?.chassis ?? NO_CHASSIS },
+    Boolean(user),
+  );
   const myCars = useMyCars(Boolean(user));
 
   if (sheet.isPending || (via && pinned.isPending))
@@ -73,7 +78,7 @@ export default function SwapSheetRoute() {
       view={view}
       banner={banner}
       presets={presets}
-      ownFigures={ownFigures}
+      carStarts={carStarts}
       extraSections={
         <>
           <FittedReportsSection

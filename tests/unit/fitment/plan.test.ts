@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   brakeAxlesChanged,
+  carBrakesAsIs,
   computePlan,
   machiningInOrder,
   mergedParts,
@@ -12,6 +13,7 @@ import {
 } from '../../../shared/fitment/plan';
 import { swapDataSchema, type BrakeCorner, type SwapDataInput } from '../../../shared/schemas/swap-data';
 import type { VehicleData } from '../../../shared/schemas/vehicle';
+import { brakeBalanceOf } from '../../../shared/fitment/swap-checks';
 
 // Hand-worked figures. Disc torque per wheel T = 2 μ p A r_eff with A the piston area of one side
 // (Σ π d²/4) and r_eff = D/2 − h/2 (pad centre with the pad's outer edge at the rotor edge; Limpert,
@@ -106,6 +108,47 @@ describe('the brakes of a plan', () => {
     const both = computePlan(input([front, rear])).brakes.distribution!;
     expect(both.after!.states[0]!.rearFirstFromG).toBeCloseTo(0.623, 1);
     expect(both.summary).toMatch(/front/i);
+  });
+
+  it('when the rear swap’s sheet is opened for a car with a front swap fitted, then its balance starts from the car as it is (hand-worked, as the plan above)', () => {
+    const asIs = carBrakesAsIs(STOCK, [fittedFront]);
+    const corners = { front: asIs.front.corner, rear: asIs.rear.corner };
+    const onCar = brakeBalanceOf(rear.data, null, { brakesAsIs: corners, fittedHere: false })!;
+    // before: the fitted single-piston front with the stock rear, 0.7386; after: the bigger rear added, 0.6855
+    expect(onCar.frontShareBefore).toBeCloseTo(0.7386, 3);
+    expect(onCar.frontShareAfter).toBeCloseTo(0.6855, 3);
+    expect(onCar.shift.direction).toBe('rearward');
+    // from a stock car the same sheet reads 0.7017 → 0.6447: the car as it is moves further
+    const stock = brakeBalanceOf(rear.data)!;
+    expect(stock.frontShareBefore).toBeCloseTo(0.7017, 3);
+    expect(stock.frontShareAfter).toBeCloseTo(0.6447, 3);
+  });
+
+  it('when a front swap’s sheet is opened for a car with another front swap fitted, then the fitted one is what it replaces', () => {
+    const asIs = carBrakesAsIs(STOCK, [fittedFront]);
+    const onCar = brakeBalanceOf(front.data, null, {
+      brakesAsIs: { front: asIs.front.corner, rear: asIs.rear.corner },
+      fittedHere: false,
+    })!;
+    // before 316 418 / (316 418 + 111 967) = 0.7386; after 381 861 / (381 861 + 111 967) = 0.7733
+    expect(onCar.frontShareBefore).toBeCloseTo(0.7386, 3);
+    expect(onCar.frontShareAfter).toBeCloseTo(0.7733, 3);
+  });
+
+  it('when a sheet is opened for a car that already has that swap fitted, then “before” is the car without it', () => {
+    const asIs = carBrakesAsIs(STOCK, [fittedFront, rear]);
+    const onCar = brakeBalanceOf(rear.data, null, {
+      brakesAsIs: { front: asIs.front.corner, rear: asIs.rear.corner },
+      fittedHere: true,
+    })!;
+    // before: the fitted front with the stock rear it replaced, 0.7386; after: the car as it is, 0.6855
+    expect(onCar.frontShareBefore).toBeCloseTo(0.7386, 3);
+    expect(onCar.frontShareAfter).toBeCloseTo(0.6855, 3);
+  });
+
+  it('when a plan changes the lock order, then its sentence names the plan, not a swap', () => {
+    const plan = computePlan(input([rear], [fittedFront]));
+    expect(plan.brakes.distribution!.summary).toMatch(/^The plan moves the balance toward the rear/);
   });
 
   it('when neither the car nor the chassis has vehicle figures, then no lock order is claimed', () => {

@@ -1,7 +1,7 @@
 import { Link } from 'react-router';
 import { useMemo } from 'react';
-import type { CarView } from '@shared/schemas/cars';
-import { carFigures, type VehicleFigures } from '@shared/schemas/vehicle';
+import type { BalanceStart, CarView } from '@shared/schemas/cars';
+import { carFigures, chassisFigures, type VehicleData } from '@shared/schemas/vehicle';
 import { paths } from '../../../config/paths';
 import { carsOnChassis, useMyCars } from '../api/get-cars';
 import { wheelLabel } from './my-cars-page';
@@ -21,10 +21,43 @@ export function useCarWheelPresets(chassisSlug: string, signedIn: boolean) {
   }));
 }
 
-/** The member's cars that carry their own brake-balance figures, for the sheet's "worked out for" choice. */
-export function useCarFigures(signedIn: boolean): VehicleFigures[] {
+/**
+ * Where the sheet's brake balance may start from, for the member's cars: a car on this swap's chassis starts
+ * from the car as it is (the swaps fitted to it, its own figures or the chassis'); a car on another chassis
+ * only lends its own figures.
+ */
+export function useCarBalanceStarts(
+  sheet: { swapSlug: string; chassis: { slug: string; make: string; model: string; vehicle: VehicleData | null } },
+  signedIn: boolean,
+): BalanceStart[] {
   const cars = useMyCars(signedIn);
-  return useMemo(() => (cars.data ?? []).flatMap((c) => carFigures(c) ?? []), [cars.data]);
+  const { swapSlug, chassis } = sheet;
+  return useMemo(
+    () =>
+      (cars.data ?? []).flatMap((car): BalanceStart[] => {
+        const own = carFigures(car);
+        const stockStart = own && {
+          key: `car-${car.id}`,
+          label: own.label,
+          figures: own,
+          brakesAsIs: null,
+          fittedTitles: [],
+          fittedHere: false,
+        };
+        if (car.chassis.slug !== chassis.slug || !car.brakesAsIs) return stockStart ? [stockStart] : [];
+        return [
+          {
+            key: `car-${car.id}`,
+            label: `${car.nickname} as it is`,
+            figures: own ?? chassisFigures(chassis),
+            brakesAsIs: car.brakesAsIs,
+            fittedTitles: car.fitted.filter((f) => f.slug !== swapSlug).map((f) => f.title),
+            fittedHere: car.fitted.some((f) => f.slug === swapSlug),
+          },
+        ];
+      }),
+    [cars.data, swapSlug, chassis],
+  );
 }
 
 /**

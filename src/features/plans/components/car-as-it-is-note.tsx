@@ -5,8 +5,8 @@ import { Button } from '../../../components/ui/button';
 import { useMakePlan } from '../api/plans';
 
 /**
- * On a swap sheet, for a member whose car on this chassis already has swaps fitted: the sheet works from
- * a stock car, so it says so and offers a plan that starts from the car as it is.
+ * On a swap sheet, for a member whose car on this chassis already has swaps fitted: the brake balance can
+ * start from that car, the rest of the sheet is the record's own, so it offers a plan for the whole car.
  */
 export function CarAsItIsNote({ swapSlug, cars }: { swapSlug: string; cars: CarView[] }) {
   const make = useMakePlan();
@@ -27,7 +27,7 @@ export function CarAsItIsNote({ swapSlug, cars }: { swapSlug: string; cars: CarV
               <span className="font-bold">{car.nickname}</span>{' '}
               {fittedHere
                 ? 'already has this swap fitted.'
-                : `already has ${car.fitted.length ? car.fitted.map((f) => f.title).join('; ') : 'other changes'}. The figures on this sheet start from a stock car; a plan starts from ${car.nickname} as it is.`}
+                : `already has ${car.fitted.length ? car.fitted.map((f) => f.title).join('; ') : 'other changes'}. The brake balance above can start from ${car.nickname} as it is; a plan works out the whole car from it: wheels, parts, torque and costs.`}
             </p>
             {!fittedHere && (
               <Button

@@ -1,7 +1,8 @@
 import { useMemo, useState } from 'react';
 import type { SwapData } from '@shared/schemas/swap-data';
 import type { ChassisView } from '@shared/schemas/views';
-import { chassisFigures, type VehicleFigures } from '@shared/schemas/vehicle';
+import { chassisFigures } from '@shared/schemas/vehicle';
+import type { BalanceStart } from '@shared/schemas/cars';
 import type { LoadState, SetupAnalysis } from '@shared/fitment/distribution-analysis';
 import { brakeBalanceOf } from '@shared/fitment/swap-checks';
 import { useUnits } from '../../../lib/units';
@@ -12,32 +13,51 @@ import { VehicleFiguresList, rearValveText } from '../../../components/vehicle-f
 import { SheetSection } from './sheet-section';
 
 const pct = (share: number) => `${(share * 100).toFixed(1)} %`;
-const NO_CARS: VehicleFigures[] = [];
+const NO_CARS: BalanceStart[] = [];
 const stateOf = (setup: SetupAnalysis, state: LoadState) => setup.states.find((s) => s.state === state)!;
 
 /**
  * The sheet's brake section: which way the swap moves the balance and, with the chassis' stock figures or the
- * reader's own car, which axle locks first before and after it, drawn against deceleration.
+ * reader's own car, which axle locks first before and after it, drawn against deceleration. Opened by a
+ * member whose car on this chassis already has swaps fitted, it starts from that car as it is.
  */
 export function BrakeBalanceSection({
   data,
   chassis,
-  ownFigures = NO_CARS,
+  carStarts = NO_CARS,
 }: {
   data: SwapData;
   chassis: Pick<ChassisView, 'make' | 'model' | 'vehicle'>;
-  /** the reader's cars that carry their own figures (from my cars) */
-  ownFigures?: VehicleFigures[];
+  /** the reader's cars the balance may start from (from my cars) */
+  carStarts?: BalanceStart[];
 }) {
   const units = useUnits();
   const { torque, pressure } = units;
   const choices = useMemo(() => {
-    const stock = chassisFigures(chassis);
-    return stock ? [stock, ...ownFigures] : ownFigures;
-  }, [chassis, ownFigures]);
-  const [chosenLabel, setChosenLabel] = useState<string | null>(null);
-  const figures = choices.find((c) => c.label === chosenLabel) ?? choices[0] ?? null;
-  const balance = useMemo(() => brakeBalanceOf(data, figures), [data, figures]);
+    const stockFigures = chassisFigures(chassis);
+    const stock: BalanceStart[] = stockFigures
+      ? [
+          {
+            key: 'stock',
+            label: stockFigures.label,
+            figures: stockFigures,
+            brakesAsIs: null,
+            fittedTitles: [],
+            fittedHere: false,
+          },
+        ]
+      : [];
+    return [...stock, ...carStarts];
+  }, [chassis, carStarts]);
+  const [chosenKey, setChosenKey] = useState<string | null>(null);
+  // a car with swaps already fitted is the car the reader is working on: start from it as it is
+  const start = choices.find((c) => c.key === chosenKey) ?? choices.find((c) => c.brakesAsIs) ?? choices[0] ?? null;
+  const figures = start?.figures ?? null;
+  const balance = useMemo(
+    () =>
+      brakeBalanceOf(data, figures, start?.brakesAsIs ? { brakesAsIs: start.brakesAsIs, fittedHere: start.fittedHere } : null),
+    [data, figures, start],
+  );
   const [shown, setShown] = useState<LoadState>('unladen');
   if (!balance) return null;
   const analysis = balance.distribution;
@@ -51,16 +71,24 @@ export function BrakeBalanceSection({
           Worked out for
           <select
             className="min-h-10 max-w-full rounded-md border border-graphite/30 bg-paper-card px-2 text-sm"
-            value={figures?.label ?? ''}
-            onChange={(e) => setChosenLabel(e.target.value)}
+            value={start?.key ?? ''}
+            onChange={(e) => setChosenKey(e.target.value)}
           >
             {choices.map((c) => (
-              <option key={c.label} value={c.label}>
+              <option key={c.key} value={c.key}>
                 {c.label.replace(/^the /, '')}
               </option>
             ))}
           </select>
         </label>
+      )}
+      {start?.brakesAsIs && (
+        <p className="mb-2 text-sm font-bold text-ink print:text-xs" data-balance-start="car-as-is">
+          Starts from {start.label}:{' '}
+          {start.fittedHere
+            ? `this swap is already fitted, so “before” is the car without it.${start.fittedTitles.length ? ` The car keeps ${start.fittedTitles.join('; ')}.` : ''}`
+            : `with ${start.fittedTitles.join('; ')} fitted, “before” is that car’s brakes now, not the stock car’s.`}
+        </p>
       )}
       <p className="mb-2 text-sm text-graphite print:mb-1 print:text-xs" data-balance-figures={figures?.source ?? 'none'}>
         {figures ? (

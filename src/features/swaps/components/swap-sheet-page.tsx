@@ -1,6 +1,6 @@
 import { Link, useParams } from 'react-router';
 import type { SwapSheetView } from '@shared/schemas/views';
-import type { VehicleFigures } from '@shared/schemas/vehicle';
+import type { BalanceStart } from '@shared/schemas/cars';
 import { categoryLabels, machiningLevelLabels } from '@shared/schemas/enums';
 import { machiningLevel } from '@shared/schemas/swap-data';
 import { useSwap } from '../api/get-swap';
@@ -61,13 +61,13 @@ type SwapSheetProps = {
   banner?: React.ReactNode;
   /** "Fill from" buttons of the wheel check (a member's saved cars) */
   presets?: WheelPreset[];
-  /** the reader's cars that carry their own brake-balance figures (from my cars) */
-  ownFigures?: VehicleFigures[];
+  /** the reader's cars the brake balance may start from (from my cars) */
+  carStarts?: BalanceStart[];
   /** sections the app adds from other features (fitted reports, shop link panel), shown before the revision history */
   extraSections?: React.ReactNode;
 };
 
-export function SwapSheet({ view, banner, presets, ownFigures, extraSections }: SwapSheetProps) {
+export function SwapSheet({ view, banner, presets, carStarts, extraSections }: SwapSheetProps) {
   const { swap, chassis, revision, history, currentNumber } = view;
   const { data } = revision;
   const { length } = useUnits();
@@ -187,7 +187,7 @@ export function SwapSheet({ view, banner, presets, ownFigures, extraSections }: 
             <WheelCheckPanel data={data} axle={swap.axle} chassis={chassis} presets={presets} />
           </div>
         )}
-        <BrakeBalanceSection data={data} chassis={chassis} ownFigures={ownFigures} />
+        <BrakeBalanceSection data={data} chassis={chassis} carStarts={carStarts} />
         <CostRoutesSection data={data} />
         {data.tools.length > 0 && (
           <SheetSection id="tools" title="Tools needed">
