@@ -3,8 +3,11 @@ import { neutraliseSingleLine } from '../../shared/schemas/text';
 // Builders of the messages the community loop sends. Each returns plain text and HTML; every string
 // that came from a member (titles, reasons, notes, names) is HTML-escaped in the HTML part.
 
-/** `secret`: the message acts for its recipient (a sign-in link), so staff never read its body */
-export type BuiltMessage = { subject: string; text: string; html: string; secret?: boolean };
+/**
+ * `secret`: the message acts for its recipient (a sign-in link), so staff never read its body.
+ * `headers`: extra headers it goes out with (List-Unsubscribe on a digest).
+ */
+export type BuiltMessage = { subject: string; text: string; html: string; secret?: boolean; headers?: Record<string, string> };
 
 export function escapeHtml(s: string): string {
   return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');

@@ -124,6 +124,7 @@ export function createSender({
         html: row.html,
         messageId: row.messageId,
         date: row.createdAt,
+        headers: row.headers ?? undefined,
       });
       await record(row.id, { status: 'sent', sentAt: clock.now(), lastError: null, nextAttemptAt: null });
       logger.info({ event: 'mail_sent', outboxId: row.id, attempts: row.attempts }, 'message delivered');

@@ -79,7 +79,7 @@ describe('making shop links', () => {
       newerRevision: null,
       retiredAt: null,
     });
-    expect(link.note).toBe('Our **fixed price** covers spacers.');
+    expect(link.private?.note).toBe('Our **fixed price** covers spacers.');
     const again = await makeLink();
     expect(again.body.link.code).not.toBe(link.code);
   });
@@ -126,7 +126,7 @@ describe('editing and listing a shop’s links', () => {
       .set('x-csrf-token', ridgeway.token)
       .send({ note: 'Price now includes *bed-in*.' });
     expect(edit.status).toBe(200);
-    expect(edit.body.link.note).toBe('Price now includes *bed-in*.');
+    expect(edit.body.link.private.note).toBe('Price now includes *bed-in*.');
     expect(
       (await ridgeway.a.patch('/api/shop-links/nosuchcode').set('x-csrf-token', ridgeway.token).send({ note: 'x' })).status,
     ).toBe(404);
@@ -139,7 +139,7 @@ describe('editing and listing a shop’s links', () => {
     expect(ridgeway.items.length).toBeGreaterThanOrEqual(3);
     expect(new Set(ridgeway.items.map((l) => l.shop.slug))).toEqual(new Set(['ridgeway-performance']));
     const lathe = (await (await as('lathe_shop')).a.get('/api/shop-links')).body as ShopLinkList;
-    expect(lathe.items.map((l) => l.note)).toEqual(['Knuckle machining quote']);
+    expect(lathe.items.map((l) => l.private?.note)).toEqual(['Knuckle machining quote']);
     const admin = (await (await as('ada_admin')).a.get('/api/shop-links')).body as ShopLinkList;
     expect(admin.canManage).toBe(false);
     expect(admin.items).toHaveLength(ridgeway.items.length + 1);
@@ -181,7 +181,7 @@ describe('following a shop link', () => {
     expect(pinned.sheet.revision.data.installHours).toBe(6);
     expect(pinned.sheet.currentNumber).toBe(2);
     // the note is the shop's own: a customer opening the link does not get it
-    expect(pinned.link.note).toBeNull();
+    expect(pinned.link.private).toBeNull();
     expect(pinned.shop.name).toBe('Ridgeway Performance');
     expect(pinned.newerRevision).toEqual({
       number: 2,
@@ -288,7 +288,7 @@ describe('shop-link privacy and lookup limits', () => {
     const code = (await makeLink('ridgeway_shop', 'For J. Doe, quoted 1,240 with fitting')).body.link.code as string;
     const anonymous = await request(server).get(`/api/l/${code}`);
     expect(anonymous.status).toBe(200);
-    expect(anonymous.body.link.note).toBeNull();
+    expect(anonymous.body.link.private).toBeNull();
     expect(JSON.stringify(anonymous.body)).not.toContain('J. Doe');
     for (const login of ['lathe_shop', 'ada_admin', 'gauge_mo', 'rivet_rosa']) {
       const res = await (await as(login)).a.get(`/api/l/${code}`);
@@ -296,7 +296,7 @@ describe('shop-link privacy and lookup limits', () => {
       expect(JSON.stringify(res.body), login).not.toContain('J. Doe');
     }
     const own = await (await as('ridgeway_shop')).a.get(`/api/l/${code}`);
-    expect(own.body.link.note).toBe('For J. Doe, quoted 1,240 with fitting');
+    expect(own.body.link.private.note).toBe('For J. Doe, quoted 1,240 with fitting');
     expect(own.headers['cache-control']).toMatch(/private/);
   });
 

@@ -120,8 +120,18 @@ export const shopLinks = sqliteTable(
     createdById: integer('created_by_id')
       .notNull()
       .references(() => users.id),
-    /** markdown, sanitized */
+    /** markdown, sanitized; private to the shop (its own record of the job) */
     note: text('note').notNull().default(''),
+    /** markdown, sanitized; shown to everyone who opens the link */
+    publicNote: text('public_note').notNull().default(''),
+    /** private to the shop */
+    customerRef: text('customer_ref').notNull().default(''),
+    /** private to the shop: the quoted price in minor units, with its currency */
+    quotedPriceMinor: integer('quoted_price_minor'),
+    quotedCurrency: text('quoted_currency'),
+    /** private to the shop; from then on the link answers as retired */
+    expiresAt: timestamp('expires_at'),
+    /** visits by anyone but the shop's own accounts */
     visits: integer('visits').notNull().default(0),
     retiredAt: timestamp('retired_at'),
     ...timestamps,
@@ -176,6 +186,8 @@ export const mailOutbox = sqliteTable(
       .$defaultFn(() => newMessageId()),
     /** holds something that acts for its recipient (a sign-in link): its body is not shown on the desk */
     secret: integer('secret', { mode: 'boolean' }).notNull().default(false),
+    /** extra headers the message carries (List-Unsubscribe on a digest) */
+    headers: text('headers', { mode: 'json' }).$type<Record<string, string>>(),
     status: text('status', { enum: mailStatuses }).notNull().default('kept'),
     attempts: integer('attempts').notNull().default(0),
     lastError: text('last_error'),

@@ -4,3 +4,4 @@ export * from './swaps';
 export * from './community';
 export * from './interchange';
 export * from './plans';
+export * from './following';

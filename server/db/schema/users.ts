@@ -2,6 +2,7 @@ import { sqliteTable, text, integer, uniqueIndex, index } from 'drizzle-orm/sqli
 import { timestamp, timestamps } from './columns';
 import { roles } from '../../../shared/roles';
 import { unitSystems } from '../../../shared/schemas/enums';
+import type { OpeningPeriod } from '../../../shared/schemas/shops';
 
 export const shops = sqliteTable('shops', {
   id: integer('id').primaryKey({ autoIncrement: true }),
@@ -10,6 +11,13 @@ export const shops = sqliteTable('shops', {
   town: text('town').notNull().default(''),
   website: text('website').notNull().default(''),
   about: text('about').notNull().default(''),
+  phone: text('phone').notNull().default(''),
+  email: text('email').notNull().default(''),
+  address: text('address').notNull().default(''),
+  /** the week's opening periods; a day with none is closed */
+  openingHours: text('opening_hours', { mode: 'json' }).$type<OpeningPeriod[]>().notNull().default([]),
+  /** a line beside the hours ("by appointment on Saturdays") */
+  hoursNote: text('hours_note').notNull().default(''),
   ...timestamps,
 });
 

@@ -14,7 +14,7 @@ import {
   retireShopLink,
   shopLinkUrl,
   updateShop,
-  updateShopLinkNote,
+  updateShopLink,
   visitShopLink,
 } from './shops.service';
 import { pageFound } from '../../lib/page-status';
@@ -64,7 +64,7 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
   router.get(
     '/shops/:slug',
     validated({ params: z.object({ slug: slugSchema }) }, ({ params }, req, res) => {
-      res.set('Cache-Control', 'private, no-cache').json(getShopPage(db, params.slug, req.user));
+      res.set('Cache-Control', 'private, no-cache').json(getShopPage(db, clock, params.slug, req.user));
     }),
   );
 
@@ -80,7 +80,7 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
     '/shop-links',
     requireUser,
     validated({ query: z.object({ shop: slugSchema.optional() }) }, ({ query }, req, res) => {
-      res.set('Cache-Control', 'private, no-store').json(listShopLinks(db, appUrl, req.user!, query.shop));
+      res.set('Cache-Control', 'private, no-store').json(listShopLinks(db, clock, appUrl, req.user!, query.shop));
     }),
   );
 
@@ -98,7 +98,7 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
     '/shop-links/:code',
     requirePermission('manage_shop_links'),
     validated({ params: codeParams, body: updateShopLinkSchema }, ({ params, body }, req, res) => {
-      res.json({ link: updateShopLinkNote(db, clock, appUrl, req.user!, params.code, body.note) });
+      res.json({ link: updateShopLink(db, clock, appUrl, req.user!, params.code, body) });
     }),
   );
 
@@ -143,7 +143,7 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
     '/l/:code',
     lookups,
     validated({ params: codeParams }, ({ params }, req, res) => {
-      res.set('Cache-Control', 'private, no-cache').json(getPinnedSheet(db, appUrl, params.code, req.user));
+      res.set('Cache-Control', 'private, no-cache').json(getPinnedSheet(db, clock, appUrl, params.code, req.user));
     }),
   );
 
@@ -160,12 +160,12 @@ function qrHeaders(type: string, code: string, ext: string, download: boolean) {
 }
 
 /** GET /l/:code — the short address customers type or scan: counts the visit and redirects to the pinned revision. */
-export function shopLinkRedirectRouter({ db, config }: AppDeps) {
+export function shopLinkRedirectRouter({ db, clock, config }: AppDeps) {
   const router = Router();
   router.get('/l/:code', linkLookupLimit(config), (req, res) => {
     const code = String(req.params.code);
     const parsed = shopLinkCodeSchema.safeParse(code.toLowerCase());
-    const visit = parsed.success ? visitShopLink(db, parsed.data) : ({ kind: 'unknown' } as const);
+    const visit = parsed.success ? visitShopLink(db, clock, parsed.data, req.user) : ({ kind: 'unknown' } as const);
     res.set('Cache-Control', 'no-store');
     if (visit.kind === 'redirect') return res.redirect(302, visit.location);
     if (visit.kind === 'retired') return res.status(410).type('html').send(retiredLinkPage(visit.shopName, visit.swap));
@@ -178,11 +178,11 @@ export function shopLinkRedirectRouter({ db, config }: AppDeps) {
 }
 
 /** The shop page answers 404 for a shop that does not exist. */
-export function shopPagesRouter({ db }: AppDeps) {
+export function shopPagesRouter({ db, clock }: AppDeps) {
   const router = Router();
   router.get(
     pageRoutes.shop,
-    pageFound((req) => getShopPage(db, String(req.params.slug), req.user)),
+    pageFound((req) => getShopPage(db, clock, String(req.params.slug), req.user)),
   );
   return router;
 }

@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
-import { and, desc, eq, inArray, isNotNull, isNull, sql } from 'drizzle-orm';
+import { and, desc, eq, gt, inArray, isNotNull, isNull, or, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { revisions, shopLinks, shops, swaps } from '../../db/schema/index';
+import { fittedReports, revisions, shopLinks, shops, swaps, users } from '../../db/schema/index';
 import type { Clock } from '../../lib/clock';
 import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
@@ -11,12 +11,16 @@ import type {
   CreateShopLink,
   NewerRevision,
   PinnedSheetView,
+  ShopFittedReport,
   ShopLinkItem,
   ShopLinkList,
+  ShopLinkPrivate,
   ShopPageView,
   ShopView,
   UpdateShop,
+  UpdateShopLink,
 } from '../../../shared/schemas/shops';
+import { weekdays } from '../../../shared/schemas/shops';
 import { getSwapSheet } from '../swaps/swaps.service';
 import { swapCards } from '../swaps/swap-views';
 import { newerRevisionOf } from '../swaps/newer-revision';
@@ -30,7 +34,24 @@ export const shopView = (s: ShopRow): ShopView => ({
   town: s.town,
   website: s.website,
   about: s.about,
+  contact: { phone: s.phone, email: s.email, address: s.address, hoursNote: s.hoursNote },
+  openingHours: s.openingHours,
 });
+
+/** A link whose expiry has passed answers as a retired one. */
+const isExpired = (link: LinkRow, now: Date) => link.expiresAt !== null && link.expiresAt <= now;
+const isRetired = (link: LinkRow, now: Date) => link.retiredAt !== null || isExpired(link, now);
+
+const privatePart = (link: LinkRow): ShopLinkPrivate => ({
+  note: link.note,
+  customerRef: link.customerRef,
+  quotedPrice:
+    link.quotedPriceMinor !== null && link.quotedCurrency ? { amountMinor: link.quotedPriceMinor, currency: link.quotedCurrency } : null,
+  expiresAt: link.expiresAt ? link.expiresAt.toISOString() : null,
+});
+
+/** The shop's members: accounts linked to it (shop accounts, and an admin who set theirs). */
+const isShopMember = (viewer: SessionUser | undefined, shopId: number) => Boolean(viewer && viewer.shopId === shopId);
 
 /** A shop user acts for their own shop only; everyone else (admins included) may at most look. */
 export const actsFor = (user: SessionUser | undefined, shopId: number) =>
@@ -44,17 +65,53 @@ function shopBySlug(db: Db, slug: string) {
   return row;
 }
 
-export function getShopPage(db: Db, slug: string, viewer: SessionUser | undefined): ShopPageView {
+/** Fitted reports the shop's accounts made, newest first: only those readers see (not held, not hidden). */
+function shopFittedReports(db: Db, shopId: number, limit = 50): ShopFittedReport[] {
+  return db
+    .select({
+      slug: swaps.slug,
+      title: sql<string>`json_extract(${revisions.data}, '$.title')`,
+      wheel: fittedReports.wheel,
+      note: fittedReports.note,
+      createdAt: fittedReports.createdAt,
+    })
+    .from(fittedReports)
+    .innerJoin(users, eq(users.id, fittedReports.userId))
+    .innerJoin(swaps, eq(swaps.id, fittedReports.swapId))
+    .innerJoin(revisions, eq(revisions.id, swaps.currentRevisionId))
+    .where(and(eq(users.shopId, shopId), eq(fittedReports.state, 'live'), isNull(fittedReports.hiddenAt)))
+    .orderBy(desc(fittedReports.createdAt), desc(fittedReports.id))
+    .limit(limit)
+    .all()
+    .map((r) => ({
+      swap: { slug: r.slug, title: r.title },
+      wheel: `${r.wheel.diameterIn}×${r.wheel.widthIn} in, ET${r.wheel.offsetMm}${r.wheel.spacerMm ? ` with a ${r.wheel.spacerMm} mm spacer` : ''}`,
+      note: r.note,
+      createdAt: r.createdAt.toISOString(),
+    }));
+}
+
+export function getShopPage(db: Db, clock: Clock, slug: string, viewer: SessionUser | undefined): ShopPageView {
   const shop = shopBySlug(db, slug);
+  const now = clock.now();
   const linked = db
     .selectDistinct({ swapId: shopLinks.swapId })
     .from(shopLinks)
-    .where(and(eq(shopLinks.shopId, shop.id), isNull(shopLinks.retiredAt)))
+    .where(
+      and(
+        eq(shopLinks.shopId, shop.id),
+        isNull(shopLinks.retiredAt),
+        or(isNull(shopLinks.expiresAt), gt(shopLinks.expiresAt, now)),
+      ),
+    )
     .all()
     .map((r) => r.swapId);
+  const members = db.select({ id: users.id }).from(users).where(eq(users.shopId, shop.id)).all().map((u) => u.id);
   return {
     shop: shopView(shop),
     swaps: linked.length ? swapCards(db, and(inArray(swaps.id, linked), isNotNull(swaps.currentRevisionId))) : [],
+    written: members.length ? swapCards(db, inArray(swaps.authorId, members)) : [],
+    fittedReports: shopFittedReports(db, shop.id),
     canEdit: actsFor(viewer, shop.id),
   };
 }
@@ -67,6 +124,16 @@ export function updateShop(db: Db, clock: Clock, slug: string, viewer: SessionUs
   if (input.town !== undefined) changes.town = stripHtml(input.town).trim();
   if (input.website !== undefined) changes.website = input.website;
   if (input.about !== undefined) changes.about = stripHtml(input.about).trim();
+  if (input.contact !== undefined) {
+    changes.phone = input.contact.phone;
+    changes.email = input.contact.email;
+    changes.address = stripHtml(input.contact.address).trim();
+    changes.hoursNote = stripHtml(input.contact.hoursNote).trim();
+  }
+  if (input.openingHours !== undefined)
+    changes.openingHours = [...input.openingHours].sort(
+      (a, b) => weekdays.indexOf(a.day) - weekdays.indexOf(b.day) || a.opens.localeCompare(b.opens),
+    );
   const row = db
     .update(shops)
     .set({ ...changes, updatedAt: clock.now() })
@@ -85,6 +152,7 @@ function newCode(length = 7) {
 
 function linkItems(
   db: Db,
+  { now, viewer }: { now: Date; viewer: SessionUser },
   appUrl: string,
   rows: { link: LinkRow; shop: ShopRow; swap: typeof swaps.$inferSelect; revision: typeof revisions.$inferSelect }[],
 ) {
@@ -105,7 +173,9 @@ function linkItems(
     shop: { slug: shop.slug, name: shop.name },
     swap: { slug: swap.slug, title: titleOf(swap) },
     revision: { number: revision.number },
-    note: link.note,
+    publicNote: link.publicNote,
+    private: actsFor(viewer, link.shopId) ? privatePart(link) : null,
+    expired: isExpired(link, now),
     visits: link.visits,
     createdAt: link.createdAt.toISOString(),
     retiredAt: link.retiredAt ? link.retiredAt.toISOString() : null,
@@ -126,20 +196,42 @@ function linkRows(db: Db, where: ReturnType<typeof eq> | undefined) {
 }
 
 /** A shop user sees their shop's links; an admin may look at every shop's (or one shop's, by slug). */
-export function listShopLinks(db: Db, appUrl: string, viewer: SessionUser, shopSlug?: string): ShopLinkList {
+export function listShopLinks(db: Db, clock: Clock, appUrl: string, viewer: SessionUser, shopSlug?: string): ShopLinkList {
+  const now = clock.now();
   if (viewer.role === 'admin') {
     const where = shopSlug ? eq(shopLinks.shopId, shopBySlug(db, shopSlug).id) : undefined;
-    return { items: linkItems(db, appUrl, linkRows(db, where)), canManage: false };
+    return { items: linkItems(db, { now, viewer }, appUrl, linkRows(db, where)), canManage: false };
   }
   if (!can(viewer.role, 'manage_shop_links')) throw AppError.forbidden('Shop links belong to shop accounts.');
   if (viewer.shopId === null) throw AppError.forbidden('Your account is not linked to a shop yet; ask an admin to link it.');
-  return { items: linkItems(db, appUrl, linkRows(db, eq(shopLinks.shopId, viewer.shopId))), canManage: true };
+  return { items: linkItems(db, { now, viewer }, appUrl, linkRows(db, eq(shopLinks.shopId, viewer.shopId))), canManage: true };
 }
 
 function linkByCode(db: Db, code: string) {
   const row = linkRows(db, eq(shopLinks.code, code))[0];
   if (!row) throw AppError.notFound('That shop link');
   return row;
+}
+
+const expiryField = (expiresAt: string | null, now: Date) => {
+  if (expiresAt === null) return null;
+  const at = new Date(expiresAt);
+  if (at <= now) throw AppError.invalid('The expiry is in the past.', { expiresAt: 'Pick a moment after now' });
+  return at;
+};
+
+/** The columns an input sets, cleaned as stored text is; fields left out stay as they are. */
+function linkColumns(input: Partial<UpdateShopLink>, now: Date): Partial<LinkRow> {
+  const set: Partial<LinkRow> = {};
+  if (input.publicNote !== undefined) set.publicNote = stripHtml(input.publicNote).trim();
+  if (input.note !== undefined) set.note = stripHtml(input.note).trim();
+  if (input.customerRef !== undefined) set.customerRef = stripHtml(input.customerRef).trim();
+  if (input.quotedPrice !== undefined) {
+    set.quotedPriceMinor = input.quotedPrice?.amountMinor ?? null;
+    set.quotedCurrency = input.quotedPrice?.currency ?? null;
+  }
+  if (input.expiresAt !== undefined) set.expiresAt = expiryField(input.expiresAt, now);
+  return set;
 }
 
 /** Pins the link to the swap's current approved revision, whatever is approved later. */
@@ -151,6 +243,7 @@ export function createShopLink(db: Db, clock: Clock, appUrl: string, viewer: Ses
     throw AppError.invalid('Shop links point at approved swaps.', { swapSlug: 'No approved swap by that name' });
   }
   const now = clock.now();
+  const columns = linkColumns(input, now);
   for (let attempt = 0; ; attempt++) {
     const code = newCode();
     try {
@@ -161,12 +254,12 @@ export function createShopLink(db: Db, clock: Clock, appUrl: string, viewer: Ses
           swapId: swap.id,
           revisionId: swap.currentRevisionId,
           createdById: viewer.id,
-          note: stripHtml(input.note).trim(),
+          ...columns,
           createdAt: now,
           updatedAt: now,
         })
         .run();
-      return linkItems(db, appUrl, [linkByCode(db, code)])[0]!;
+      return linkItems(db, { now, viewer }, appUrl, [linkByCode(db, code)])[0]!;
     } catch (err) {
       if (attempt < 5 && err instanceof Error && /UNIQUE constraint failed: shop_links\.code/.test(err.message)) continue;
       throw err;
@@ -180,29 +273,30 @@ function managedLink(db: Db, viewer: SessionUser, code: string) {
   return row;
 }
 
-export function updateShopLinkNote(
+export function updateShopLink(
   db: Db,
   clock: Clock,
   appUrl: string,
   viewer: SessionUser,
   code: string,
-  note: string,
+  input: UpdateShopLink,
 ): ShopLinkItem {
   const row = managedLink(db, viewer, code);
+  const now = clock.now();
   db.update(shopLinks)
-    .set({ note: stripHtml(note).trim(), updatedAt: clock.now() })
+    .set({ ...linkColumns(input, now), updatedAt: now })
     .where(eq(shopLinks.id, row.link.id))
     .run();
-  return linkItems(db, appUrl, [linkByCode(db, code)])[0]!;
+  return linkItems(db, { now, viewer }, appUrl, [linkByCode(db, code)])[0]!;
 }
 
 export function retireShopLink(db: Db, clock: Clock, appUrl: string, viewer: SessionUser, code: string): ShopLinkItem {
   const row = managedLink(db, viewer, code);
+  const now = clock.now();
   if (!row.link.retiredAt) {
-    const now = clock.now();
     db.update(shopLinks).set({ retiredAt: now, updatedAt: now }).where(eq(shopLinks.id, row.link.id)).run();
   }
-  return linkItems(db, appUrl, [linkByCode(db, code)])[0]!;
+  return linkItems(db, { now, viewer }, appUrl, [linkByCode(db, code)])[0]!;
 }
 
 /** The address a QR code carries; any existing link has one (the page behind it says when it was retired). */
@@ -211,18 +305,20 @@ export function shopLinkUrl(db: Db, appUrl: string, code: string) {
 }
 
 /**
- * For the client: the shop's banner over the pinned revision, and whether a newer one exists. The link's
- * note is the shop's own record (a customer's name, the price quoted): only the shop's accounts get it.
+ * For the client: the shop's banner over the pinned revision, and whether a newer one exists. The public
+ * note goes to everyone; the private part (a customer's reference, the price quoted, the expiry) only to
+ * the shop's accounts. An expired link answers as a retired one does.
  */
-export function getPinnedSheet(db: Db, appUrl: string, code: string, viewer: SessionUser | undefined): PinnedSheetView {
+export function getPinnedSheet(db: Db, clock: Clock, appUrl: string, code: string, viewer: SessionUser | undefined): PinnedSheetView {
   const { link, shop, swap, revision } = linkByCode(db, code);
-  if (link.retiredAt)
+  if (isRetired(link, clock.now()))
     throw new AppError('link_retired', `${shop.name} has retired this link. The swap it pointed to is still on Swapyard.`, 410);
   return {
     link: {
       code: link.code,
       url: linkUrl(appUrl, link.code),
-      note: actsFor(viewer, link.shopId) ? link.note : null,
+      publicNote: link.publicNote,
+      private: actsFor(viewer, link.shopId) ? privatePart(link) : null,
       createdAt: link.createdAt.toISOString(),
     },
     shop: shopView(shop),
@@ -236,8 +332,8 @@ export type LinkVisit =
   | { kind: 'unknown' }
   | { kind: 'retired'; shopName: string; swap: { slug: string; title: string } | null };
 
-/** GET /l/:code: counts the visit and says where to send the reader. */
-export function visitShopLink(db: Db, code: string): LinkVisit {
+/** GET /l/:code: counts the visit (unless the shop's own people open it) and says where to send the reader. */
+export function visitShopLink(db: Db, clock: Clock, code: string, viewer: SessionUser | undefined): LinkVisit {
   const row = db
     .select({ link: shopLinks, shop: shops, swap: swaps, number: revisions.number })
     .from(shopLinks)
@@ -247,7 +343,7 @@ export function visitShopLink(db: Db, code: string): LinkVisit {
     .where(eq(shopLinks.code, code))
     .get();
   if (!row) return { kind: 'unknown' };
-  if (row.link.retiredAt) {
+  if (isRetired(row.link, clock.now())) {
     const current = row.swap.currentRevisionId
       ? db.select({ data: revisions.data }).from(revisions).where(eq(revisions.id, row.swap.currentRevisionId)).get()
       : undefined;
@@ -257,9 +353,11 @@ export function visitShopLink(db: Db, code: string): LinkVisit {
       swap: current ? { slug: row.swap.slug, title: current.data.title } : null,
     };
   }
-  db.update(shopLinks)
-    .set({ visits: sql`${shopLinks.visits} + 1` })
-    .where(eq(shopLinks.id, row.link.id))
-    .run();
+  if (!isShopMember(viewer, row.link.shopId)) {
+    db.update(shopLinks)
+      .set({ visits: sql`${shopLinks.visits} + 1` })
+      .where(eq(shopLinks.id, row.link.id))
+      .run();
+  }
   return { kind: 'redirect', location: `/swaps/${row.swap.slug}/r/${row.number}?via=${encodeURIComponent(row.link.code)}` };
 }

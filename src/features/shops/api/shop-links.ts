@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CreateShopLink, PinnedSheetView, ShopLinkItem, ShopLinkList } from '@shared/schemas/shops';
+import type { CreateShopLinkInput, PinnedSheetView, ShopLinkItem, ShopLinkList, UpdateShopLinkInput } from '@shared/schemas/shops';
 import { api } from '../../../lib/api-client';
 import { shopKeys } from './shop-keys';
 
@@ -24,7 +24,7 @@ export const qrUrl = (code: string, type: 'png' | 'svg', download = false) =>
 export const useCreateShopLink = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: CreateShopLink) =>
+    mutationFn: (input: CreateShopLinkInput) =>
       api<{ link: ShopLinkItem }>('/api/shop-links', { method: 'POST', body: input }).then((r) => r.link),
     onSuccess: () => qc.invalidateQueries({ queryKey: shopKeys.all }),
   });
@@ -33,8 +33,8 @@ export const useCreateShopLink = () => {
 export const useUpdateShopLink = () => {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ code, note }: { code: string; note: string }) =>
-      api<{ link: ShopLinkItem }>(`/api/shop-links/${code}`, { method: 'PATCH', body: { note } }).then((r) => r.link),
+    mutationFn: ({ code, ...changes }: { code: string } & UpdateShopLinkInput) =>
+      api<{ link: ShopLinkItem }>(`/api/shop-links/${code}`, { method: 'PATCH', body: changes }).then((r) => r.link),
     onSuccess: () => qc.invalidateQueries({ queryKey: shopKeys.all }),
   });
 };

@@ -27,12 +27,13 @@ export function ShopLinkBanner({ pinned }: { pinned: PinnedSheetView }) {
             </Link>
             {shop.town && <span className="font-semibold text-graphite-soft"> · {shop.town}</span>}
           </p>
-          {link.note && (
-            <div className="no-print mt-2 border-l-4 border-brass-soft pl-3">
-              <p className="text-xs font-bold text-graphite-soft">Your private note (customers do not see it)</p>
-              <Markdown>{link.note}</Markdown>
+          {link.publicNote && (
+            <div className="mt-2 border-l-4 border-brass pl-3">
+              <p className="text-xs font-bold text-graphite-soft">{shop.name} notes</p>
+              <Markdown>{link.publicNote}</Markdown>
             </div>
           )}
+          {link.private && <PrivatePart part={link.private} />}
           <p className="mt-3 text-sm text-graphite">
             This is the revision {shop.name} quoted: <strong>revision {sheet.revision.number}</strong>, approved{' '}
             {date(sheet.revision.approvedAt)}.
@@ -64,6 +65,40 @@ export function ShopLinkBanner({ pinned }: { pinned: PinnedSheetView }) {
         </div>
       )}
     </aside>
+  );
+}
+
+const money = (p: { amountMinor: number; currency: string }) =>
+  new Intl.NumberFormat('en-GB', { style: 'currency', currency: p.currency }).format(p.amountMinor / 100);
+
+/** The shop's own record of the quote; the server sends it only to the shop's accounts. */
+function PrivatePart({ part }: { part: NonNullable<PinnedSheetView['link']['private']> }) {
+  if (!part.note && !part.customerRef && !part.quotedPrice && !part.expiresAt) return null;
+  return (
+    <div className="no-print mt-2 rounded-md border border-dashed border-ink/30 bg-paper p-3 text-sm">
+      <p className="text-xs font-bold text-graphite-soft">Private to your shop — customers do not see this</p>
+      <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5">
+        {part.customerRef && (
+          <>
+            <dt className="text-graphite-soft">Customer</dt>
+            <dd className="font-bold">{part.customerRef}</dd>
+          </>
+        )}
+        {part.quotedPrice && (
+          <>
+            <dt className="text-graphite-soft">Quoted</dt>
+            <dd className="tabular font-bold">{money(part.quotedPrice)}</dd>
+          </>
+        )}
+        {part.expiresAt && (
+          <>
+            <dt className="text-graphite-soft">Link expires</dt>
+            <dd className="tabular font-bold">{date(part.expiresAt)}</dd>
+          </>
+        )}
+      </dl>
+      {part.note && <Markdown>{part.note}</Markdown>}
+    </div>
   );
 }
 

@@ -76,7 +76,7 @@ export default function ShopLinksPage() {
 
 function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }) {
   const [editing, setEditing] = useState(false);
-  const [note, setNote] = useState(link.note);
+  const [note, setNote] = useState(link.private?.note ?? '');
   const [showQr, setShowQr] = useState(false);
   const [confirmRetire, setConfirmRetire] = useState(false);
   const [copied, setCopied] = useState(false);
@@ -134,14 +134,14 @@ function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }
               <Button type="submit" disabled={update.isPending}>
                 {update.isPending ? 'Saving…' : 'Save note'}
               </Button>
-              <Button variant="quiet" onClick={() => (setEditing(false), setNote(link.note))}>
+              <Button variant="quiet" onClick={() => (setEditing(false), setNote(link.private?.note ?? ''))}>
                 Cancel
               </Button>
             </div>
           </form>
-        ) : link.note ? (
+        ) : link.private?.note ? (
           <div className="mt-2 line-clamp-4 text-sm">
-            <Markdown className="prose-sm">{link.note}</Markdown>
+            <Markdown className="prose-sm">{link.private.note}</Markdown>
           </div>
         ) : (
           <p className="mt-2 text-sm text-graphite-soft">No note.</p>
