@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { axleSchema, categorySchema } from './enums';
 import { brakeCornerSchema, swapDataSchema } from './swap-data';
+import { vehicleDataSchema } from './vehicle';
+import { chassisWheelFasteningSchema } from './wheel-fastening';
 
 // The open data: every approved swap at its current revision, as GET /api/export/swaps.json and .csv and the
 // daily dump serve it. The licence travels with every file.
@@ -18,7 +20,7 @@ export const licenceLine = (siteUrl: string) =>
 
 const stockCornerSchema = z.intersection(brakeCornerSchema, z.object({ description: z.string() }));
 
-/** the chassis a swap fits, with the figures the swap's checks read (hub, wheel bolts, stock wheel and brakes) */
+/** the chassis a swap fits, with the figures the swap's checks read (hub, wheel bolts, stock wheel and brakes, vehicle) */
 export const exportChassisSchema = z.object({
   slug: z.string(),
   make: z.string(),
@@ -32,6 +34,10 @@ export const exportChassisSchema = z.object({
   wheelBoltThread: z.string(),
   stockWheel: z.object({ diameterIn: z.number(), widthIn: z.number(), offsetMm: z.number(), tyre: z.string() }),
   stockBrakes: z.object({ front: stockCornerSchema, rear: stockCornerSchema }),
+  /** the stock figures the brake-distribution check reads (mass, axle load, centre of gravity, valve); null when unknown */
+  vehicle: vehicleDataSchema.nullable(),
+  /** the hub's wheel fastening the wheel-bolt check reads (thread depth, hole, hub material); null when unknown */
+  wheelFastening: chassisWheelFasteningSchema.nullable(),
 });
 
 export const exportedSwapSchema = z.object({

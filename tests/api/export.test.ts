@@ -14,6 +14,8 @@ import { swapExportSchema } from '../../shared/schemas/export';
 import { buildSyntheticWorld } from '../support/synthetic-catalogue';
 import { writeDumps } from '../../server/features/export/dump';
 import { takedowns } from '../../server/db/schema/index';
+import { vehicleDataSchema } from '../../shared/schemas/vehicle';
+import { chassisWheelFasteningSchema } from '../../shared/schemas/wheel-fastening';
 
 // The open-data exports over rows arranged here: what is published and what must never leave (drafts,
 // submissions in review, declined ones, superseded revisions, swaps on a proposed chassis), and cells
@@ -22,12 +24,29 @@ import { takedowns } from '../../server/db/schema/index';
 let t: TestApp;
 let v1Title = '';
 
+// the chassis figures the brake-distribution and wheel-bolt checks read: an exported swap carries them
+const H31_VEHICLE = vehicleDataSchema.parse({
+  unladen: { massKg: 1180, frontStaticFraction: 0.58, cgHeightMm: 520 },
+  laden: null,
+  wheelbaseMm: 2600,
+  tyreLoadedRadiusMm: { front: 290, rear: 290 },
+  rearValve: { kind: 'proportioning', kneeBar: 30, slope: 0.35 },
+  basis: 'Invented stock figures for the test chassis',
+});
+const H31_FASTENING = chassisWheelFasteningSchema.parse({
+  fastener: 'bolt',
+  seat: 'cone60',
+  seatHeightMm: 6,
+  hubMaterial: 'steel',
+  front: { threadDepthMm: 14, hole: 'through' },
+});
+
 beforeAll(async () => {
   t = await makeTestApp({ APP_URL: 'https://swapyard.example' });
   const rosa = addUser(t.db, 'rivet_rosa').id;
   // a login a spreadsheet would read as a function call
   const at = addUser(t.db, '@kai').id;
-  const h31 = addChassis(t.db, 'halden-h31').id;
+  const h31 = addChassis(t.db, 'halden-h31', { vehicle: H31_VEHICLE, wheelFastening: H31_FASTENING }).id;
   const proposed = addChassis(t.db, 'halden-h40', { model: 'H40', code: 'H40', proposed: true }).id;
   addSwap(t.db, {
     slug: 'h31-published',
@@ -140,6 +159,9 @@ describe('GET /api/export/swaps.json', () => {
     // what the checks read besides the record: the chassis' wheel bolts and stock brakes
     expect(first.chassis).toMatchObject({ slug: 'halden-h31', wheelBoltThread: 'M12×1.5', lugCount: 5, pcdMm: 112 });
     expect(first.chassis.stockBrakes.front.kind).toBe('disc');
+    // and the stock figures of the brake-distribution check and the hub's wheel fastening
+    expect(first.chassis.vehicle).toEqual(H31_VEHICLE);
+    expect(first.chassis.wheelFastening).toEqual(H31_FASTENING);
     const upgraded = file.swaps.find((s) => s.slug === 'h31-stored-v1')!;
     expect(upgraded.record.schemaVersion).toBe(2);
     expect(upgraded.record.title).toBe(v1Title);

@@ -78,6 +78,8 @@ export function* exportedSwaps(db: Db, siteUrl: string): Generator<ExportedSwap>
           wheelBoltThread: c.wheelBoltThread,
           stockWheel: c.stockWheel,
           stockBrakes: c.stockBrakes,
+          vehicle: c.vehicle ?? null,
+          wheelFastening: c.wheelFastening ?? null,
         },
         record: recordOf(data),
         writeUp: revision.body,
