@@ -8,152 +8,26 @@ import {
   type DistributionVehicle,
 } from './distribution';
 import { FitmentInputError, requireFinite, requirePositive } from './errors';
+import { BALANCE_UNCHANGED_POINTS, minimumLineK, PASSENGER_CAR_REFERENCE } from './distribution-reference';
+import { summarise } from './distribution-summary';
+import type {
+  Axle,
+  BrakeSetup,
+  CurvePoint,
+  DistributionAnalysis,
+  DistributionComparison,
+  DistributionInput,
+  EfficiencyPoint,
+  LoadState,
+  PedalInput,
+  RearPressureLaw,
+  SetupAnalysis,
+  StateAnalysis,
+  ZRange,
+} from './distribution-types';
 
-export type LoadState = 'unladen' | 'laden';
-export type Axle = 'front' | 'rear';
-
-/** What stands between the master cylinder and the rear brakes. */
-export type RearPressureLaw =
-  | { kind: 'none' }
-  | { kind: 'proportioning'; kneeBar: number; slope: number }
-  /** a load-sensing valve moves its knee with the load on the rear axle: one knee per load state */
-  | { kind: 'load-sensing'; kneeBarUnladen: number; kneeBarLaden: number; slope: number }
-  | { kind: 'electronic' };
-
-export interface BrakeSetup {
-  front: AxleBrakes;
-  rear: AxleBrakes;
-  rearValve: RearPressureLaw;
-}
-
-export interface PedalInput {
-  masterCylinderBoreMm: number;
-  /** pedal lever ratio, e.g. 3.5 */
-  pedalRatio: number;
-  /** servo output force over input force; 1 without a booster */
-  boosterRatio: number;
-}
-
-export interface DistributionInput {
-  unladen: DistributionVehicle;
-  laden?: DistributionVehicle;
-  tyreLoadedRadiusMm: { front: number; rear: number };
-  before: BrakeSetup;
-  after?: BrakeSetup;
-  /** what turns "before" into "after", as the summary's subject: "The swap" (default) or "The plan" */
-  change?: string;
-  pedal?: PedalInput;
-  /** top of the curves in g (default 1) */
-  maxDecelerationG?: number;
-}
-
-export interface CurvePoint {
-  /** deceleration, g */
-  z: number;
-  /** adhesion utilisation of each axle: the friction coefficient it needs at z */
-  front: number;
-  rear: number;
-  /** share of the brake force the front axle takes at z */
-  frontShare: number;
-  frontBar: number;
-  rearBar: number;
-}
-
-export interface ZRange {
-  fromG: number;
-  toG: number;
-}
-
-export interface EfficiencyPoint {
-  /** tyre–road adhesion coefficient */
-  k: number;
-  /** highest deceleration before the first axle reaches k; null when it lies beyond the range looked at */
-  decelerationG: number | null;
-  /** z / k */
-  efficiency: number | null;
-  limitedBy: Axle | null;
-}
-
-export interface ReferenceReading {
-  /** decelerations inside the band's range where the rear curve lies above the front one */
-  rearAboveFront: ZRange[];
-  /** of those, the parts the passenger-car allowance (rear within ideal + 0.05 between 0.30 and 0.45 g) does not cover */
-  outsideAllowance: ZRange[];
-  /** decelerations where an axle needs more friction than the minimum-deceleration line allows */
-  aboveMinimumLine: ZRange[];
-  inside: boolean;
-}
-
-export interface StateAnalysis {
-  state: LoadState;
-  curve: CurvePoint[];
-  /** first deceleration in the range where both axles lock together; null when they do not meet there */
-  lockTogetherG: number | null;
-  lockOrder: Array<ZRange & { first: Axle }>;
-  /** lowest deceleration from which the rear locks first; null when the front leads throughout the range */
-  rearFirstFromG: number | null;
-  efficiency: EfficiencyPoint[];
-  reference: ReferenceReading;
-  /** below any valve knee */
-  pedal: { lineBarPerG: number; pedalForceNPerG: number | null };
-}
-
-export interface SetupAnalysis {
-  frontAxleNPerBar: number;
-  rearAxleNPerBar: number;
-  /** front share of brake force at equal line pressure (below any valve knee) */
-  hydraulicFrontShare: number;
-  states: StateAnalysis[];
-  /** fluid the calipers take per mm of pad travel; null when an axle is a drum or given as a torque only */
-  fluid: { mm3PerMmPadTravel: number; pedalTravelMmPerMmPadTravel: number | null } | null;
-}
-
-export interface DistributionComparison {
-  direction: 'front' | 'rear' | 'unchanged';
-  /** hydraulic front share before and after, 0..1 */
-  frontShareBefore: number;
-  frontShareAfter: number;
-  /** fluid after / before, when both are known */
-  fluidRatio: number | null;
-}
-
-export interface DistributionAnalysis {
-  maxDecelerationG: number;
-  before: SetupAnalysis;
-  after: SetupAnalysis | null;
-  comparison: DistributionComparison | null;
-  /** one plain sentence: the direction of the change and which axle locks first */
-  summary: string;
-  assumptions: string[];
-  rules: string[];
-  reference: typeof PASSENGER_CAR_REFERENCE;
-}
-
-/**
- * The reference band for passenger cars. The z range and the minimum-deceleration line are confirmed in
- * Crolla (ed.), *Automotive Engineering: Powertrain, Chassis System and Vehicle Body* (2009), §12.1.2 and
- * Fig. 12.1-2, which quote the same requirement from EEC Directive 71/320 Annex II for category M1; that
- * UN Regulation No. 13-H Annex 5 carries the same figures, and the allowance's numbers, are from memory.
- */
-export const PASSENGER_CAR_REFERENCE = {
-  source: 'UN Regulation No. 13-H, Annex 5 (distribution of braking among the axles), passenger cars (category M1)',
-  frontAboveRear: { fromG: 0.15, toG: 0.8 },
-  allowance: { fromG: 0.3, toG: 0.45, aboveIdeal: 0.05 },
-  minimumLine: { fromK: 0.2, toK: 0.8, text: 'z ≥ 0.10 + 0.85 (k − 0.20) for k between 0.20 and 0.80' },
-  provenance:
-    'Range 0.15–0.80 g and the line z ≥ 0.10 + 0.85 (k − 0.20): Crolla (ed.), Automotive Engineering (2009), §12.1.2, quoting the EEC braking directive for passenger cars; that Regulation 13-H Annex 5 uses the same figures, and the 0.30–0.45 g allowance, from memory.',
-  caveat: 'Shown as a reference, not a verdict: approval is for the authority under your local rules.',
-} as const;
-
-/** The most friction an axle may need at z on the minimum-deceleration line, or null outside the line's k range. */
-export function minimumLineK(z: number): number | null {
-  const k = 0.2 + (z - 0.1) / 0.85;
-  const { fromK, toK } = PASSENGER_CAR_REFERENCE.minimumLine;
-  return k >= fromK - 1e-12 && k <= toK + 1e-12 ? k : null;
-}
-
-/** a move of the front share smaller than this (percentage points) is within the rounding of the figures */
-export const BALANCE_UNCHANGED_POINTS = 0.5;
+export * from './distribution-types';
+export { BALANCE_UNCHANGED_POINTS, minimumLineK, PASSENGER_CAR_REFERENCE } from './distribution-reference';
 
 const CURVE_STEP_G = 0.01;
 const SCAN_STEP_G = 0.001;
@@ -444,74 +318,6 @@ function analyseSetup(
             pedalTravelMmPerMmPadTravel: pedal ? (fluid / masterCylinderAreaMm2(pedal)) * pedal.pedalRatio : null,
           },
   };
-}
-
-const g2 = (z: number) => `${z.toFixed(2)} g`;
-const pct = (share: number) => `${(share * 100).toFixed(1)} %`;
-
-function rearFirstClause(setup: SetupAnalysis): string | null {
-  const parts = setup.states
-    .filter((s) => s.rearFirstFromG !== null)
-    .map((s) =>
-      s.rearFirstFromG! < 0.005 ? `at any deceleration when ${s.state}` : `above ${g2(s.rearFirstFromG!)} when ${s.state}`,
-    );
-  return parts.length ? parts.join(' and ') : null;
-}
-
-function earliestRearFirst(setup: SetupAnalysis): number {
-  return Math.min(...setup.states.map((s) => s.rearFirstFromG ?? Infinity));
-}
-
-function statesText(setup: SetupAnalysis): string {
-  return setup.states.length === 2 ? 'laden and unladen' : setup.states[0].state;
-}
-
-function advice(before: BrakeSetup, after: BrakeSetup, beforeSetup: SetupAnalysis, afterSetup: SetupAnalysis): string {
-  const rearGrew = afterSetup.rearAxleNPerBar > beforeSetup.rearAxleNPerBar * 1.005;
-  const frontShrank = afterSetup.frontAxleNPerBar < beforeSetup.frontAxleNPerBar * 0.995;
-  const valveFix =
-    after.rearValve.kind === 'proportioning' || after.rearValve.kind === 'load-sensing'
-      ? "lower the rear valve's knee"
-      : before.rearValve.kind !== 'none' && before.rearValve.kind !== after.rearValve.kind
-        ? 'refit the rear valve'
-        : 'fit a proportioning valve';
-  if (rearGrew) return `${valveFix} or keep the stock rear brakes`;
-  if (frontShrank) return `${valveFix} or keep the stock front brakes`;
-  return `${valveFix} or return to the stock balance`;
-}
-
-function summarise(
-  input: DistributionInput,
-  before: SetupAnalysis,
-  after: SetupAnalysis | null,
-  comparison: DistributionComparison | null,
-  maxG: number,
-): string {
-  if (!after || !comparison || !input.after) {
-    const rear = rearFirstClause(before);
-    return rear
-      ? `The rear locks first ${rear} — check the rear valve and the brake balance before driving hard.`
-      : `The front locks first up to ${g2(maxG)} ${statesText(before)}, the stable order.`;
-  }
-  const shares = `front share ${pct(comparison.frontShareBefore)} → ${pct(comparison.frontShareAfter)}`;
-  const change = input.change ?? 'The swap';
-  const direction =
-    comparison.direction === 'front'
-      ? `${change} moves the balance toward the front (${shares})`
-      : comparison.direction === 'rear'
-        ? `${change} moves the balance toward the rear (${shares})`
-        : `${change} leaves the front share about where it was (${shares})`;
-  const rearAfter = rearFirstClause(after);
-  const rearBefore = rearFirstClause(before);
-  if (rearAfter) {
-    if (rearBefore && earliestRearFirst(after) > earliestRearFirst(before) + 0.005) {
-      return `${direction}: the rear still locks first ${rearAfter}, later than before (${rearBefore}).`;
-    }
-    const was = rearBefore ? ` (before it: ${rearBefore})` : '';
-    return `${direction}: after it the rear locks first ${rearAfter}${was} — ${advice(input.before, input.after, before, after)}.`;
-  }
-  const still = rearBefore ? 'now' : 'still';
-  return `${direction}: the front ${still} locks first up to ${g2(maxG)} ${statesText(after)}, the stable order.`;
 }
 
 const RULES = [
