@@ -40,3 +40,6 @@ export function lbToKg(lb: number): number {
 export function kgToLb(kg: number): number {
   return requireFinite(kg, 'kg') / KG_PER_LB;
 }
+
+/** to one decimal place, for figures shown in words */
+export const round1 = (x: number) => Math.round(x * 10) / 10;
