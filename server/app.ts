@@ -30,6 +30,7 @@ import { fittedReportsRouter } from './features/fitted-reports/fitted-reports.ro
 import { carsRouter } from './features/cars/cars.router';
 import { plansRouter } from './features/plans/plans.router';
 import { shopLinkRedirectRouter, shopPagesRouter, shopsRouter } from './features/shops/shops.router';
+import { followingRouter, unsubscribeRouter } from './features/following/following.router';
 import { graphRouter } from './features/graph/graph.router';
 import { exportRouter } from './features/export/export.router';
 import { openApiRouter } from './features/openapi/openapi.router';
@@ -110,6 +111,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api', outboxRouter(deps));
   app.use('/api', fittedReportsRouter(deps));
   app.use('/api', carsRouter(deps));
+  app.use('/api', followingRouter(deps));
   app.use('/api', plansRouter(deps));
   app.use('/api', shopsRouter(deps));
   app.use('/api', graphRouter(deps));
@@ -118,6 +120,7 @@ export function createApp(deps: AppDeps) {
 
   app.use(mediaRouter(deps));
   app.use(shopLinkRedirectRouter(deps));
+  app.use(unsubscribeRouter(deps));
   // the daily open-data dumps (npm run export:dump), for mirrors; a file is only ever renamed into place whole
   app.use(
     '/dumps',

@@ -12,6 +12,7 @@ import { createLogger } from './lib/logger';
 import { staticClient, viteClient } from './client';
 import { seedDemo, isDatabaseEmpty } from './db/seed';
 import { startDraftExpiry } from './features/submissions/draft-expiry';
+import { startDigestScheduler } from './features/following/digests';
 
 async function main() {
   let config;
@@ -60,6 +61,15 @@ async function main() {
     expiry: config.draftExpiry,
   });
 
+  const stopDigests = startDigestScheduler({
+    db,
+    mailer,
+    clock,
+    logger,
+    appUrl: config.appUrl,
+    secret: config.sessionSecret,
+  });
+
   // Stop accepting, let requests in flight finish (at most STOP_TIMEOUT_MS), let a delivery in progress
   // record its result, then close the database so the WAL is checkpointed.
   let stopping = false;
@@ -75,6 +85,7 @@ async function main() {
     const cut = await requests.drain(config.stopTimeoutMs);
     if (cut) logger.warn({ cut }, 'requests still running at the stop timeout were cut off');
     stopDraftExpiry();
+    stopDigests();
     await mailer.stop();
     stopOrphanSweep();
     await vite?.close();

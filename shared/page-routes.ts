@@ -28,6 +28,7 @@ export const pageRoutes = {
   reviewRevision: '/review/:revisionId',
   outbox: '/outbox',
   myCars: '/me/cars',
+  myFollowing: '/me/following',
   myPlans: '/me/plans',
   plan: '/plans/:id',
   shop: '/shops/:slug',

@@ -41,6 +41,7 @@ import type { Clock } from '../lib/clock';
 import { submissionReceived, submissionSentBack, type BuiltMessage } from '../mail/messages';
 import { processPhoto } from '../features/photos/photo-processing';
 import { thumbId } from '../features/photos/photo-files';
+import { openingPeriodSchema, quotedPriceSchema, shopContactSchema } from '../../shared/schemas/shops';
 
 // Loads the demo scenario in content/ (chassis, parts, shops, members, swaps with their
 // revisions, photos and fitted reports). Everything is read and checked before the one
@@ -67,6 +68,8 @@ const shopsFileSchema = z.array(
     town: text(120),
     website: z.url({ protocol: /^https$/ }).refine((u) => new URL(u).hostname.endsWith('.example'), 'demo sites end in .example'),
     about: text(2000),
+    contact: shopContactSchema.default({ phone: '', email: '', address: '', hoursNote: '' }),
+    openingHours: z.array(openingPeriodSchema).default([]),
     links: z
       .array(
         z.strictObject({
@@ -74,7 +77,12 @@ const shopsFileSchema = z.array(
           swap: slug,
           revision: z.number().int().positive(),
           createdBy: login,
-          note: text(2000).default(''),
+          /** shown to everyone who opens the link */
+          publicNote: text(2000).default(''),
+          /** the shop's own record */
+          privateNote: text(2000).default(''),
+          customerRef: text(120).default(''),
+          quotedPrice: quotedPriceSchema.nullable().default(null),
           createdAt: date,
         }),
       )
@@ -759,7 +767,16 @@ function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, St
   for (const s of content.shops) {
     const row = tx
       .insert(t.shops)
-      .values({ slug: s.slug, name: s.name, town: s.town, website: s.website, about: s.about, ...stamp() })
+      .values({
+        slug: s.slug,
+        name: s.name,
+        town: s.town,
+        website: s.website,
+        about: s.about,
+        ...s.contact,
+        openingHours: s.openingHours,
+        ...stamp(),
+      })
       .returning({ id: t.shops.id })
       .get();
     shopIds.set(s.slug, row.id);
@@ -995,7 +1012,11 @@ function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, St
           swapId: tx.select({ id: t.swaps.id }).from(t.swaps).where(eq(t.swaps.slug, link.swap)).get()!.id,
           revisionId: revisionIds.get(link.swap)!.get(link.revision)!,
           createdById: userId(link.createdBy),
-          note: link.note,
+          publicNote: link.publicNote,
+          note: link.privateNote,
+          customerRef: link.customerRef,
+          quotedPriceMinor: link.quotedPrice?.amountMinor ?? null,
+          quotedCurrency: link.quotedPrice?.currency ?? null,
           ...stamp(link.createdAt),
         })
         .run();

@@ -156,3 +156,47 @@ export function draftExpiring(m: Base & { revisionId: number; lastChanged: Date;
     { link: `${m.appUrl}/submissions/${m.revisionId}/edit`, label: 'Open the draft' },
   ]);
 }
+
+/** one swap in a follow digest */
+export type DigestSwap = { slug: string; title: string; axle: 'front' | 'rear'; revisionNumber: number; isNew: boolean };
+
+/**
+ * The digest of what was published for something a member follows. It carries List-Unsubscribe with
+ * List-Unsubscribe-Post (RFC 8058), so a mail program can stop it in one step without a sign-in.
+ */
+export function followDigest(m: {
+  appUrl: string;
+  name: string;
+  followed: { kind: 'chassis'; chassis: string; slug: string } | { kind: 'car'; nickname: string; chassis: string };
+  frequency: 'daily' | 'weekly';
+  swaps: DigestSwap[];
+  unsubscribeUrl: string;
+}): BuiltMessage {
+  const what =
+    m.followed.kind === 'car' ? `your car “${m.followed.nickname}” (${m.followed.chassis})` : `the ${m.followed.chassis}`;
+  const count = m.swaps.length === 1 ? 'a swap' : `${m.swaps.length} swaps`;
+  const period = m.frequency === 'daily' ? 'day' : 'week';
+  const message = build(
+    m.followed.kind === 'car'
+      ? `For your ${m.followed.nickname}: ${count} published`
+      : `New for the ${m.followed.chassis}: ${count} published`,
+    hello(m.name),
+    [
+      { text: `Since your last digest, the review desk published ${count} for ${what}:` },
+      ...m.swaps.map((s): Block => ({
+        link: `${m.appUrl}/swaps/${s.slug}`,
+        label: `${s.title} (${s.axle} axle) — ${s.isNew ? 'new swap' : `updated to revision ${s.revisionNumber}`}`,
+      })),
+      {
+        text: 'Check each sheet against your own car before buying parts: torque every fastener to spec, bleed and bed in the brakes, and have a qualified person inspect brake and wheel work.',
+      },
+      { text: `You get this once a ${period} when something is published. Change it or stop following on your following page.` },
+      { link: `${m.appUrl}/me/following`, label: 'What you follow' },
+      { link: m.unsubscribeUrl, label: 'Stop these e-mails' },
+    ],
+  );
+  return {
+    ...message,
+    headers: { 'List-Unsubscribe': `<${m.unsubscribeUrl}>`, 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' },
+  };
+}

@@ -34,6 +34,7 @@ const pageModules: Record<Exclude<PageName, 'home'>, PageModule> = {
   reviewRevision: () => import('./routes/review-revision'),
   outbox: () => import('./routes/outbox'),
   myCars: () => import('./routes/my-cars-route'),
+  myFollowing: () => import('./routes/my-following-route'),
   myPlans: () => import('./routes/my-plans-route'),
   plan: () => import('./routes/plan-route'),
   shop: () => import('../features/shops/components/shop-page'),

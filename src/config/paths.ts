@@ -17,6 +17,7 @@ export const paths = {
   updateSubmission: (id: number) => `/submissions/${id}/update`,
   mySubmissions: () => '/me/submissions',
   myCars: () => '/me/cars',
+  myFollowing: () => '/me/following',
   myPlans: () => '/me/plans',
   plan: (id: string) => `/plans/${id}`,
   review: () => '/review',

@@ -6,10 +6,12 @@ import { sharedCacheMayStore } from '../../server/middleware/shared-cache';
 import { addShop, addUser, csrfToken, signIn, type Agent } from './support/auth-helpers';
 import { addChassis } from './support/swap-fixtures';
 import { addSwap } from './support/swap-rows';
+import { unsubscribeToken } from '../../server/features/following/following.service';
 import { swapData } from './support/swap-rows';
 import type { SearchHead } from '../../shared/search/shard-plan';
 import {
   cars,
+  follows,
   fittedReports,
   flags,
   parts,
@@ -157,6 +159,13 @@ const table: Record<string, Row> = {
   'POST /api/cars': signedIn(),
   'PATCH /api/cars/:id': ownerOnly,
   'DELETE /api/cars/:id': ownerOnly,
+  'GET /api/me/follows': signedIn(),
+  'POST /api/me/follows': signedIn(),
+  'PATCH /api/me/follows/:id': ownerOnly,
+  'DELETE /api/me/follows/:id': ownerOnly,
+  // the signed token is the only authority: anyone holding the link may see (GET) and use (POST) it
+  'GET /unsubscribe/:token': publicRoute,
+  'POST /unsubscribe/:token': publicRoute,
   // anyone makes a plan (a visitor's is kept by their device) and anyone with its address reads it;
   // only its owner (or the device that made it) changes it
   'POST /api/plans': publicRoute,
@@ -286,6 +295,11 @@ async function world() {
     })
     .returning()
     .get();
+  const follow = t.db
+    .insert(follows)
+    .values({ userId: users.owner.id, chassisId: c.id, frequency: 'daily', since: now, createdAt: now, updatedAt: now })
+    .returning()
+    .get();
   t.db
     .insert(plans)
     .values({ id: 'plan-owned-1', chassisId: c.id, carId: car.id, ownerId: users.owner.id, createdAt: now, updatedAt: now })
@@ -337,7 +351,15 @@ async function world() {
   // the search index's addresses carry hashes of their content: read them from the first index
   const searchHead = (await request(t.app).get('/api/search-index/head')).body as SearchHead;
   const params: Record<string, Record<string, string | number>> = {
-    default: { slug: approved.slug, n: 1, revisionId: inReview.revisionIds[0], photoId: photo.fileId, code: link.code },
+    default: {
+      slug: approved.slug,
+      n: 1,
+      revisionId: inReview.revisionIds[0],
+      photoId: photo.fileId,
+      code: link.code,
+      token: unsubscribeToken(t.config.sessionSecret, follow.id),
+    },
+    follows: { id: follow.id },
     chassis: { slug: c.slug },
     shops: { slug: shopA.slug },
     parts: { id: part.id },
@@ -391,6 +413,8 @@ const bodies: Record<string, object> = {
   'PATCH /api/swaps/:slug/fitted-reports/mine': { note: 'Still fine' },
   'POST /api/cars': { chassisId: 1, nickname: 'Weekend car', wheelDiameterIn: 16, wheelWidthIn: 7, wheelOffsetMm: 38 },
   'PATCH /api/cars/:id': { nickname: 'Renamed' },
+  'POST /api/me/follows': { chassisSlug: 'halden-h31', frequency: 'weekly' },
+  'PATCH /api/me/follows/:id': { frequency: 'weekly' },
   'PATCH /api/chassis/:slug/vehicle': { vehicle: null },
   'POST /api/plans': { chassisId: 1, swapSlugs: ['h31-vela-front'] },
   'PATCH /api/plans/:id': { title: 'Both axles' },

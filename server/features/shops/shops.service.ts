@@ -46,7 +46,9 @@ const privatePart = (link: LinkRow): ShopLinkPrivate => ({
   note: link.note,
   customerRef: link.customerRef,
   quotedPrice:
-    link.quotedPriceMinor !== null && link.quotedCurrency ? { amountMinor: link.quotedPriceMinor, currency: link.quotedCurrency } : null,
+    link.quotedPriceMinor !== null && link.quotedCurrency
+      ? { amountMinor: link.quotedPriceMinor, currency: link.quotedCurrency }
+      : null,
   expiresAt: link.expiresAt ? link.expiresAt.toISOString() : null,
 });
 
@@ -106,7 +108,12 @@ export function getShopPage(db: Db, clock: Clock, slug: string, viewer: SessionU
     )
     .all()
     .map((r) => r.swapId);
-  const members = db.select({ id: users.id }).from(users).where(eq(users.shopId, shop.id)).all().map((u) => u.id);
+  const members = db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.shopId, shop.id))
+    .all()
+    .map((u) => u.id);
   return {
     shop: shopView(shop),
     swaps: linked.length ? swapCards(db, and(inArray(swaps.id, linked), isNotNull(swaps.currentRevisionId))) : [],
@@ -309,7 +316,13 @@ export function shopLinkUrl(db: Db, appUrl: string, code: string) {
  * note goes to everyone; the private part (a customer's reference, the price quoted, the expiry) only to
  * the shop's accounts. An expired link answers as a retired one does.
  */
-export function getPinnedSheet(db: Db, clock: Clock, appUrl: string, code: string, viewer: SessionUser | undefined): PinnedSheetView {
+export function getPinnedSheet(
+  db: Db,
+  clock: Clock,
+  appUrl: string,
+  code: string,
+  viewer: SessionUser | undefined,
+): PinnedSheetView {
   const { link, shop, swap, revision } = linkByCode(db, code);
   if (isRetired(link, clock.now()))
     throw new AppError('link_retired', `${shop.name} has retired this link. The swap it pointed to is still on Swapyard.`, 410);

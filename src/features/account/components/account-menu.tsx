@@ -11,6 +11,7 @@ type MenuLink = { to: string; label: string; need?: Permission };
 const links: MenuLink[] = [
   { to: paths.mySubmissions(), label: 'My submissions', need: 'submit' },
   { to: paths.myCars(), label: 'My cars' },
+  { to: paths.myFollowing(), label: 'Following' },
   { to: paths.myPlans(), label: 'My plans' },
   { to: paths.review(), label: 'Review desk', need: 'review' },
   { to: paths.outbox(), label: 'Outbox', need: 'review' },

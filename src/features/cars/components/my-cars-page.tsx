@@ -15,7 +15,8 @@ import { VehicleFiguresList } from '../../../components/vehicle-figures';
 export const wheelLabel = (w: { wheelDiameterIn: number; wheelWidthIn: number; wheelOffsetMm: number }) =>
   `${w.wheelDiameterIn}×${w.wheelWidthIn} ET${w.wheelOffsetMm}`;
 
-export default function MyCarsPage() {
+/** `carActions`: more for each car's card (e.g. following it) */
+export default function MyCarsPage({ carActions }: { carActions?: (car: CarView) => React.ReactNode } = {}) {
   const cars = useMyCars();
   const create = useCreateCar();
   return (
@@ -37,7 +38,7 @@ export default function MyCarsPage() {
           <ul className="grid gap-4 md:grid-cols-2" aria-label="Your cars">
             {cars.data.map((car) => (
               <li key={car.id}>
-                <CarCard car={car} />
+                <CarCard car={car} actions={carActions?.(car)} />
               </li>
             ))}
           </ul>
@@ -54,7 +55,7 @@ export default function MyCarsPage() {
   );
 }
 
-function CarCard({ car }: { car: CarView }) {
+function CarCard({ car, actions }: { car: CarView; actions?: React.ReactNode }) {
   const units = useUnits();
   const [editing, setEditing] = useState(false);
   const [confirming, setConfirming] = useState(false);
@@ -124,6 +125,7 @@ function CarCard({ car }: { car: CarView }) {
           ? `Wheel inside profile: ${car.wheelInsideProfile.length} points, drawn on each swap’s sheet.`
           : 'No wheel inside profile yet: edit the car to measure it.'}
       </p>
+      {actions && <div className="mt-3">{actions}</div>}
       <div className="mt-auto flex flex-wrap items-center gap-2 pt-4">
         <Button variant="secondary" onClick={() => setEditing(true)}>
           Edit

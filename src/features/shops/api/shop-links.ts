@@ -1,5 +1,11 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CreateShopLinkInput, PinnedSheetView, ShopLinkItem, ShopLinkList, UpdateShopLinkInput } from '@shared/schemas/shops';
+import type {
+  CreateShopLinkInput,
+  PinnedSheetView,
+  ShopLinkItem,
+  ShopLinkList,
+  UpdateShopLinkInput,
+} from '@shared/schemas/shops';
 import { api } from '../../../lib/api-client';
 import { shopKeys } from './shop-keys';
 

@@ -21,9 +21,11 @@ type ChassisPageProps = {
   donors?: (chassisSlug: string) => React.ReactNode;
   /** reviewers keep the chassis' stock brake-balance figures */
   canEditFigures?: boolean;
+  /** beside the page's actions (e.g. following the chassis) */
+  follow?: (chassis: { slug: string; label: string }) => React.ReactNode;
 };
 
-export default function ChassisPage({ intro, cardNote, donors, canEditFigures = false }: ChassisPageProps = {}) {
+export default function ChassisPage({ intro, cardNote, donors, canEditFigures = false, follow }: ChassisPageProps = {}) {
   const { slug = '' } = useParams();
   const query = useChassisPage(slug);
   const [editingFigures, setEditingFigures] = useState(false);
@@ -48,9 +50,12 @@ export default function ChassisPage({ intro, cardNote, donors, canEditFigures = 
       heading={c.code === c.model ? `${c.make} ${c.model}` : `${c.make} ${c.model} · ${c.code}`}
       lead={`${c.body} · ${c.yearFrom}–${c.yearTo ?? 'on'}${c.notes ? ` · ${c.notes}` : ''}`}
       actions={
-        <ButtonLink to={paths.search(`chassis=${c.slug}`)} variant="secondary">
-          Search within this chassis
-        </ButtonLink>
+        <div className="flex flex-wrap items-start gap-2">
+          {!proposed && follow?.({ slug: c.slug, label: chassisLabel(c) })}
+          <ButtonLink to={paths.search(`chassis=${c.slug}`)} variant="secondary">
+            Search within this chassis
+          </ButtonLink>
+        </div>
       }
     >
       {proposed && (
