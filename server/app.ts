@@ -19,6 +19,7 @@ import { defaultCacheControl, noCookieOnSharedAnswers } from './middleware/share
 import { meRouter } from './features/me/me.router';
 import { adminRouter } from './features/admin/admin.router';
 import { swapPagesRouter, swapsRouter } from './features/swaps/swaps.router';
+import { catalogueAdminRouter } from './features/catalogue/catalogue-admin.router';
 import { cataloguePagesRouter, catalogueRouter } from './features/catalogue/catalogue.router';
 import { mediaRouter } from './features/photos/media.router';
 import { searchIndexRouter } from './features/search-index/search-index.router';
@@ -100,6 +101,7 @@ export function createApp(deps: AppDeps) {
 
   // --- feature routers ---
   app.use('/api', meRouter(deps));
+  app.use('/api', catalogueAdminRouter(deps));
   app.use('/api', adminRouter({ db: deps.db, clock: deps.clock, endSessions }));
   app.use('/api', swapsRouter(deps));
   app.use('/api', catalogueRouter(deps));

@@ -4,14 +4,14 @@ export const roles = ['member', 'shop', 'moderator', 'admin'] as const;
 export const roleSchema = z.enum(roles);
 export type Role = z.infer<typeof roleSchema>;
 
-export const permissions = ['submit', 'report_fitted', 'flag', 'review', 'manage_shop_links', 'manage_users'] as const;
+export const permissions = ['submit', 'report_fitted', 'flag', 'review', 'manage_shop_links', 'manage_users', 'manage_catalogue'] as const;
 export type Permission = (typeof permissions)[number];
 
 const grants: Record<Role, readonly Permission[]> = {
   member: ['submit', 'report_fitted', 'flag'],
   shop: ['submit', 'report_fitted', 'flag', 'manage_shop_links'],
   moderator: ['submit', 'report_fitted', 'flag', 'review'],
-  admin: ['submit', 'report_fitted', 'flag', 'review', 'manage_users'],
+  admin: ['submit', 'report_fitted', 'flag', 'review', 'manage_users', 'manage_catalogue'],
 };
 
 export const roleLabels: Record<Role, string> = {
@@ -29,6 +29,7 @@ export const permissionLabels: Record<Permission, string> = {
   review: 'decide at the review desk: publish revisions, send them back for rework, resolve flags',
   manage_shop_links: 'make shop links for their shop',
   manage_users: 'change members’ roles, link shop accounts and suspend accounts',
+  manage_catalogue: 'edit catalogue chassis and parts, merge duplicates and approve proposed chassis',
 };
 
 export function can(role: Role | null | undefined, permission: Permission): boolean {

@@ -9,6 +9,9 @@ import { pageRoutes } from '../../../shared/page-routes';
 import { requirePermission } from '../../middleware/require-role';
 import { chassisVehicleInputSchema } from '../../../shared/schemas/vehicle';
 import { getChassisPage, getPartPage, listChassis, setChassisVehicle } from './catalogue.service';
+import { findPartMatch, searchParts } from './part-lookup.service';
+import { partMatchQuerySchema, partSearchQuerySchema } from '../../../shared/schemas/catalogue';
+import type { PartMatchResponse, PartSearchResponse } from '../../../shared/schemas/catalogue';
 
 export function catalogueRouter({ db, clock }: AppDeps) {
   const router = Router();
@@ -30,6 +33,21 @@ export function catalogueRouter({ db, clock }: AppDeps) {
     requirePermission('review'),
     validated({ params: z.object({ slug: slugSchema }), body: chassisVehicleInputSchema }, ({ params, body }, _req, res) => {
       res.json({ chassis: setChassisVehicle(db, clock, params.slug, body.vehicle) });
+    }),
+  );
+  // the submission form's part picker and its "this part is already in the catalogue" offer
+  router.get(
+    '/parts',
+    validated({ query: partSearchQuerySchema }, ({ query }, _req, res) => {
+      const body: PartSearchResponse = { items: searchParts(db, query) };
+      res.json(body);
+    }),
+  );
+  router.get(
+    '/parts/match',
+    validated({ query: partMatchQuerySchema }, ({ query }, _req, res) => {
+      const body: PartMatchResponse = { match: findPartMatch(db, query.maker, query.numbers) };
+      res.json(body);
     }),
   );
   router.get(
