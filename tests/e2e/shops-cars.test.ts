@@ -95,7 +95,7 @@ describe('shop links and my cars in the browser', () => {
     // the shop's own account sees its note over the pinned sheet, marked as private
     await shop.page.goto(`${server.url}/l/${code}`);
     const own = shop.page.getByRole('complementary', { name: 'Shared by Ridgeway Performance' });
-    await own.getByText('Your private note (customers do not see it)').waitFor();
+    await own.getByText('Private to your shop — customers do not see this').waitFor();
     expect(await own.innerText()).toContain('Fixed price includes the 10 mm spacers. Ask for Jo.');
     expect(await own.locator('strong', { hasText: 'includes' }).count()).toBe(1);
     await shop.page.context().close();

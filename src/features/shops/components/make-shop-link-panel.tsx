@@ -2,13 +2,13 @@ import { useState } from 'react';
 import { Link } from 'react-router';
 import type { ShopLinkItem } from '@shared/schemas/shops';
 import { Button } from '../../../components/ui/button';
-import { TextArea } from '../../../components/ui/field';
 import { paths } from '../../../config/paths';
 import { ApiError } from '../../../lib/api-client';
 import { useCreateShopLink } from '../api/shop-links';
 import { QrDownloads } from './qr-downloads';
+import { emptyLinkDraft, linkBody, ShopLinkFields } from './shop-link-fields';
 
-/** On a swap sheet, for shop accounts: a short link pinned to the swap's current revision, with a private note for the shop's own records. */
+/** On a swap sheet, for shop accounts: a short link pinned to the swap's current revision, with a public note and the shop's private record of the quote. */
 export function MakeShopLinkPanel({
   swapSlug,
   shownNumber,
@@ -21,7 +21,7 @@ export function MakeShopLinkPanel({
   shopName: string;
 }) {
   const create = useCreateShopLink();
-  const [note, setNote] = useState('');
+  const [draft, setDraft] = useState(emptyLinkDraft);
   const [made, setMade] = useState<ShopLinkItem | null>(null);
   const [copied, setCopied] = useState(false);
 
@@ -67,7 +67,11 @@ export function MakeShopLinkPanel({
               All our shop links
             </Link>{' '}
             ·{' '}
-            <button type="button" className="font-bold text-ink underline" onClick={() => (setMade(null), setNote(''))}>
+            <button
+              type="button"
+              className="font-bold text-ink underline"
+              onClick={() => (setMade(null), setDraft(emptyLinkDraft))}
+            >
               Make another
             </button>
           </p>
@@ -77,17 +81,13 @@ export function MakeShopLinkPanel({
           className="mt-3 grid gap-3"
           onSubmit={async (e) => {
             e.preventDefault();
-            setMade(await create.mutateAsync({ swapSlug, note }));
+            setMade(await create.mutateAsync({ swapSlug, ...linkBody(draft) }));
           }}
         >
-          <TextArea
-            label="Private note"
-            rows={3}
-            value={note}
-            maxLength={4000}
-            onChange={(e) => setNote(e.target.value)}
-            hint="For your shop only (customer, quote, price): customers opening the link do not see it. Markdown; HTML is removed."
-            error={create.error instanceof ApiError ? create.error.fields.note : undefined}
+          <ShopLinkFields
+            value={draft}
+            onChange={setDraft}
+            errors={create.error instanceof ApiError ? create.error.fields : {}}
           />
           <div className="flex flex-wrap items-center gap-3">
             <Button type="submit" disabled={create.isPending}>

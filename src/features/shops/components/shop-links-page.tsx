@@ -4,12 +4,13 @@ import type { ShopLinkItem } from '@shared/schemas/shops';
 import { Page } from '../../../components/ui/page';
 import { Loading, ErrorNotice } from '../../../components/ui/query-state';
 import { Button } from '../../../components/ui/button';
-import { TextArea } from '../../../components/ui/field';
+import { ApiError } from '../../../lib/api-client';
 import { Badge } from '../../../components/ui/badge';
 import { Markdown } from '../../../components/markdown';
 import { paths } from '../../../config/paths';
 import { useRetireShopLink, useShopLinks, useUpdateShopLink } from '../api/shop-links';
 import { QrDownloads } from './qr-downloads';
+import { linkBody, linkDraftFrom, ShopLinkFields } from './shop-link-fields';
 
 const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 
@@ -20,7 +21,7 @@ export default function ShopLinksPage() {
     <Page
       title="Shop links"
       heading="Shop links"
-      lead="Each link points a customer at the revision you quoted under your shop’s name. Your notes stay private to your shop. Make a new one from any swap sheet."
+      lead="Each link points a customer at the revision you quoted under your shop’s name. The public note goes to your customers; the customer reference, price, expiry and private note stay with your shop. Make a new one from any swap sheet."
     >
       {query.isPending ? (
         <Loading label="Loading your links…" />
@@ -76,7 +77,7 @@ export default function ShopLinksPage() {
 
 function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }) {
   const [editing, setEditing] = useState(false);
-  const [note, setNote] = useState(link.private?.note ?? '');
+  const [draft, setDraft] = useState(() => linkDraftFrom(link));
   const [showQr, setShowQr] = useState(false);
   const [confirmRetire, setConfirmRetire] = useState(false);
   const [copied, setCopied] = useState(false);
@@ -116,35 +117,34 @@ function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }
         {editing ? (
           <form
             className="mt-2 grid gap-2"
+            aria-label="Edit shop link"
             onSubmit={async (e) => {
               e.preventDefault();
-              await update.mutateAsync({ code: link.code, note });
+              await update.mutateAsync({ code: link.code, ...linkBody(draft) });
               setEditing(false);
             }}
           >
-            <TextArea
-              label="Private note"
-              rows={4}
-              value={note}
-              onChange={(e) => setNote(e.target.value)}
-              error={update.error?.message}
-              hint="Only your shop sees it. Markdown; HTML is removed."
+            <ShopLinkFields
+              value={draft}
+              onChange={setDraft}
+              errors={update.error instanceof ApiError ? update.error.fields : {}}
             />
+            {update.error && (
+              <p role="alert" className="text-sm font-semibold text-oxide">
+                {update.error.message}
+              </p>
+            )}
             <div className="flex gap-2">
               <Button type="submit" disabled={update.isPending}>
-                {update.isPending ? 'Saving…' : 'Save note'}
+                {update.isPending ? 'Saving…' : 'Save link'}
               </Button>
-              <Button variant="quiet" onClick={() => (setEditing(false), setNote(link.private?.note ?? ''))}>
+              <Button variant="quiet" onClick={() => (setEditing(false), setDraft(linkDraftFrom(link)))}>
                 Cancel
               </Button>
             </div>
           </form>
-        ) : link.private?.note ? (
-          <div className="mt-2 line-clamp-4 text-sm">
-            <Markdown className="prose-sm">{link.private.note}</Markdown>
-          </div>
         ) : (
-          <p className="mt-2 text-sm text-graphite-soft">No note.</p>
+          <LinkNotes link={link} />
         )}
       </td>
       <td className={cell}>
@@ -175,6 +175,11 @@ function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }
             <Badge tone="plain">Retired {date(link.retiredAt!)}</Badge>
           </span>
         )}
+        {!retired && link.expired && (
+          <span className="ml-2 md:ml-0 md:mt-1 md:block">
+            <Badge tone="plain">{link.private?.expiresAt ? `Expired ${date(link.private.expiresAt)}` : 'Expired'}</Badge>
+          </span>
+        )}
       </td>
       <td className={`${cell} md:w-52`}>
         <div className="flex flex-wrap gap-2 md:flex-col md:items-start">
@@ -183,7 +188,7 @@ function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }
           </Button>
           {canManage && !retired && !editing && (
             <Button variant="quiet" onClick={() => setEditing(true)}>
-              Edit note
+              Edit link
             </Button>
           )}
           {canManage &&
@@ -215,5 +220,36 @@ function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }
         )}
       </td>
     </tr>
+  );
+}
+
+const money = (p: { amountMinor: number; currency: string }) =>
+  new Intl.NumberFormat('en-GB', { style: 'currency', currency: p.currency }).format(p.amountMinor / 100);
+
+/** The link's public note, then the shop's private record, each labelled for who reads it. */
+function LinkNotes({ link }: { link: ShopLinkItem }) {
+  const p = link.private;
+  return (
+    <div className="mt-2 grid gap-2 text-sm">
+      {link.publicNote ? (
+        <div className="line-clamp-4 border-l-4 border-brass pl-2">
+          <p className="text-xs font-bold text-graphite-soft">Public note</p>
+          <Markdown className="prose-sm">{link.publicNote}</Markdown>
+        </div>
+      ) : (
+        <p className="text-graphite-soft">No public note.</p>
+      )}
+      {p && (p.customerRef || p.quotedPrice || p.expiresAt || p.note) && (
+        <div className="rounded-md border border-dashed border-ink/30 p-2" data-testid="link-private">
+          <p className="text-xs font-bold text-graphite-soft">Private to your shop</p>
+          <p className="tabular">
+            {[p.customerRef, p.quotedPrice && `quoted ${money(p.quotedPrice)}`, p.expiresAt && `expires ${date(p.expiresAt)}`]
+              .filter(Boolean)
+              .join(' · ')}
+          </p>
+          {p.note && <Markdown className="prose-sm">{p.note}</Markdown>}
+        </div>
+      )}
+    </div>
   );
 }
