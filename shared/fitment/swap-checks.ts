@@ -260,7 +260,13 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, chassis: Fastening
   };
 }
 
-export type WheelCheckSummary = { tone: 'pass' | 'fail' | 'open'; text: string; leastClearanceMm?: number };
+export type WheelCheckSummary = {
+  tone: 'pass' | 'fail' | 'open';
+  /** the verdict in a few words, for the one line at the top of the check */
+  headline: string;
+  text: string;
+  leastClearanceMm?: number;
+};
 
 /** The one line above the wheel check: a failure from a measurement, a pass only when everything was measured. */
 export function wheelCheckSummary(check: WheelCheck): WheelCheckSummary {
@@ -269,21 +275,29 @@ export function wheelCheckSummary(check: WheelCheck): WheelCheckSummary {
   if (check.radial?.basis === 'measured' && !check.radial.ok) fails.push('too little room at the barrel');
   if (check.spoke?.basis === 'measured' && !check.spoke.ok) fails.push('too little room at the spokes');
   if (check.fastening) fails.push(...check.fastening.failures);
-  if (fails.length > 0) return { tone: 'fail', text: `Does not fit as entered: ${fails.join('; ')}.` };
+  if (fails.length > 0)
+    return { tone: 'fail', headline: `Does not fit: ${fails[0]}`, text: `Does not fit as entered: ${fails.join('; ')}.` };
   const figures = [check.radial, check.spoke].filter((f): f is ClearanceFigure => f !== null);
   const estimated = figures.filter((f) => f.basis === 'estimated');
   if (figures.length > 0 && estimated.length === 0) {
     const least = Math.min(...figures.map((f) => f.clearanceMm));
-    return { tone: 'pass', text: 'Clears by your measurements.', leastClearanceMm: least };
+    return {
+      tone: 'pass',
+      headline: 'Clears by your measurements',
+      text: 'Clears by your measurements.',
+      leastClearanceMm: least,
+    };
   }
   if (estimated.some((f) => f.clearanceMm < MIN_CLEARANCE_MM))
     return {
       tone: 'open',
+      headline: 'Not settled: the estimates are tight, measure your wheel',
       text: 'Not settled, and the estimates are tight or overlapping: measure your barrel and spokes before buying anything.',
     };
   const which = estimated.map((f) => (f === check.radial ? 'barrel' : 'spoke'));
   return {
     tone: 'open',
+    headline: 'Not settled: estimates only, measure your wheel',
     text:
       which.length === 2
         ? 'Not settled: both clearances below are estimates from other wheels. Measure your barrel and spokes for a verdict.'

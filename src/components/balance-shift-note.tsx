@@ -15,12 +15,12 @@ const word = { hazard: 'Check before driving', advisory: 'Worth knowing', none: 
 export function BalanceShiftNote({ shift }: { shift: BalanceShift }) {
   return (
     <div
-      className={`rounded-lg border-l-4 p-3 ${tone[shift.severity]}`}
+      className={`rounded-lg border-l-4 p-3 print:py-1.5 ${tone[shift.severity]}`}
       data-balance={shift.direction}
       data-severity={shift.severity}
     >
       <p className="text-xs font-extrabold uppercase tracking-wide text-graphite-soft">{word[shift.severity]}</p>
-      <p className="tabular mt-1 font-extrabold text-graphite">{shift.headline}</p>
+      <p className="tabular mt-1 font-extrabold text-graphite print:text-sm">{shift.headline}</p>
       {/* the printed build sheet has room for the risk only where it is a hazard */}
       <p className={`mt-1 text-sm text-graphite ${shift.severity === 'hazard' ? '' : 'print:hidden'}`}>{shift.risk}</p>
       <p className="mt-1 text-xs text-graphite-soft print:hidden">Rule: {shift.rule}</p>

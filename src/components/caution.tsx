@@ -48,7 +48,7 @@ export function Caution({
       className="print-break-avoid rounded-lg border-l-4 border-oxide bg-oxide-soft px-4 py-3 text-sm text-graphite"
     >
       <p className="font-bold text-oxide">Safety first</p>
-      <ul className="mt-1 list-disc space-y-1 pl-5">
+      <ul className="mt-1 list-disc space-y-1 pl-5 print:columns-2 print:gap-6 print:space-y-0">
         {topics
           .flatMap((t) => lines[t])
           .map((line) => (

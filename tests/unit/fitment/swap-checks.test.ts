@@ -99,7 +99,11 @@ describe('checkWheelForSwap: a verdict only from a measurement', () => {
     });
     expect(check.radial).toMatchObject({ basis: 'measured', clearanceMm: 15, ok: true });
     expect(check.spoke).toMatchObject({ basis: 'measured', clearanceMm: 6, ok: true });
-    expect(wheelCheckSummary(check)).toMatchObject({ tone: 'pass', leastClearanceMm: 6 });
+    expect(wheelCheckSummary(check)).toMatchObject({
+      tone: 'pass',
+      headline: 'Clears by your measurements',
+      leastClearanceMm: 6,
+    });
   });
 
   it('when a lower-offset, wider wheel is estimated from a measured one, then it gains no room and carries no verdict', () => {
@@ -117,6 +121,8 @@ describe('checkWheelForSwap: a verdict only from a measurement', () => {
     const check = checkWheelForSwap(data, 'front', noFastening, { diameterIn: 17, widthIn: 7.5, offsetMm: 52, spacerMm: 0 });
     expect(check.spoke?.clearanceMm).toBeCloseTo(-4, 9);
     expect(wheelCheckSummary(check).tone).toBe('open');
+    // an estimate never reads as a verdict, not even in the short line
+    expect(wheelCheckSummary(check).headline).toMatch(/^Not settled/);
   });
 
   it('when a spacer is added, then the spoke estimate moves by exactly its thickness (the wheel moves outboard by t)', () => {
@@ -154,6 +160,7 @@ describe('checkWheelForSwap: a verdict only from a measurement', () => {
     expect(check.minDiameter?.ok).toBe(false);
     expect(wheelCheckSummary(check)).toMatchObject({ tone: 'fail' });
     expect(wheelCheckSummary(check).text).toContain('below the 16″ minimum');
+    expect(wheelCheckSummary(check).headline).toBe('Does not fit: the wheel is below the 16″ minimum');
   });
 
   it('when the wheel bolt is too short, then the summary names the thread, not the clearance', () => {
@@ -168,6 +175,7 @@ describe('checkWheelForSwap: a verdict only from a measurement', () => {
     expect(check.fastening?.engagement).toMatchObject({ engagementMm: 10, ok: false });
     expect(wheelCheckSummary(check).text).toContain('too little thread');
     expect(wheelCheckSummary(check).text).not.toMatch(/clear/);
+    expect(wheelCheckSummary(check).headline).toMatch(/^Does not fit: .*too little thread/);
   });
 
   it('when the chassis has no wheel fastening on record, then no fastening verdict is given', () => {

@@ -4,6 +4,7 @@ import { Field, inputClass, Select } from '../../../components/ui/field';
 import { Button } from '../../../components/ui/button';
 import { useUnits } from '../../../lib/units';
 import { panelLink, toCanonical, toDisplay, unitLabel, type CalcParams, type Quantity } from './calc-params';
+import { numberKeyboard } from '../../../lib/number-text';
 
 type PanelProps = {
   id: string;
@@ -104,7 +105,10 @@ type QuantityFieldProps = {
   hint?: ReactNode;
   error?: string;
   placeholder?: string;
-  inputMode?: 'decimal' | 'text' | 'numeric';
+  /** may be negative: the field asks a phone for a keyboard with a minus key */
+  signed?: boolean;
+  /** written with letters (a tyre size, a thread), not a plain number */
+  text?: boolean;
   className?: string;
 };
 
@@ -119,7 +123,8 @@ export function QuantityField({
   hint,
   error,
   placeholder,
-  inputMode,
+  signed = false,
+  text = false,
   className,
 }: QuantityFieldProps) {
   const { system } = useUnits();
@@ -146,7 +151,8 @@ export function QuantityField({
           {...a11y}
           name={name}
           className={`${inputClass} tabular`}
-          inputMode={inputMode ?? (list ? 'text' : 'decimal')}
+          // a list is typed with separators and a size or thread with letters: they get the full keyboard too
+          {...numberKeyboard(signed || list || text)}
           autoComplete="off"
           placeholder={placeholder}
           value={shown}

@@ -206,7 +206,7 @@ export function CaliperFitPanel({ params }: { params: CalcParams }) {
                 label="Centre plane from mount face"
                 quantity="length"
                 placeholder="25.5"
-                inputMode="text"
+                signed
                 hint="Positive outboard; optional"
                 error={inputs.error('cfcent')}
               />
@@ -237,7 +237,7 @@ export function CaliperFitPanel({ params }: { params: CalcParams }) {
                 label="Radial lift"
                 quantity="length"
                 placeholder="0"
-                inputMode="text"
+                signed
                 hint="Outward from the designed position; negative inward"
                 error={inputs.error('cflift')}
               />
@@ -247,7 +247,7 @@ export function CaliperFitPanel({ params }: { params: CalcParams }) {
                 label="Mount face from hub face"
                 quantity="length"
                 placeholder="60"
-                inputMode="text"
+                signed
                 hint="Positive inboard; optional"
                 error={inputs.error('cfmount')}
               />
@@ -321,7 +321,7 @@ export function CaliperFitPanel({ params }: { params: CalcParams }) {
                     params={params}
                     name={`${j.key}t`}
                     label={`${j.label}, thread`}
-                    inputMode="text"
+                    text
                     placeholder="M10x1"
                     error={inputs.error(`${j.key}t`)}
                   />

@@ -98,7 +98,7 @@ export function ClearancePanel({ params }: { params: CalcParams }) {
                 name="inset"
                 label="Spoke inset"
                 quantity="length"
-                inputMode="text"
+                signed
                 placeholder="30"
                 hint="Back of the spokes, outboard of the hub face"
                 error={spoke.error('inset')}
@@ -108,7 +108,7 @@ export function ClearancePanel({ params }: { params: CalcParams }) {
                 name="cout"
                 label="Caliper outboard face"
                 quantity="length"
-                inputMode="text"
+                signed
                 placeholder="22"
                 hint="Outboard of the hub face"
                 error={spoke.error('cout')}

@@ -36,7 +36,7 @@ export function OffsetPanel({ params }: { params: CalcParams }) {
             unit="mm"
             placeholder="45"
             hint="Negative for a deep dish"
-            inputMode="text"
+            signed
             error={inputs.error('et')}
           />
           <QuantityField

@@ -3,6 +3,7 @@ import { inputClass } from '../../../components/ui/field';
 import { Button } from '../../../components/ui/button';
 import { useUnits } from '../../../lib/units';
 import { toCanonical, toDisplay, unitLabel, type CalcParams } from './calc-params';
+import { numberKeyboard } from '../../../lib/number-text';
 
 /** One (z, r) row as typed, kept in the URL in mm: `z_r`. */
 export type PointRow = { z: string; r: string };
@@ -127,8 +128,7 @@ function LengthCell({ label, value, signed = false, invalid, describedBy, onChan
       aria-invalid={invalid}
       aria-describedby={describedBy}
       className={`${inputClass} tabular min-w-0 px-2`}
-      // iOS's decimal pad has no minus key: a signed field gets the full keyboard
-      inputMode={signed ? 'text' : 'decimal'}
+      {...numberKeyboard(signed)}
       autoComplete="off"
       spellCheck={false}
       value={shown}

@@ -177,7 +177,7 @@ export function ThreadPanel({ params }: { params: CalcParams }) {
                 params={params}
                 name="thread"
                 label="Thread"
-                inputMode="text"
+                text
                 placeholder="M12x1.5"
                 hint="Metric with pitch (M12x1.5) or unified with threads per inch (1/2-20 UNF)"
                 error={inputs.error('thread')}

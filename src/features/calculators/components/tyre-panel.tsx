@@ -83,7 +83,7 @@ export function TyrePanel({ params }: { params: CalcParams }) {
             params={params}
             name="tyre"
             label="Tyre size"
-            inputMode="text"
+            text
             placeholder="225/45R17"
             hint="As on the sidewall: 225/45ZR17 94W XL, LT265/75R16 123/120Q, 195/70R15C 104/102R, 185/70HR14, 165SR15, 31x10.50R15"
             error={inputs.error('tyre')}
@@ -92,7 +92,7 @@ export function TyrePanel({ params }: { params: CalcParams }) {
             params={params}
             name="tyre2"
             label="Compare with (optional)"
-            inputMode="text"
+            text
             placeholder="235/40R18"
             error={compareError}
           />

@@ -18,6 +18,7 @@ import {
 } from '../../../components/vehicle-fields';
 import { profileOf, rowsOf, WheelProfileFields, type ProfileRow } from './wheel-profile-fields';
 import { FittedSwapsFields, type FittedForm } from './fitted-swaps-fields';
+import { numberKeyboard } from '../../../lib/number-text';
 
 type Form = Record<'chassisId' | 'nickname' | 'wheelDiameterIn' | 'wheelWidthIn' | 'wheelOffsetMm' | 'tyre' | 'spacer', string>;
 
@@ -167,7 +168,7 @@ export function CarForm({
       />
       <TextInput
         label="Offset ET (mm)"
-        inputMode="decimal"
+        {...numberKeyboard(true)}
         value={form.wheelOffsetMm}
         onChange={set('wheelOffsetMm')}
         error={errors.wheelOffsetMm}

@@ -3,7 +3,7 @@ import { inToMm, mmToIn } from '@shared/fitment/units';
 import { TextInput } from '../../../components/ui/field';
 import { Button } from '../../../components/ui/button';
 import { WheelMeasureGuide } from '../../../components/wheel-measure-guide';
-import { readNumber } from '../../../lib/number-text';
+import { numberKeyboard, readNumber } from '../../../lib/number-text';
 import { useUnits } from '../../../lib/units';
 
 /** One (z, r) row as typed, in the reader's length unit. */
@@ -66,7 +66,7 @@ export function WheelProfileFields({
             <span className="tabular pb-3 text-sm font-bold text-graphite-soft">{i + 1}</span>
             <TextInput
               label={`z (${lengthUnit})`}
-              inputMode="text"
+              {...numberKeyboard(true)}
               value={row.z}
               onChange={(e) => edit(i, 'z', e.target.value)}
               error={errors[`wheelInsideProfile.${i}.zMm`]}
@@ -74,7 +74,7 @@ export function WheelProfileFields({
             />
             <TextInput
               label={`r (${lengthUnit})`}
-              inputMode="decimal"
+              {...numberKeyboard()}
               value={row.r}
               onChange={(e) => edit(i, 'r', e.target.value)}
               error={errors[`wheelInsideProfile.${i}.rMm`]}

@@ -18,6 +18,7 @@ import {
   useSaveFittedReport,
   type ReportFields,
 } from '../api/fitted-reports';
+import { numberKeyboard } from '../../../lib/number-text';
 
 type Props = {
   slug: string;
@@ -348,7 +349,7 @@ function ReportForm({
         />
         <TextInput
           label="Offset ET (mm)"
-          inputMode="decimal"
+          {...numberKeyboard(true)}
           value={form.offsetMm}
           onChange={set('offsetMm')}
           error={errors.offsetMm}

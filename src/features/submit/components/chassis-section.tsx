@@ -82,7 +82,7 @@ export function ChassisSection({ fixed }: { fixed: { chassis: ChassisView; axle:
           <p className="text-sm text-graphite-soft sm:col-span-3">The stock wheel, if you know it:</p>
           <FNum name="newChassis.stockWheel.diameterIn" label="Stock wheel diameter" unit="in" />
           <FNum name="newChassis.stockWheel.widthIn" label="Stock wheel width" unit="in" />
-          <FNum name="newChassis.stockWheel.offsetMm" label="Stock wheel offset" unit="ET" />
+          <FNum name="newChassis.stockWheel.offsetMm" label="Stock wheel offset" unit="ET" signed />
           <FText name="newChassis.stockWheel.tyre" label="Stock tyre" placeholder="195/60R15" />
         </div>
       )}

@@ -37,7 +37,7 @@ export function WheelSection() {
               hint="Measured on that smallest wheel"
             />
             <FNum name="data.wheel.caliperRadialProjectionMm" label="Caliper reach beyond the rotor edge" quantity="length" />
-            <FNum name="data.wheel.caliperOutboardMm" label="Caliper face outboard of the hub face" quantity="length" />
+            <FNum name="data.wheel.caliperOutboardMm" label="Caliper face outboard of the hub face" quantity="length" signed />
             <FArea name="data.wheel.notes" label="Notes" rows={2} className="sm:col-span-2" />
           </div>
           <h3 className="pt-2 text-sm font-extrabold text-ink">Wheels we tried</h3>

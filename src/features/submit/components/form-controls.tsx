@@ -6,6 +6,7 @@ import { Button } from '../../../components/ui/button';
 import { useUnits } from '../../../lib/units';
 import { heldListText, heldText, shownListText, shownText, unitOf, type Quantity } from '../../../lib/quantity-text';
 import { messageAt, type FormValues } from '../lib/form-values';
+import { numberKeyboard } from '../../../lib/number-text';
 
 // Inputs bound to the submission form by name; each shows its own error beside it.
 
@@ -112,7 +113,7 @@ function NumInput({ name, label, hint, className, disabled, unit, placeholder, s
         <div className="flex items-stretch">
           <input
             className={`${inputClass} tabular ${unit ? 'rounded-r-none' : ''}`}
-            inputMode={signed ? 'text' : 'decimal'}
+            {...numberKeyboard(signed)}
             autoComplete="off"
             {...a11y}
             // the unit is read out with the field, as its description

@@ -17,10 +17,10 @@ export function CostRoutesSection({ data }: { data: SwapData }) {
           return (
             <div
               key={route}
-              className={`rounded-lg border p-4 print:p-2 ${route === 'new_kit' ? 'border-brass/50 bg-brass-soft/30' : 'border-ink/10 bg-paper-card'}`}
+              className={`rounded-lg border p-4 print:px-2 print:py-1 ${route === 'new_kit' ? 'border-brass/50 bg-brass-soft/30' : 'border-ink/10 bg-paper-card'}`}
             >
               <h3 className="text-sm font-bold uppercase tracking-wide text-graphite-soft">{costRouteLabels[route]}</h3>
-              <p className="tabular mt-1 text-2xl font-extrabold text-graphite print:text-lg">
+              <p className="tabular mt-1 text-2xl font-extrabold text-graphite print:mt-0 print:text-base">
                 {total === null ? '—' : formatMoney(total, currency)}
               </p>
               {route !== 'new_kit' && saving && saving.amountMinor !== 0 && (

@@ -11,9 +11,9 @@ import { useUnits } from '../../../lib/units';
 import { nmToLbfFt } from '@shared/fitment/units';
 import { paths } from '../../../config/paths';
 import { Badge } from '../../../components/ui/badge';
-import { SheetSection, SpecTable } from './sheet-section';
+import { emptyCell, SheetSection, SpecTable } from './sheet-section';
 
-const dash = <span className="text-graphite-soft">—</span>;
+const dash = emptyCell;
 const list = (items: string[]) => (items.length ? items.join(', ') : dash);
 
 export function PartsSection({ parts }: { parts: SwapData['parts'] }) {
@@ -47,7 +47,7 @@ export function PartsSection({ parts }: { parts: SwapData['parts'] }) {
 export function AdapterSection({ adapter }: { adapter: NonNullable<SwapData['adapter']> }) {
   return (
     <SheetSection id="adapter" title="Adapter">
-      <div className="rounded-lg border border-ink/10 bg-paper-card p-4">
+      <div className="rounded-lg border border-ink/10 bg-paper-card p-4 print:px-2 print:py-1">
         <p className="font-extrabold text-graphite">
           {adapter.name}
           {adapter.maker && <span className="font-normal text-graphite-soft"> · {adapter.maker}</span>}
@@ -55,7 +55,7 @@ export function AdapterSection({ adapter }: { adapter: NonNullable<SwapData['ada
         {adapter.partNumber && <p className="font-mono text-sm">{adapter.partNumber}</p>}
         {adapter.hardwareIncluded.length > 0 && (
           <>
-            <p className="mt-3 text-sm font-bold">Hardware included</p>
+            <p className="mt-3 text-sm font-bold print:mt-1">Hardware included</p>
             <ul className="list-disc pl-5 text-sm">
               {adapter.hardwareIncluded.map((h) => (
                 <li key={h}>{h}</li>
@@ -197,7 +197,7 @@ export function RotorsSection({ rotors }: { rotors: SwapData['rotors'] }) {
             .filter(Boolean)
             .join(', '),
           r.hatHeightMm ? length(r.hatHeightMm, 0) : dash,
-          <span className="font-mono text-xs">{r.partNumber || '—'}</span>,
+          r.partNumber ? <span className="font-mono text-xs">{r.partNumber}</span> : dash,
           r.notes || dash,
         ])}
       />
@@ -214,10 +214,13 @@ export function MachiningSection({ steps }: { steps: SwapData['machining'] }) {
       {steps.length === 0 ? (
         <p className="text-sm text-graphite">Bolt-on: no cutting, grinding or drilling.</p>
       ) : (
-        <ol className="space-y-2">
+        <ol className="space-y-2 print:space-y-0.5">
           {steps.map((s, i) => (
-            <li key={i} className="flex gap-3 rounded-lg border border-ink/10 bg-paper-card p-3 print:p-1.5">
-              <span className="tabular flex h-7 w-7 shrink-0 items-center justify-center rounded-full bg-ink text-sm font-bold text-paper">
+            <li
+              key={i}
+              className="flex gap-3 rounded-lg border border-ink/10 bg-paper-card p-3 print:gap-2 print:px-1.5 print:py-0.5"
+            >
+              <span className="tabular flex h-7 w-7 shrink-0 items-center justify-center rounded-full bg-ink text-sm font-bold text-paper print:h-5 print:w-5">
                 {i + 1}
               </span>
               <div>
@@ -255,17 +258,17 @@ export function TorqueSection({ data }: { data: SwapData }) {
             return [
               <span>
                 <span className="font-bold">{f?.label ?? t.fastenerId}</span>
-                {f && <span className="block text-xs text-graphite-soft">{fastenerKindLabels[f.kind]}</span>}
+                {f && <span className="block text-xs text-graphite-soft print:hidden">{fastenerKindLabels[f.kind]}</span>}
               </span>,
               f
                 ? [f.thread, f.lengthMm ? `× ${length(f.lengthMm, 0)}` : '', f.propertyClass].filter(Boolean).join(' ') || dash
                 : dash,
-              <span className="font-extrabold">
+              <span className="whitespace-nowrap font-extrabold">
                 {primary(t.nm)}
                 {t.angleDeg ? ` + ${t.angleDeg}°` : ''}
               </span>,
-              secondary(t.nm),
-              lubricationLabels[t.lubrication],
+              <span className="whitespace-nowrap">{secondary(t.nm)}</span>,
+              <span className="print:whitespace-nowrap">{lubricationLabels[t.lubrication]}</span>,
               [t.singleUse ? 'Single use: fit new ones' : '', t.notes].filter(Boolean).join('. ') || dash,
             ];
           })}

@@ -1,3 +1,4 @@
+import { useRef } from 'react';
 import { Link, useParams } from 'react-router';
 import type { SwapSheetView } from '@shared/schemas/views';
 import type { BalanceStart } from '@shared/schemas/cars';
@@ -33,6 +34,7 @@ import { WheelCheckPanel, type WheelPreset } from './wheel-check-panel';
 import { CaliperFitSection } from './caliper-fit-section';
 import { PrintedSection, SectionCheck, type ProfiledWheel } from './section-check';
 import { RevisionHistory } from './revision-history';
+import { SheetSectionMenu } from './sheet-section-menu';
 
 const date = (iso: string | null) =>
   iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—';
@@ -74,6 +76,7 @@ export function SwapSheet({ view, banner, presets, carStarts, extraSections }: S
   const isOld = currentNumber !== null && revision.number !== currentNumber;
   const level = machiningLevel(data.machining);
   const touches = jobTouches(data, swap.category);
+  const body = useRef<HTMLDivElement>(null);
 
   return (
     <Page title={data.title}>
@@ -91,9 +94,9 @@ export function SwapSheet({ view, banner, presets, carStarts, extraSections }: S
           .
         </div>
       )}
-      <header className="mb-8 print:mb-3">
+      <header className="mb-4 print:mb-3">
         <p className="hidden text-xs text-graphite-soft print:block">
-          Build sheet printed from Swapyard · {data.title} · revision {revision.number} approved {date(revision.approvedAt)} ·{' '}
+          Build sheet printed from Swapyard · revision {revision.number} approved {date(revision.approvedAt)} ·{' '}
           {typeof window === 'undefined' ? '' : `${window.location.origin}${paths.swapRevision(swap.slug, revision.number)}`}
         </p>
         <div className="flex flex-wrap gap-2">
@@ -119,15 +122,15 @@ export function SwapSheet({ view, banner, presets, carStarts, extraSections }: S
           , {swap.axle} axle · {chassis.lugCount}×{chassis.pcdMm} PCD · centre bore {length(chassis.centreBoreMm)} · wheel bolts{' '}
           {chassis.wheelBoltThread}
         </p>
-        {data.summary && <p className="mt-3 max-w-3xl text-lg text-graphite">{data.summary}</p>}
-        <dl className="tabular mt-4 grid grid-cols-2 gap-3 text-sm sm:grid-cols-5">
+        {data.summary && <p className="mt-3 max-w-3xl text-lg text-graphite print:mt-1 print:text-sm">{data.summary}</p>}
+        <dl className="tabular mt-4 grid grid-cols-2 gap-3 text-sm sm:grid-cols-5 print:mt-1 print:flex print:flex-wrap print:gap-x-5 print:gap-y-0">
           <Fact label="Revision" value={`${revision.number}${revision.status === 'approved' && !isOld ? ' (current)' : ''}`} />
           <Fact label="Published" value={date(revision.approvedAt)} />
-          <Fact label="Fitted by" value={`${swap.fittedCount} other ${swap.fittedCount === 1 ? 'member' : 'members'}`} />
+          <Fact label="Fitted by" value={fittedByText(swap.fittedCount)} />
           <Fact label="Install time" value={data.installHours ? `${data.installHours} h` : '—'} />
           <Fact label="Difficulty" value={data.difficulty ? `${data.difficulty} of 5` : '—'} />
         </dl>
-        <p className="mt-3 text-sm text-graphite-soft">
+        <p className="mt-3 text-sm text-graphite-soft print:mt-1">
           Written by {revision.author.name}
           {revision.author.login !== swap.author.login && ` (correction to ${swap.author.name}’s record)`} · reviewed by a
           moderator before publication.
@@ -147,7 +150,8 @@ export function SwapSheet({ view, banner, presets, carStarts, extraSections }: S
         </div>
       </header>
 
-      <div className="grid grid-cols-1 gap-10 print:gap-2">
+      <SheetSectionMenu sheet={body} />
+      <div ref={body} className="print-flow grid grid-cols-1 gap-10">
         <Caution topics={cautionTopicsOf(touches)} />
         <PartsSection parts={data.parts} />
         {data.adapter && <AdapterSection adapter={data.adapter} />}
@@ -201,8 +205,8 @@ export function SwapSheet({ view, banner, presets, carStarts, extraSections }: S
           </SheetSection>
         )}
         {(revision.body || revision.bodyTakenDown) && (
-          <div className="print:hidden">
-            <SheetSection id="write-up" title="Write-up">
+          <div className={revision.bodyTakenDown ? 'print:hidden' : 'print-steps'}>
+            <SheetSection id="write-up" title="Write-up" printTitle="Fitting steps and checklist from the write-up">
               {revision.bodyTakenDown ? (
                 <p role="note" className="rounded-lg border border-graphite/20 bg-paper-card p-3 text-sm text-graphite">
                   A moderator took the write-up of this revision down. The structured record above stays as it was approved.
@@ -229,6 +233,12 @@ export function SwapSheet({ view, banner, presets, carStarts, extraSections }: S
   );
 }
 
+/** Who else has reported fitting the swap, in words: nobody is "no one yet", not "0 other members". */
+export function fittedByText(count: number): string {
+  if (count === 0) return 'No one else yet';
+  return `${count} other ${count === 1 ? 'member' : 'members'}`;
+}
+
 /** The reader's cars whose wheel inside is recorded, for the section check. */
 function profiledPresets(presets: WheelPreset[] = []): ProfiledWheel[] {
   return presets.flatMap((p, i) =>
@@ -240,7 +250,7 @@ function profiledPresets(presets: WheelPreset[] = []): ProfiledWheel[] {
 
 function Fact({ label, value }: { label: string; value: React.ReactNode }) {
   return (
-    <div className="rounded-lg bg-paper-card px-3 py-2 shadow-sm">
+    <div className="rounded-lg bg-paper-card px-3 py-2 shadow-sm print:flex print:items-baseline print:gap-1 print:p-0 print:shadow-none">
       <dt className="text-xs text-graphite-soft">{label}</dt>
       <dd className="font-extrabold text-graphite">{value}</dd>
     </div>

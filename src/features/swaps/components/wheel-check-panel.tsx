@@ -12,8 +12,10 @@ import { Select, TextInput } from '../../../components/ui/field';
 import { FitCheckCard } from '../../../components/fit-check-card';
 import { useTypedInUnits } from '../../../lib/use-typed-in-units';
 import { ClearanceCard, Figure, Verdict } from '../../../components/verdict';
+import { SummaryLine, VerdictLine } from './wheel-check-verdict';
 import { Button } from '../../../components/ui/button';
 import { SheetSection } from './sheet-section';
+import { numberKeyboard, readNumber } from '../../../lib/number-text';
 
 export type WheelPreset = {
   label: string;
@@ -55,12 +57,11 @@ function parse(form: Form, imperial: boolean): { wheel?: WheelUnderTest; errors:
   const started = form.diameterIn.trim() !== '' || form.widthIn.trim() !== '' || form.offsetMm.trim() !== '';
   /** bounds in the field's stored unit; a length typed in inches is converted before it is compared */
   const num = (key: keyof Form, { required = false, min = -Infinity, max = Infinity, length = false } = {}) => {
-    const raw = form[key].trim().replace(',', '.');
-    if (raw === '') {
+    const typed = readNumber(form[key]);
+    if (typed === undefined) {
       if (required && started) errors[key] = 'Needed for the check';
       return undefined;
     }
-    const typed = Number(raw);
     if (!Number.isFinite(typed)) {
       errors[key] = 'Enter a number';
       return undefined;
@@ -145,8 +146,10 @@ export function WheelCheckPanel({
       spacer: imperial ? (w.spacerMm / 25.4).toFixed(2) : String(w.spacerMm),
     }));
 
+  const summary = result?.check ? wheelCheckSummary(result.check) : null;
   return (
     <SheetSection id="check" title="Check my wheel">
+      <VerdictLine summary={summary} error={result?.error ?? null} />
       <div className="rounded-xl border border-ink/15 bg-paper-card p-4 no-print">
         {presets.length > 0 && (
           <div className="mb-4 flex flex-wrap items-center gap-2 text-sm">
@@ -177,7 +180,7 @@ export function WheelCheckPanel({
           />
           <TextInput
             label="Offset ET (mm)"
-            inputMode="decimal"
+            {...numberKeyboard(true)}
             value={form.offsetMm}
             onChange={set('offsetMm')}
             error={errors.offsetMm}
@@ -203,7 +206,7 @@ export function WheelCheckPanel({
               <TextInput
                 label={`Spoke inset (${u})`}
                 hint="Spoke back face outboard of the hub face"
-                inputMode="decimal"
+                {...numberKeyboard(true)}
                 value={form.spokeInset}
                 onChange={set('spokeInset')}
                 error={errors.spokeInset}
@@ -267,7 +270,7 @@ export function WheelCheckPanel({
           </p>
         ) : result ? (
           <>
-            <SummaryLine summary={wheelCheckSummary(result.check)} />
+            {summary && <SummaryLine summary={summary} />}
             <div className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
               {result.check.minDiameter && (
                 <Verdict
@@ -366,21 +369,5 @@ export function WheelCheckPanel({
         ) : null}
       </div>
     </SheetSection>
-  );
-}
-
-const summaryTone = {
-  fail: 'border-oxide bg-oxide-soft text-oxide',
-  pass: 'border-ink/30 bg-ink-faint text-ink',
-  open: 'border-brass bg-brass-soft/50 text-graphite',
-};
-
-function SummaryLine({ summary }: { summary: ReturnType<typeof wheelCheckSummary> }) {
-  const units = useUnits();
-  return (
-    <p className={`rounded-lg border px-3 py-2 text-sm font-bold ${summaryTone[summary.tone]}`} data-testid="wheel-summary">
-      {summary.text}
-      {summary.leastClearanceMm !== undefined && ` Least clearance ${units.length(summary.leastClearanceMm)}.`}
-    </p>
   );
 }
