@@ -60,11 +60,16 @@ export function createApp(deps: AppDeps) {
     pinoHttp({
       logger,
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') && !req.url?.startsWith('/auth') },
-      customProps: (req) => ({ userId: (req as express.Request).user?.id ?? null }),
+      // a member's id on the line that reports their request; nothing to bind for a visitor (nor before
+      // sign-in is read), which spares every anonymous request a child logger
+      customProps: (req) => signedInAs(req as express.Request) as object,
       serializers: httpLogSerializers,
     }),
   );
   app.use(helmet({ contentSecurityPolicy: { directives: contentSecurityPolicy(config) } }));
+  // Sheets read the same for every reader and are stored compressed: they are answered here, before
+  // compression, body parsing and sessions, so the most-read answer costs none of that work.
+  app.use('/api', swapsRouter(deps));
   app.use(compression());
   app.use(express.json({ limit: '256kb' }));
   // answers depend on the reader unless a route says otherwise; sign-in pages are never stored
@@ -103,7 +108,6 @@ export function createApp(deps: AppDeps) {
   app.use('/api', meRouter(deps));
   app.use('/api', catalogueAdminRouter(deps));
   app.use('/api', adminRouter({ db: deps.db, clock: deps.clock, endSessions }));
-  app.use('/api', swapsRouter(deps));
   app.use('/api', catalogueRouter(deps));
   app.use('/api', searchIndexRouter(deps));
   app.use('/api', submissionsRouter(deps));
@@ -141,6 +145,8 @@ export function createApp(deps: AppDeps) {
   app.use(errorHandler(logger));
   return app;
 }
+
+const signedInAs = (req: express.Request) => (req.user ? { userId: req.user.id } : undefined);
 
 function contentSecurityPolicy(config: Config) {
   // only Vite's dev server needs the looser rules; the built client runs under the strict ones

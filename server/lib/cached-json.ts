@@ -20,14 +20,20 @@ export function cacheJsonText(text: string): CachedJson {
  * compression middleware leaves an answer that already has a Content-Encoding alone).
  */
 export function sendCachedJson(req: Request, res: Response, body: CachedJson, cacheControl = 'no-cache') {
-  res.set({ ETag: body.etag, 'Cache-Control': cacheControl, Vary: 'Accept-Encoding' });
+  res.setHeader('ETag', body.etag);
+  res.setHeader('Cache-Control', cacheControl);
+  res.setHeader('Vary', 'Accept-Encoding');
   if (req.fresh) {
     res.status(304).end();
     return;
   }
-  res.type('application/json');
-  if (req.acceptsEncodings('gzip') === 'gzip') res.set('Content-Encoding', 'gzip').send(body.gzip);
-  else res.send(body.json);
+  // the bytes are ready: written straight out rather than through res.send, which would look at them again
+  const gzip = req.acceptsEncodings('gzip') === 'gzip';
+  const bytes = gzip ? body.gzip : body.json;
+  res.setHeader('Content-Type', 'application/json; charset=utf-8');
+  if (gzip) res.setHeader('Content-Encoding', 'gzip');
+  res.setHeader('Content-Length', bytes.length);
+  res.end(bytes);
 }
 
 /** Keeps one cached answer per key, rebuilt when the key's fingerprint changes. */

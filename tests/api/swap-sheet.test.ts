@@ -6,6 +6,7 @@ import { addUser } from './support/auth-helpers';
 import { addChassis } from './support/swap-fixtures';
 import { addSwap, approveNewRevision, swapData } from './support/swap-rows';
 import { swaps, users } from '../../server/db/schema/index';
+import { closeDb, openDb } from '../../server/db/client';
 
 let t: TestApp;
 let authorId: number;
@@ -82,5 +83,28 @@ describe('GET /api/swaps/:slug', () => {
     t.db.update(swaps).set({ fittedCount: 4 }).where(eq(swaps.id, swapId)).run();
     const counted = await request(t.app).get('/api/swaps/h31-vela-front');
     expect(counted.body.swap.fittedCount).toBe(4);
+  });
+
+  it('when another process writes to the database, then the next read of the sheet shows it', async () => {
+    // a second connection stands for another process (a maintenance script, a second server)
+    const other = openDb(t.config.databaseUrl);
+    try {
+      const before = await request(t.app).get('/api/swaps/h31-vela-front');
+      other.update(swaps).set({ fittedCount: 9 }).where(eq(swaps.id, swapId)).run();
+      const after = await request(t.app).get('/api/swaps/h31-vela-front');
+      expect(after.body.swap.fittedCount).toBe(9);
+      expect(after.headers.etag).not.toBe(before.headers.etag);
+    } finally {
+      closeDb(other);
+    }
+  });
+
+  it('when a sheet is asked for with HEAD, then the headers come without the body', async () => {
+    const get = await request(t.app).get('/api/swaps/h31-vela-front').set('accept-encoding', 'gzip');
+    const head = await request(t.app).head('/api/swaps/h31-vela-front').set('accept-encoding', 'gzip');
+    expect(head.status).toBe(200);
+    expect(head.headers.etag).toBe(get.headers.etag);
+    expect(head.headers['content-length']).toBe(get.headers['content-length']);
+    expect(head.text ?? '').toBe('');
   });
 });

@@ -8,6 +8,7 @@ import { AppError } from '../../lib/app-error';
 import { slugSchema } from '../../../shared/schemas/params';
 import { pageRoutes } from '../../../shared/page-routes';
 import { findSwapAddress } from './swap-slugs';
+import { untilDbChanges } from '../../db/change-stamp';
 
 export function swapsRouter({ db }: AppDeps) {
   const router = Router();
@@ -21,8 +22,10 @@ export function swapsRouter({ db }: AppDeps) {
 
   // sheets are read far more than they change: each is built once per change and served pre-compressed
   const sheets = fingerprintCache();
+  // and while nothing at all has been written, not even the fingerprint needs reading again
+  const fingerprintOf = untilDbChanges(db, (slug) => sheetFingerprint(db, slug));
   const sendSheet = (req: Request, res: Response, slug: string, n?: number) => {
-    const fingerprint = sheetFingerprint(db, slug);
+    const fingerprint = fingerprintOf(slug);
     if (!fingerprint) {
       // an address the swap had before its title changed
       const moved = findSwapAddress(db, slug);

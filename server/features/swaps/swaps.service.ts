@@ -1,4 +1,5 @@
-import { and, desc, eq, inArray, isNotNull, sql } from 'drizzle-orm';
+import type { Statement } from 'better-sqlite3';
+import { and, desc, eq, inArray, isNotNull } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { chassis, revisions, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
@@ -87,16 +88,28 @@ export function recentSwaps(db: Db, limit: number): SwapCard[] {
  * A cheap summary of everything a sheet is built from (the swap, its revisions, chassis and authors);
  * null when there is no such swap. Approved revisions never change, so this moves only when a new
  * revision is approved, the fitted count changes, or a chassis or author row is edited.
+ * It runs on every read of a sheet, so its statement is prepared once per database: preparing it
+ * cost more than running it.
  */
 export function sheetFingerprint(db: Db, slug: string): string | null {
-  const row = db.get<Record<string, number | null>>(sql`
-    select s.id, s.current_revision_id, s.fitted_count, s.updated_at, c.updated_at as chassis_at,
-      (select max(r.updated_at) from revisions r where r.swap_id = s.id) as revisions_at,
-      (select max(u.updated_at) from users u
-         where u.id = s.author_id or u.id in (select r.author_id from revisions r where r.swap_id = s.id)) as authors_at,
-      (select count(*) || '/' || coalesce(max(coalesce(t.reverted_at, t.created_at)), 0) from takedowns t where t.swap_id = s.id)
-        as takedowns
-    from swaps s join chassis c on c.id = s.chassis_id
-    where s.slug = ${slug}`);
-  return row ? Object.values(row).join(':') : null;
+  let statement = fingerprintStatements.get(db.$client);
+  if (!statement) {
+    statement = db.$client
+      .prepare<[string], unknown[]>(
+        `select s.id, s.current_revision_id, s.fitted_count, s.updated_at, c.updated_at as chassis_at,
+          (select max(r.updated_at) from revisions r where r.swap_id = s.id) as revisions_at,
+          (select max(u.updated_at) from users u
+             where u.id = s.author_id or u.id in (select r.author_id from revisions r where r.swap_id = s.id)) as authors_at,
+          (select count(*) || '/' || coalesce(max(coalesce(t.reverted_at, t.created_at)), 0) from takedowns t where t.swap_id = s.id)
+            as takedowns
+        from swaps s join chassis c on c.id = s.chassis_id
+        where s.slug = ?`,
+      )
+      .raw();
+    fingerprintStatements.set(db.$client, statement);
+  }
+  const row = statement.get(slug);
+  return row ? row.join(':') : null;
 }
+
+const fingerprintStatements = new WeakMap<Db['$client'], Statement<[string], unknown[]>>();

@@ -8,6 +8,8 @@ const root = path.resolve(import.meta.dirname, '../../..');
 
 export type RunningServer = {
   url: string;
+  /** the server process's id, for benchmarks that read its CPU time */
+  pid: number;
   /** temp folder holding the database and uploads */
   dir: string;
   /** everything the server printed so far, for failure messages */
@@ -92,5 +94,5 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
     }
     await new Promise((r) => setTimeout(r, 200));
   }
-  return { url, dir, output: () => output, stop };
+  return { url, pid: child.pid!, dir, output: () => output, stop };
 }
