@@ -36,6 +36,7 @@ import { graphRouter } from './features/graph/graph.router';
 import { exportRouter } from './features/export/export.router';
 import { openApiRouter } from './features/openapi/openapi.router';
 import { pageHeadsRouter, shareRouter } from './features/share/share.router';
+import { serviceWorkerSwitch } from './features/offline/service-worker-switch';
 
 export type AppDeps = {
   db: Db;
@@ -52,6 +53,8 @@ export function createApp(deps: AppDeps) {
   const { config, logger } = deps;
   const app = express();
   app.disable('x-powered-by');
+  // ETags over the exact bytes, so a cache in front may use them for ranges and as validators of anything
+  app.set('etag', 'strong');
   app.set('trust proxy', 'loopback');
   // read by `validated` handlers, which retry while another process holds the database
   app.locals.dbBusyWaitMs = config.dbBusyWaitMs;
@@ -137,6 +140,7 @@ export function createApp(deps: AppDeps) {
     }),
   );
   app.use(shareRouter(deps));
+  if (!config.serviceWorker) app.use(serviceWorkerSwitch());
 
   app.use('/api', apiNotFound);
   // pages in front of the client, so an address naming nothing answers 404

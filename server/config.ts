@@ -45,6 +45,8 @@ const envSchema = z.object({
   STOP_TIMEOUT_MS: z.coerce.number().int().min(0).max(300_000).default(10_000),
   /** vite: dev server with hot reload; dist: the built client (default in production) */
   SERVE_CLIENT: z.enum(['vite', 'dist', 'none']).optional(),
+  /** off: /sw.js is one that removes itself, so browsers drop the offline app (and tests run without one) */
+  SERVICE_WORKER: z.enum(['on', 'off']).default('on'),
 });
 
 export type Config = {
@@ -68,6 +70,7 @@ export type Config = {
   dbBusyWaitMs: number;
   stopTimeoutMs: number;
   serveClient: 'vite' | 'dist' | 'none';
+  serviceWorker: boolean;
 };
 
 export class ConfigError extends Error {}
@@ -125,6 +128,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     dbBusyWaitMs: e.DB_BUSY_WAIT_MS,
     stopTimeoutMs: e.STOP_TIMEOUT_MS,
     serveClient: e.SERVE_CLIENT ?? (production ? 'dist' : 'vite'),
+    serviceWorker: e.SERVICE_WORKER === 'on',
   };
 }
 

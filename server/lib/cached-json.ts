@@ -19,7 +19,7 @@ export function cacheJsonText(text: string): CachedJson {
  * Sends a cached answer: 304 when the reader's copy is current, else the pre-compressed bytes (the
  * compression middleware leaves an answer that already has a Content-Encoding alone).
  */
-export function sendCachedJson(req: Request, res: Response, body: CachedJson, cacheControl = 'no-cache') {
+export function sendCachedJson(req: Request, res: Response, body: CachedJson, cacheControl: string) {
   res.setHeader('ETag', body.etag);
   res.setHeader('Cache-Control', cacheControl);
   res.setHeader('Vary', 'Accept-Encoding');

@@ -53,6 +53,9 @@ async function toApiError(res: Response): Promise<ApiError> {
 
 type RequestOptions = { method?: string; body?: unknown; signal?: AbortSignal; headers?: Record<string, string> };
 
+/** The request never reached the server (no connection, or the connection dropped). */
+export const isOffline = (err: unknown) => err instanceof ApiError && err.code === 'offline';
+
 /** fetch for the JSON API: sends the CSRF header on every change, throws ApiError on failure. */
 export async function api<T>(url: string, { method = 'GET', body, signal, headers = {} }: RequestOptions = {}): Promise<T> {
   const unsafe = method !== 'GET' && method !== 'HEAD';
@@ -68,7 +71,16 @@ export async function api<T>(url: string, { method = 'GET', body, signal, header
       headers: h,
       body: body === undefined ? undefined : isForm ? (body as FormData) : JSON.stringify(body),
       credentials: 'same-origin',
+      // answers say how long a cache in front may keep them; the app itself always asks (a 304 when unchanged)
+      cache: unsafe ? undefined : 'no-cache',
       signal,
+    }).catch((err: unknown) => {
+      if (signal?.aborted) throw err;
+      throw new ApiError(
+        0,
+        'offline',
+        'No connection. What this device kept still reads; try this again when you are back online.',
+      );
     });
     if (res.ok) return (res.status === 204 ? undefined : await res.json()) as T;
     const error = await toApiError(res);

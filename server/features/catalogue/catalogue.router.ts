@@ -12,19 +12,19 @@ import { getChassisPage, getPartPage, listChassis, setChassisVehicle } from './c
 import { findPartMatch, searchParts } from './part-lookup.service';
 import { partMatchQuerySchema, partSearchQuerySchema } from '../../../shared/schemas/catalogue';
 import type { PartMatchResponse, PartSearchResponse } from '../../../shared/schemas/catalogue';
+import { SHARED_ANSWER } from '../../lib/cache-policy';
 
 export function catalogueRouter({ db, clock }: AppDeps) {
   const router = Router();
   router.get('/chassis', (_req, res) => {
-    res.json({ items: listChassis(db) });
+    res.set('Cache-Control', SHARED_ANSWER).json({ items: listChassis(db) });
   });
   router.get(
     '/chassis/:slug',
     validated({ params: z.object({ slug: slugSchema }) }, ({ params }, req, res) => {
       const page = getChassisPage(db, params.slug, req.user);
       // a proposed chassis is answered only to its author and reviewers: never from a shared cache
-      if (page.proposed) res.set('Cache-Control', 'private, no-store');
-      res.json(page);
+      res.set('Cache-Control', page.proposed ? 'private, no-store' : SHARED_ANSWER).json(page);
     }),
   );
   // the stock figures that decide which axle locks first on every sheet of the chassis: reviewers keep them
@@ -53,7 +53,7 @@ export function catalogueRouter({ db, clock }: AppDeps) {
   router.get(
     '/parts/:id',
     validated({ params: z.object({ id: idParamSchema }) }, ({ params }, _req, res) => {
-      res.json(getPartPage(db, params.id));
+      res.set('Cache-Control', SHARED_ANSWER).json(getPartPage(db, params.id));
     }),
   );
   return router;

@@ -10,6 +10,7 @@ import { idParamSchema, slugSchema } from '../../../shared/schemas/params';
 import { createFittedReportSchema, updateFittedReportSchema } from '../../../shared/schemas/fitted-reports';
 import { MAX_PHOTO_BYTES } from '../photos/photo-processing';
 import { uploadError } from '../photos/photo-upload';
+import { cacheByReader } from '../../lib/cache-policy';
 import {
   createFittedReport,
   deleteFittedReport,
@@ -47,7 +48,8 @@ export function fittedReportsRouter({ db, storage, clock, config }: AppDeps) {
   router.get(
     '/swaps/:slug/fitted-reports',
     validated({ params: slugParams }, ({ params }, req, res) => {
-      res.set('Cache-Control', 'private, no-cache').json(listFittedReports(db, params.slug, req.user));
+      cacheByReader(req, res);
+      res.json(listFittedReports(db, params.slug, req.user));
     }),
   );
 

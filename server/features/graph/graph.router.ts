@@ -5,9 +5,10 @@ import { validated } from '../../middleware/validate';
 import { idParamSchema, slugSchema } from '../../../shared/schemas/params';
 import { whereElseQuerySchema } from '../../../shared/schemas/graph';
 import { chassisGraph, partGraph, whereElse } from './graph.service';
+import { SHARED_ANSWER } from '../../lib/cache-policy';
 
-/** the same for every reader: a shared cache may keep it, and revalidates it by its ETag */
-const sendPublic = (res: Response, body: unknown) => res.set('Cache-Control', 'public, no-cache').json(body);
+/** the same for every reader: a shared cache may keep it */
+const sendPublic = (res: Response, body: unknown) => res.set('Cache-Control', SHARED_ANSWER).json(body);
 
 export function graphRouter({ db }: AppDeps) {
   const router = Router();

@@ -22,6 +22,7 @@ import { pageRoutes } from '../../../shared/page-routes';
 import { retiredLinkPage, tooManyLookupsPage, unknownLinkPage } from './link-pages';
 import { perAddressLimit } from '../../middleware/rate-limit';
 import type { Config } from '../../config';
+import { cacheByReader } from '../../lib/cache-policy';
 
 const codeParams = z.object({ code: shopLinkCodeSchema });
 const qrQuery = z.object({ download: z.enum(['0', '1']).default('0') });
@@ -64,7 +65,8 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
   router.get(
     '/shops/:slug',
     validated({ params: z.object({ slug: slugSchema }) }, ({ params }, req, res) => {
-      res.set('Cache-Control', 'private, no-cache').json(getShopPage(db, clock, params.slug, req.user));
+      cacheByReader(req, res);
+      res.json(getShopPage(db, clock, params.slug, req.user));
     }),
   );
 
@@ -143,7 +145,8 @@ export function shopsRouter({ db, clock, config }: AppDeps) {
     '/l/:code',
     lookups,
     validated({ params: codeParams }, ({ params }, req, res) => {
-      res.set('Cache-Control', 'private, no-cache').json(getPinnedSheet(db, clock, appUrl, params.code, req.user));
+      cacheByReader(req, res);
+      res.json(getPinnedSheet(db, clock, appUrl, params.code, req.user));
     }),
   );
 

@@ -9,6 +9,7 @@ import { slugSchema } from '../../../shared/schemas/params';
 import { pageRoutes } from '../../../shared/page-routes';
 import { findSwapAddress } from './swap-slugs';
 import { untilDbChanges } from '../../db/change-stamp';
+import { SHARED_ANSWER } from '../../lib/cache-policy';
 
 export function swapsRouter({ db }: AppDeps) {
   const router = Router();
@@ -16,7 +17,7 @@ export function swapsRouter({ db }: AppDeps) {
   router.get(
     '/swaps',
     validated({ query: z.object({ limit: z.coerce.number().int().min(1).max(50).default(12) }) }, ({ query }, _req, res) => {
-      res.json({ items: recentSwaps(db, query.limit) });
+      res.set('Cache-Control', SHARED_ANSWER).json({ items: recentSwaps(db, query.limit) });
     }),
   );
 
@@ -29,13 +30,17 @@ export function swapsRouter({ db }: AppDeps) {
     if (!fingerprint) {
       // an address the swap had before its title changed
       const moved = findSwapAddress(db, slug);
-      if (moved?.moved) return res.redirect(301, `/api/swaps/${moved.slug}${n === undefined ? '' : `/revisions/${n}`}`);
+      if (moved?.moved)
+        return res
+          .set('Cache-Control', SHARED_ANSWER)
+          .redirect(301, `/api/swaps/${moved.slug}${n === undefined ? '' : `/revisions/${n}`}`);
       throw AppError.notFound('That swap');
     }
     sendCachedJson(
       req,
       res,
       sheets(n === undefined ? slug : `${slug}/r/${n}`, fingerprint, () => getSwapSheet(db, slug, n)),
+      SHARED_ANSWER,
     );
   };
 

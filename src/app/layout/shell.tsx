@@ -6,6 +6,7 @@ import { Loading } from '../../components/ui/query-state';
 import { AccountMenu } from '../../features/account/components/account-menu';
 import { AdoptDevicePlans } from '../../features/plans/components/adopt-device-plans';
 import { useMe } from '../../features/account/api/get-me';
+import { OfflineBanner } from '../../features/offline/components/offline-banner';
 
 const nav = [
   { to: '/search', label: 'Find a swap' },
@@ -89,6 +90,7 @@ export function Shell({ loading = false }: { loading?: boolean }) {
           </nav>
         )}
       </header>
+      <OfflineBanner />
       <main id="main" className="flex-1">
         <Suspense
           fallback={

@@ -18,6 +18,7 @@ import { Page } from '../../components/ui/page';
 import { ErrorNotice, Loading } from '../../components/ui/query-state';
 import { ApiError } from '../../lib/api-client';
 import { paths } from '../../config/paths';
+import { KeepOfflineButton } from '../../features/offline/components/keep-offline-button';
 
 const NO_CHASSIS = { slug: '', make: '', model: '', vehicle: null };
 
@@ -79,6 +80,7 @@ export default function SwapSheetRoute() {
       banner={banner}
       presets={presets}
       carStarts={carStarts}
+      actions={<KeepOfflineButton view={view} number={n === undefined ? null : view.revision.number} />}
       extraSections={
         <>
           <FittedReportsSection

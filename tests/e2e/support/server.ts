@@ -55,6 +55,8 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
       SESSION_SECRET: 'e2e-secret-e2e-secret-e2e-secret-0000',
       SEED_DEMO: 'never',
       LOG_LEVEL: 'warn',
+      // requests go straight to the server, where tests watch and intercept them; the offline test turns it on
+      SERVICE_WORKER: 'off',
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],

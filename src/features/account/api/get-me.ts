@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api, rememberCsrfToken } from '../../../lib/api-client';
-import type { MeResponse } from '@shared/schemas/me';
+import { api, isOffline, rememberCsrfToken } from '../../../lib/api-client';
+import { keepForReader, readForReader, rememberReader } from '../../../lib/device-copy';
+import type { MeResponse, MeUser } from '@shared/schemas/me';
 
 export const meKeys = {
   me: ['me'] as const,
@@ -8,9 +9,18 @@ export const meKeys = {
 
 /** Reads who is signed in, and keeps the session's CSRF token for the API client. */
 export async function getMe(): Promise<MeResponse> {
-  const me = await api<MeResponse>('/api/me');
-  rememberCsrfToken(me.csrfToken);
-  return me;
+  try {
+    const me = await api<MeResponse>('/api/me');
+    rememberCsrfToken(me.csrfToken);
+    rememberReader(me.user?.id ?? null);
+    if (me.user) keepForReader('me', me.user);
+    return me;
+  } catch (err) {
+    // without a connection the reader last signed in on this device is still who reads (no token: no changes)
+    const user = isOffline(err) ? readForReader<MeUser>('me') : undefined;
+    if (user) return { user, csrfToken: null };
+    throw err;
+  }
 }
 
 export const meQueryOptions = () =>

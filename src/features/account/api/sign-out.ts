@@ -1,5 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
 import { api, rememberCsrfToken } from '../../../lib/api-client';
+import { forgetReader } from '../../../lib/device-copy';
 
 export const signOut = () => api<void>('/auth/logout', { method: 'POST' });
 /** Ends every session of the member (other browsers and devices too), this one included. */
@@ -14,6 +15,7 @@ export function useSignOut() {
     mutationFn: (where: 'here' | 'everywhere' = 'here') => (where === 'everywhere' ? signOutEverywhere() : signOut()),
     onSuccess: () => {
       rememberCsrfToken(null);
+      forgetReader();
       window.location.assign('/');
     },
   });

@@ -1,13 +1,26 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { CarList, CarView } from '@shared/schemas/cars';
 import type { ChassisPageView, ChassisView } from '@shared/schemas/views';
-import { api } from '../../../lib/api-client';
+import { api, isOffline } from '../../../lib/api-client';
+import { keepForReader, readForReader } from '../../../lib/device-copy';
 import { carKeys } from './car-keys';
 
 export const myCarsQueryOptions = () =>
   queryOptions({
     queryKey: carKeys.mine(),
-    queryFn: () => api<CarList>('/api/cars').then((r) => r.items),
+    queryFn: () =>
+      api<CarList>('/api/cars').then(
+        (r) => {
+          keepForReader('cars', r.items);
+          return r.items;
+        },
+        (err: unknown) => {
+          // the member's cars read in the garage too: the copy this device kept for them
+          const kept = isOffline(err) ? readForReader<CarView[]>('cars') : undefined;
+          if (kept) return kept;
+          throw err;
+        },
+      ),
   });
 
 /** The member's cars; pass `enabled: false` for a signed-out reader (the API would answer 401). */

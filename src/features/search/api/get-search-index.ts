@@ -23,6 +23,8 @@ export const fetchIndexPart: FetchIndexPart = async <T>(path: string, etag: stri
   const res = await fetch(path, {
     headers: { accept: 'application/json', ...(etag ? { 'if-none-match': etag } : {}) },
     credentials: 'same-origin',
+    // the first index is read afresh on each visit; the parts it names sit at addresses that change with them
+    cache: path === searchIndexPaths.head() ? 'no-cache' : 'default',
   });
   if (res.status === 304) return { status: 'unchanged' };
   if (res.status === 404) throw new IndexPartGone('The swap index changed while it was loading.');

@@ -67,9 +67,11 @@ type SwapSheetProps = {
   carStarts?: BalanceStart[];
   /** sections the app adds from other features (fitted reports, shop link panel), shown before the revision history */
   extraSections?: React.ReactNode;
+  /** buttons the app adds beside "Print build sheet" (keep offline) */
+  actions?: React.ReactNode;
 };
 
-export function SwapSheet({ view, banner, presets, carStarts, extraSections }: SwapSheetProps) {
+export function SwapSheet({ view, banner, presets, carStarts, extraSections, actions }: SwapSheetProps) {
   const { swap, chassis, revision, history, currentNumber } = view;
   const { data } = revision;
   const { length } = useUnits();
@@ -139,6 +141,7 @@ export function SwapSheet({ view, banner, presets, carStarts, extraSections }: S
           <Button variant="secondary" onClick={() => window.print()}>
             Print build sheet
           </Button>
+          {actions}
           {data.wheel && (
             <a
               href="#check"
