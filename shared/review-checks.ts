@@ -8,6 +8,7 @@ import type { VehicleFigures } from './schemas/vehicle';
 import { testedWheelFastenings } from './fitment/swap-fastening';
 import { caliperFitsFor } from './fitment/swap-caliper-fit';
 import type { ChassisWheelFastening } from './schemas/wheel-fastening';
+import { implausibleTorques, routesMissingCalipers, savingsFromOneSidedLabour } from './review-plausibility';
 
 // The automatic checks the review desk shows for a revision. The submission form runs the same
 // function, so a member sees what the reviewer will see before sending it.
@@ -120,6 +121,7 @@ function torqueCheck(data: SwapData): CheckResult {
   const problems = [
     ...missingKinds.map((r) => `no ${fastenerKindLabels[r.kind].toLowerCase()} listed (${r.because})`),
     ...untorqued.map((f) => `no torque value for ${f.label}`),
+    ...implausibleTorques(data),
   ];
   if (problems.length > 0) return { id: 'torque', label, status: 'fail', detail: `${capitalise(problems.join('; '))}.` };
   if (data.fasteners.length === 0)
@@ -128,7 +130,7 @@ function torqueCheck(data: SwapData): CheckResult {
     id: 'torque',
     label,
     status: 'pass',
-    detail: `Every listed fastener (${data.fasteners.length}) has a torque value.`,
+    detail: `Every listed fastener (${data.fasteners.length}) has a torque value within the usual range for its kind.`,
   };
 }
 
@@ -377,14 +379,17 @@ function balanceCheck(input: ReviewCheckInput): CheckResult {
 
 function costsCheck(data: SwapData): CheckResult {
   const routes = new Set(data.costs.map((c) => c.route));
-  return routes.size > 0
-    ? {
-        id: 'costs',
-        label: 'Costs',
-        status: 'pass',
-        detail: `Costs given for ${routes.size} route${routes.size === 1 ? '' : 's'}.`,
-      }
-    : { id: 'costs', label: 'Costs', status: 'fail', detail: 'No cost lines: give the costs for at least one route.' };
+  if (routes.size === 0)
+    return { id: 'costs', label: 'Costs', status: 'fail', detail: 'No cost lines: give the costs for at least one route.' };
+  // both read item names, so they ask for a closer look rather than declare the costs wrong
+  const doubts = [routesMissingCalipers(data), ...savingsFromOneSidedLabour(data)].filter((d): d is string => d !== null);
+  if (doubts.length > 0) return { id: 'costs', label: 'Costs', status: 'attention', detail: `${capitalise(doubts.join('; '))}.` };
+  return {
+    id: 'costs',
+    label: 'Costs',
+    status: 'pass',
+    detail: `Costs given for ${routes.size} route${routes.size === 1 ? '' : 's'}${routes.size > 1 ? ', compared like for like' : ''}.`,
+  };
 }
 
 function duplicateCheck(duplicates: ReviewCheckInput['duplicates']): CheckResult {

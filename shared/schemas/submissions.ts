@@ -5,6 +5,8 @@ import { swapDataSchema, type SwapData } from './swap-data';
 import type { PersonRef, PhotoView, ChassisView } from './views';
 import { chassisWheelFasteningSchema, threadDesignation } from './wheel-fastening';
 import type { TakedownItem } from './takedowns';
+import type { CheckOutcome, ReviewClaim } from './review-queue';
+import type { TrustLevel } from '../trust';
 
 // API contract of the community loop: submissions, photos, review desk, flags, outbox.
 
@@ -164,26 +166,40 @@ export type MySubmissionItem = {
   submittedAt: string | null;
 };
 
-/** GET /api/review/queue?status=&chassis=&olderThanDays= */
+/** GET /api/review/queue?status=&q=&chassis=&category=&olderThanDays=&authorTrust=&checks=&page= (reviewQueueQuerySchema) */
 export type ReviewQueueItem = {
   revisionId: number;
   swapSlug: string;
   title: string;
   author: PersonRef;
+  /** the author's trust level, and the approved revisions it is partly counted from */
+  authorTrust: TrustLevel;
+  authorApproved: number;
   submittedAt: string | null;
   status: RevisionStatus;
   number: number;
   isCorrection: boolean;
   chassis: { slug: string; label: string };
   axle: Axle;
+  category: Category;
   failedChecks: number;
+  attentionChecks: number;
+  checkOutcome: CheckOutcome;
+  /** the moderator working on it, while their claim holds */
+  claim: ReviewClaim | null;
 };
 export type ReviewQueue = {
   items: ReviewQueueItem[];
+  /** how many match the filters, over all pages */
+  total: number;
+  page: number;
+  pageSize: number;
   /** `flags` counts every open flag; the queue carries only their first page */
   counts: { in_review: number; sent_back: number; flags: number };
   flags: FlagItem[];
 };
+/** POST /api/review/next: the submission now claimed for the reader, or null when none is left in the filter */
+export type NextResponse = { revisionId: number | null; claim: ReviewClaim | null };
 
 export type FlagItem = {
   id: number;
@@ -206,6 +222,8 @@ export type ReviewDetail = {
   basedOn: { number: number; data: SwapData; body: string } | null;
   history: { action: string; actor: PersonRef; note: string; at: string }[];
   canDecide: boolean;
+  /** the moderator working on it, while their claim holds (only for a submission at the desk) */
+  claim: ReviewClaim | null;
   /** takedowns of this revision's photos or write-up, newest first (published revisions only) */
   takedowns: TakedownItem[];
   /** the viewer may revert a takedown (admins) */

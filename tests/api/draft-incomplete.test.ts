@@ -47,8 +47,12 @@ afterAll(() => {
   t.close();
 });
 
+let drafts = 0;
+/** a record with a title of its own: a member's open drafts never share one */
+const numbered = () => swapRecord({ title: `Vela calipers on the H31, draft ${++drafts}` });
+
 async function draft(): Promise<SubmissionView> {
-  const res = await post(rosa, '/api/submissions', { chassisId, axle: 'front', category: 'brakes', data: swapRecord() });
+  const res = await post(rosa, '/api/submissions', { chassisId, axle: 'front', category: 'brakes', data: numbered() });
   expect(res.status).toBe(201);
   return res.body as SubmissionView;
 }
@@ -77,7 +81,7 @@ describe('incomplete rows in a draft', () => {
   it('when a draft with an incomplete row is sent for review, then it is refused naming the row, and nothing changes', async () => {
     const d = await draft();
     await patch(rosa, `/api/submissions/${d.id}`, {
-      data: swapRecord(),
+      data: { ...swapRecord(), title: d.data.title },
       incompleteRows: [{ list: 'fasteners', index: 2, row: halfFilledFastener }],
     });
     const res = await post(rosa, `/api/submissions/${d.id}/submit`);
@@ -89,18 +93,18 @@ describe('incomplete rows in a draft', () => {
   it('when incomplete rows name an unknown list or are too large, then the save is refused with a field reason', async () => {
     const d = await draft();
     const unknown = await patch(rosa, `/api/submissions/${d.id}`, {
-      data: swapRecord(),
+      data: { ...swapRecord(), title: d.data.title },
       incompleteRows: [{ list: 'secrets', index: 0, row: {} }],
     });
     expect(unknown.status).toBe(400);
     expect(Object.keys(unknown.body.error.fields)[0]).toMatch(/^incompleteRows\.0\.list/);
     const huge = await patch(rosa, `/api/submissions/${d.id}`, {
-      data: swapRecord(),
+      data: { ...swapRecord(), title: d.data.title },
       incompleteRows: [{ list: 'fasteners', index: 0, row: { notes: 'x'.repeat(20_000) } }],
     });
     expect(huge.status).toBe(400);
     // nothing already saved was lost
     const kept = await rosa.agent.get(`/api/submissions/${d.id}`);
-    expect(kept.body.data.title).toBe(swapRecord().title);
+    expect(kept.body.data.title).toBe(d.data.title);
   });
 });

@@ -33,8 +33,12 @@ afterAll(() => {
   t.close();
 });
 
+let drafts = 0;
+/** a record with a title of its own: a member's open drafts never share one */
+const numbered = () => swapRecord({ title: `Vela calipers on the H31, draft ${++drafts}` });
+
 async function draftWithPhoto() {
-  const id = await createDraft(rosa, chassisId, swapRecord());
+  const id = await createDraft(rosa, chassisId, numbered());
   const up = await rosa.agent
     .post(`/api/submissions/${id}/photos`)
     .set('x-csrf-token', rosa.token)

@@ -105,7 +105,10 @@ const countOf = (table: typeof swaps | typeof revisions | typeof users | typeof 
     .get()!.n;
 const settle = (ms = 50) => new Promise((r) => setTimeout(r, ms));
 
-const newDraft = (m: Member = rosa, data: unknown = swapRecord()) => createDraft(m, chassisId, data);
+let drafts = 0;
+// a member's open drafts each have a title of their own
+const newDraft = (m: Member = rosa, data: unknown = swapRecord({ title: `Vela calipers on the H31, draft ${++drafts}` })) =>
+  createDraft(m, chassisId, data);
 
 let jpeg: Buffer;
 let approvedSlug: string;

@@ -177,12 +177,16 @@ describe('bidi and invisible formatting characters', () => {
   });
 });
 
+let drafts = 0;
+/** a record with a title of its own: a member's open drafts never share one */
+const numbered = () => swapRecord({ title: `Vela calipers on the H31, draft ${++drafts}` });
+
 describe('deeply nested markdown', () => {
   const quotes = `Intro line\n${'>'.repeat(39_000)} x`;
   const lists = `${Array.from({ length: 19_000 }, () => '-').join(' ')} x`;
 
   it('when a write-up nests 39,000 quotes or 19,000 list markers, then the save is a 400 naming the body and the line, and the draft keeps what it had', async () => {
-    const id = await createDraft(rosa, chassisId, swapRecord());
+    const id = await createDraft(rosa, chassisId, numbered());
     for (const body of [quotes, lists]) {
       const created = await send(rosa, 'post', '/api/submissions', {
         chassisId,
@@ -219,7 +223,7 @@ describe('deeply nested markdown', () => {
       chassisId,
       axle: 'front',
       category: 'brakes',
-      data: swapRecord(),
+      data: numbered(),
       body,
     });
     expect(res.status).toBe(201);

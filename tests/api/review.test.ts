@@ -269,7 +269,12 @@ describe('who may decide', () => {
   });
 
   it('when a revision is not in review, then every decision is 409', async () => {
-    const created = await post(rosa, '/api/submissions', { chassisId, axle: 'front', category: 'brakes', data: swapRecord() });
+    const created = await post(rosa, '/api/submissions', {
+      chassisId,
+      axle: 'front',
+      category: 'brakes',
+      data: swapRecord({ title: 'A draft the desk never sees' }),
+    });
     // a draft is not on the desk at all
     expect((await post(mo, `/api/review/${created.body.id}/approve`, {})).status).toBe(404);
     const sub = await submitted(rosa);

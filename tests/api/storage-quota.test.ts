@@ -50,11 +50,15 @@ const upload = (m: Member, id: number, photo: Buffer) =>
   m.agent.post(`/api/submissions/${id}/photos`).set('x-csrf-token', m.token).attach('photos', photo, 'p.jpg');
 const storage = async (m: Member) => (await m.agent.get('/api/me/storage')).body as { usedBytes: number; quotaBytes: number };
 
+let drafts = 0;
+/** a record with a title of its own: a member's open drafts never share one */
+const record = () => swapRecord({ title: `Vela calipers on the H31, draft ${++drafts}` });
+
 /** Uploads photos to new drafts until one is refused; returns the refusal and the bytes stored before it. */
 async function fillToQuota(m: Member, seed: number) {
   let used = 0;
   for (let i = 0; i < 20; i++) {
-    const draft = await createDraft(m, chassisId, swapRecord());
+    const draft = await createDraft(m, chassisId, record());
     const res = await upload(m, draft, await noisyPhoto(seed + i));
     if (res.status !== 201) return { refused: res, used };
     used += t.db.select().from(revisionPhotos).where(eq(revisionPhotos.fileId, res.body.photos[0].id)).get()!.bytes;
@@ -74,12 +78,12 @@ describe('per-member storage quota', () => {
     expect(used).toBeLessThanOrEqual(QUOTA_MB * 1024 * 1024);
     const files = (await t.storage.list()).length;
     const rows = t.db.select().from(revisionPhotos).all().length;
-    const again = await upload(rosa, await createDraft(rosa, chassisId, swapRecord()), await noisyPhoto(99));
+    const again = await upload(rosa, await createDraft(rosa, chassisId, record()), await noisyPhoto(99));
     expect(again.status).toBe(413);
     expect((await t.storage.list()).length).toBe(files);
     expect(t.db.select().from(revisionPhotos).all().length).toBe(rows);
     // another member is not affected
-    expect((await upload(kai, await createDraft(kai, chassisId, swapRecord()), await noisyPhoto(100))).status).toBe(201);
+    expect((await upload(kai, await createDraft(kai, chassisId, record()), await noisyPhoto(100))).status).toBe(201);
   });
 
   it('when the member deletes a draft’s photo, then the space is theirs again', async () => {

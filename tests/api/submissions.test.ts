@@ -22,12 +22,16 @@ async function member(login: string, role: 'member' | 'moderator' = 'member'): P
 const post = (m: Member, path: string, body?: object) => m.agent.post(path).set('x-csrf-token', m.token).send(body);
 const patch = (m: Member, path: string, body: object) => m.agent.patch(path).set('x-csrf-token', m.token).send(body);
 
+let drafts = 0;
+/** the record's own title the first time, then numbered: a member's open drafts never share a title */
+const nextRecord = () => swapRecord(drafts++ === 0 ? {} : { title: `${swapRecord().title}, draft ${drafts}` });
+
 async function draft(m: Member, extra: object = {}): Promise<SubmissionView> {
   const res = await post(m, '/api/submissions', {
     chassisId,
     axle: 'front',
     category: 'brakes',
-    data: swapRecord(),
+    data: nextRecord(),
     body: 'Fitted over a weekend.',
     ...extra,
   });
@@ -71,8 +75,8 @@ describe('POST /api/submissions', () => {
     expect(again.body.data).toEqual(created.data);
     expect((await request(server).get(`/api/swaps/${created.swapSlug}`)).status).toBe(404);
 
-    // the same title again gets its own slug
-    const second = await draft(rosa);
+    // the same title again (another member's) gets its own slug
+    const second = await draft(members.camber_kai, { data: swapRecord() });
     expect(second.swapSlug).toBe(`${created.swapSlug}-2`);
   });
 
@@ -112,7 +116,10 @@ describe('POST /api/submissions', () => {
   });
 
   it('when the write-up and notes carry HTML, then it is stored stripped and the text is kept', async () => {
-    const data = swapRecord({ summary: 'Bracket from <b>Lathe & Lug</b><script>alert(1)</script>' });
+    const data = swapRecord({
+      title: 'Vela calipers, notes with markup',
+      summary: 'Bracket from <b>Lathe & Lug</b><script>alert(1)</script>',
+    });
     data.parts = [{ ...data.parts[0], notes: '<img src=x onerror="alert(1)">Bleed nipple up' }];
     const body =
       'Intro <script>alert("x")</script>\n\n<a href="javascript:alert(1)" onclick="alert(2)">link</a> and a < b\n\n<iframe src="https://example.invalid"></iframe>done';
@@ -222,7 +229,7 @@ describe('PATCH /api/submissions/:id (autosave)', () => {
     // a never-submitted draft is private to its author, even from the review desk
     expect(mod.status).toBe(404);
     expect((await members.gauge_mo.agent.get(`/api/submissions/${created.id}`)).status).toBe(404);
-    expect(t.db.select().from(revisions).where(eq(revisions.id, created.id)).get()!.data.title).toBe(swapRecord().title);
+    expect(t.db.select().from(revisions).where(eq(revisions.id, created.id)).get()!.data.title).toBe(created.data.title);
   });
 });
 
@@ -246,7 +253,7 @@ describe('POST /api/submissions/:id/submit and the lock', () => {
     expect((await post(rosa, `/api/submissions/${created.id}/submit`)).status).toBe(409);
     const del = await rosa.agent.delete(`/api/submissions/${created.id}`).set('x-csrf-token', rosa.token);
     expect(del.status).toBe(409);
-    expect(t.db.select().from(revisions).where(eq(revisions.id, created.id)).get()!.data.title).toBe(swapRecord().title);
+    expect(t.db.select().from(revisions).where(eq(revisions.id, created.id)).get()!.data.title).toBe(created.data.title);
   });
 
   it('when another member tries to submit someone’s draft, then it is refused and stays a draft', async () => {
@@ -307,7 +314,7 @@ describe('corrections', () => {
 
   it('when a catalogue part is referenced, then its id is kept on the line', async () => {
     const part = addPart(t.db, 'orsino-vela-front-caliper-left-sub');
-    const data = swapRecord();
+    const data = swapRecord({ title: 'Vela calipers from the catalogue' });
     data.parts = [{ ...data.parts[0], partId: part.id }];
     const created = await draft(members.rivet_rosa, { data });
     expect(created.data.parts[0].partId).toBe(part.id);
@@ -324,11 +331,12 @@ describe('rate limit', () => {
       const a = l.agent();
       await signIn(a, 'rivet_rosa');
       const token = await csrfToken(a);
+      let n = 0;
       const send = () =>
         a
           .post('/api/submissions')
           .set('x-csrf-token', token)
-          .send({ chassisId: id, axle: 'front', category: 'brakes', data: swapRecord() });
+          .send({ chassisId: id, axle: 'front', category: 'brakes', data: swapRecord({ title: `Vela calipers, try ${++n}` }) });
       expect((await send()).status).toBe(201);
       expect((await send()).status).toBe(201);
       const third = await send();
@@ -338,8 +346,12 @@ describe('rate limit', () => {
       // autosave is not counted
       const first = limited.db.select().from(revisions).all()[0];
       expect(
-        (await a.patch(`/api/submissions/${first.id}`).set('x-csrf-token', token).send({ data: swapRecord(), body: 'saved' }))
-          .status,
+        (
+          await a
+            .patch(`/api/submissions/${first.id}`)
+            .set('x-csrf-token', token)
+            .send({ data: { ...swapRecord(), title: first.data.title }, body: 'saved' })
+        ).status,
       ).toBe(200);
     } finally {
       l.server.close();

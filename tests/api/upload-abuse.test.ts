@@ -43,7 +43,10 @@ let kai: Member;
 
 const member = (login: string) => signedInMember(t.db, agent, login);
 
-const newDraft = (m: Member = rosa) => createDraft(m, chassisId, swapRecord());
+let drafts = 0;
+// a member's open drafts each have a title of their own
+const newDraft = (m: Member = rosa) =>
+  createDraft(m, chassisId, swapRecord({ title: `Vela calipers on the H31, draft ${++drafts}` }));
 
 const upload = (m: Member, id: number) => m.agent.post(`/api/submissions/${id}/photos`).set('x-csrf-token', m.token);
 const uploadRaw = (m: Member, id: number, parts: Parameters<typeof multipartBody>[0]) => {

@@ -21,7 +21,10 @@ let mo: Member;
 
 const member = (login: string, role: 'member' | 'moderator' = 'member') => signedInMember(t.db, agent, login, role);
 
-const newDraft = (m: Member = rosa) => createDraft(m, chassisId, swapRecord());
+let drafts = 0;
+// a member's open drafts each have a title of their own
+const newDraft = (m: Member = rosa) =>
+  createDraft(m, chassisId, swapRecord({ title: `Vela calipers on the H31, draft ${++drafts}` }));
 
 const upload = (m: Member, id: number) => m.agent.post(`/api/submissions/${id}/photos`).set('x-csrf-token', m.token);
 

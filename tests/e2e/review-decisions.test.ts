@@ -81,7 +81,8 @@ describe('review decisions and words', () => {
     const box = page.getByRole('textbox', { name: 'Reasons (the author reads these)' });
     const button = page.getByRole('button', { name: 'Send back for rework', exact: true });
     const alert = page.getByRole('alert').filter({ hasText: 'Give the reason the member will read' });
-    const buttonTop = async () => (await button.boundingBox())!.y;
+    // its place on the page, not on the screen: focus may scroll the page, which is no layout move
+    const buttonTop = () => button.evaluate((el) => el.getBoundingClientRect().top + window.scrollY);
     const before = await buttonTop();
 
     await box.focus();

@@ -95,6 +95,11 @@ export const revisions = sqliteTable(
     uniqueIndex('revisions_one_open_per_author_uq')
       .on(t.swapId, t.authorId)
       .where(sql.raw(`status in ('draft', 'sent_back', 'in_review')`)),
+    // one title per member among their open new swaps, so two drafts (or a draft and a submission) never read alike;
+    // a correction is known by its swap and keeps that swap's title, which another swap may share
+    uniqueIndex('revisions_one_title_per_author_uq')
+      .on(t.authorId, sql`lower(json_extract(${t.data}, '$.title'))`)
+      .where(sql.raw(`status in ('draft', 'sent_back', 'in_review') and number = 1`)),
     index('revisions_status_idx').on(t.status),
     index('revisions_author_idx').on(t.authorId),
   ],
@@ -134,11 +139,31 @@ export const reviewEvents = sqliteTable(
     actorId: integer('actor_id')
       .notNull()
       .references(() => users.id),
-    action: text('action', { enum: ['submitted', 'approved', 'sent_back', 'declined', 'superseded'] }).notNull(),
+    action: text('action', { enum: ['submitted', 'approved', 'sent_back', 'declined', 'superseded', 'withdrawn'] }).notNull(),
     note: text('note').notNull().default(''),
     at: timestamp('at').notNull(),
   },
   (t) => [index('review_events_revision_idx').on(t.revisionId)],
+);
+
+/**
+ * A moderator working on a revision at the desk. Others see who holds it; a claim lapses at `expires_at`, so a
+ * moderator who walks away does not hold a submission for ever. One row per revision: taking over a lapsed claim
+ * replaces it in one statement.
+ */
+export const reviewClaims = sqliteTable(
+  'review_claims',
+  {
+    revisionId: integer('revision_id')
+      .primaryKey()
+      .references(() => revisions.id, { onDelete: 'cascade' }),
+    moderatorId: integer('moderator_id')
+      .notNull()
+      .references(() => users.id),
+    claimedAt: timestamp('claimed_at').notNull(),
+    expiresAt: timestamp('expires_at').notNull(),
+  },
+  (t) => [index('review_claims_moderator_idx').on(t.moderatorId)],
 );
 
 export const reviewReasonTemplates = sqliteTable('review_reason_templates', {

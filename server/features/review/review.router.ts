@@ -26,19 +26,17 @@ import {
   listTemplates,
   resolveFlag,
   reviewDetail,
-  reviewQueue,
   sendBackOrDecline,
   updateTemplate,
   type ReviewDeps,
 } from './review.service';
+import { claimNext, reviewQueue } from './review-queue.service';
+import { claimRevision, releaseClaim } from './review-claims.service';
+import { reviewQueueQuerySchema } from '../../../shared/schemas/review-queue';
 
 const revisionParams = z.object({ revisionId: idParamSchema });
 const idParams = z.object({ id: idParamSchema });
-const queueQuery = z.object({
-  status: z.enum(['in_review', 'sent_back']).default('in_review'),
-  chassis: slugSchema.optional(),
-  olderThanDays: z.coerce.number().int().min(0).max(3650).optional(),
-});
+const nextBody = z.object({ after: idParamSchema.optional() });
 
 /** Every decision is logged with who decided what; user text never goes into the log line. */
 const logDecision = (req: Request, revisionId: number, action: string) =>
@@ -52,8 +50,21 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
   router.get(
     '/review/queue',
     review,
-    validated({ query: queueQuery }, ({ query }, _req, res) => {
-      res.set('Cache-Control', 'private, no-store').json(reviewQueue(deps, query));
+    validated({ query: reviewQueueQuerySchema }, ({ query }, req, res) => {
+      res.set('Cache-Control', 'private, no-store').json(reviewQueue(deps, req.user!, query));
+    }),
+  );
+
+  // the next submission in the moderator's filter, claimed for them; `after` is the one they just decided
+  router.post(
+    '/review/next',
+    review,
+    validated({ query: reviewQueueQuerySchema, body: nextBody }, ({ query, body }, req, res) => {
+      const { page: _page, ...filters } = query;
+      const next = claimNext(deps, req.user!, filters, body.after);
+      if (next.revisionId !== null)
+        req.log.info({ event: 'review_claim', revisionId: next.revisionId, actorId: req.user!.id }, 'submission claimed');
+      res.json(next);
     }),
   );
 
@@ -126,6 +137,29 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
     review,
     validated({ params: revisionParams }, ({ params }, req, res) => {
       res.set('Cache-Control', 'private, no-store').json(reviewDetail(deps, req.user!, params.revisionId));
+    }),
+  );
+
+  router.post(
+    '/review/:revisionId/claim',
+    review,
+    validated({ params: revisionParams }, ({ params }, req, res) => {
+      const claim = claimRevision(db, req.user!, params.revisionId, clock.now());
+      req.log.info({ event: 'review_claim', revisionId: params.revisionId, actorId: req.user!.id }, 'submission claimed');
+      res.json({ claim });
+    }),
+  );
+
+  router.delete(
+    '/review/:revisionId/claim',
+    review,
+    validated({ params: revisionParams }, ({ params }, req, res) => {
+      const { releasedFrom } = releaseClaim(db, params.revisionId, clock.now());
+      req.log.info(
+        { event: 'review_claim_released', revisionId: params.revisionId, actorId: req.user!.id, heldBy: releasedFrom },
+        'claim released',
+      );
+      res.json({ claim: null });
     }),
   );
 

@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, lt, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { Db, DbTransaction } from '../../db/client';
 import { chassis, flags, parts, reviewEvents, reviewReasonTemplates, revisions, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
@@ -14,87 +14,19 @@ import {
 import type { SessionUser } from '../../middleware/require-role';
 import { FLAG_PAGE_SIZE } from '../../../shared/schemas/submissions';
 import { revisionStatusLabels } from '../../../shared/schemas/enums';
-import type {
-  FlagItem,
-  FlagPage,
-  ReasonTemplate,
-  ReviewDetail,
-  ReviewQueue,
-  ReviewQueueItem,
-  SubmissionView,
-} from '../../../shared/schemas/submissions';
+import type { FlagItem, FlagPage, ReasonTemplate, ReviewDetail, SubmissionView } from '../../../shared/schemas/submissions';
 import type { SwapData, SwapPart } from '../../../shared/schemas/swap-data';
-import { iso, personRef } from '../swaps/swap-views';
-import {
-  behindConflict,
-  checksFor,
-  loadRevision,
-  photoCounts,
-  submissionView,
-  type LoadedRevision,
-} from '../submissions/submission-views';
+import { personRef } from '../swaps/swap-views';
+import { behindConflict, checksFor, loadRevision, submissionView, type LoadedRevision } from '../submissions/submission-views';
 import { removeFiles, removeRevision, type SubmissionDeps } from '../submissions/submissions.service';
 import { slugify, uniqueSlug } from '../../lib/slugs';
 import { slugAfterApproval } from '../swaps/swap-slugs';
 import { listTakedowns as takedownsOfRevision } from '../takedowns/takedowns.service';
+import { claimsOn, endClaim, heldByOther } from './review-claims.service';
 
 export type ReviewDeps = SubmissionDeps;
 export type Decision = 'approved' | 'sent_back' | 'declined';
 type Tx = DbTransaction;
-
-const DAY_MS = 24 * 60 * 60 * 1000;
-
-export type QueueFilters = { status: 'in_review' | 'sent_back'; chassis?: string; olderThanDays?: number };
-
-export function reviewQueue(deps: ReviewDeps, filters: QueueFilters): ReviewQueue {
-  const { db, clock } = deps;
-  const where: SQL[] = [eq(revisions.status, filters.status)];
-  if (filters.chassis) where.push(eq(chassis.slug, filters.chassis));
-  if (filters.olderThanDays !== undefined)
-    where.push(lt(revisions.submittedAt, new Date(clock.now().getTime() - filters.olderThanDays * DAY_MS)));
-  const rows = db
-    .select({ revision: revisions, swap: swaps, chassis, author: users })
-    .from(revisions)
-    .innerJoin(swaps, eq(swaps.id, revisions.swapId))
-    .innerJoin(chassis, eq(chassis.id, swaps.chassisId))
-    .innerJoin(users, eq(users.id, revisions.authorId))
-    .where(and(...where))
-    .orderBy(asc(revisions.submittedAt), asc(revisions.id))
-    .limit(500)
-    .all();
-  const photos = photoCounts(
-    db,
-    rows.map((r) => r.revision.id),
-  );
-  const items = rows.map((row): ReviewQueueItem => ({
-    revisionId: row.revision.id,
-    swapSlug: row.swap.slug,
-    title: row.revision.data.title,
-    author: personRef(row.author),
-    submittedAt: iso(row.revision.submittedAt),
-    status: row.revision.status,
-    number: row.revision.number,
-    isCorrection: row.revision.number > 1,
-    chassis: {
-      slug: row.chassis.slug,
-      label: `${row.chassis.make} ${row.chassis.model}${row.chassis.code === row.chassis.model ? '' : ` (${row.chassis.code})`}`,
-    },
-    axle: row.swap.axle,
-    failedChecks: checksFor(db, row, photos.get(row.revision.id) ?? 0).filter((c) => c.status === 'fail').length,
-  }));
-  const count = (status: 'in_review' | 'sent_back') =>
-    db
-      .select({ n: sql<number>`count(*)` })
-      .from(revisions)
-      .where(eq(revisions.status, status))
-      .get()!.n;
-  const openFlags = flagPage(db, 1);
-  return {
-    items,
-    counts: { in_review: count('in_review'), sent_back: count('sent_back'), flags: openFlags.total },
-    flags: openFlags.items,
-  };
-}
 
 function reviewable(db: Db, revisionId: number): LoadedRevision {
   const row = loadRevision(db, revisionId);
@@ -142,6 +74,10 @@ export function reviewDetail(deps: ReviewDeps, viewer: SessionUser, revisionId: 
       at: h.event.at.toISOString(),
     })),
     canDecide: row.revision.status === 'in_review' && row.revision.authorId !== viewer.id,
+    claim:
+      row.revision.status === 'in_review'
+        ? (claimsOn(db, [revisionId], viewer.id, deps.clock.now()).get(revisionId) ?? null)
+        : null,
     takedowns: takedownsOfRevision(db, row.revision.id),
     canRevertTakedowns: viewer.role === 'admin',
   };
@@ -238,6 +174,8 @@ export function approve(deps: ReviewDeps, actor: SessionUser, revisionId: number
   const now = clock.now();
   const cleanNote = stripHtml(note);
   db.transaction((tx) => {
+    const held = heldByOther(tx, actor, revisionId, now);
+    if (held) throw held;
     // the swap as it is now, inside the write: approving a correction that started from an older revision
     // than the current one would put back what the newer approval changed
     const swap = tx.select().from(swaps).where(eq(swaps.id, row.swap.id)).get()!;
@@ -278,12 +216,15 @@ export function approve(deps: ReviewDeps, actor: SessionUser, revisionId: number
       .where(and(eq(chassis.id, swap.chassisId), eq(chassis.proposed, true)))
       .run();
     tx.insert(reviewEvents).values({ revisionId, actorId: actor.id, action: 'approved', note: cleanNote, at: now }).run();
+    endClaim(tx, revisionId);
     tellApproved(deps, tx, { ...row, swap: { ...row.swap, slug } }, cleanNote);
   });
   return submissionView(db, loadRevision(db, revisionId)!, actor);
 }
 
 function refuse(tx: Tx, actor: SessionUser, revisionId: number, action: 'sent_back' | 'declined', note: string, now: Date) {
+  const held = heldByOther(tx, actor, revisionId, now);
+  if (held) throw held;
   const changed = tx
     .update(revisions)
     .set({ status: action, reviewedAt: now, reviewedById: actor.id, reviewNote: note, updatedAt: now })
@@ -291,6 +232,7 @@ function refuse(tx: Tx, actor: SessionUser, revisionId: number, action: 'sent_ba
     .run().changes;
   if (!changed) throw AppError.conflict('Another moderator decided on this revision a moment ago.');
   tx.insert(reviewEvents).values({ revisionId, actorId: actor.id, action, note, at: now }).run();
+  endClaim(tx, revisionId);
 }
 
 function tellRefused(
@@ -366,6 +308,10 @@ export async function bulkDecline(deps: ReviewDeps, actor: SessionUser, revision
       fields[`revisionIds.${i}`] = `Revision ${ids[i]} is your own; another moderator has to decide on it.`;
     else if (row.revision.status !== 'in_review')
       fields[`revisionIds.${i}`] = `Revision ${ids[i]} is ${row.revision.status.replace('_', ' ')}, not in review.`;
+    else {
+      const held = heldByOther(db, actor, ids[i]!, clock.now());
+      if (held) fields[`revisionIds.${i}`] = `Revision ${ids[i]}: ${held.message}`;
+    }
   });
   if (Object.keys(fields).length)
     throw new AppError('not_decidable', 'Some of these revisions cannot be declined; nothing was changed.', 409, fields);

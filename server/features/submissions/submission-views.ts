@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, lt, ne } from 'drizzle-orm';
+import { and, desc, eq, inArray, lt } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { chassis, revisions, revisionPhotos, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
@@ -45,7 +45,8 @@ export function revisionFor(db: Db, user: SessionUser, id: number): LoadedRevisi
 }
 
 const lockedMessages: Partial<Record<RevisionStatus, string>> = {
-  in_review: 'This revision is at the review desk and locked until a moderator decides; you can edit it again if it is sent back for rework.',
+  in_review:
+    'This revision is at the review desk and locked until a moderator decides; you can edit it again if it is sent back for rework.',
   approved: 'Published revisions never change. Propose a correction instead: it starts a new revision of the swap.',
   superseded: 'This revision was replaced by a newer published one and never changes.',
   declined: 'This revision was not published and can no longer be edited. Start a new submission instead.',
@@ -138,15 +139,28 @@ export function submissionView(db: Db, row: LoadedRevision, viewer?: SessionUser
   };
 }
 
-/** Approved swaps on the same chassis and axle whose current revision has the same donor caliper. */
-export function likelyDuplicates(db: Db, swap: SwapRow, data: SwapData): { slug: string; title: string }[] {
-  const candidates = db
-    .select({ slug: swaps.slug, data: revisions.data })
+export type DuplicateCandidate = { swapId: number; slug: string; data: SwapData };
+
+/** Approved swaps (current revisions) on one chassis and axle: what a new record is compared with for duplicates. */
+export function duplicateCandidates(db: Db, chassisId: number, axle: SwapRow['axle']): DuplicateCandidate[] {
+  return db
+    .select({ swapId: swaps.id, slug: swaps.slug, data: revisions.data })
     .from(swaps)
     .innerJoin(revisions, eq(revisions.id, swaps.currentRevisionId))
-    .where(and(eq(swaps.chassisId, swap.chassisId), eq(swaps.axle, swap.axle), ne(swaps.id, swap.id)))
+    .where(and(eq(swaps.chassisId, chassisId), eq(swaps.axle, axle)))
     .all();
-  return candidates.filter((c) => sameDonorCaliper(data, c.data)).map((c) => ({ slug: c.slug, title: c.data.title }));
+}
+
+/** Approved swaps on the same chassis and axle whose current revision has the same donor caliper. */
+export function likelyDuplicates(
+  db: Db,
+  swap: SwapRow,
+  data: SwapData,
+  candidates: DuplicateCandidate[] = duplicateCandidates(db, swap.chassisId, swap.axle),
+): { slug: string; title: string }[] {
+  return candidates
+    .filter((c) => c.swapId !== swap.id && sameDonorCaliper(data, c.data))
+    .map((c) => ({ slug: c.slug, title: c.data.title }));
 }
 
 export function photoCounts(db: Db, revisionIds: number[]): Map<number, number> {
@@ -162,7 +176,8 @@ export function photoCounts(db: Db, revisionIds: number[]): Map<number, number> 
   return counts;
 }
 
-export function checksFor(db: Db, row: LoadedRevision, photoCount?: number): CheckResult[] {
+/** `candidates`: the approved swaps on the row's chassis and axle, when the caller already has them (the queue reads them once per chassis) */
+export function checksFor(db: Db, row: LoadedRevision, photoCount?: number, candidates?: DuplicateCandidate[]): CheckResult[] {
   return automaticChecks({
     data: row.revision.data,
     body: row.revision.body,
@@ -175,7 +190,7 @@ export function checksFor(db: Db, row: LoadedRevision, photoCount?: number): Che
     },
     axle: row.swap.axle,
     category: row.swap.category,
-    duplicates: likelyDuplicates(db, row.swap, row.revision.data),
+    duplicates: likelyDuplicates(db, row.swap, row.revision.data, candidates),
   });
 }
 

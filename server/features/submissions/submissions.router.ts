@@ -22,6 +22,7 @@ import {
   keepDraft,
   listMySubmissions,
   submitForReview,
+  withdrawFromReview,
   updateSubmission,
   type SubmissionDeps,
 } from './submissions.service';
@@ -92,6 +93,14 @@ export function submissionsRouter({ db, clock, mailer, storage, logger, config }
     submitLimit,
     validated({ params: idParams }, ({ params }, req, res) => {
       res.json(submitForReview(deps, req.user!, params.id));
+    }),
+  );
+
+  router.post(
+    '/submissions/:id/withdraw',
+    requirePermission('submit'),
+    validated({ params: idParams }, ({ params }, req, res) => {
+      res.json(withdrawFromReview(deps, req.user!, params.id));
     }),
   );
 

@@ -1,7 +1,7 @@
 import { and, desc, eq, inArray, max, ne, not, sql } from 'drizzle-orm';
 import { ZodError } from 'zod';
 import type { Db } from '../../db/client';
-import { chassis, parts, reviewEvents, revisionPhotos, revisions, swaps } from '../../db/schema/index';
+import { chassis, parts, reviewClaims, reviewEvents, revisionPhotos, revisions, swaps } from '../../db/schema/index';
 import type { StockBrakes, StockWheel } from '../../db/schema/catalogue';
 import type { Clock } from '../../lib/clock';
 import type { Logger } from '../../lib/logger';
@@ -35,6 +35,7 @@ import {
   type SwapRow,
 } from './submission-views';
 import { photoIsTakenDown } from '../takedowns/takedown-rules';
+import { assertTitleFree, titleConflictFrom } from './title-rule';
 
 export type SubmissionDeps = { db: Db; clock: Clock; mailer: Mailer; storage: Storage; logger: Logger; appUrl: string };
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
@@ -270,42 +271,61 @@ export async function createSubmission(
       chassisId: 'Pick a chassis or propose a new one, not both.',
     });
   }
-  const id = db.transaction((tx) => {
-    const chassisId = input.chassisId
-      ? catalogueChassisId(tx, input.chassisId)
-      : proposeChassis(tx, clock, input.newChassis!, data);
-    const code = tx.select({ code: chassis.code }).from(chassis).where(eq(chassis.id, chassisId)).get()!.code;
-    const slug = newSwapSlug(tx, swapSlugBase(code, input.axle!, data.title));
-    const swap = tx
-      .insert(swaps)
-      .values({
-        slug,
-        chassisId,
-        axle: input.axle!,
-        category: input.category!,
-        authorId: user.id,
-        createdAt: now,
-        updatedAt: now,
-      })
-      .returning({ id: swaps.id })
-      .get();
-    return tx
-      .insert(revisions)
-      .values({
-        swapId: swap.id,
-        number: 1,
-        authorId: user.id,
-        status: 'draft',
-        data,
-        body,
-        incompleteRows: input.incompleteRows,
-        createdAt: now,
-        updatedAt: now,
-      })
-      .returning({ id: revisions.id })
-      .get().id;
-  });
+  const id = withTitleRule(db, user.id, data.title, undefined, () =>
+    db.transaction((tx) => {
+      const chassisId = input.chassisId
+        ? catalogueChassisId(tx, input.chassisId)
+        : proposeChassis(tx, clock, input.newChassis!, data);
+      // after the chassis, so a request with several problems hears of the 400 first
+      assertTitleFree(db, user.id, data.title);
+      const code = tx.select({ code: chassis.code }).from(chassis).where(eq(chassis.id, chassisId)).get()!.code;
+      const slug = newSwapSlug(tx, swapSlugBase(code, input.axle!, data.title));
+      const swap = tx
+        .insert(swaps)
+        .values({
+          slug,
+          chassisId,
+          axle: input.axle!,
+          category: input.category!,
+          authorId: user.id,
+          createdAt: now,
+          updatedAt: now,
+        })
+        .returning({ id: swaps.id })
+        .get();
+      return tx
+        .insert(revisions)
+        .values({
+          swapId: swap.id,
+          number: 1,
+          authorId: user.id,
+          status: 'draft',
+          data,
+          body,
+          incompleteRows: input.incompleteRows,
+          createdAt: now,
+          updatedAt: now,
+        })
+        .returning({ id: revisions.id })
+        .get().id;
+    }),
+  );
   return viewOf(db, id, user);
+}
+
+/** Runs a write that may give a revision a title, turning the title index's refusal into the 409 with its field. */
+export function withTitleRule<T>(
+  db: Db,
+  authorId: number,
+  title: string,
+  exceptRevisionId: number | undefined,
+  write: () => T,
+): T {
+  try {
+    return write();
+  } catch (err) {
+    throw titleConflictFrom(err, db, authorId, title, exceptRevisionId) ?? err;
+  }
 }
 
 export function getSubmission(db: Db, user: SessionUser, id: number): SubmissionView {
@@ -328,41 +348,46 @@ export function updateSubmission(deps: SubmissionDeps, user: SessionUser, id: nu
       chassisId: 'Pick a chassis or propose a new one, not both.',
     });
   }
+  // a new swap's title is the member's own among their open ones (a correction keeps its swap's)
+  if (row.revision.number === 1) assertTitleFree(db, row.revision.authorId, data.title, id);
 
-  db.transaction((tx) => {
-    if (swapIsNew) {
-      let chassisId = swap.chassisId;
-      if (input.chassisId !== undefined && input.chassisId !== swap.chassisId)
-        chassisId = catalogueChassisId(tx, input.chassisId);
-      if (input.newChassis) {
-        const ownProposal =
-          row.chassis.proposed &&
-          !tx
-            .select({ id: swaps.id })
-            .from(swaps)
-            .where(and(eq(swaps.chassisId, swap.chassisId), ne(swaps.id, swap.id)))
-            .get();
-        if (ownProposal)
-          tx.update(chassis)
-            .set({ ...chassisValues(input.newChassis, data), updatedAt: now })
-            .where(eq(chassis.id, swap.chassisId))
-            .run();
-        else chassisId = proposeChassis(tx, clock, input.newChassis, data);
+  withTitleRule(db, row.revision.authorId, data.title, id, () =>
+    db.transaction((tx) => {
+      if (swapIsNew) {
+        let chassisId = swap.chassisId;
+        if (input.chassisId !== undefined && input.chassisId !== swap.chassisId)
+          chassisId = catalogueChassisId(tx, input.chassisId);
+        if (input.newChassis) {
+          const ownProposal =
+            row.chassis.proposed &&
+            !tx
+              .select({ id: swaps.id })
+              .from(swaps)
+              .where(and(eq(swaps.chassisId, swap.chassisId), ne(swaps.id, swap.id)))
+              .get();
+          if (ownProposal)
+            tx.update(chassis)
+              .set({ ...chassisValues(input.newChassis, data), updatedAt: now })
+              .where(eq(chassis.id, swap.chassisId))
+              .run();
+          else chassisId = proposeChassis(tx, clock, input.newChassis, data);
+        }
+        tx.update(swaps)
+          .set({ chassisId, axle: input.axle ?? swap.axle, category: input.category ?? swap.category, updatedAt: now })
+          .where(eq(swaps.id, swap.id))
+          .run();
+        if (chassisId !== swap.chassisId) dropUnusedProposedChassis(tx, swap.chassisId);
       }
-      tx.update(swaps)
-        .set({ chassisId, axle: input.axle ?? swap.axle, category: input.category ?? swap.category, updatedAt: now })
-        .where(eq(swaps.id, swap.id))
-        .run();
-      if (chassisId !== swap.chassisId) dropUnusedProposedChassis(tx, swap.chassisId);
-    }
-    const changed = tx
-      .update(revisions)
-      .set({ data, body, incompleteRows: input.incompleteRows, updatedAt: now })
-      .where(and(eq(revisions.id, id), inArray(revisions.status, ['draft', 'sent_back'])))
-      .run().changes;
-    // the status moved between the check and the write (a submit from another tab)
-    if (!changed) throw AppError.conflict('This revision was just sent to review and is locked; your last change was not saved.');
-  });
+      const changed = tx
+        .update(revisions)
+        .set({ data, body, incompleteRows: input.incompleteRows, updatedAt: now })
+        .where(and(eq(revisions.id, id), inArray(revisions.status, ['draft', 'sent_back'])))
+        .run().changes;
+      // the status moved between the check and the write (a submit from another tab)
+      if (!changed)
+        throw AppError.conflict('This revision was just sent to review and is locked; your last change was not saved.');
+    }),
+  );
   return viewOf(db, id, user);
 }
 
@@ -415,6 +440,31 @@ export function submitForReview(deps: SubmissionDeps, user: SessionUser, id: num
         number: row.revision.number,
       }),
     );
+  });
+  return viewOf(db, id, user);
+}
+
+/**
+ * POST /api/submissions/:id/withdraw: the author takes a revision off the review desk before anyone decides; it is
+ * a draft again (the desk no longer lists it, a moderator's claim on it goes) and can be changed and sent again.
+ */
+export function withdrawFromReview(deps: SubmissionDeps, user: SessionUser, id: number): SubmissionView {
+  const { db, clock } = deps;
+  const row = revisionFor(db, user, id);
+  if (row.revision.authorId !== user.id) throw AppError.forbidden('Only the author can withdraw a submission.');
+  if (row.revision.status !== 'in_review')
+    throw AppError.conflict('Only a submission at the review desk can be withdrawn; this one is not waiting for a decision.');
+  const now = clock.now();
+  db.transaction((tx) => {
+    const changed = tx
+      .update(revisions)
+      .set({ status: 'draft', submittedAt: null, updatedAt: now })
+      .where(and(eq(revisions.id, id), eq(revisions.status, 'in_review')))
+      .run().changes;
+    // a moderator decided between the read and the write
+    if (!changed) throw AppError.conflict('A moderator decided on this submission a moment ago; it can no longer be withdrawn.');
+    tx.delete(reviewClaims).where(eq(reviewClaims.revisionId, id)).run();
+    tx.insert(reviewEvents).values({ revisionId: id, actorId: user.id, action: 'withdrawn', note: '', at: now }).run();
   });
   return viewOf(db, id, user);
 }

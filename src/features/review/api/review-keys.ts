@@ -1,4 +1,6 @@
-export type QueueFilters = { status?: string; chassis?: string; olderThanDays?: number };
+import type { ReviewQueueQuery } from '@shared/schemas/review-queue';
+
+export type QueueFilters = Partial<ReviewQueueQuery>;
 
 export const reviewKeys = {
   all: ['review'] as const,

@@ -8,6 +8,7 @@ import { TextArea, TextInput } from '../../../components/ui/field';
 import { ApiError } from '../../../lib/api-client';
 import { paths } from '../../../config/paths';
 import { useDecide, type Decision } from '../api/decide';
+import { useShortcuts } from '../../../lib/use-shortcuts';
 import { useCreateTemplate, useDeleteTemplate, useTemplates, useUpdateTemplate } from '../api/templates';
 
 const choices: { value: Decision; label: string; hint: string }[] = [
@@ -15,6 +16,10 @@ const choices: { value: Decision; label: string; hint: string }[] = [
   { value: 'send-back', label: 'Send back for rework', hint: 'The author changes it and sends it again. Reasons required.' },
   { value: 'decline', label: 'Don’t publish', hint: 'It is not published. Reason required.' },
 ];
+
+/** keys that choose a decision; saving it still takes the button, so no key alone publishes a brake record */
+export const decisionKeys: Record<Decision, string> = { approve: '1', 'send-back': '2', decline: '3' };
+export const decisionKeyLabels = choices.map((c) => ({ key: decisionKeys[c.value], label: `Choose “${c.label}”` }));
 
 const doneWords: Record<Decision, string> = {
   approve: 'Published',
@@ -26,7 +31,16 @@ const doneWords: Record<Decision, string> = {
  * Publish, send back or don't publish one revision; the author is told by e-mail. Nothing is chosen
  * until the moderator chooses: publishing a brake record is never one stray click away.
  */
-export function DecisionPanel({ revision, canDecide }: { revision: SubmissionView; canDecide: boolean }) {
+type Props = {
+  revision: SubmissionView;
+  canDecide: boolean;
+  /** another moderator's login while their claim holds: deciding waits for it */
+  heldBy: string | null;
+  /** after "… and open the next": claims and opens the next submission in the desk's filter */
+  openNext: () => Promise<void>;
+};
+
+export function DecisionPanel({ revision, canDecide, heldBy, openNext }: Props) {
   const { behind } = revision;
   // nothing is chosen until the moderator chooses; a correction behind the current revision cannot be
   // published, so sending it back is the way on
@@ -42,6 +56,16 @@ export function DecisionPanel({ revision, canDecide }: { revision: SubmissionVie
   const [done, setDone] = useState<Decision | null>(null);
   const noteRef = useRef<HTMLDivElement>(null);
   const decide = useDecide(revision.id);
+  useShortcuts(
+    choices.map((c) => ({
+      key: decisionKeys[c.value],
+      label: c.label,
+      run: () => {
+        if (!(c.value === 'approve' && behind)) setDecision(c.value);
+      },
+    })),
+    canDecide && !done,
+  );
 
   if (!canDecide) {
     return (
@@ -82,8 +106,9 @@ export function DecisionPanel({ revision, canDecide }: { revision: SubmissionVie
   });
   const noteError = noteShown && !noteCheck.success ? (noteCheck.error.issues[0]?.message ?? 'Check the note') : undefined;
 
-  const send = async (e: React.FormEvent) => {
+  const send = async (e: React.FormEvent<HTMLFormElement>) => {
     e.preventDefault();
+    const thenNext = (e.nativeEvent as SubmitEvent).submitter?.getAttribute('data-then') === 'next';
     setError(null);
     setNoteShown(true);
     if (!decision || !noteCheck.success) return;
@@ -91,6 +116,7 @@ export function DecisionPanel({ revision, canDecide }: { revision: SubmissionVie
     try {
       await decide.mutateAsync({ decision, note: parsed.data.note });
       setDone(decision);
+      if (thenNext) await openNext();
     } catch (err) {
       setError(err instanceof ApiError ? (err.fields.note ?? err.message) : 'That did not work. Try again.');
     }
@@ -146,18 +172,36 @@ export function DecisionPanel({ revision, canDecide }: { revision: SubmissionVie
             reserveError
           />
         </div>
-        <Button
-          type="submit"
-          variant={decision === 'decline' ? 'danger' : 'primary'}
-          className="w-full"
-          disabled={decide.isPending || decision === null}
-        >
-          {decide.isPending
-            ? 'Saving the decision…'
-            : decision === null
-              ? 'Choose a decision above'
-              : choices.find((c) => c.value === decision)!.label}
-        </Button>
+        {heldBy && (
+          <p className="text-sm font-semibold text-oxide" data-testid="held-by-other">
+            @{heldBy} is working on this. Deciding waits until they release it or their claim lapses.
+          </p>
+        )}
+        <div className="space-y-2">
+          <Button
+            type="submit"
+            variant={decision === 'decline' ? 'danger' : 'primary'}
+            className="w-full"
+            disabled={decide.isPending || decision === null || heldBy !== null}
+          >
+            {decide.isPending
+              ? 'Saving the decision…'
+              : decision === null
+                ? 'Choose a decision above'
+                : choices.find((c) => c.value === decision)!.label}
+          </Button>
+          {decision !== null && (
+            <Button
+              type="submit"
+              data-then="next"
+              variant="secondary"
+              className="w-full"
+              disabled={decide.isPending || heldBy !== null}
+            >
+              {choices.find((c) => c.value === decision)!.label} and open the next
+            </Button>
+          )}
+        </div>
       </form>
     </aside>
   );

@@ -1,5 +1,5 @@
-import type { ReactNode } from 'react';
-import { Link, useParams } from 'react-router';
+import { useState, type ReactNode } from 'react';
+import { Link, useNavigate, useParams, useSearchParams } from 'react-router';
 import type { CheckResult, ReviewDetail, SubmissionView } from '@shared/schemas/submissions';
 import { checkStatusLabels, revisionStatusLabels } from '@shared/schemas/enums';
 import { Page } from '../../../components/ui/page';
@@ -10,7 +10,14 @@ import { UntrustedMarkdown } from '../../../components/markdown';
 import { chassisLabel } from '../../../components/swap-card';
 import { paths } from '../../../config/paths';
 import { useReviewDetail } from '../api/get-review-detail';
-import { DecisionPanel } from './decision-panel';
+import { DecisionPanel, decisionKeyLabels } from './decision-panel';
+import { useClaim, useClaimNext } from '../api/claims';
+import { queueQueryFrom } from '../api/get-review-queue';
+import { reviewQueueSearch } from '@shared/schemas/review-queue';
+import { useShortcuts, type Shortcut } from '../../../lib/use-shortcuts';
+import { ApiError } from '../../../lib/api-client';
+import { ClaimBar } from './claim-bar';
+import { ShortcutList } from './shortcut-list';
 import { TakedownPanel } from './takedown-panel';
 
 const when = (iso: string | null) =>
@@ -92,6 +99,7 @@ const actionWords: Record<string, string> = {
   sent_back: 'sent it back for rework',
   decline: 'decided not to publish it',
   declined: 'decided not to publish it',
+  withdrawn: 'withdrew it from review (a draft again)',
   create: 'started the draft',
   created: 'started the draft',
 };
@@ -130,6 +138,34 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
   const { revisionId = '' } = useParams();
   const id = Number(revisionId);
   const query = useReviewDetail(id);
+  const claimActions = useClaim(id);
+  const next = useClaimNext();
+  const navigate = useNavigate();
+  const [params] = useSearchParams();
+  // the desk's filters travel in the address, so "open the next" stays within them
+  const { page: _page, ...filters } = queueQueryFrom(params);
+  const search = reviewQueueSearch(filters);
+  const deskHref = `${paths.review()}${search ? `?${search}` : ''}`;
+  const [nextNote, setNextNote] = useState<string | null>(null);
+  const openNext = async () => {
+    setNextNote(null);
+    try {
+      const found = await next.mutateAsync({ filters, after: id });
+      if (found.revisionId === null)
+        setNextNote('Nothing unclaimed is left in this filter. Back to the desk when you are ready.');
+      else navigate(`${paths.reviewRevision(found.revisionId)}${search ? `?${search}` : ''}`);
+    } catch (err) {
+      setNextNote(err instanceof ApiError ? err.message : 'The next submission did not open. Try again.');
+    }
+  };
+  const detail = query.data;
+  const canClaim = Boolean(detail && detail.revision.status === 'in_review' && detail.canDecide);
+  const shortcuts: Shortcut[] = [
+    { key: 'c', label: 'Claim this submission, or extend your claim', run: () => canClaim && void claimActions.claim.mutate() },
+    { key: 'n', label: 'Skip: claim and open the next unclaimed one', run: () => void openNext() },
+    { key: 'b', label: 'Back to the desk', run: () => navigate(deskHref) },
+  ];
+  useShortcuts(shortcuts);
   if (query.isPending)
     return (
       <Page title="Review">
@@ -142,7 +178,7 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
         <ErrorNotice error={query.error} />
       </Page>
     );
-  const { revision, checks, current, basedOn, history, canDecide } = query.data;
+  const { revision, checks, current, basedOn, history, canDecide, claim } = query.data;
   const behind = revision.behind && basedOn ? { base: basedOn, current: revision.behind.current } : null;
   return (
     <Page
@@ -163,11 +199,17 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
         </div>
       }
     >
-      <p className="mb-6 text-sm">
-        <Link to={paths.review()} className="font-bold text-ink underline">
+      <p className="mb-4 text-sm">
+        <Link to={deskHref} className="font-bold text-ink underline">
           ← Back to the review desk
         </Link>
       </p>
+      {revision.status === 'in_review' && <ClaimBar claim={claim} actions={claimActions} canClaim={canClaim} />}
+      {nextNote && (
+        <p role="status" className="mb-4 rounded-lg bg-ink-faint/60 p-3 text-sm font-semibold text-ink">
+          {nextNote}
+        </p>
+      )}
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-10">
           {behind && (
@@ -218,9 +260,17 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
           )}
           {(revision.status === 'approved' || revision.status === 'superseded') && <TakedownPanel detail={query.data} />}
           <History history={history} />
+          {/* listed here rather than under the decision, so the sticky decision panel stays within the screen */}
+          <ShortcutList shortcuts={[...shortcuts, ...decisionKeyLabels.map((d) => ({ ...d, run: () => {} }))]} />
         </div>
         <div className="lg:sticky lg:top-4 lg:self-start">
-          <DecisionPanel key={behind ? 'behind' : 'current'} revision={revision} canDecide={canDecide} />
+          <DecisionPanel
+            key={`${revision.id}-${behind ? 'behind' : 'current'}`}
+            revision={revision}
+            canDecide={canDecide}
+            heldBy={claim && !claim.mine ? claim.by.login : null}
+            openNext={openNext}
+          />
         </div>
       </div>
       <section aria-labelledby="sheet-h" className="mt-12 rounded-2xl border-2 border-dashed border-ink/20">

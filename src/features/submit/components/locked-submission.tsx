@@ -1,9 +1,12 @@
+import { useState } from 'react';
 import { Link } from 'react-router';
 import type { SubmissionView } from '@shared/schemas/submissions';
 import { revisionStatusLabels, type RevisionStatus } from '@shared/schemas/enums';
 import { Page } from '../../../components/ui/page';
 import { Badge } from '../../../components/ui/badge';
-import { ButtonLink } from '../../../components/ui/button';
+import { Button, ButtonLink } from '../../../components/ui/button';
+import { ApiError } from '../../../lib/api-client';
+import { useWithdrawSubmission } from '../api/withdraw-submission';
 import { Markdown } from '../../../components/markdown';
 import { PhotoGrid } from '../../../components/photo-grid';
 import { chassisLabel } from '../../../components/swap-card';
@@ -58,6 +61,7 @@ export function LockedSubmission({ view }: { view: SubmissionView }) {
               Propose a correction
             </ButtonLink>
           )}
+          {view.status === 'in_review' && <WithdrawButton id={view.id} />}
           <ButtonLink to={paths.mySubmissions()} variant="secondary">
             My submissions
           </ButtonLink>
@@ -90,5 +94,32 @@ export function LockedSubmission({ view }: { view: SubmissionView }) {
         </Link>
       </p>
     </Page>
+  );
+}
+
+/** Takes the submission off the desk before a moderator decides: it becomes a draft that can be changed and sent again. */
+function WithdrawButton({ id }: { id: number }) {
+  const withdraw = useWithdrawSubmission();
+  const [error, setError] = useState<string | null>(null);
+  const run = async () => {
+    if (!window.confirm('Take this submission off the review desk? It becomes a draft again; send it when it is ready.')) return;
+    setError(null);
+    try {
+      await withdraw.mutateAsync(id);
+    } catch (err) {
+      setError(err instanceof ApiError ? err.message : 'That did not work. Try again.');
+    }
+  };
+  return (
+    <>
+      <Button variant="secondary" onClick={() => void run()} disabled={withdraw.isPending}>
+        {withdraw.isPending ? 'Withdrawing…' : 'Withdraw from review'}
+      </Button>
+      {error && (
+        <p role="alert" className="w-full text-sm font-semibold text-oxide">
+          {error}
+        </p>
+      )}
+    </>
   );
 }
