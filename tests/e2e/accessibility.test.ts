@@ -40,6 +40,8 @@ const pages: { name: string; as: string; url: () => string; ready: string }[] = 
   { name: 'where-else search', as: 'anonymous', url: () => '/where-else?number=ov%20355%20104%20l', ready: '#reach-h' },
   { name: 'open data page', as: 'anonymous', url: () => '/open-data', ready: '#mirrors-h' },
   { name: 'API page', as: 'anonymous', url: () => '/api-docs', ready: '#example-h' },
+  { name: 'shop page', as: 'anonymous', url: () => '/shops/ridgeway-performance', ready: '#shop-reports-h' },
+  { name: 'following page', as: 'rivet_rosa', url: () => '/me/following', ready: 'main h1' },
   { name: 'submission form', as: 'rivet_rosa', url: () => '/submit', ready: 'main form' },
   { name: 'review desk', as: 'gauge_mo', url: () => '/review', ready: 'main table, main h1' },
   { name: 'review page', as: 'gauge_mo', url: () => `/review/${reviewId}`, ready: '[data-testid="checks"]' },

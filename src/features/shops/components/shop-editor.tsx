@@ -118,7 +118,11 @@ export function ShopEditor({ shop, onDone }: { shop: ShopView; onDone: () => voi
                 onChange={(e) => setPeriod(i, { closes: e.target.value })}
               />
             </label>
-            <Button variant="quiet" onClick={() => setHours((h) => h.filter((_, j) => j !== i))}>
+            <Button
+              variant="quiet"
+              aria-label={`Remove ${weekdayLabels[p.day]} ${p.opens}–${p.closes}`}
+              onClick={() => setHours((h) => h.filter((_, j) => j !== i))}
+            >
               Remove
             </Button>
             {(errors[`openingHours.${i}.closes`] ?? errors[`openingHours.${i}.opens`]) && (
