@@ -18,6 +18,7 @@ export const pageRoutes = {
   apiDocs: '/api-docs',
   tools: '/tools',
   admin: '/admin',
+  adminCatalogue: '/admin/catalogue',
   signIn: '/signin',
   signInFailed: '/signin-failed',
   submit: '/submit',

@@ -24,6 +24,7 @@ const pageModules: Record<Exclude<PageName, 'home'>, PageModule> = {
   apiDocs: () => import('../features/open-data/components/api-docs-page'),
   tools: () => import('../features/calculators/components/calculators-page'),
   admin: () => import('./routes/admin'),
+  adminCatalogue: () => import('./routes/admin-catalogue'),
   signIn: () => import('../features/account/components/sign-in-page'),
   signInFailed: () => import('../features/account/components/sign-in-failed-page'),
   submit: () => import('./routes/submit'),

@@ -26,6 +26,7 @@ export const paths = {
   shopLinks: () => '/shop/links',
   outbox: () => '/outbox',
   admin: () => '/admin',
+  adminCatalogue: () => '/admin/catalogue',
   /** the page offering both ways in */
   signIn: (returnTo: string) => `/signin?returnTo=${encodeURIComponent(returnTo)}`,
   providerSignIn: (returnTo: string) => `/auth/github?returnTo=${encodeURIComponent(returnTo)}`,

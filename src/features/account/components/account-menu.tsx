@@ -17,6 +17,7 @@ const links: MenuLink[] = [
   { to: paths.outbox(), label: 'Outbox', need: 'review' },
   { to: paths.shopLinks(), label: 'Shop links', need: 'manage_shop_links' },
   { to: paths.admin(), label: 'Admin', need: 'manage_users' },
+  { to: paths.adminCatalogue(), label: 'Catalogue', need: 'manage_catalogue' },
 ];
 
 export function initialsOf(user: { name: string; login: string }) {

@@ -1,4 +1,4 @@
-import { Fragment, useEffect, useMemo, useState } from 'react';
+import { Fragment, useMemo, useState } from 'react';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { permissionLabels, permissionsOf, roleLabels, roles, type Role } from '@shared/roles';
 import type { AdminShop, AdminUser, AdminUserPatch, UserChange } from '@shared/schemas/admin';
@@ -12,18 +12,10 @@ import { useUsers } from '../api/get-users';
 import { useShops } from '../api/get-shops';
 import { useUserChanges } from '../api/get-user-changes';
 import { useUpdateUser } from '../api/update-user';
+import { useDebounced } from '../../../lib/use-debounced';
 
 const when = (iso: string | null) =>
   iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : 'never';
-
-function useDebounced<T>(value: T, ms: number) {
-  const [debounced, setDebounced] = useState(value);
-  useEffect(() => {
-    const id = setTimeout(() => setDebounced(value), ms);
-    return () => clearTimeout(id);
-  }, [value, ms]);
-  return debounced;
-}
 
 type Notice = { tone: 'ok' | 'error'; text: string } | null;
 
@@ -343,9 +335,7 @@ function RoleConfirm({
         ))}
       </ul>
       {lost.length > 0 && (
-        <p className="text-sm text-oxide">
-          They may no longer: {lost.map((p) => permissionLabels[p]).join('; ')}.
-        </p>
+        <p className="text-sm text-oxide">They may no longer: {lost.map((p) => permissionLabels[p]).join('; ')}.</p>
       )}
       <p className="text-xs text-graphite-soft">It applies on their next request and is recorded with your name.</p>
       <div className="flex flex-wrap gap-2">

@@ -10,6 +10,7 @@ import {
 import { useUnits } from '../../../lib/units';
 import { unitOf } from '../../../lib/quantity-text';
 import { emptyFastener, emptyPart, type FormValues } from '../lib/form-values';
+import { PartPicker } from './part-picker';
 import { AddButton, FArea, FCheck, FNum, FSelect, FText, FormSection, ListError, ListRow, MoreFields } from './form-controls';
 
 /** select options from a label map, in the map's order */
@@ -44,6 +45,7 @@ export function PartsSection() {
       <ListError name="data.parts" />
       {fields.map((f, i) => (
         <ListRow key={f.id} label={`Part ${i + 1}`} onRemove={() => remove(i)} disabled={fields.length === 1}>
+          <PartPicker index={i} />
           <FSelect
             name={`data.parts.${i}.kind`}
             label="Kind"
