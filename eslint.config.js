@@ -4,7 +4,7 @@ import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
 
 export default tseslint.config(
-  { ignores: ['dist/', 'data/', 'node_modules/', 'drizzle/', 'coverage/'] },
+  { ignores: ['dist/', 'dist-server/', 'data/', 'node_modules/', 'drizzle/', 'coverage/'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

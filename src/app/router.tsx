@@ -1,4 +1,5 @@
-import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router';
+import { useEffect } from 'react';
+import { createBrowserRouter, matchRoutes, RouterProvider, type RouteObject } from 'react-router';
 import { pageRoutes, type PageName } from '@shared/page-routes';
 import { Shell } from './layout/shell';
 import { RouteError } from './routes/route-error';
@@ -56,8 +57,27 @@ export const routes: RouteObject[] = [
   },
 ];
 
-const router = createBrowserRouter(routes);
+/**
+ * The browser's router. A page the server rendered is hydrated: its route modules are loaded first, so the
+ * first render draws the page the HTML holds instead of the loading frame.
+ */
+export async function createAppRouter({ hydrating }: { hydrating: boolean }) {
+  if (hydrating) {
+    const lazyMatches = matchRoutes(routes, window.location)?.filter((m) => m.route.lazy) ?? [];
+    await Promise.all(
+      lazyMatches.map(async (m) => {
+        const loaded = await (m.route.lazy as () => Promise<Partial<RouteObject>>)();
+        Object.assign(m.route, { ...loaded, lazy: undefined });
+      }),
+    );
+  }
+  return createBrowserRouter(routes);
+}
 
-export function AppRouter() {
+export function AppRouter({ router }: { router: Awaited<ReturnType<typeof createAppRouter>> }) {
+  // after the first commit (hydration included) the page answers clicks: browser tests wait for this mark
+  useEffect(() => {
+    document.documentElement.dataset.hydrated = 'true';
+  }, []);
   return <RouterProvider router={router} />;
 }

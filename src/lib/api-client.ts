@@ -15,13 +15,20 @@ export class ApiError extends Error {
 
 let csrfToken: string | null = null;
 
+/** How the API is reached: the browser's fetch, or the server's own when it renders a page (see entry-server). */
+let transport: typeof fetch = (input, init) => fetch(input, init);
+
+export function setApiTransport(fetchApi: typeof fetch) {
+  transport = fetchApi;
+}
+
 /** /api/me hands out the token; the account feature calls this whenever it reads /api/me. */
 export function rememberCsrfToken(token: string | null) {
   csrfToken = token;
 }
 
 async function fetchCsrfToken(): Promise<string | null> {
-  const res = await fetch('/api/me', { credentials: 'same-origin', headers: { accept: 'application/json' } });
+  const res = await transport('/api/me', { credentials: 'same-origin', headers: { accept: 'application/json' } });
   const body = (await res.json()) as { csrfToken: string | null };
   csrfToken = body.csrfToken;
   return csrfToken;
@@ -66,7 +73,7 @@ export async function api<T>(url: string, { method = 'GET', body, signal, header
     // a visitor has no session and no token; the server answers with a sign-in error instead
     const token = unsafe ? (csrfToken ?? (await fetchCsrfToken())) : null;
     if (token) h['x-csrf-token'] = token;
-    const res = await fetch(url, {
+    const res = await transport(url, {
       method,
       headers: h,
       body: body === undefined ? undefined : isForm ? (body as FormData) : JSON.stringify(body),

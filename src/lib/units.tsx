@@ -1,4 +1,4 @@
-import { createContext, useCallback, useContext, useMemo, useState, type ReactNode } from 'react';
+import { createContext, useCallback, useContext, useMemo, useSyncExternalStore, type ReactNode } from 'react';
 import type { UnitSystem } from '@shared/schemas/enums';
 import { mmToIn, nmToLbfFt, barToPsi, kgToLb, MM_PER_IN, N_PER_LBF } from '@shared/fitment/units';
 
@@ -19,15 +19,26 @@ function readStored(): UnitSystem {
   }
 }
 
+// the choice lives on the device; a page the server drew is hydrated in metric, then shown in the reader's units
+const unitListeners = new Set<() => void>();
+let chosen: UnitSystem | null = null;
+const subscribeUnits = (listener: () => void) => {
+  unitListeners.add(listener);
+  return () => unitListeners.delete(listener);
+};
+const currentUnits = () => (chosen ??= readStored());
+const serverUnits = (): UnitSystem => 'metric';
+
 export function UnitsProvider({ children }: { children: ReactNode }) {
-  const [system, setState] = useState<UnitSystem>(readStored);
+  const system = useSyncExternalStore(subscribeUnits, currentUnits, serverUnits);
   const setSystem = useCallback((s: UnitSystem) => {
-    setState(s);
+    chosen = s;
     try {
       localStorage.setItem(storageKey, s);
     } catch {
       // private mode: the choice lasts for this visit only
     }
+    unitListeners.forEach((l) => l());
   }, []);
   const value = useMemo(() => ({ system, setSystem }), [system, setSystem]);
   return <UnitsContext.Provider value={value}>{children}</UnitsContext.Provider>;

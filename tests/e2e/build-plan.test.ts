@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { launchBrowser } from './support/browser';
+import { hydrated, launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
 import { signedInPage } from './support/sign-in';
 
@@ -28,9 +28,11 @@ describe('a build plan', () => {
     page.on('pageerror', (e) => problems.push(e.message));
 
     await page.goto(`${server.url}/swaps/h31-front-vela-four-piston-330`);
+    await hydrated(page);
     const tray = page.locator('[data-plan-tray]');
     await tray.getByRole('button', { name: 'Add this swap to the plan' }).click();
     await page.goto(`${server.url}/swaps/h31-rear-regent-300-drum-in-hat`);
+    await hydrated(page);
     await tray.getByRole('button', { name: 'Add this swap to the plan' }).click();
     await expect.poll(() => tray.getByRole('list', { name: 'Swaps in your plan' }).locator('li').count()).toBe(2);
     await tray.getByRole('button', { name: /Make the plan \(2\)/ }).click();

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser } from './support/browser';
+import { hydrated, launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
 
 // The hobbyist's visit on the demo scenario: home → search with a typo → facet → swap sheet →
@@ -42,6 +42,7 @@ describe('find what fits', () => {
   it('when a chassis code is typed with a typo and a facet narrows it, then the swap opens and the wheel check gives verdicts', async () => {
     const { page, problems } = await newPage();
     await page.goto(`${server.url}/search`);
+    await hydrated(page);
     const results = page.locator('#search-results li');
     await expect.poll(() => results.count(), { timeout: 15_000 }).toBeGreaterThan(0);
     await page.locator('body').click({ position: { x: 5, y: 400 } });
@@ -113,6 +114,7 @@ describe('find what fits', () => {
   it('when a tested wheel fails only at the fillet, then the section shows it, and a spacer from the slider clears it', async () => {
     const { page, problems } = await newPage(1280);
     await page.goto(`${server.url}/swaps/h31-front-vela-four-piston-330`);
+    await hydrated(page);
     const section = page.locator('#section');
     await section.locator('[data-section-drawing]').waitFor();
     // the caliper sits on the rotor the record gives it: pad on the rotor, centred by the record's shims
@@ -139,6 +141,7 @@ describe('find what fits', () => {
   it('when the sheet is read on a phone, then nothing overflows sideways', async () => {
     const { page } = await newPage(390);
     await page.goto(`${server.url}/swaps/h31-front-vela-four-piston-330`);
+    await hydrated(page);
     await page.locator('h1').first().waitFor();
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(0);

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { startServer, type RunningServer } from './support/server';
-import { launchBrowser } from './support/browser';
+import { hydrated, launchBrowser } from './support/browser';
 import { signedInPage } from './support/sign-in';
 
 // The swap sheet's brake section on the demo scenario: which axle locks first before and after the swap,
@@ -28,6 +28,7 @@ describe('which axle locks first on the swap sheet', () => {
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
     await page.goto(`${server.url}/swaps/h31-rear-regent-300-drum-in-hat`);
+    await hydrated(page);
     const section = page.locator('#balance');
     await section.scrollIntoViewIfNeeded();
     await expect.poll(() => note(page).getAttribute('data-severity')).toBe('hazard');
@@ -71,6 +72,7 @@ describe('which axle locks first on the swap sheet', () => {
   it('when the H40 rear drum-in-hat sheet is read, then its load-sensing valve keeps the fronts first and there is no rear-first warning', async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
     await page.goto(`${server.url}/swaps/h40-rear-regent-300-drum-in-hat`);
+    await hydrated(page);
     await expect.poll(() => note(page).getAttribute('data-severity')).toBe('advisory');
     const text = await note(page).innerText();
     expect(text).toContain('toward the rear (front share 70.8 % → 68.6 %)');

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { startServer, type RunningServer } from './support/server';
-import { launchBrowser } from './support/browser';
+import { hydrated, launchBrowser } from './support/browser';
 import { signedInPage } from './support/sign-in';
 
 // The demo seed loads into the server's empty database: Ridgeway Performance, its shop account, and rivet_rosa.
@@ -72,6 +72,7 @@ describe('shop links and my cars in the browser', () => {
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
     await page.goto(`${server.url}/l/${code}`);
+    await hydrated(page);
     await page.waitForURL(new RegExp(`/swaps/${sheetSlug}/r/2\\?via=${code}$`));
     const banner = page.getByRole('complementary', { name: 'Shared by Ridgeway Performance' });
     await banner.waitFor();
@@ -124,6 +125,7 @@ describe('shop links and my cars in the browser', () => {
     expect(await cars.innerText()).toContain('17×7.5 ET35');
 
     await page.goto(`${server.url}/swaps/${sheetSlug}`);
+    await hydrated(page);
     const check = page.locator('#check');
     await check.getByRole('button', { name: 'Track coupe (17×7.5 ET35)' }).click();
     const wheelForm = check.getByRole('form', { name: 'Your wheel' });
@@ -138,6 +140,7 @@ describe('shop links and my cars in the browser', () => {
 
     // the chassis page marks the swap against the saved car, naming the rule
     await page.goto(`${server.url}/chassis/halden-h31`);
+    await hydrated(page);
     await page.getByText(/Checked against your cars: .*Track coupe \(17×7\.5 ET35\)/).waitFor();
     expect(await page.locator('[data-car-check="pass"]', { hasText: 'Track coupe' }).count()).toBeGreaterThan(0);
     expect(errors).toEqual([]);
@@ -183,6 +186,7 @@ describe('shop links and my cars in the browser', () => {
 
     // the sheet draws the record's caliper outline against the member's own wheel first; only the fillet reaches it
     await page.goto(`${server.url}/swaps/${sheetSlug}`);
+    await hydrated(page);
     const section = page.locator('#section');
     await section.getByRole('combobox', { name: 'Wheel' }).selectOption({ label: 'Your Flow-formed saloon (17×7 ET45)' });
     const verdict = section.locator('[data-verdict]').filter({ hasText: 'Clearance at the nearest point' });

@@ -5,7 +5,7 @@ import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext } from 'playwright-core';
 import { startServer, type RunningServer } from './support/server';
-import { launchBrowser } from './support/browser';
+import { hydrated, launchBrowser } from './support/browser';
 import { signedInPage } from './support/sign-in';
 
 // The community loop in a real browser against the real server on an empty database:
@@ -244,6 +244,7 @@ describe('submit and review journey', () => {
 
     // ---- anyone finds it in search ----
     await page.goto(`${server.url}/search?q=Vela`);
+    await hydrated(page);
     await page.getByRole('link', { name: title }).first().waitFor({ timeout: 15_000 });
 
     // ---- the member's message is in the outbox ----

@@ -1,7 +1,7 @@
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser } from './support/browser';
+import { hydrated, launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
 import { signedInPage } from './support/sign-in';
 import { closeDb, openDb, type Db } from '../../server/db/client';
@@ -50,6 +50,7 @@ describe('typed figures and the units toggle', () => {
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
     await page.goto(`${server.url}/swaps/h31-front-vela-units`);
+    await hydrated(page);
     await toggle(page, 'in · lbf·ft');
     const panel = page.locator('#check');
     await panel.getByLabel('Diameter (in)').fill('16');

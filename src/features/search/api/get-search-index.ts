@@ -45,4 +45,6 @@ export const searchIndexQueryOptions = (client: SearchClient) =>
     queryKey: searchKeys.index(),
     queryFn: () => client.load(),
     staleTime: 60_000,
+    // the index lives in the reader's worker: a server render leaves the results to the browser
+    meta: { browserOnly: true },
   });

@@ -73,7 +73,7 @@ export function SearchResult({ doc }: { doc: SearchDocument }) {
           <dt>Approved</dt>
           <dd className="font-bold text-graphite">
             <time dateTime={doc.updatedAt}>
-              {new Date(doc.updatedAt).toLocaleDateString('en-GB', { year: 'numeric', month: 'short', day: 'numeric' })}
+              {new Date(doc.updatedAt).toLocaleDateString('en-GB', { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' })}
             </time>
           </dd>
         </div>

@@ -19,6 +19,7 @@ export function useSearch(request: SearchRequest) {
     queryKey: searchKeys.query(version, loaded, request),
     queryFn: () => searchClient.query(request),
     enabled: version > 0,
+    meta: { browserOnly: true },
     placeholderData: keepPreviousData,
     staleTime: Infinity,
     gcTime: 60_000,

@@ -5,7 +5,7 @@ import { paths } from '../../../config/paths';
 import { qrUrl } from '../api/shop-links';
 
 const date = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—';
+  iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }) : '—';
 
 /**
  * Above a sheet opened through a shop link: who sent it and whether the record moved on since. The link's

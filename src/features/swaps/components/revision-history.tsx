@@ -24,7 +24,7 @@ export function RevisionHistory({ slug, history, shown }: { slug: string; histor
             </Link>
             <span className="text-graphite-soft">
               {h.status === 'approved' ? 'current' : 'replaced'} · by {h.author.name} · published{' '}
-              {h.approvedAt ? new Date(h.approvedAt).toLocaleDateString('en-GB') : '—'}
+              {h.approvedAt ? new Date(h.approvedAt).toLocaleDateString('en-GB', { timeZone: 'UTC' }) : '—'}
             </span>
           </li>
         ))}

@@ -1,4 +1,4 @@
-import { useRef } from 'react';
+import { useRef, useSyncExternalStore } from 'react';
 import { Link, useParams } from 'react-router';
 import type { SwapSheetView } from '@shared/schemas/views';
 import type { BalanceStart } from '@shared/schemas/cars';
@@ -36,8 +36,19 @@ import { PrintedSection, SectionCheck, type ProfiledWheel } from './section-chec
 import { RevisionHistory } from './revision-history';
 import { SheetSectionMenu } from './sheet-section-menu';
 
+// in UTC, so the page the server drew and the one the browser hydrates read the same day
 const date = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—';
+  iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }) : '—';
+
+const noSubscription = () => () => {};
+
+/** The site's address as the browser sees it; empty while hydrating a page the server drew. */
+const useOrigin = () =>
+  useSyncExternalStore(
+    noSubscription,
+    () => window.location.origin,
+    () => '',
+  );
 
 export default function SwapSheetPage() {
   const { slug = '', n } = useParams();
@@ -75,6 +86,7 @@ export function SwapSheet({ view, banner, presets, carStarts, extraSections, act
   const { swap, chassis, revision, history, currentNumber } = view;
   const { data } = revision;
   const { length } = useUnits();
+  const origin = useOrigin();
   const isOld = currentNumber !== null && revision.number !== currentNumber;
   const level = machiningLevel(data.machining);
   const touches = jobTouches(data, swap.category);
@@ -99,7 +111,7 @@ export function SwapSheet({ view, banner, presets, carStarts, extraSections, act
       <header className="mb-4 print:mb-3">
         <p className="hidden text-xs text-graphite-soft print:block">
           Build sheet printed from Swapyard · revision {revision.number} approved {date(revision.approvedAt)} ·{' '}
-          {typeof window === 'undefined' ? '' : `${window.location.origin}${paths.swapRevision(swap.slug, revision.number)}`}
+          {origin && `${origin}${paths.swapRevision(swap.slug, revision.number)}`}
         </p>
         <div className="flex flex-wrap gap-2">
           <Badge tone="ink">{swap.axle === 'front' ? 'Front axle' : 'Rear axle'}</Badge>
