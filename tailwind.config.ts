@@ -13,7 +13,7 @@ export default {
         graphite: { DEFAULT: '#2b2b28', soft: '#5c5a52' },
       },
       fontFamily: {
-        sans: ['"Nunito Sans"', 'system-ui', 'sans-serif'],
+        sans: ['"Nunito Sans"', '"Nunito Sans Fallback"', 'system-ui', 'sans-serif'],
       },
       maxWidth: { sheet: '72rem' },
     },

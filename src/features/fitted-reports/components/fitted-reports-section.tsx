@@ -28,7 +28,7 @@ type Props = {
   onChanged?: () => void;
 };
 
-const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
 
 export function useWheelText() {
   const units = useUnits();
@@ -168,6 +168,8 @@ function ReportCard({
             src={report.photo.thumbUrl}
             alt={`Photo from ${report.member.name}`}
             loading="lazy"
+            width={80}
+            height={80}
             className="h-20 w-20 rounded-md bg-paper-deep object-cover"
           />
         </a>
