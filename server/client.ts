@@ -54,7 +54,7 @@ async function renderedHtml(req: Request, html: string, status: number, render: 
     const state = `<script type="application/json" id="server-state">${jsonForScript(rendered.state)}</script>`;
     return html.replace(/<div id="root"><\/div>/, () => `<div id="root">${rendered.html}</div>\n    ${state}`);
   } catch (err) {
-    req.log?.error({ err }, 'page render failed; the browser draws it');
+    req.log?.warn({ err }, 'page not drawn by the server; the browser draws it');
     return html;
   }
 }

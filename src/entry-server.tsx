@@ -72,8 +72,8 @@ function waitingQueries(client: QueryClient, tried: Set<string>) {
 }
 
 /**
- * The page's HTML and the query cache it was drawn from, or null when it should be left to the browser
- * (the address redirects, or a query failed: the browser then shows its own loading and error states).
+ * The page's HTML and the query cache it was drawn from; null when the address redirects. Throws when a query
+ * did not succeed: the page is then left to the browser, which shows its own loading and error states.
  */
 export async function renderPage(request: Request, api: ApiContext): Promise<{ html: string; state: ServerState } | null> {
   return apiContext.run(api, async () => {
@@ -98,8 +98,14 @@ export async function renderPage(request: Request, api: ApiContext): Promise<{ h
       html = await toHtml(page);
     }
     // the browser starts from the same states: what is still waiting there is waiting here too
-    const queries = client.getQueryCache().getAll();
-    if (queries.some((q) => q.state.status === 'error' || (q.state.status === 'pending' && runsOnServer(q)))) return null;
+    const unfinished = client
+      .getQueryCache()
+      .getAll()
+      .filter((q) => q.state.status === 'error' || (q.state.status === 'pending' && runsOnServer(q)));
+    if (unfinished.length > 0)
+      throw new Error(
+        `queries did not succeed: ${unfinished.map((q) => `${q.queryHash} (${String(q.state.error ?? q.state.status)})`).join(', ')}`,
+      );
     return { html, state: { queries: dehydrate(client) } };
   });
 }

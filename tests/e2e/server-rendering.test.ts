@@ -12,6 +12,8 @@ const sheet = '/swaps/h31-front-vela-four-piston-330';
 
 beforeAll(async () => {
   server = await startServer({ SEED_DEMO: 'auto' });
+  // the server's first render loads the page modules; on a busy machine that first answer is slow
+  await fetch(server.url + sheet);
   browser = await launchBrowser();
 });
 afterAll(async () => {
