@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useState, useSyncExternalStore } from 'react';
 import type { SwapSheetView } from '@shared/schemas/views';
 import { Button } from '../../../components/ui/button';
 import { forgetSheet, isKept, keepSheet, keptSheets, offlineStorageAvailable, sheetUrls } from '../kept-sheets';
@@ -6,12 +6,17 @@ import { useOnline } from '../use-online';
 
 type State = { kind: 'idle' } | { kind: 'busy' } | { kind: 'failed'; message: string };
 
+const noSubscription = () => () => {};
+/** Whether this browser can keep sheets; a page the server drew is hydrated without the button, then shows it. */
+const useStorageAvailable = () => useSyncExternalStore(noSubscription, offlineStorageAvailable, () => false);
+
 /**
  * "Keep offline" on a sheet: stores the sheet and its photos on this device, so it reads in the garage
  * without a connection, with its checks (they are computed on the device from the kept sheet).
  */
 export function KeepOfflineButton({ view, number }: { view: SwapSheetView; number: number | null }) {
   const online = useOnline();
+  const available = useStorageAvailable();
   const [kept, setKept] = useState(false);
   const [state, setState] = useState<State>({ kind: 'idle' });
   const slug = view.swap.slug;
@@ -26,7 +31,7 @@ export function KeepOfflineButton({ view, number }: { view: SwapSheetView; numbe
       void keepSheet(view, number).catch(() => {});
   }, [view, slug, number, online]);
 
-  if (!offlineStorageAvailable()) return null;
+  if (!available) return null;
 
   const keep = async () => {
     setState({ kind: 'busy' });
