@@ -15,12 +15,16 @@ export const newChassisSchema = z.object({
   make: singleLine().trim().min(1, 'Give the make').max(60),
   model: singleLine().trim().min(1, 'Give the model').max(60),
   code: singleLine().trim().min(1, 'Give the chassis code').max(20),
-  yearFrom: z.number().int().min(1900).max(2100),
-  yearTo: z.number().int().min(1900).max(2100).nullable().default(null),
+  yearFrom: z.number().int('A whole year').min(1900, 'A year from 1900 on').max(2100, 'A year up to 2100'),
+  yearTo: z.number().int('A whole year').min(1900, 'A year from 1900 on').max(2100, 'A year up to 2100').nullable().default(null),
   body: singleLine().trim().max(60).default(''),
-  lugCount: z.number().int().min(3).max(10),
-  pcdMm: z.number().positive().max(300),
-  centreBoreMm: z.number().positive().max(200),
+  lugCount: z
+    .number()
+    .int('A whole number of bolts')
+    .min(3, 'A hub has 3 to 10 wheel bolts')
+    .max(10, 'A hub has 3 to 10 wheel bolts'),
+  pcdMm: z.number().positive('The bolt circle is more than 0 mm').max(300, 'The bolt circle is at most 300 mm'),
+  centreBoreMm: z.number().positive('The centre bore is more than 0 mm').max(200, 'The centre bore is at most 200 mm'),
   /** metric with its pitch (M12x1.5) or unified with threads per inch (1/2-20 UNF) */
   wheelBoltThread: threadDesignation(),
   /** how the wheels are held, as far as the proposer knows it */

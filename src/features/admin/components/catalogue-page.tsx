@@ -6,6 +6,25 @@ import { PartsDesk } from './parts-desk';
 
 const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
 const actionWords = { edit: 'corrected', merge: 'merged', approve: 'approved' } as const;
+// the record keeps field names; people read the form's words
+const fieldWords: Record<string, string> = {
+  make: 'make',
+  model: 'model',
+  code: 'chassis code',
+  yearFrom: 'first year',
+  yearTo: 'last year',
+  body: 'body',
+  lugCount: 'wheel bolts per hub',
+  pcdMm: 'bolt circle (mm)',
+  centreBoreMm: 'centre bore (mm)',
+  wheelBoltThread: 'wheel-bolt thread',
+  notes: 'notes',
+  kind: 'kind',
+  name: 'name',
+  maker: 'maker',
+  partNumbers: 'part numbers',
+  cameOn: 'came on',
+};
 
 function RecentChanges() {
   const changes = useCatalogueChanges();
@@ -24,7 +43,8 @@ function RecentChanges() {
               <strong>{c.actor ? `@${c.actor.login}` : 'the shell'}</strong> {actionWords[c.action]} {c.subjectLabel}
               {c.action === 'edit' && (
                 <>
-                  : {c.field} <span className="text-graphite-soft">{c.from || '(empty)'}</span> → {c.to || '(empty)'}
+                  : {c.field ? (fieldWords[c.field] ?? c.field) : ''}{' '}
+                  <span className="text-graphite-soft">{c.from || '(empty)'}</span> → {c.to || '(empty)'}
                 </>
               )}
               {c.action === 'merge' && <> (folded in: {c.from})</>}
