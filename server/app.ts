@@ -25,6 +25,7 @@ import { mediaRouter } from './features/photos/media.router';
 import { searchIndexRouter } from './features/search-index/search-index.router';
 import { submissionsRouter } from './features/submissions/submissions.router';
 import { reviewRouter } from './features/review/review.router';
+import { flagsRouter } from './features/flags/flags.router';
 import { takedownsRouter } from './features/takedowns/takedowns.router';
 import { outboxRouter } from './features/outbox/outbox.router';
 import { fittedReportsRouter } from './features/fitted-reports/fitted-reports.router';
@@ -116,6 +117,8 @@ export function createApp(deps: AppDeps) {
   app.use('/api', submissionsRouter(deps));
   // before the review router, whose /review/:revisionId would read "takedowns" as a revision id
   app.use('/api', takedownsRouter(deps));
+  // before the review router: its /review/:revisionId would take /review/flags
+  app.use('/api', flagsRouter(deps));
   app.use('/api', reviewRouter(deps));
   app.use('/api', outboxRouter(deps));
   app.use('/api', fittedReportsRouter(deps));

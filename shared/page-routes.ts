@@ -26,6 +26,8 @@ export const pageRoutes = {
   updateSubmission: '/submissions/:id/update',
   mySubmissions: '/me/submissions',
   review: '/review',
+  // before the revision page: /review/:revisionId would take it
+  reportModeration: '/review/reports',
   reviewRevision: '/review/:revisionId',
   outbox: '/outbox',
   myCars: '/me/cars',

@@ -42,6 +42,7 @@ import { submissionReceived, submissionSentBack, type BuiltMessage } from '../ma
 import { processPhoto } from '../features/photos/photo-processing';
 import { thumbId } from '../features/photos/photo-files';
 import { openingPeriodSchema, quotedPriceSchema, shopContactSchema } from '../../shared/schemas/shops';
+import { flagKindSchema } from '../../shared/schemas/flags';
 
 // Loads the demo scenario in content/ (chassis, parts, shops, members, swaps with their
 // revisions, photos and fitted reports). Everything is read and checked before the one
@@ -273,12 +274,16 @@ const frontMatterSchema = z.strictObject({
           offsetMm: z.number().min(-80).max(80),
           spacerMm: z.number().min(0).max(60).default(0),
         }),
+        /** the smallest caliper-to-wheel gap the member measured, mm */
+        clearanceMm: z.number().min(0).max(50).optional(),
         note: text(1000).default(''),
         at: date,
       }),
     )
     .default([]),
-  flags: z.array(z.strictObject({ reporter: login, reason: text(1000).min(5), at: date })).default([]),
+  flags: z
+    .array(z.strictObject({ reporter: login, kind: flagKindSchema.default('other'), reason: text(1000).min(5), at: date }))
+    .default([]),
   data: z.record(z.string(), z.unknown()),
 });
 type FrontMatter = z.infer<typeof frontMatterSchema>;
@@ -938,6 +943,7 @@ function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, St
           userId: userId(f.login),
           revisionId: ids.get(seen.number)!,
           wheel: f.wheel,
+          clearanceMm: f.clearanceMm ?? null,
           note: f.note,
           ...stamp(f.at),
         })
@@ -945,7 +951,14 @@ function insertContent(tx: Tx, content: Content, stored: Map<PlannedRevision, St
     }
     for (const fl of meta.flags) {
       tx.insert(t.flags)
-        .values({ swapId: swapRow.id, reporterId: userId(fl.reporter), reason: fl.reason, status: 'open', ...stamp(fl.at) })
+        .values({
+          swapId: swapRow.id,
+          reporterId: userId(fl.reporter),
+          kind: fl.kind,
+          reason: fl.reason,
+          status: 'open',
+          ...stamp(fl.at),
+        })
         .run();
     }
     tx.update(t.swaps)

@@ -101,28 +101,31 @@ export function correctionApproved(m: Base & { slug: string; number: number; cor
 }
 
 /** Several flags of one member resolved at once: one message, not one per flag. */
-export function flagsResolved(m: {
+/**
+ * What became of a member's flags: one message for every outcome since their last one, so a member who
+ * flagged many sheets hears at most once a day.
+ */
+export function flagOutcomes(m: {
   appUrl: string;
   name: string;
-  flags: { title: string; slug: string; reason: string }[];
-  note: string;
+  flags: { title: string; slug: string; reason: string; outcome: string; note: string }[];
 }): BuiltMessage {
   const excerpt = (r: string) => (r.length > 200 ? `${r.slice(0, 200)}…` : r);
-  return build(`Your ${m.flags.length} flags were resolved`, hello(m.name), [
-    { text: `A moderator resolved ${m.flags.length} of your flags together:` },
-    ...m.flags.flatMap((f): Block[] => [{ text: `“${f.title}” — ${m.appUrl}/swaps/${f.slug}` }, { quote: excerpt(f.reason) }]),
-    { text: 'What was done:' },
-    { quote: m.note },
-  ]);
-}
-
-export function flagResolved(m: Base & { slug: string; reason: string; note: string }): BuiltMessage {
-  return build(`Your flag was resolved: ${m.title}`, hello(m.name), [
-    { text: `You flagged “${m.title}”:` },
-    { quote: m.reason },
-    { text: 'A moderator resolved it:' },
-    { quote: m.note },
-    { link: `${m.appUrl}/swaps/${m.slug}`, label: 'Open the swap sheet' },
+  const [only] = m.flags;
+  const subject =
+    m.flags.length === 1 && only ? `Your flag on “${only.title}”: ${only.outcome}` : `What became of ${m.flags.length} of your flags`;
+  return build(subject, hello(m.name), [
+    {
+      text:
+        m.flags.length === 1
+          ? 'A moderator looked at the sheet you flagged. Thank you for taking the time.'
+          : `Moderators looked at ${m.flags.length} sheets you flagged. Thank you for taking the time.`,
+    },
+    ...m.flags.flatMap((f): Block[] => [
+      { text: `“${f.title}” — ${f.outcome}. ${m.appUrl}/swaps/${f.slug}` },
+      { quote: excerpt(f.reason) },
+      ...(f.note ? [{ text: `The moderator’s note: ${f.note}` }] : []),
+    ]),
   ]);
 }
 

@@ -7,6 +7,7 @@ import { chassisWheelFasteningSchema, threadDesignation } from './wheel-fastenin
 import type { TakedownItem } from './takedowns';
 import type { CheckOutcome, ReviewClaim } from './review-queue';
 import type { TrustLevel } from '../trust';
+import { flagKindSchema, flagOutcomeSchema, type FlagKind, type FlagOutcome } from './flags';
 
 // API contract of the community loop: submissions, photos, review desk, flags, outbox.
 
@@ -73,6 +74,9 @@ export const incompleteRowSchema = z.object({
 });
 export type IncompleteRow = z.infer<typeof incompleteRowSchema>;
 const incompleteRows = z.array(incompleteRowSchema).max(60).default([]);
+/** a correction's "what changed and why"; required when a correction goes to review */
+const changeNote = multiLine().trim().max(2000, 'At most 2,000 characters').optional();
+export const CHANGE_NOTE_MIN = 10;
 
 /** POST /api/submissions — a new swap (chassis + axle + category) or, with `swapSlug`, a new revision of an approved swap */
 export const createSubmissionSchema = z
@@ -87,6 +91,7 @@ export const createSubmissionSchema = z
     data: swapDataSchema,
     body: markdownBody,
     incompleteRows,
+    changeNote,
   })
   .superRefine((v, ctx) => {
     if (v.swapSlug) return;
@@ -106,6 +111,7 @@ export const updateSubmissionSchema = z.object({
   data: swapDataSchema,
   body: markdownBody,
   incompleteRows,
+  changeNote,
 });
 export type UpdateSubmission = z.infer<typeof updateSubmissionSchema>;
 
@@ -146,6 +152,10 @@ export type SubmissionView = {
   expiresAt: string | null;
   /** for a correction: the approved revision it started from (null when not recorded) */
   basedOn: RevisionRef | null;
+  /** a correction's "what changed and why", in its author's words */
+  changeNote: string | null;
+  /** open or resolved flags this correction answers */
+  answersFlags: { id: number; kind: FlagKind; reason: string; status: 'open' | 'resolved' }[];
   /**
    * set while the swap's current revision is a newer one than this correction started from: it cannot be
    * approved (it would undo that revision) until its author brings it up to date
@@ -209,12 +219,19 @@ export type FlagItem = {
   id: number;
   swapSlug: string;
   title: string;
+  kind: FlagKind;
   reason: string;
   reporter: PersonRef;
   status: 'open' | 'resolved';
   createdAt: string;
+  outcome: FlagOutcome | null;
   resolutionNote: string | null;
+  /** the correction that answers it, when one is linked */
+  correction: FlagCorrection | null;
+  /** corrections of the swap (at the desk or published) a moderator may link it to, newest first */
+  corrections: FlagCorrection[];
 };
+export type FlagCorrection = { revisionId: number; number: number; status: RevisionStatus };
 
 /** GET /api/review/:revisionId */
 export type ReviewDetail = {
@@ -248,12 +265,33 @@ export const reasonTemplateSchema = z.object({
 });
 export type ReasonTemplate = { id: number; label: string; text: string };
 
-export const flagSchema = z.object({ reason: multiLine().trim().min(5, 'Say what is wrong (at least 5 characters)').max(2000) });
-export const resolveFlagSchema = z.object({ note: multiLine().trim().min(3, 'Say what was done').max(2000) });
-/** POST /api/review/flags/bulk-resolve — all of them or none, with one note */
-export const bulkResolveFlagsSchema = resolveFlagSchema.extend({
+/** POST /api/swaps/:slug/flags */
+export const flagSchema = z.object({
+  kind: flagKindSchema,
+  reason: multiLine().trim().min(5, 'Say what is wrong (at least 5 characters)').max(2000),
+});
+/**
+ * POST /api/review/flags/:id/resolve — one outcome; `fixed_by_correction` names the published correction
+ * (or uses the one linked to the flag). The note is for the reporter and optional.
+ */
+export const resolveFlagSchema = z.object({
+  outcome: flagOutcomeSchema,
+  note: multiLine().trim().max(2000).default(''),
+  correctionRevisionId: z.number().int().positive().nullable().optional(),
+});
+/** POST /api/review/flags/bulk-resolve — all of them or none, with one outcome and note */
+export const bulkResolveFlagsSchema = resolveFlagSchema.omit({ correctionRevisionId: true }).extend({
   ids: z.array(z.number().int().positive()).min(1, 'Pick at least one flag').max(100),
 });
+/** POST /api/review/flags/:id/link — the correction that answers the flag, or null to unlink */
+export const linkFlagSchema = z.object({ revisionId: z.number().int().positive().nullable() });
+
+/** POST /api/submissions/:id/submit — a correction says what changed and why, and may name the open flags it answers */
+export const submitSubmissionSchema = z.object({
+  changeNote: multiLine().trim().max(2000, 'At most 2,000 characters').optional(),
+  answersFlagIds: z.array(z.number().int().positive()).max(20).default([]),
+});
+export type SubmitSubmission = z.infer<typeof submitSubmissionSchema>;
 /** GET /api/review/flags?page= */
 export const flagPageQuerySchema = z.object({ page: z.coerce.number().int().min(1).max(100_000).default(1) });
 export const FLAG_PAGE_SIZE = 20;

@@ -1,3 +1,4 @@
+import type { OpenSafetyFlag } from './flags';
 import type { Axle, Category, RevisionStatus } from './enums';
 import type { BrakeCorner, SwapData } from './swap-data';
 import type { Role } from '../roles';
@@ -49,6 +50,8 @@ export type RevisionSummary = {
   status: RevisionStatus;
   approvedAt: string | null;
   author: PersonRef;
+  /** a correction's "what changed and why" */
+  changeNote: string | null;
 };
 
 export type SwapSheetView = {
@@ -79,6 +82,8 @@ export type SwapSheetView = {
   currentNumber: number | null;
   /** approved and superseded revisions, newest first */
   history: RevisionSummary[];
+  /** open flags about a safety figure: readers are told the sheet is questioned until a moderator settles it */
+  openSafetyFlags: OpenSafetyFlag[];
 };
 
 export type SwapCard = {

@@ -33,6 +33,7 @@ const pageModules: Record<Exclude<PageName, 'home'>, PageModule> = {
   updateSubmission: () => import('./routes/update-submission'),
   mySubmissions: () => import('./routes/my-submissions'),
   review: () => import('./routes/review-desk'),
+  reportModeration: () => import('./routes/report-moderation'),
   reviewRevision: () => import('./routes/review-revision'),
   outbox: () => import('./routes/outbox'),
   myCars: () => import('./routes/my-cars-route'),

@@ -22,6 +22,8 @@ export const paths = {
   plan: (id: string) => `/plans/${id}`,
   review: () => '/review',
   reviewRevision: (id: number) => `/review/${id}`,
+  /** fitted reports waiting for a moderator, and hidden ones */
+  reportModeration: () => '/review/reports',
   shop: (slug: string) => `/shops/${slug}`,
   shopLinks: () => '/shop/links',
   outbox: () => '/outbox',

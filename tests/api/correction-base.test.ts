@@ -55,7 +55,7 @@ function approvedSwap(slug: string) {
 
 /** A correction started from the swap's current revision, saved with `data` and sent to review. */
 async function correction(m: Member, slug: string, data: unknown, submit = true): Promise<number> {
-  const created = await send(m, 'post', '/api/submissions', { swapSlug: slug, data });
+  const created = await send(m, 'post', '/api/submissions', { swapSlug: slug, changeNote: 'Re-measured on the car; the figures now match the parts.', data });
   expect(created.status).toBe(201);
   if (submit) expect((await send(m, 'post', `/api/submissions/${created.body.id}/submit`)).status).toBe(200);
   return created.body.id as number;
@@ -168,7 +168,7 @@ describe('two corrections of the same revision', () => {
     const loaded = swap.revisionIds[0]!;
     approveNewRevision(t.db, swap.swapId, withBracketTorque(95), rosa.id);
     const created = await send(kai, 'post', '/api/submissions', {
-      swapSlug: swap.slug,
+      swapSlug: swap.slug, changeNote: 'Re-measured on the car; the figures now match the parts.',
       basedOnRevisionId: loaded,
       data: withBracketTorque(110, { title: 'Vela calipers, title corrected' }),
     });
@@ -178,7 +178,7 @@ describe('two corrections of the same revision', () => {
 
     const other = addSwap(t.db, { slug: 'h31-elsewhere', chassisId, authorId: rosa.id, revisions: [{ status: 'approved' }] });
     const wrong = await send(paul, 'post', '/api/submissions', {
-      swapSlug: swap.slug,
+      swapSlug: swap.slug, changeNote: 'Re-measured on the car; the figures now match the parts.',
       basedOnRevisionId: other.revisionIds[0],
       data: withBracketTorque(110),
     });

@@ -83,7 +83,7 @@ describe('one open correction per swap per member', () => {
       kai.agent
         .post('/api/submissions')
         .set('x-csrf-token', kai.token)
-        .send({ swapSlug: swap.slug, data: swapData('A correction sent three times at once') });
+        .send({ swapSlug: swap.slug, changeNote: 'Re-measured on the car; the figures now match the parts.', data: swapData('A correction sent three times at once') });
     const answers = await Promise.all([post(), post(), post()]);
     expect(answers.map((a) => a.status).sort()).toEqual([201, 409, 409]);
     for (const refused of answers.filter((a) => a.status === 409)) expect(refused.body.error.code).toBe('open_revision');
@@ -127,13 +127,13 @@ describe('one open correction per swap per member', () => {
     const first = await kai.agent
       .post('/api/submissions')
       .set('x-csrf-token', kai.token)
-      .send({ swapSlug: swap.slug, data: swapData('First try at a correction') });
+      .send({ swapSlug: swap.slug, changeNote: 'Re-measured on the car; the figures now match the parts.', data: swapData('First try at a correction') });
     expect(first.status).toBe(201);
     t.db.update(revisions).set({ status: 'declined' }).where(eq(revisions.id, first.body.id)).run();
     const second = await kai.agent
       .post('/api/submissions')
       .set('x-csrf-token', kai.token)
-      .send({ swapSlug: swap.slug, data: swapData('Second try at a correction') });
+      .send({ swapSlug: swap.slug, changeNote: 'Re-measured on the car; the figures now match the parts.', data: swapData('Second try at a correction') });
     expect(second.status).toBe(201);
   });
 });

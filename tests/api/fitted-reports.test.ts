@@ -6,7 +6,7 @@ import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from './support/test-app';
 import { addUser, csrfToken, listen, signIn, type Agent } from './support/auth-helpers';
 import { addChassis } from './support/swap-fixtures';
-import { addSwap } from './support/swap-rows';
+import { addSwap, earnTrust } from './support/swap-rows';
 import { fittedReports, swaps } from '../../server/db/schema/index';
 import type { FittedReportsView } from '../../shared/schemas/fitted-reports';
 import type { SearchIndexResponse } from '../../shared/search/search-document';
@@ -43,9 +43,10 @@ beforeAll(async () => {
   t = await makeTestApp();
   ({ server, agent } = listen(t.app));
   const author = addUser(t.db, 'rivet_rosa');
-  for (const login of ['camber_kai', 'pistonpaul', 'lugnut_lee']) addUser(t.db, login);
   addUser(t.db, 'gauge_mo', 'moderator');
   const h31 = addChassis(t.db);
+  // members with an approved revision each: their reports go live at once (tests/api/trust.test.ts holds the rest)
+  for (const login of ['camber_kai', 'pistonpaul', 'lugnut_lee']) earnTrust(t.db, addUser(t.db, login).id, h31.id);
   swapId = addSwap(t.db, {
     slug: 'h31-front-vela',
     chassisId: h31.id,
@@ -89,7 +90,13 @@ describe('POST /api/swaps/:slug/fitted-reports', () => {
     expect(list.body.count).toBe(1);
     expect(list.body.reports[0].member.login).toBe('camber_kai');
     expect(list.body.wheels).toEqual([{ wheel: { diameterIn: 16, widthIn: 7, offsetMm: 38, spacerMm: 10 }, members: 1 }]);
-    expect(list.body.verification).toEqual({ reviewed: true, fittedBy: 1, withPhotos: 0 });
+    expect(list.body.verification).toEqual({
+      reviewed: true,
+      fittedBy: 1,
+      withPhotos: 0,
+      byEvidence: { measured_with_photo: 0, measured: 0, photo: 0, word: 1 },
+      strongest: 'word',
+    });
     expect(list.body.cannotReport).toBe('signed_out');
     expect((await request(server).get('/api/swaps/h31-front-vela')).body.swap.fittedCount).toBe(1);
   });

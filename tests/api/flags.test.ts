@@ -39,7 +39,7 @@ afterAll(() => {
 const publicSwap = () =>
   addSwap(t.db, { slug: `h31-flagged-${++swapNo}`, chassisId, authorId, revisions: [{ status: 'approved' }] });
 const flag = (m: Member, slug: string, reason = 'The bracket bolt torque looks too low') =>
-  m.agent.post(`/api/swaps/${slug}/flags`).set('x-csrf-token', m.token).send({ reason });
+  m.agent.post(`/api/swaps/${slug}/flags`).set('x-csrf-token', m.token).send({ kind: 'other', reason });
 const openFlagsOf = (reporterId: number) =>
   t.db
     .select()
@@ -81,7 +81,7 @@ describe('one open flag per member and swap', () => {
     const resolved = await mo.agent
       .post(`/api/review/flags/${first.body.id}/resolve`)
       .set('x-csrf-token', mo.token)
-      .send({ note: 'Checked the figure' });
+      .send({ outcome: 'not_a_problem', note: 'Checked the figure' });
     expect(resolved.status).toBe(200);
     expect((await flag(paul, swap.slug, 'Now the rotor size looks wrong')).status).toBe(201);
   });
@@ -112,13 +112,13 @@ describe('flag rate limit', () => {
         const res = await member.agent
           .post(`/api/swaps/${slug}/flags`)
           .set('x-csrf-token', member.token)
-          .send({ reason: 'x'.repeat(2000) });
+          .send({ kind: 'other', reason: 'x'.repeat(2000) });
         expect(res.status).toBe(201);
       }
       const fourth = await member.agent
         .post(`/api/swaps/${slugs[3]}/flags`)
         .set('x-csrf-token', member.token)
-        .send({ reason: 'x'.repeat(2000) });
+        .send({ kind: 'other', reason: 'x'.repeat(2000) });
       expect(fourth.status).toBe(429);
       expect(fourth.body.error.code).toBe('rate_limited');
       expect(limited.db.select().from(flags).all()).toHaveLength(3);
@@ -159,19 +159,25 @@ describe('flags on the desk, in pages', () => {
     const res = await mo.agent
       .post('/api/review/flags/bulk-resolve')
       .set('x-csrf-token', mo.token)
-      .send({ ids: [...fromKai, ...fromPaul].map((f) => f.id), note: 'Spam, removed in one go' });
+      .send({ ids: [...fromKai, ...fromPaul].map((f) => f.id), outcome: 'duplicate', note: 'Reported before, in one go' });
     expect(res.status).toBe(200);
     expect(res.body.resolved).toHaveLength(4);
     const rows = t.db.select().from(flags).all();
     expect(
-      rows.every((r) => r.status === 'resolved' && r.resolvedById === mo.id && r.resolutionNote === 'Spam, removed in one go'),
+      rows.every(
+        (r) =>
+          r.status === 'resolved' &&
+          r.outcome === 'duplicate' &&
+          r.resolvedById === mo.id &&
+          r.resolutionNote === 'Reported before, in one go',
+      ),
     ).toBe(true);
     const mails = t.db.select().from(mailOutbox).all().slice(mailsBefore);
     expect(mails.map((m) => m.to).sort()).toEqual(['camber_kai@members.swapyard.invalid', 'pistonpaul@members.swapyard.invalid']);
     const toKai = mails.find((m) => m.to.startsWith('camber_kai'))!;
-    expect(toKai.subject).toBe('Your 3 flags were resolved');
+    expect(toKai.subject).toBe('What became of 3 of your flags');
     for (const f of fromKai) expect(toKai.text).toContain(f.title);
-    expect(mails.find((m) => m.to.startsWith('pistonpaul'))!.subject).toMatch(/^Your flag was resolved: /);
+    expect(mails.find((m) => m.to.startsWith('pistonpaul'))!.subject).toMatch(/^Your flag on “.+”: Already reported$/);
   });
 
   it('when one flag of a batch is already resolved or unknown, then nothing changes and the answer names it', async () => {
@@ -181,7 +187,7 @@ describe('flags on the desk, in pages', () => {
     const res = await mo.agent
       .post('/api/review/flags/bulk-resolve')
       .set('x-csrf-token', mo.token)
-      .send({ ids: [a!.id, b!.id, 999_999], note: 'Handled' });
+      .send({ ids: [a!.id, b!.id, 999_999], outcome: 'not_a_problem', note: 'Handled' });
     expect(res.status).toBe(409);
     expect(res.body.error.fields['ids.1']).toMatch(/already resolved/);
     expect(res.body.error.fields['ids.2']).toMatch(/not found/);

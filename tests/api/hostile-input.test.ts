@@ -458,10 +458,10 @@ describe('input that looks like SQL', () => {
         expectRefusal((await rosa.agent.get(url)) as Answer, [400, 404]);
       }
       expectRefusal(
-        (await post(rosa, `/api/swaps/${enc}/flags`).send({ reason: 'The bracket part number is wrong' })) as Answer,
+        (await post(rosa, `/api/swaps/${enc}/flags`).send({ kind: 'wrong_figure', reason: 'The bracket part number is wrong' })) as Answer,
         [400, 404],
       );
-      expectRefusal((await post(rosa, '/api/submissions').send({ swapSlug: s, data: swapRecord() })) as Answer, [400, 404]);
+      expectRefusal((await post(rosa, '/api/submissions').send({ swapSlug: s, changeNote: 'Re-measured on the car; the figures now match the parts.', data: swapRecord() })) as Answer, [400, 404]);
     }
   });
 
@@ -513,7 +513,7 @@ describe('input that looks like SQL', () => {
     expect(saved.body.data.summary).toBe(`${c} ${d}`);
     expect(saved.body.body).toBe(kept(hostile.join('\n')));
     for (const reason of hostile.filter((s) => s.length >= 5)) {
-      const flag = await post(rosa, `/api/swaps/${approvedSlug}/flags`).send({ reason });
+      const flag = await post(rosa, `/api/swaps/${approvedSlug}/flags`).send({ kind: 'other', reason });
       expect(flag.status).toBe(201);
       expect(flag.body.reason).toBe(kept(reason));
       // one open flag per member and swap: each is resolved before the next is sent

@@ -150,7 +150,7 @@ describe('bidi and invisible formatting characters', () => {
 
   it('when a flag, a fitted report and a shop-link note carry them, then none is stored', async () => {
     const swap = addSwap(t.db, { slug: 'h31-bidi', chassisId, authorId: rosa.id, revisions: [{ status: 'approved' }] });
-    expect((await send(kai, 'post', `/api/swaps/${swap.slug}/flags`, { reason: hostile('Torque looks wrong') })).status).toBe(
+    expect((await send(kai, 'post', `/api/swaps/${swap.slug}/flags`, { kind: 'other', reason: hostile('Torque looks wrong') })).status).toBe(
       201,
     );
     expect(t.db.select().from(flags).all().at(-1)!.reason).toBe('Torque looks wrong');

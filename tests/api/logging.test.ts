@@ -192,7 +192,7 @@ describe('forged lines', () => {
     // text fields: a flag reason and a profile name
     const { slug } = addSwap(t.db, { slug: 'h31-logged-flag', chassisId, authorId: mo.id, revisions: [{ status: 'approved' }] });
     expect(
-      (await rosa.agent.post(`/api/swaps/${slug}/flags`).set('x-csrf-token', rosa.token).send({ reason: forged })).status,
+      (await rosa.agent.post(`/api/swaps/${slug}/flags`).set('x-csrf-token', rosa.token).send({ kind: 'other', reason: forged })).status,
     ).toBe(201);
     expect((await rosa.agent.patch('/api/me').set('x-csrf-token', rosa.token).send({ name: forged })).status).toBe(400);
     // the sign-in page's own login box

@@ -5,7 +5,7 @@ import sharp from 'sharp';
 import { makeTestApp, type TestApp } from './support/test-app';
 import { addShop, listen, signedInMember, type Agent, type Member } from './support/auth-helpers';
 import { addChassis } from './support/swap-fixtures';
-import { addSwap } from './support/swap-rows';
+import { addSwap, earnTrust } from './support/swap-rows';
 import { fittedReports, reportHides, revisionPhotos, shopLinks, swaps } from '../../server/db/schema/index';
 import { processPhoto } from '../../server/features/photos/photo-processing';
 import type { FittedReportsView } from '../../shared/schemas/fitted-reports';
@@ -34,6 +34,8 @@ beforeAll(async () => {
   authorId = rosa.id;
   shopId = addShop(t.db, 'ridgeway-performance', 'Ridgeway Performance').id;
   kai = await signedInMember(t.db, agent, 'camber_kai');
+  // a member with an approved revision: their reports go live without waiting for a moderator
+  earnTrust(t.db, kai.id, chassisId);
   mo = await signedInMember(t.db, agent, 'gauge_mo', 'moderator');
   png = await sharp({ create: { width: 200, height: 150, channels: 3, background: '#b8892f' } })
     .png()

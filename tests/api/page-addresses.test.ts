@@ -58,7 +58,7 @@ async function publishedSwap(title: string) {
 
 /** A correction by Kai with `title`, approved; returns the swap's address afterwards. */
 async function approvedCorrection(slug: string, title: string) {
-  const corr = await post(kai, '/api/submissions', { swapSlug: slug, data: swapRecord({ title }) });
+  const corr = await post(kai, '/api/submissions', { swapSlug: slug, changeNote: 'Re-measured on the car; the figures now match the parts.', data: swapRecord({ title }) });
   expect(corr.status).toBe(201);
   expect((await post(kai, `/api/submissions/${corr.body.id}/submit`)).status).toBe(200);
   expect((await post(mo, `/api/review/${corr.body.id}/approve`, {})).status).toBe(200);

@@ -186,7 +186,7 @@ describe('the whole lifecycle of a swap', () => {
 
     // --- another member proposes a correction: revision 2, while 1 stays public
     const corr = await post(kai, '/api/submissions', {
-      swapSlug: slug,
+      swapSlug: slug, changeNote: 'Re-measured on the car; the figures now match the parts.',
       data: swapRecord({ title: 'Vela four-piston calipers on 330 mm rotors, corrected torque' }),
       body: 'Second write-up.\n\nTorque corrected.',
     });
@@ -195,14 +195,14 @@ describe('the whole lifecycle of a swap', () => {
       number: 2,
       status: 'draft',
       isCorrection: true,
-      swapSlug: slug,
+      swapSlug: slug, changeNote: 'Re-measured on the car; the figures now match the parts.',
       author: { login: 'camber_kai' },
     });
     // it starts with its own copies of the approved revision's photos
     expect(corr.body.photos).toHaveLength(1);
     expect(corr.body.photos[0].id).not.toBe(sheet.body.revision.photos[0].id);
     expect(await t.storage.exists(corr.body.photos[0].id)).toBe(true);
-    expect((await post(kai, '/api/submissions', { swapSlug: slug, data: swapRecord() })).status).toBe(409);
+    expect((await post(kai, '/api/submissions', { swapSlug: slug, changeNote: 'Re-measured on the car; the figures now match the parts.', data: swapRecord() })).status).toBe(409);
     expect((await post(kai, `/api/submissions/${corr.body.id}/submit`)).status).toBe(200);
     const stillOne = await request(server).get(`/api/swaps/${slug}`);
     expect(stillOne.body.revision.number).toBe(1);
@@ -452,19 +452,21 @@ describe('reason templates', () => {
 });
 
 describe('flags', () => {
-  it('any member flags a public swap; a moderator resolves it with a note and the flagger is told', async () => {
+  it('any member flags a public swap; a moderator resolves it with an outcome and a note and the flagger is told', async () => {
     const slug = t.db
       .select({ slug: swaps.slug })
       .from(swaps)
       .where(eq(swaps.slug, 'h31-front-vela-four-piston-calipers-on-330-mm-rotors-corrected-torque'))
       .get()!.slug;
-    expect((await post(kai, `/api/swaps/${slug}/flags`, { reason: 'bad' })).status).toBe(400);
+    expect((await post(kai, `/api/swaps/${slug}/flags`, { kind: 'other', reason: 'bad' })).status).toBe(400);
     const res = await post(kai, `/api/swaps/${slug}/flags`, {
+      kind: 'wrong_figure',
       reason: 'The torque for the <b>bracket</b> bolts looks too low & should be checked',
     });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({
       swapSlug: slug,
+      kind: 'wrong_figure',
       status: 'open',
       reporter: { login: 'camber_kai' },
       reason: 'The torque for the bracket bolts looks too low & should be checked',
@@ -479,24 +481,30 @@ describe('flags', () => {
       category: 'brakes',
       data: swapRecord({ title: 'Never public, cannot be flagged' }),
     });
-    expect((await post(kai, `/api/swaps/${draftOnly.body.swapSlug}/flags`, { reason: 'Flagging a draft' })).status).toBe(404);
+    expect((await post(kai, `/api/swaps/${draftOnly.body.swapSlug}/flags`, { kind: 'other', reason: 'Flagging a draft' })).status).toBe(404);
 
-    expect((await post(kai, `/api/review/flags/${res.body.id}/resolve`, { note: 'Resolving my own' })).status).toBe(403);
-    expect((await post(mo, `/api/review/flags/${res.body.id}/resolve`, {})).status).toBe(400);
+    expect(
+      (await post(kai, `/api/review/flags/${res.body.id}/resolve`, { outcome: 'not_a_problem', note: 'Resolving my own' })).status,
+    ).toBe(403);
+    const noOutcome = await post(mo, `/api/review/flags/${res.body.id}/resolve`, {});
+    expect(noOutcome.status).toBe(400);
+    expect(noOutcome.body.error.fields.outcome).toBeTruthy();
     const resolved = await post(mo, `/api/review/flags/${res.body.id}/resolve`, {
+      outcome: 'not_a_problem',
       note: 'Checked with the bracket maker: 110 N·m is right.',
     });
     expect(resolved.status).toBe(200);
     expect(resolved.body).toMatchObject({
       status: 'resolved',
+      outcome: 'not_a_problem',
       resolutionNote: 'Checked with the bracket maker: 110 N·m is right.',
     });
     expect(t.db.select().from(flags).where(eq(flags.id, res.body.id)).get()!.resolvedById).toBe(mo.id);
     const mail = outboxTo(kai)[0];
-    expect(mail.subject).toMatch(/^Your flag was resolved: /);
+    expect(mail.subject).toMatch(/^Your flag on “.+”: Not a problem$/);
     expect(mail.html).toContain('looks too low &amp; should be checked');
     expect(mail.text).toContain('110 N·m is right.');
-    expect((await post(mo, `/api/review/flags/${res.body.id}/resolve`, { note: 'Again' })).status).toBe(409);
+    expect((await post(mo, `/api/review/flags/${res.body.id}/resolve`, { outcome: 'spam', note: 'Again' })).status).toBe(409);
     expect(((await mo.agent.get('/api/review/queue')).body as ReviewQueue).flags.map((f) => f.id)).not.toContain(res.body.id);
   });
 });

@@ -122,7 +122,7 @@ describe('per-member storage quota', () => {
     const correction = await member.agent
       .post('/api/submissions')
       .set('x-csrf-token', member.token)
-      .send({ swapSlug: swap.slug, data: swapRecord({ title: 'A correction of my own swap' }) });
+      .send({ swapSlug: swap.slug, changeNote: 'Re-measured on the car; the figures now match the parts.', data: swapRecord({ title: 'A correction of my own swap' }) });
     expect(correction.status).toBe(201);
     expect(correction.body.photos).toHaveLength(1);
     expect((await storage(member)).usedBytes).toBe(0);

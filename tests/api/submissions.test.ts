@@ -308,7 +308,7 @@ describe('GET /api/me/submissions', () => {
 describe('corrections', () => {
   it('when the swap has no approved revision, then a correction is 404', async () => {
     const created = await draft(members.rivet_rosa);
-    const res = await post(members.camber_kai, '/api/submissions', { swapSlug: created.swapSlug, data: swapRecord() });
+    const res = await post(members.camber_kai, '/api/submissions', { swapSlug: created.swapSlug, changeNote: 'Re-measured on the car; the figures now match the parts.', data: swapRecord() });
     expect(res.status).toBe(404);
   });
 

@@ -87,11 +87,11 @@ beforeAll(async () => {
 
   // two corrections of revision 1: the first is approved, the second changed the same torque differently
   const first = await signInContext(browser, server.url, 'camber_kai');
-  const approvedFirst = (await first.api.send('POST', '/api/submissions', { swapSlug: slug, data: record(120) })) as View;
+  const approvedFirst = (await first.api.send('POST', '/api/submissions', { swapSlug: slug, changeNote: 'Re-measured on the car; the figures now match the parts.', data: record(120) })) as View;
   await first.api.send('POST', `/api/submissions/${approvedFirst.id}/submit`);
   author = await signInContext(browser, server.url, 'pistonpaul');
   const second = (await author.api.send('POST', '/api/submissions', {
-    swapSlug: slug,
+    swapSlug: slug, changeNote: 'Re-measured on the car; the figures now match the parts.',
     data: record(115, 'Vela four-piston calipers, Halden H31 front axle'),
   })) as View;
   behindId = second.id;

@@ -335,6 +335,7 @@ describe('hostile input in a real browser', () => {
       })) as { mine: { note: string } };
       fitted.push(view.mine.note);
       const flag = (await who.api.send('POST', `/api/swaps/${a.swapSlug}/flags`, {
+        kind: 'other',
         reason: `Wrong: ${joined('flag reason', 3)}`,
       })) as { reason: string };
       flags.push(flag.reason);

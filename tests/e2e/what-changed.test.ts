@@ -100,7 +100,7 @@ beforeAll(async () => {
   // the wheel-bolt torque changed, a wheel added and a part's quantity changed
   const corrector = await signInContext(browser, server.url, 'camber_kai');
   const correction = (await corrector.api.send('POST', '/api/submissions', {
-    swapSlug: slug,
+    swapSlug: slug, changeNote: 'Re-measured on the car; the figures now match the parts.',
     data: {
       ...record,
       parts: [{ ...record.parts[1], quantity: 4 }, record.parts[0]],

@@ -22,6 +22,7 @@ describe('the page table', () => {
       ['myCars', paths.myCars()],
       ['review', paths.review()],
       ['reviewRevision', paths.reviewRevision(9)],
+      ['reportModeration', paths.reportModeration()],
       ['shop', paths.shop('ridgeway-performance')],
       ['shopLinks', paths.shopLinks()],
       ['outbox', paths.outbox()],

@@ -7,7 +7,12 @@ import { validated } from '../../middleware/validate';
 import { requirePermission, requireUser } from '../../middleware/require-role';
 import { AppError } from '../../lib/app-error';
 import { idParamSchema, slugSchema } from '../../../shared/schemas/params';
-import { createFittedReportSchema, updateFittedReportSchema } from '../../../shared/schemas/fitted-reports';
+import {
+  createFittedReportSchema,
+  moderationListQuerySchema,
+  updateFittedReportSchema,
+} from '../../../shared/schemas/fitted-reports';
+import { moderationReports, releaseFittedReport } from './fitted-report-moderation';
 import { MAX_PHOTO_BYTES } from '../photos/photo-processing';
 import { uploadError } from '../photos/photo-upload';
 import { cacheByReader } from '../../lib/cache-policy';
@@ -106,6 +111,24 @@ export function fittedReportsRouter({ db, storage, clock, config }: AppDeps) {
       }),
     );
   }
+
+  router.post(
+    '/fitted-reports/:id/release',
+    requirePermission('review'),
+    validated({ params: z.object({ id: idParamSchema }) }, ({ params }, req, res) => {
+      const result = releaseFittedReport(deps, params.id, req.user!);
+      req.log?.info({ event: 'fitted_report_release', reportId: params.id, moderatorId: req.user!.id }, 'fitted report released');
+      res.json(result);
+    }),
+  );
+
+  router.get(
+    '/fitted-reports',
+    requirePermission('review'),
+    validated({ query: moderationListQuerySchema }, ({ query }, _req, res) => {
+      res.set('Cache-Control', 'private, no-store').json(moderationReports(db, query.show));
+    }),
+  );
 
   return router;
 }

@@ -9,10 +9,15 @@ import type { SessionUser } from '../../middleware/require-role';
 import { can } from '../../../shared/roles';
 import type {
   CreateFittedReport,
+  EvidenceKind,
   FittedReportView,
   FittedReportsView,
   UpdateFittedReport,
+  Verification,
 } from '../../../shared/schemas/fitted-reports';
+import { evidenceKinds, evidenceOf } from '../../../shared/schemas/fitted-reports';
+import { reportsGoLive } from '../../../shared/trust';
+import { trustLevelOf } from '../trust/member-trust';
 import { processPhoto } from '../photos/photo-processing';
 import { removePhotoFiles, storePhotoFiles } from '../photos/photo-files';
 import { assertRoomFor } from '../photos/storage-quota';
@@ -54,7 +59,7 @@ function refusalFor(viewer: SessionUser | undefined, swap: typeof swaps.$inferSe
 }
 
 /** Keeps swaps.fitted_count equal to the number of public reports (live, not hidden), so search and its "most fitted" sort see it. */
-function recount(db: Db, swapId: number) {
+export function recount(db: Db, swapId: number) {
   const row = db
     .select({ n: count() })
     .from(fittedReports)
@@ -88,6 +93,40 @@ async function storePhoto(
 
 const cleanNote = (note: string) => stripHtml(note).trim();
 
+/** Public: live and not hidden. A held or hidden report reaches only its member and moderators. */
+export const isPublicReport = (r: { state: string; hiddenAt: Date | null }) => r.state === 'live' && r.hiddenAt === null;
+
+type ReportRow = { report: typeof fittedReports.$inferSelect; member: typeof users.$inferSelect; revisionNumber: number };
+
+export function reportView(r: ReportRow): FittedReportView {
+  return {
+    id: r.report.id,
+    member: personRef(r.member),
+    revisionNumber: r.revisionNumber,
+    wheel: r.report.wheel,
+    note: r.report.note,
+    photo: photoOf(r.report.photoFileId),
+    clearanceMm: r.report.clearanceMm,
+    evidence: evidenceOf({ clearanceMm: r.report.clearanceMm, hasPhoto: r.report.photoFileId !== null }),
+    createdAt: r.report.createdAt.toISOString(),
+    updatedAt: r.report.updatedAt.toISOString(),
+    hidden: r.report.hiddenAt !== null,
+    state: r.report.state,
+  };
+}
+
+function verificationOf(visible: FittedReportView[]): Verification {
+  const byEvidence = Object.fromEntries(evidenceKinds.map((k) => [k, 0])) as Record<EvidenceKind, number>;
+  for (const r of visible) byEvidence[r.evidence] += 1;
+  return {
+    reviewed: true,
+    fittedBy: visible.length,
+    withPhotos: visible.filter((r) => r.photo).length,
+    byEvidence,
+    strongest: evidenceKinds.find((k) => byEvidence[k] > 0) ?? null,
+  };
+}
+
 export function listFittedReports(db: Db, slug: string, viewer: SessionUser | undefined): FittedReportsView {
   const swap = approvedSwap(db, slug);
   const canModerate = can(viewer?.role, 'review');
@@ -99,21 +138,10 @@ export function listFittedReports(db: Db, slug: string, viewer: SessionUser | un
     .where(eq(fittedReports.swapId, swap.id))
     .orderBy(desc(fittedReports.createdAt), desc(fittedReports.id))
     .all();
-  const view = (r: (typeof rows)[number]): FittedReportView => ({
-    id: r.report.id,
-    member: personRef(r.member),
-    revisionNumber: r.revisionNumber,
-    wheel: r.report.wheel,
-    note: r.report.note,
-    photo: photoOf(r.report.photoFileId),
-    createdAt: r.report.createdAt.toISOString(),
-    updatedAt: r.report.updatedAt.toISOString(),
-    hidden: r.report.hiddenAt !== null,
-  });
-  const visible = rows.filter((r) => r.report.hiddenAt === null);
+  const visibleRows = rows.filter((r) => isPublicReport(r.report));
+  const visible = visibleRows.map(reportView);
   const wheels = new Map<string, { wheel: FittedWheel; members: number }>();
-  for (const r of visible) {
-    const w = r.report.wheel;
+  for (const { wheel: w } of visible) {
     const key = `${w.diameterIn}|${w.widthIn}|${w.offsetMm}|${w.spacerMm}`;
     const entry = wheels.get(key) ?? { wheel: w, members: 0 };
     entry.members += 1;
@@ -122,14 +150,17 @@ export function listFittedReports(db: Db, slug: string, viewer: SessionUser | un
   const mine = viewer ? rows.find((r) => r.report.userId === viewer.id) : undefined;
   return {
     count: visible.length,
-    reports: (canModerate ? rows : visible).map(view),
+    reports: canModerate ? rows.map(reportView) : visible,
     wheels: [...wheels.values()].sort((a, b) => b.members - a.members || a.wheel.diameterIn - b.wheel.diameterIn),
-    verification: { reviewed: true, fittedBy: visible.length, withPhotos: visible.filter((r) => r.report.photoFileId).length },
-    mine: mine ? view(mine) : null,
+    verification: verificationOf(visible),
+    mine: mine ? reportView(mine) : null,
     cannotReport: refusalFor(viewer, swap),
     canModerate,
   };
 }
+
+/** A new member's report waits for a moderator; once they have earned trust, it goes live at once. */
+const stateFor = (db: Db, member: SessionUser) => (reportsGoLive(trustLevelOf(db, member)) ? 'live' : 'held');
 
 export async function createFittedReport(
   deps: Deps,
@@ -157,6 +188,7 @@ export async function createFittedReport(
   const photo = await storePhoto(deps, viewer.id, upload);
   const photoFileId = photo?.fileId ?? null;
   const now = clock.now();
+  const state = stateFor(db, viewer);
   try {
     db.transaction((tx) => {
       tx.insert(fittedReports)
@@ -165,7 +197,9 @@ export async function createFittedReport(
           userId: viewer.id,
           revisionId: revision.id,
           wheel: { diameterIn: input.diameterIn, widthIn: input.widthIn, offsetMm: input.offsetMm, spacerMm: input.spacerMm },
+          clearanceMm: input.clearanceMm ?? null,
           note: cleanNote(input.note),
+          state,
           photoFileId,
           photoBytes: photo?.bytes ?? 0,
           hiddenAt: hide ? hide.createdAt : null,
@@ -209,6 +243,7 @@ export async function updateFittedReport(
   const report = myReport(db, swap.id, viewer.id);
   const revision = input.revisionNumber === undefined ? null : followedRevision(db, swap, input.revisionNumber);
   const newPhoto = await storePhoto(deps, viewer.id, upload, report.photoBytes);
+  const state = report.state === 'held' ? 'held' : stateFor(db, viewer);
   let replaced: string | null;
   try {
     // read and replace the photo in one write: of two edits at once, each removes exactly the photo it replaced
@@ -227,12 +262,17 @@ export async function updateFittedReport(
           wheel,
           ...(revision ? { revisionId: revision.id } : {}),
           ...(input.note !== undefined ? { note: cleanNote(input.note) } : {}),
+          ...(input.clearanceMm !== undefined ? { clearanceMm: input.clearanceMm } : {}),
+          // an edit by a member who has not earned trust yet is checked again, like their first report
+          state,
+          ...(state === 'held' ? { releasedAt: null, releasedById: null } : {}),
           photoFileId,
           photoBytes: newPhoto ? newPhoto.bytes : photoFileId ? current.photoBytes : 0,
           updatedAt: clock.now(),
         })
         .where(eq(fittedReports.id, report.id))
         .run();
+      recount(tx as unknown as Db, swap.id);
       return current.photoFileId !== photoFileId ? current.photoFileId : null;
     });
   } catch (err) {

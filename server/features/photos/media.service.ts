@@ -41,15 +41,18 @@ export function resolveMedia(db: Db, fileId: string, viewer: SessionUser | undef
   return { fileId: row.photo.fileId, public: publicStatuses.has(row.status) };
 }
 
-/** A fitted report's photo is public unless a moderator hid the report; then only its member and reviewers see it. */
+/**
+ * A fitted report's photo is public while the report is: live and not hidden. A held report's photo (a new
+ * member's, waiting for a moderator) and a hidden one reach only its member and reviewers.
+ */
 function resolveFittedReportPhoto(db: Db, fileId: string, viewer: SessionUser | undefined) {
   const report = db
-    .select({ userId: fittedReports.userId, hiddenAt: fittedReports.hiddenAt })
+    .select({ userId: fittedReports.userId, hiddenAt: fittedReports.hiddenAt, state: fittedReports.state })
     .from(fittedReports)
     .where(eq(fittedReports.photoFileId, fileId))
     .get();
   if (!report) throw AppError.notFound('That photo');
-  const shown = report.hiddenAt === null;
+  const shown = report.hiddenAt === null && report.state === 'live';
   if (!shown && !(viewer && (viewer.id === report.userId || can(viewer.role, 'review')))) throw AppError.notFound('That photo');
   return { fileId, public: shown };
 }

@@ -13,7 +13,7 @@ import { checksFor, duplicateCandidates, photoCounts, type DuplicateCandidate } 
 import { trustRecords } from '../trust/member-trust';
 import { trustLevel } from '../../../shared/trust';
 import { claimsOn, tryClaim } from './review-claims.service';
-import { flagPage } from './review.service';
+import { flagPage } from '../flags/flags.service';
 import type { ReviewDeps } from './review.service';
 
 // The desk's queue: filters in SQL where they can be (status, chassis, category, age, words), then the automatic

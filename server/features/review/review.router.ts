@@ -3,28 +3,19 @@ import { z } from 'zod';
 import type { AppDeps } from '../../app';
 import { validated } from '../../middleware/validate';
 import { requirePermission } from '../../middleware/require-role';
-import { perUserLimit } from '../../middleware/rate-limit';
-import { idParamSchema, slugSchema } from '../../../shared/schemas/params';
+import { idParamSchema } from '../../../shared/schemas/params';
 import {
   bulkDeclineSchema,
-  bulkResolveFlagsSchema,
   decisionNoteSchema,
-  flagPageQuerySchema,
-  flagSchema,
   reasonTemplateSchema,
   requiredReasonSchema,
-  resolveFlagSchema,
 } from '../../../shared/schemas/submissions';
 import {
   approve,
   bulkDecline,
-  bulkResolveFlags,
-  flagPage,
-  createFlag,
   createTemplate,
   deleteTemplate,
   listTemplates,
-  resolveFlag,
   reviewDetail,
   sendBackOrDecline,
   updateTemplate,
@@ -105,34 +96,6 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
   );
 
   router.get(
-    '/review/flags',
-    review,
-    validated({ query: flagPageQuerySchema }, ({ query }, _req, res) => {
-      res.set('Cache-Control', 'private, no-store').json(flagPage(db, query.page));
-    }),
-  );
-
-  router.post(
-    '/review/flags/bulk-resolve',
-    review,
-    validated({ body: bulkResolveFlagsSchema }, ({ body }, req, res) => {
-      const resolved = bulkResolveFlags(deps, req.user!, body.ids, body.note);
-      req.log.info({ event: 'flags_resolved', flagIds: resolved, actorId: req.user!.id }, 'flags resolved in bulk');
-      res.json({ resolved });
-    }),
-  );
-
-  router.post(
-    '/review/flags/:id/resolve',
-    review,
-    validated({ params: idParams, body: resolveFlagSchema }, ({ params, body }, req, res) => {
-      const flag = resolveFlag(deps, req.user!, params.id, body.note);
-      req.log.info({ event: 'flag_resolved', flagId: flag.id, actorId: req.user!.id }, 'flag resolved');
-      res.json(flag);
-    }),
-  );
-
-  router.get(
     '/review/:revisionId',
     review,
     validated({ params: revisionParams }, ({ params }, req, res) => {
@@ -187,17 +150,6 @@ export function reviewRouter({ db, clock, mailer, storage, logger, config }: App
       }),
     );
   }
-
-  router.post(
-    '/swaps/:slug/flags',
-    requirePermission('flag'),
-    perUserLimit({ limit: config.rateLimits.flagsPerHour, windowMs: 60 * 60 * 1000, what: 'flags' }),
-    validated({ params: z.object({ slug: slugSchema }), body: flagSchema }, ({ params, body }, req, res) => {
-      const flag = createFlag(deps, req.user!, params.slug, body.reason);
-      req.log.info({ event: 'flag_created', flagId: flag.id, userId: req.user!.id }, 'swap flagged');
-      res.status(201).json(flag);
-    }),
-  );
 
   return router;
 }

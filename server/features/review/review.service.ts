@@ -1,20 +1,17 @@
-import { and, asc, eq, inArray, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq } from 'drizzle-orm';
 import type { Db, DbTransaction } from '../../db/client';
-import { chassis, flags, parts, reviewEvents, reviewReasonTemplates, revisions, swaps, users } from '../../db/schema/index';
+import { chassis, parts, reviewEvents, reviewReasonTemplates, revisions, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
 import { stripHtml } from '../../lib/sanitize';
 import {
   correctionApproved,
-  flagResolved,
-  flagsResolved,
   submissionApproved,
   submissionDeclined,
   submissionSentBack,
 } from '../../mail/messages';
 import type { SessionUser } from '../../middleware/require-role';
-import { FLAG_PAGE_SIZE } from '../../../shared/schemas/submissions';
 import { revisionStatusLabels } from '../../../shared/schemas/enums';
-import type { FlagItem, FlagPage, ReasonTemplate, ReviewDetail, SubmissionView } from '../../../shared/schemas/submissions';
+import type { ReasonTemplate, ReviewDetail, SubmissionView } from '../../../shared/schemas/submissions';
 import type { SwapData, SwapPart } from '../../../shared/schemas/swap-data';
 import { personRef } from '../swaps/swap-views';
 import { behindConflict, checksFor, loadRevision, submissionView, type LoadedRevision } from '../submissions/submission-views';
@@ -23,6 +20,7 @@ import { slugify, uniqueSlug } from '../../lib/slugs';
 import { slugAfterApproval } from '../swaps/swap-slugs';
 import { listTakedowns as takedownsOfRevision } from '../takedowns/takedowns.service';
 import { claimsOn, endClaim, heldByOther } from './review-claims.service';
+import { resolveFlagsAnsweredBy } from '../flags/flags.service';
 
 export type ReviewDeps = SubmissionDeps;
 export type Decision = 'approved' | 'sent_back' | 'declined';
@@ -218,6 +216,7 @@ export function approve(deps: ReviewDeps, actor: SessionUser, revisionId: number
     tx.insert(reviewEvents).values({ revisionId, actorId: actor.id, action: 'approved', note: cleanNote, at: now }).run();
     endClaim(tx, revisionId);
     tellApproved(deps, tx, { ...row, swap: { ...row.swap, slug } }, cleanNote);
+    resolveFlagsAnsweredBy(deps, tx, revisionId, row.revision.number, now);
   });
   return submissionView(db, loadRevision(db, revisionId)!, actor);
 }
@@ -366,170 +365,4 @@ export function updateTemplate(deps: ReviewDeps, id: number, input: { label: str
 export function deleteTemplate(db: Db, id: number) {
   if (!db.delete(reviewReasonTemplates).where(eq(reviewReasonTemplates.id, id)).run().changes)
     throw AppError.notFound('That reason template');
-}
-
-// --- flags ---
-
-function flagItems(db: Db | Tx, where: SQL, page?: { limit: number; offset: number }): FlagItem[] {
-  const query = db
-    .select({
-      flag: flags,
-      slug: swaps.slug,
-      title: sql<string | null>`json_extract(${revisions.data}, '$.title')`,
-      reporter: users,
-    })
-    .from(flags)
-    .innerJoin(swaps, eq(swaps.id, flags.swapId))
-    .leftJoin(revisions, eq(revisions.id, swaps.currentRevisionId))
-    .innerJoin(users, eq(users.id, flags.reporterId))
-    .where(where)
-    .orderBy(asc(flags.createdAt), asc(flags.id))
-    .$dynamic();
-  return (page ? query.limit(page.limit).offset(page.offset) : query).all().map((r) => ({
-    id: r.flag.id,
-    swapSlug: r.slug,
-    title: r.title ?? r.slug,
-    reason: r.flag.reason,
-    reporter: personRef(r.reporter),
-    status: r.flag.status,
-    createdAt: r.flag.createdAt.toISOString(),
-    resolutionNote: r.flag.resolutionNote,
-  }));
-}
-
-const flagById = (db: Db | Tx, id: number) => flagItems(db, eq(flags.id, id))[0];
-
-/** GET /api/review/flags: open flags a page at a time, oldest first, with how many are open. */
-export function flagPage(db: Db, page: number): FlagPage {
-  const total = db
-    .select({ n: sql<number>`count(*)` })
-    .from(flags)
-    .where(eq(flags.status, 'open'))
-    .get()!.n;
-  const items = flagItems(db, eq(flags.status, 'open'), { limit: FLAG_PAGE_SIZE, offset: (page - 1) * FLAG_PAGE_SIZE });
-  return { items, total, page, pageSize: FLAG_PAGE_SIZE };
-}
-
-/** Any signed-in member may flag a public swap. */
-export function createFlag(deps: ReviewDeps, user: SessionUser, slug: string, reason: string): FlagItem {
-  const { db, clock } = deps;
-  const swap = db.select({ id: swaps.id, current: swaps.currentRevisionId }).from(swaps).where(eq(swaps.slug, slug)).get();
-  if (!swap || swap.current === null) throw AppError.notFound('That swap');
-  const clean = stripHtml(reason).trim();
-  if (clean.length < 5)
-    throw AppError.invalid('Say what is wrong (at least 5 characters).', {
-      reason: 'Say what is wrong (at least 5 characters).',
-    });
-  const now = clock.now();
-  let id: number;
-  try {
-    id = db
-      .insert(flags)
-      .values({ swapId: swap.id, reporterId: user.id, reason: clean, createdAt: now, updatedAt: now })
-      .returning({ id: flags.id })
-      .get().id;
-  } catch (err) {
-    // one open flag per member and swap: the partial unique index decides
-    if (err instanceof Error && err.message.includes('UNIQUE constraint failed: flags.swap_id, flags.reporter_id'))
-      throw new AppError(
-        'open_flag',
-        'You have already flagged this swap and a moderator has not resolved it yet; they will read what you wrote.',
-        409,
-        { reason: 'You already flagged this swap.' },
-      );
-    throw err;
-  }
-  return flagById(db, id);
-}
-
-export function resolveFlag(deps: ReviewDeps, actor: SessionUser, id: number, note: string): FlagItem {
-  const { db, clock } = deps;
-  const clean = stripHtml(note).trim();
-  if (clean.length < 3) throw AppError.invalid('Say what was done.', { note: 'Say what was done.' });
-  const now = clock.now();
-  const flag = db.select().from(flags).where(eq(flags.id, id)).get();
-  if (!flag) throw AppError.notFound('That flag');
-  return db.transaction((tx) => {
-    const changed = tx
-      .update(flags)
-      .set({ status: 'resolved', resolutionNote: clean, resolvedById: actor.id, resolvedAt: now, updatedAt: now })
-      .where(and(eq(flags.id, id), eq(flags.status, 'open')))
-      .run().changes;
-    if (!changed) throw AppError.conflict('This flag was already resolved.');
-    const item = flagById(tx, id);
-    const reporter = tx.select().from(users).where(eq(users.id, flag.reporterId)).get();
-    if (reporter) {
-      deps.mailer.queue(
-        tx,
-        reporter,
-        flagResolved({
-          appUrl: deps.appUrl,
-          name: reporter.name || reporter.login,
-          title: item.title,
-          slug: item.swapSlug,
-          reason: flag.reason,
-          note: clean,
-        }),
-      );
-    }
-    return item;
-  });
-}
-
-/**
- * Several flags resolved with one note, all of them or none. Each reporter gets one message for all of
- * their flags in the batch, so a flood resolved in one go does not become a flood of e-mail.
- */
-export function bulkResolveFlags(deps: ReviewDeps, actor: SessionUser, ids: number[], note: string): number[] {
-  const { db, clock } = deps;
-  const clean = stripHtml(note).trim();
-  if (clean.length < 3) throw AppError.invalid('Say what was done.', { note: 'Say what was done.' });
-  const unique = [...new Set(ids)];
-  const now = clock.now();
-  return db.transaction((tx) => {
-    const rows = unique.map((id) => tx.select().from(flags).where(eq(flags.id, id)).get());
-    const fields: Record<string, string> = {};
-    rows.forEach((row, i) => {
-      if (!row) fields[`ids.${i}`] = `Flag ${unique[i]} was not found.`;
-      else if (row.status !== 'open') fields[`ids.${i}`] = `Flag ${unique[i]} is already resolved.`;
-    });
-    if (Object.keys(fields).length)
-      throw new AppError('not_resolvable', 'Some of these flags cannot be resolved; nothing was changed.', 409, fields);
-    tx.update(flags)
-      .set({ status: 'resolved', resolutionNote: clean, resolvedById: actor.id, resolvedAt: now, updatedAt: now })
-      .where(and(inArray(flags.id, unique), eq(flags.status, 'open')))
-      .run();
-    const byReporter = new Map<number, FlagItem[]>();
-    for (const id of unique) {
-      const item = flagById(tx, id);
-      const reporterId = rows.find((r) => r?.id === id)!.reporterId;
-      byReporter.set(reporterId, [...(byReporter.get(reporterId) ?? []), item]);
-    }
-    for (const [reporterId, items] of byReporter) {
-      const reporter = tx.select().from(users).where(eq(users.id, reporterId)).get();
-      if (!reporter) continue;
-      const name = reporter.name || reporter.login;
-      const [first] = items;
-      deps.mailer.queue(
-        tx,
-        reporter,
-        items.length === 1
-          ? flagResolved({
-              appUrl: deps.appUrl,
-              name,
-              title: first!.title,
-              slug: first!.swapSlug,
-              reason: first!.reason,
-              note: clean,
-            })
-          : flagsResolved({
-              appUrl: deps.appUrl,
-              name,
-              flags: items.map((f) => ({ title: f.title, slug: f.swapSlug, reason: f.reason })),
-              note: clean,
-            }),
-      );
-    }
-    return unique;
-  });
 }

@@ -1,6 +1,6 @@
 import { and, desc, eq, inArray, lt } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { chassis, revisions, revisionPhotos, swaps, users } from '../../db/schema/index';
+import { chassis, flags, revisions, revisionPhotos, swaps, users } from '../../db/schema/index';
 import { AppError } from '../../lib/app-error';
 import { canSeeUnpublishedRevision } from '../../../shared/roles';
 import type { SessionUser } from '../../middleware/require-role';
@@ -135,6 +135,13 @@ export function submissionView(db: Db, row: LoadedRevision, viewer?: SessionUser
       r.status === 'draft' && r.expiresAt && r.expiryWarnedAt && r.updatedAt < r.expiryWarnedAt
         ? r.expiresAt.toISOString()
         : null,
+    changeNote: r.changeNote,
+    answersFlags: db
+      .select({ id: flags.id, kind: flags.kind, reason: flags.reason, status: flags.status })
+      .from(flags)
+      .where(eq(flags.correctionRevisionId, r.id))
+      .orderBy(flags.id)
+      .all(),
     ...baseState(db, row),
   };
 }

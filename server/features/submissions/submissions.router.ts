@@ -10,6 +10,7 @@ import {
   createSubmissionSchema,
   photoOrderSchema,
   rebaseSubmissionSchema,
+  submitSubmissionSchema,
   updateSubmissionSchema,
 } from '../../../shared/schemas/submissions';
 import { MAX_PHOTO_BYTES } from '../photos/photo-processing';
@@ -91,8 +92,8 @@ export function submissionsRouter({ db, clock, mailer, storage, logger, config }
     '/submissions/:id/submit',
     requirePermission('submit'),
     submitLimit,
-    validated({ params: idParams }, ({ params }, req, res) => {
-      res.json(submitForReview(deps, req.user!, params.id));
+    validated({ params: idParams, body: submitSubmissionSchema }, ({ params, body }, req, res) => {
+      res.json(submitForReview(deps, req.user!, params.id, body));
     }),
   );
 

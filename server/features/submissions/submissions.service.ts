@@ -22,6 +22,8 @@ import type {
   SubmissionView,
   UpdateSubmission,
 } from '../../../shared/schemas/submissions';
+import { CHANGE_NOTE_MIN, type SubmitSubmission } from '../../../shared/schemas/submissions';
+import { answerFlags } from '../flags/flags.service';
 import { removePhotoFiles, thumbId } from '../photos/photo-files';
 import { slugify, uniqueSlug } from '../../lib/slugs';
 import { newSwapSlug, swapSlugBase } from '../swaps/swap-slugs';
@@ -243,6 +245,7 @@ export async function createSubmission(
             data,
             body,
             incompleteRows: input.incompleteRows,
+            changeNote: cleanChangeNote(input.changeNote),
             createdAt: now,
             updatedAt: now,
           })
@@ -380,7 +383,13 @@ export function updateSubmission(deps: SubmissionDeps, user: SessionUser, id: nu
       }
       const changed = tx
         .update(revisions)
-        .set({ data, body, incompleteRows: input.incompleteRows, updatedAt: now })
+        .set({
+          data,
+          body,
+          incompleteRows: input.incompleteRows,
+          ...(input.changeNote !== undefined ? { changeNote: cleanChangeNote(input.changeNote) } : {}),
+          updatedAt: now,
+        })
         .where(and(eq(revisions.id, id), inArray(revisions.status, ['draft', 'sent_back'])))
         .run().changes;
       // the status moved between the check and the write (a submit from another tab)
@@ -415,19 +424,46 @@ function refuseIncompleteRows(rows: IncompleteRow[]) {
 }
 
 /** POST /api/submissions/:id/submit: a draft or sent-back revision goes to the review desk. */
-export function submitForReview(deps: SubmissionDeps, user: SessionUser, id: number): SubmissionView {
+const cleanChangeNote = (note: string | undefined) => (note === undefined ? null : stripHtml(note).trim() || null);
+
+/**
+ * A correction goes to review with its "what changed and why" (sent now or saved with the draft), so the
+ * desk and the sheet's history can say it; it may name the open flags of its swap that it answers.
+ */
+export function submitForReview(
+  deps: SubmissionDeps,
+  user: SessionUser,
+  id: number,
+  input: SubmitSubmission = { answersFlagIds: [] },
+): SubmissionView {
   const { db, clock } = deps;
   const row = revisionFor(db, user, id);
   assertEditable(user, row);
   refuseIncompleteRows(row.revision.incompleteRows);
   const behind = behindConflict(db, row, 'submit');
   if (behind) throw behind;
+  const changeNote = input.changeNote !== undefined ? cleanChangeNote(input.changeNote) : row.revision.changeNote;
+  // a new revision of a published swap (the first revision of a new swap has nothing to correct)
+  const isCorrection = row.swap.currentRevisionId !== null;
+  if (isCorrection && (changeNote ?? '').length < CHANGE_NOTE_MIN)
+    throw AppError.invalid('Say what this correction changes and why.', {
+      changeNote: `Say what changed and why (at least ${CHANGE_NOTE_MIN} characters)`,
+    });
+  if (!isCorrection && input.answersFlagIds.length > 0)
+    throw AppError.invalid('Only a correction of a published swap answers flags.', { answersFlagIds: 'Not a correction' });
   const now = clock.now();
   db.transaction((tx) => {
     tx.update(revisions)
-      .set({ status: 'in_review', submittedAt: now, reviewNote: null, updatedAt: now })
+      .set({
+        status: 'in_review',
+        submittedAt: now,
+        reviewNote: null,
+        changeNote: isCorrection ? changeNote : null,
+        updatedAt: now,
+      })
       .where(eq(revisions.id, id))
       .run();
+    answerFlags(tx, row.swap.id, id, [...new Set(input.answersFlagIds)], now);
     tx.insert(reviewEvents).values({ revisionId: id, actorId: user.id, action: 'submitted', note: '', at: now }).run();
     deps.mailer.queue(
       tx,

@@ -6,6 +6,7 @@ import { AppError } from '../../lib/app-error';
 import type { SwapSheetView, SwapCard, RevisionSummary } from '../../../shared/schemas/views';
 import { chassisView, iso, personRef, photosOf, swapCards } from './swap-views';
 import { bodyIsTakenDown } from '../takedowns/takedown-rules';
+import { openSafetyFlags } from '../flags/flags.service';
 
 /** Statuses a reader may open by revision number. */
 const publicStatuses = ['approved', 'superseded'] as const;
@@ -64,7 +65,9 @@ export function getSwapSheet(db: Db, slug: string, number?: number): SwapSheetVi
       status: h.revision.status,
       approvedAt: iso(h.revision.reviewedAt),
       author: personRef(h.author),
+      changeNote: h.revision.changeNote,
     })),
+    openSafetyFlags: openSafetyFlags(db, swap.id),
   };
 }
 
@@ -87,7 +90,8 @@ export function recentSwaps(db: Db, limit: number): SwapCard[] {
 /**
  * A cheap summary of everything a sheet is built from (the swap, its revisions, chassis and authors);
  * null when there is no such swap. Approved revisions never change, so this moves only when a new
- * revision is approved, the fitted count changes, or a chassis or author row is edited.
+ * revision is approved, the fitted count changes, a chassis or author row is edited, or a flag on it is
+ * raised, linked or resolved (the sheet tells readers of open safety flags).
  * It runs on every read of a sheet, so its statement is prepared once per database: preparing it
  * cost more than running it.
  */
@@ -101,7 +105,9 @@ export function sheetFingerprint(db: Db, slug: string): string | null {
           (select max(u.updated_at) from users u
              where u.id = s.author_id or u.id in (select r.author_id from revisions r where r.swap_id = s.id)) as authors_at,
           (select count(*) || '/' || coalesce(max(coalesce(t.reverted_at, t.created_at)), 0) from takedowns t where t.swap_id = s.id)
-            as takedowns
+            as takedowns,
+          (select group_concat(f.id || f.status || coalesce(fc.status, ''), ',') from flags f
+             left join revisions fc on fc.id = f.correction_revision_id where f.swap_id = s.id) as flags
         from swaps s join chassis c on c.id = s.chassis_id
         where s.slug = ?`,
       )

@@ -34,6 +34,7 @@ export function sheetViewOf(r: SubmissionView): SwapSheetView {
     },
     // no "newer revision" banner: this is the revision under review
     currentNumber: null,
+    openSafetyFlags: [],
     history: [],
   };
 }

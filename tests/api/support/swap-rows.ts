@@ -112,3 +112,11 @@ export function approveNewRevision(db: Db, swapId: number, data: ReturnType<type
   db.update(swaps).set({ currentRevisionId: id, updatedAt: now }).where(eq(swaps.id, swapId)).run();
   return { revisionId: id, number };
 }
+
+/**
+ * Gives a member the trust an approved revision earns (their fitted reports then go live at once): a
+ * published swap of their own on the chassis.
+ */
+export function earnTrust(db: Db, userId: number, chassisId: number) {
+  return addSwap(db, { slug: `trust-earned-${userId}`, chassisId, authorId: userId, revisions: [{ status: 'approved' }] });
+}

@@ -14,6 +14,7 @@ const links: MenuLink[] = [
   { to: paths.myFollowing(), label: 'Following' },
   { to: paths.myPlans(), label: 'My plans' },
   { to: paths.review(), label: 'Review desk', need: 'review' },
+  { to: paths.reportModeration(), label: 'Fitted reports to check', need: 'review' },
   { to: paths.outbox(), label: 'Outbox', need: 'review' },
   { to: paths.shopLinks(), label: 'Shop links', need: 'manage_shop_links' },
   { to: paths.admin(), label: 'Admin', need: 'manage_users' },

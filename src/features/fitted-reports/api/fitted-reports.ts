@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { FittedReportsView } from '@shared/schemas/fitted-reports';
+import type { FittedReportsView, ModerationReportList } from '@shared/schemas/fitted-reports';
 import { api } from '../../../lib/api-client';
 
 export const fittedKeys = {
@@ -22,6 +22,7 @@ export type ReportFields = {
   widthIn: string;
   offsetMm: string;
   spacerMm: number;
+  clearanceMm: number | null;
   note: string;
   removePhoto?: boolean;
 };
@@ -29,7 +30,8 @@ export type ReportFields = {
 function payload(fields: ReportFields, photo: File | null) {
   if (!photo) return fields;
   const form = new FormData();
-  for (const [k, v] of Object.entries(fields)) if (v !== undefined) form.append(k, String(v));
+  // an empty field is how a form says "not measured"
+  for (const [k, v] of Object.entries(fields)) if (v !== undefined) form.append(k, v === null ? '' : String(v));
   form.append('photo', photo);
   return form;
 }
@@ -68,6 +70,33 @@ export const useHideFittedReport = (slug: string, onChanged?: () => void) => {
       api<{ id: number; hidden: boolean }>(`/api/fitted-reports/${id}/${hidden ? 'hide' : 'unhide'}`, { method: 'POST' }),
     onSuccess: () => {
       void qc.invalidateQueries({ queryKey: fittedKeys.forSwap(slug) });
+      void qc.invalidateQueries({ queryKey: moderationKeys.all });
+      onChanged?.();
+    },
+  });
+};
+
+export const moderationKeys = {
+  all: ['fitted-reports', 'moderation'] as const,
+  list: (show: 'held' | 'hidden') => ['fitted-reports', 'moderation', show] as const,
+};
+
+export const moderationReportsQueryOptions = (show: 'held' | 'hidden') =>
+  queryOptions({
+    queryKey: moderationKeys.list(show),
+    queryFn: () => api<ModerationReportList>(`/api/fitted-reports?show=${show}`),
+  });
+
+export const useModerationReports = (show: 'held' | 'hidden') => useQuery(moderationReportsQueryOptions(show));
+
+/** A moderator lets a held report go live; the sheet's list and the moderators' lists are read again. */
+export const useReleaseFittedReport = (slug: string, onChanged?: () => void) => {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => api<{ id: number; state: 'live' }>(`/api/fitted-reports/${id}/release`, { method: 'POST' }),
+    onSuccess: () => {
+      void qc.invalidateQueries({ queryKey: fittedKeys.forSwap(slug) });
+      void qc.invalidateQueries({ queryKey: moderationKeys.all });
       onChanged?.();
     },
   });

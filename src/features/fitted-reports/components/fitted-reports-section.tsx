@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useLocation } from 'react-router';
 import type { FittedReportView, FittedReportsView, FittedWheelView } from '@shared/schemas/fitted-reports';
-import { createFittedReportSchema } from '@shared/schemas/fitted-reports';
+import { createFittedReportSchema, evidenceKinds, evidenceLabels } from '@shared/schemas/fitted-reports';
 import { fieldErrors } from '@shared/schemas/errors';
 import { inToMm, mmToIn } from '@shared/fitment/units';
 import { Button } from '../../../components/ui/button';
@@ -15,6 +15,7 @@ import {
   useDeleteFittedReport,
   useFittedReports,
   useHideFittedReport,
+  useReleaseFittedReport,
   useSaveFittedReport,
   type ReportFields,
 } from '../api/fitted-reports';
@@ -88,26 +89,26 @@ function FittedReportsBody({ view, slug, revisions, shownNumber, onChanged }: Pr
                   <strong>
                     Fitted by {v.fittedBy} other {v.fittedBy === 1 ? 'member' : 'members'}
                   </strong>
-                  .
+                  {v.strongest && <>; the strongest evidence: {evidenceLabels[v.strongest].toLowerCase()}</>}.
                 </>
               ) : (
                 'No other member has reported fitting it yet.'
               )}
             </li>
-            <li>
-              <span aria-hidden className={`font-bold ${v.withPhotos > 0 ? 'text-ink' : 'text-graphite-soft'}`}>
-                {v.withPhotos > 0 ? '✓ ' : '○ '}
-              </span>
-              {v.withPhotos > 0 ? (
-                <>
-                  <strong>With photos:</strong> {v.withPhotos} {v.withPhotos === 1 ? 'report shows' : 'reports show'} the parts on
-                  the car.
-                </>
-              ) : (
-                'No report has a photo yet.'
-              )}
-            </li>
           </ul>
+          {v.fittedBy > 0 && (
+            <dl
+              className="tabular mt-3 grid grid-cols-[1fr_auto] gap-x-3 gap-y-1 text-sm"
+              aria-label="Evidence behind the reports"
+            >
+              {evidenceKinds.map((k) => (
+                <div key={k} className="contents">
+                  <dt className={v.byEvidence[k] ? 'text-graphite' : 'text-graphite-soft'}>{evidenceLabels[k]}</dt>
+                  <dd className="text-right font-bold">{v.byEvidence[k]}</dd>
+                </div>
+              ))}
+            </dl>
+          )}
         </div>
         <div className="rounded-lg border border-ink/15 bg-paper-card p-4">
           <h3 className="text-sm font-bold uppercase tracking-wide text-graphite-soft">Wheels people run with it</h3>
@@ -157,7 +158,6 @@ function ReportCard({
   onChanged?: () => void;
 }) {
   const wheelText = useWheelText();
-  const hide = useHideFittedReport(slug, onChanged);
   return (
     <article
       className={`flex h-full gap-3 rounded-lg border p-3 ${report.hidden ? 'border-oxide/40 bg-oxide-soft/40' : 'border-ink/10 bg-paper-card'}`}
@@ -182,20 +182,60 @@ function ReportCard({
           </span>
         </p>
         <p className="tabular font-bold">{wheelText(report.wheel)}</p>
+        <ReportEvidence report={report} />
         {report.note && <p className="mt-1 whitespace-pre-line text-graphite">{report.note}</p>}
+        {report.state === 'held' && <p className="mt-1 text-xs font-bold text-brass-deep">Waiting for a moderator</p>}
         {report.hidden && <p className="mt-1 text-xs font-bold text-oxide">Hidden by a moderator</p>}
-        {canModerate && (
-          <Button
-            variant="quiet"
-            className="mt-1 !min-h-8 !px-2 text-xs"
-            disabled={hide.isPending}
-            onClick={() => hide.mutate({ id: report.id, hidden: !report.hidden })}
-          >
-            {report.hidden ? 'Show again' : 'Hide report'}
-          </Button>
-        )}
+        {canModerate && <ModerateReport report={report} slug={slug} onChanged={onChanged} />}
       </div>
     </article>
+  );
+}
+
+/** The measured clearance and what kind of evidence stands behind a report. */
+export function ReportEvidence({ report }: { report: FittedReportView }) {
+  const units = useUnits();
+  return (
+    <p className="tabular text-graphite">
+      {report.clearanceMm !== null && <>Measured clearance {units.length(report.clearanceMm)} · </>}
+      <span className={report.evidence === 'word' ? 'text-graphite-soft' : 'font-semibold text-ink'}>
+        {evidenceLabels[report.evidence]}
+      </span>
+    </p>
+  );
+}
+
+/** A moderator's buttons on a report: let a held one go live, hide or show it. */
+export function ModerateReport({ report, slug, onChanged }: { report: FittedReportView; slug: string; onChanged?: () => void }) {
+  const hide = useHideFittedReport(slug, onChanged);
+  const release = useReleaseFittedReport(slug, onChanged);
+  const error = hide.error ?? release.error;
+  return (
+    <div className="mt-1 flex flex-wrap items-center gap-1">
+      {report.state === 'held' && (
+        <Button
+          variant="secondary"
+          className="!min-h-8 !px-2 text-xs"
+          disabled={release.isPending}
+          onClick={() => release.mutate(report.id)}
+        >
+          Let it go live
+        </Button>
+      )}
+      <Button
+        variant="quiet"
+        className="!min-h-8 !px-2 text-xs"
+        disabled={hide.isPending}
+        onClick={() => hide.mutate({ id: report.id, hidden: !report.hidden })}
+      >
+        {report.hidden ? 'Show again' : 'Hide report'}
+      </Button>
+      {error && (
+        <span role="alert" className="text-xs text-oxide">
+          {error.message}
+        </span>
+      )}
+    </div>
   );
 }
 
@@ -212,6 +252,12 @@ function MyReport({ view, slug, revisions, shownNumber, onChanged }: Props & { v
           Your report: {wheelText(view.mine.wheel)}, following revision {view.mine.revisionNumber}.
           {view.mine.hidden && <span className="text-oxide"> A moderator has hidden it; only you and moderators see it.</span>}
         </p>
+        {view.mine.state === 'held' && !view.mine.hidden && (
+          <p role="status" className="mt-1 text-graphite">
+            It waits for a moderator: reports from members who are new here are checked before they show and count. Until then
+            only you and the moderators see it.
+          </p>
+        )}
         <div className="mt-2 flex flex-wrap gap-2">
           <Button variant="secondary" onClick={() => setEditing(true)}>
             Edit my report
@@ -273,9 +319,11 @@ function ReportForm({
       widthIn: mine ? String(mine.wheel.widthIn) : '',
       offsetMm: mine ? String(mine.wheel.offsetMm) : '',
       spacer: mine ? String(imperial ? Math.round(mmToIn(mine.wheel.spacerMm) * 100) / 100 : mine.wheel.spacerMm) : '0',
+      clearance:
+        mine?.clearanceMm != null ? String(imperial ? Math.round(mmToIn(mine.clearanceMm) * 100) / 100 : mine.clearanceMm) : '',
       note: mine?.note ?? '',
     },
-    { spacer: 'length' },
+    { spacer: 'length', clearance: 'length' },
   );
   const [photo, setPhoto] = useState<File | null>(null);
   const [removePhoto, setRemovePhoto] = useState(false);
@@ -287,12 +335,15 @@ function ReportForm({
     e.preventDefault();
     const raw = form.spacer.trim().replace(',', '.');
     const spacerMm = raw === '' ? 0 : imperial ? Math.round(inToMm(Number(raw)) * 10) / 10 : Number(raw);
+    const rawGap = form.clearance.trim().replace(',', '.');
+    const clearanceMm = rawGap === '' ? null : imperial ? Math.round(inToMm(Number(rawGap)) * 10) / 10 : Number(rawGap);
     const fields: ReportFields = {
       revisionNumber: Number(form.revisionNumber),
       diameterIn: form.diameterIn,
       widthIn: form.widthIn,
       offsetMm: form.offsetMm,
       spacerMm,
+      clearanceMm,
       note: form.note,
       ...(removePhoto ? { removePhoto } : {}),
     };
@@ -317,7 +368,8 @@ function ReportForm({
     >
       <h3 className="text-base font-extrabold text-ink">{mine ? 'Edit my fitted report' : 'I fitted this too'}</h3>
       <p className="mt-1 text-sm text-graphite-soft">
-        Say which revision you followed and the wheel you run with it. One report per member; you can change or remove it later.
+        Say which revision you followed and the wheel you run with it. A measured clearance and a photo of the parts on the car
+        make your report count as stronger evidence. One report per member; you can change or remove it later.
       </p>
       <div className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-5">
         <Select
@@ -364,6 +416,15 @@ function ReportForm({
           onChange={set('spacer')}
           error={errors.spacerMm}
         />
+        <TextInput
+          label={`Clearance measured (${units.lengthUnit})`}
+          inputMode="decimal"
+          value={form.clearance}
+          onChange={set('clearance')}
+          error={errors.clearanceMm}
+          hint="Smallest gap, caliper to wheel"
+          className="col-span-2 sm:col-span-1"
+        />
         <TextArea
           label="Note"
           rows={2}
@@ -372,7 +433,7 @@ function ReportForm({
           error={errors.note}
           maxLength={1000}
           hint="What you would tell the next person (optional)"
-          className="col-span-2 sm:col-span-3"
+          className="col-span-2 sm:col-span-2"
         />
         <div className="col-span-2 flex flex-col gap-1">
           <label htmlFor="fitted-photo" className="text-sm font-bold text-graphite">

@@ -1,13 +1,19 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { BulkResolveResponse } from '@shared/schemas/submissions';
+import type { BulkResolveResponse, FlagItem } from '@shared/schemas/submissions';
+import type { FlagOutcome } from '@shared/schemas/flags';
 import { api } from '../../../lib/api-client';
 import { reviewKeys } from './review-keys';
 
-export const resolveFlag = ({ id, note }: { id: number; note: string }) =>
-  api<unknown>(`/api/review/flags/${id}/resolve`, { method: 'POST', body: { note } });
+type Resolution = { outcome: FlagOutcome; note: string; correctionRevisionId?: number | null };
 
-export const bulkResolveFlags = ({ ids, note }: { ids: number[]; note: string }) =>
-  api<BulkResolveResponse>('/api/review/flags/bulk-resolve', { method: 'POST', body: { ids, note } });
+export const resolveFlag = ({ id, ...body }: Resolution & { id: number }) =>
+  api<FlagItem>(`/api/review/flags/${id}/resolve`, { method: 'POST', body });
+
+export const bulkResolveFlags = (body: Resolution & { ids: number[] }) =>
+  api<BulkResolveResponse>('/api/review/flags/bulk-resolve', { method: 'POST', body });
+
+export const linkFlag = ({ id, revisionId }: { id: number; revisionId: number | null }) =>
+  api<FlagItem>(`/api/review/flags/${id}/link`, { method: 'POST', body: { revisionId } });
 
 /** The queue's counts and every page of flags read fresh after a resolve. */
 function useFlagMutation<V>(fn: (v: V) => Promise<unknown>) {
@@ -24,3 +30,4 @@ function useFlagMutation<V>(fn: (v: V) => Promise<unknown>) {
 
 export const useResolveFlag = () => useFlagMutation(resolveFlag);
 export const useBulkResolveFlags = () => useFlagMutation(bulkResolveFlags);
+export const useLinkFlag = () => useFlagMutation(linkFlag);

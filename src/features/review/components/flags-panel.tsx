@@ -1,63 +1,121 @@
 import { useState } from 'react';
 import { Link } from 'react-router';
-import type { FlagItem } from '@shared/schemas/submissions';
-import { resolveFlagSchema } from '@shared/schemas/submissions';
+import type { FlagCorrection, FlagItem } from '@shared/schemas/submissions';
+import { bulkResolveFlagsSchema, resolveFlagSchema } from '@shared/schemas/submissions';
+import { flagKindLabels, flagOutcomeLabels, flagOutcomes, isSafetyFlag, type FlagOutcome } from '@shared/schemas/flags';
+import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
-import { TextArea } from '../../../components/ui/field';
+import { Select, TextArea } from '../../../components/ui/field';
 import { ApiError } from '../../../lib/api-client';
 import { paths } from '../../../config/paths';
-import { useBulkResolveFlags, useResolveFlag } from '../api/resolve-flag';
+import { useBulkResolveFlags, useLinkFlag, useResolveFlag } from '../api/resolve-flag';
 import { useFlags } from '../api/get-flags';
 
 const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 
+const correctionLabel = (c: FlagCorrection) =>
+  `Revision ${c.number} (${c.status === 'in_review' ? 'at the desk' : c.status === 'approved' ? 'published' : 'replaced since'})`;
+
+/** The correction that answers a flag: approving it resolves the flag as fixed. */
+function LinkCorrection({ flag }: { flag: FlagItem }) {
+  const link = useLinkFlag();
+  if (flag.corrections.length === 0)
+    return <p className="mt-2 text-sm text-graphite-soft">No correction of this swap has been sent in yet.</p>;
+  return (
+    <div className="mt-2">
+      <Select
+        label="Answered by"
+        value={flag.correction?.revisionId ?? ''}
+        disabled={link.isPending}
+        onChange={(e) => link.mutate({ id: flag.id, revisionId: e.target.value ? Number(e.target.value) : null })}
+        error={link.error?.message}
+      >
+        <option value="">No correction linked</option>
+        {flag.corrections.map((c) => (
+          <option key={c.revisionId} value={c.revisionId}>
+            {correctionLabel(c)}
+          </option>
+        ))}
+      </Select>
+    </div>
+  );
+}
+
 function ResolveForm({ flag }: { flag: FlagItem }) {
+  const [outcome, setOutcome] = useState<FlagOutcome | ''>('');
   const [note, setNote] = useState('');
-  const [error, setError] = useState<string | null>(null);
+  const [errors, setErrors] = useState<Record<string, string | undefined>>({});
   const resolve = useResolveFlag();
+  const published = flag.correction && flag.correction.status !== 'in_review';
   const send = async (e: React.FormEvent) => {
     e.preventDefault();
-    const parsed = resolveFlagSchema.safeParse({ note });
-    if (!parsed.success) return setError(parsed.error.issues[0]?.message ?? 'Say what was done');
-    setError(null);
+    const parsed = resolveFlagSchema.safeParse({ outcome: outcome || undefined, note });
+    if (!parsed.success) return setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
+    setErrors({});
     try {
-      await resolve.mutateAsync({ id: flag.id, note: parsed.data.note });
+      await resolve.mutateAsync({ id: flag.id, ...parsed.data });
     } catch (err) {
-      setError(err instanceof ApiError ? (err.fields.note ?? err.message) : 'That did not work. Try again.');
+      setErrors(
+        err instanceof ApiError
+          ? { ...err.fields, _: Object.keys(err.fields).length ? undefined : err.message }
+          : { _: 'That did not work. Try again.' },
+      );
     }
   };
   return (
-    <form onSubmit={(e) => void send(e)} className="mt-3 space-y-2" noValidate>
+    <form onSubmit={(e) => void send(e)} className="mt-3 space-y-2" noValidate aria-label={`Resolve the flag on “${flag.title}”`}>
+      <Select
+        label="Outcome"
+        value={outcome}
+        onChange={(e) => setOutcome(e.target.value as FlagOutcome | '')}
+        error={errors.outcome ?? errors.correctionRevisionId}
+      >
+        <option value="">Pick one…</option>
+        {flagOutcomes.map((o) => (
+          <option key={o} value={o} disabled={o === 'fixed_by_correction' && !published}>
+            {flagOutcomeLabels[o]}
+            {o === 'fixed_by_correction' && !published ? ' (link a published correction first)' : ''}
+          </option>
+        ))}
+      </Select>
       <TextArea
-        label="What was done (the reporter reads this)"
+        label="Note to the reporter (optional)"
         rows={2}
         value={note}
         onChange={(e) => setNote(e.target.value)}
-        error={error ?? undefined}
+        error={errors.note}
       />
       <Button type="submit" variant="secondary" disabled={resolve.isPending}>
         {resolve.isPending ? 'Resolving…' : 'Resolve flag'}
       </Button>
+      {errors._ && (
+        <p role="alert" className="text-sm font-semibold text-oxide">
+          {errors._}
+        </p>
+      )}
     </form>
   );
 }
 
 /** Several flags resolved with one note; each reporter gets one message for all of theirs. */
 function BulkResolve({ ids, onDone }: { ids: number[]; onDone: () => void }) {
+  const [outcome, setOutcome] = useState<FlagOutcome | ''>('');
   const [note, setNote] = useState('');
   const [error, setError] = useState<string | null>(null);
   const resolve = useBulkResolveFlags();
   const send = async (e: React.FormEvent) => {
     e.preventDefault();
-    const parsed = resolveFlagSchema.safeParse({ note });
-    if (!parsed.success) return setError(parsed.error.issues[0]?.message ?? 'Say what was done');
+    const parsed = bulkResolveFlagsSchema.safeParse({ ids, outcome: outcome || undefined, note });
+    if (!parsed.success) return setError(parsed.error.issues[0]?.message ?? 'Pick an outcome');
     setError(null);
     try {
-      await resolve.mutateAsync({ ids, note: parsed.data.note });
+      await resolve.mutateAsync(parsed.data);
       setNote('');
       onDone();
     } catch (err) {
-      setError(err instanceof ApiError ? (err.fields.note ?? err.message) : 'That did not work. Try again.');
+      setError(
+        err instanceof ApiError ? (err.fields.outcome ?? err.fields.note ?? err.message) : 'That did not work. Try again.',
+      );
     }
   };
   return (
@@ -70,8 +128,18 @@ function BulkResolve({ ids, onDone }: { ids: number[]; onDone: () => void }) {
       <p className="text-sm font-bold text-ink" aria-live="polite">
         {ids.length} selected
       </p>
+      <Select label="Outcome for all of them" value={outcome} onChange={(e) => setOutcome(e.target.value as FlagOutcome | '')}>
+        <option value="">Pick one…</option>
+        {flagOutcomes
+          .filter((o) => o !== 'fixed_by_correction')
+          .map((o) => (
+            <option key={o} value={o}>
+              {flagOutcomeLabels[o]}
+            </option>
+          ))}
+      </Select>
       <TextArea
-        label="What was done (each reporter reads this, once for all their flags)"
+        label="Note to the reporters (optional; each hears at most once a day)"
         rows={2}
         value={note}
         onChange={(e) => setNote(e.target.value)}
@@ -138,6 +206,10 @@ export function FlagsPanel() {
               Flags {first}–{first + open.length - 1} of {total}
             </p>
           </div>
+          <p className="mb-3 text-sm text-graphite-soft">
+            A flag about a figure or unsafe advice is shown on its sheet (without the reporter’s name) until it is resolved or a
+            correction linked to it is published. Each reporter gets at most one e-mail a day about outcomes.
+          </p>
           {selected.size > 0 && <BulkResolve ids={[...selected]} onDone={() => setSelected(new Set())} />}
           <ul className="grid gap-4 md:grid-cols-2">
             {open.map((f) => (
@@ -162,7 +234,12 @@ export function FlagsPanel() {
                     {f.title}
                   </Link>
                 </h3>
+                <p className="mt-1">
+                  <Badge tone={isSafetyFlag(f.kind) ? 'oxide' : 'plain'}>{flagKindLabels[f.kind]}</Badge>
+                  {isSafetyFlag(f.kind) && <span className="ml-2 text-xs text-graphite-soft">shown to readers while open</span>}
+                </p>
                 <p className="mt-2 line-clamp-6 whitespace-pre-wrap break-words text-graphite">{f.reason}</p>
+                <LinkCorrection flag={f} />
                 <ResolveForm flag={f} />
               </li>
             ))}

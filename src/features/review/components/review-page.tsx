@@ -19,6 +19,7 @@ import { ApiError } from '../../../lib/api-client';
 import { ClaimBar } from './claim-bar';
 import { ShortcutList } from './shortcut-list';
 import { TakedownPanel } from './takedown-panel';
+import { ChangeNote } from './change-note';
 
 const when = (iso: string | null) =>
   iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : '—';
@@ -229,6 +230,7 @@ export function ReviewPage({ sheet }: { sheet: (revision: SubmissionView) => Rea
               </p>
             </section>
           )}
+          <ChangeNote revision={revision} />
           <Checks checks={checks} />
           {behind && current && (
             <section aria-labelledby="newer-h">

@@ -2,12 +2,13 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import { FormProvider, useForm, useWatch, type Resolver } from 'react-hook-form';
 import { Link, useNavigate } from 'react-router';
 import { useQueryClient } from '@tanstack/react-query';
-import type { SubmissionView } from '@shared/schemas/submissions';
+import { CHANGE_NOTE_MIN, type SubmissionView } from '@shared/schemas/submissions';
 import type { ChassisView, SwapSheetView } from '@shared/schemas/views';
 import { revisionStatusLabels, type Axle, type Category } from '@shared/schemas/enums';
 import { Page } from '../../../components/ui/page';
 import { Badge } from '../../../components/ui/badge';
 import { Button, ButtonLink } from '../../../components/ui/button';
+import { TextArea } from '../../../components/ui/field';
 import { Caution } from '../../../components/caution';
 import { ApiError } from '../../../lib/api-client';
 import { paths } from '../../../config/paths';
@@ -76,6 +77,8 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
   const backupKey = backupKeyOf(mode);
   const sending = useRef(false);
   const [sendError, setSendError] = useState<string | null>(null);
+  const [changeNote, setChangeNote] = useState(view?.changeNote ?? '');
+  const [changeNoteError, setChangeNoteError] = useState<string | undefined>();
   // the first field that holds back the send, named and linked beside the button
   const [blocking, setBlocking] = useState<{ path: string; message: string; more: number } | null>(null);
   const [backup, setBackup] = useState(() => {
@@ -159,6 +162,12 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
     async () => {
       setSendError(null);
       setBlocking(null);
+      setChangeNoteError(undefined);
+      if (swapSlug && changeNote.trim().length < CHANGE_NOTE_MIN) {
+        setChangeNoteError(`Say what changed and why (at least ${CHANGE_NOTE_MIN} characters)`);
+        setSendError('It cannot be sent yet: a correction says what it changes and why.');
+        return;
+      }
       sending.current = true;
       try {
         const saved = await autosave.flush();
@@ -166,7 +175,7 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
           setSendError('The draft could not be saved, so it was not sent. Fix what is marked and try again.');
           return;
         }
-        await submit.mutateAsync(saved.id);
+        await submit.mutateAsync({ id: saved.id, ...(swapSlug ? { changeNote } : {}) });
         clearBackup(backupKey);
         navigate(paths.editSubmission(saved.id), { replace: true });
         window.scrollTo({ top: 0 });
@@ -175,8 +184,9 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
           // a newer revision was approved meanwhile: the refreshed view offers the merge
           if (err.code === 'behind_current' && view)
             await queryClient.invalidateQueries({ queryKey: submissionKeys.detail(view.id) });
+          setChangeNoteError(err.fields.changeNote);
           for (const [path, message] of Object.entries(err.fields))
-            form.setError(formPathOf(path) as never, { type: 'server', message });
+            if (path !== 'changeNote') form.setError(formPathOf(path) as never, { type: 'server', message });
           setSendError(err.message);
         } else setSendError('It could not be sent. Check the connection and try again.');
       } finally {
@@ -370,6 +380,18 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
               A moderator checks the record, the figures and the photos. While it is at the desk you cannot change it; you will
               get an e-mail with the outcome.
             </p>
+            {swapSlug && (
+              <TextArea
+                className="mt-3"
+                label="What changed and why"
+                hint="Readers see this in the sheet’s history, and the moderator reads it first: which figures or steps you changed, and where the new ones come from."
+                rows={3}
+                maxLength={2000}
+                value={changeNote}
+                onChange={(e) => setChangeNote(e.target.value)}
+                error={changeNoteError}
+              />
+            )}
             {sendError && (
               <p role="alert" className="mt-3 font-semibold text-oxide" data-testid="send-error">
                 {sendError}

@@ -1,8 +1,9 @@
 import { useState } from 'react';
 import { flagSchema } from '@shared/schemas/submissions';
+import { flagKindLabels, flagKinds, type FlagKind } from '@shared/schemas/flags';
 import { useFlagSwap } from '../api/flag-swap';
 import { ApiError } from '../../../lib/api-client';
-import { TextArea } from '../../../components/ui/field';
+import { Select, TextArea } from '../../../components/ui/field';
 import { Button } from '../../../components/ui/button';
 import { paths } from '../../../config/paths';
 import { SheetSection } from './sheet-section';
@@ -10,9 +11,10 @@ import { SheetSection } from './sheet-section';
 /** "Something is wrong here": any signed-in member can flag a swap; moderators resolve it from the review desk. */
 export function FlagSwapForm({ slug, signedIn }: { slug: string; signedIn: boolean }) {
   const [open, setOpen] = useState(false);
+  const [kind, setKind] = useState<FlagKind | ''>('');
   const [reason, setReason] = useState('');
-  const [error, setError] = useState<string>();
-  const flag = useFlagSwap();
+  const [errors, setErrors] = useState<{ kind?: string; reason?: string }>({});
+  const flag = useFlagSwap(slug);
 
   if (!signedIn) {
     return (
@@ -49,25 +51,41 @@ export function FlagSwapForm({ slug, signedIn }: { slug: string; signedIn: boole
           className="flex max-w-xl flex-col gap-3"
           onSubmit={(e) => {
             e.preventDefault();
-            const parsed = flagSchema.safeParse({ reason });
-            if (!parsed.success) return setError(parsed.error.issues[0]?.message);
-            setError(undefined);
-            flag.mutate(
-              { slug, reason: parsed.data.reason },
-              {
-                onError: (err) =>
-                  setError(err instanceof ApiError ? (err.fields.reason ?? err.message) : 'Could not send the flag.'),
-              },
-            );
+            const parsed = flagSchema.safeParse({ kind: kind || undefined, reason });
+            if (!parsed.success)
+              return setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
+            setErrors({});
+            flag.mutate(parsed.data, {
+              onError: (err) =>
+                setErrors(
+                  err instanceof ApiError
+                    ? { kind: err.fields.kind, reason: err.fields.reason ?? (err.fields.kind ? undefined : err.message) }
+                    : { reason: 'Could not send the flag.' },
+                ),
+            });
           }}
         >
+          <Select
+            label="What kind of problem?"
+            hint="A questioned figure or unsafe advice is shown to readers (without your name) until a moderator settles it."
+            value={kind}
+            onChange={(e) => setKind(e.target.value as FlagKind | '')}
+            error={errors.kind}
+          >
+            <option value="">Pick one…</option>
+            {flagKinds.map((k) => (
+              <option key={k} value={k}>
+                {flagKindLabels[k]}
+              </option>
+            ))}
+          </Select>
           <TextArea
             label="What is wrong?"
-            hint="A wrong torque figure, a part number that does not match, a safety concern…"
+            hint="Which figure or step, what you think it should be, and where that comes from."
             rows={3}
             value={reason}
             onChange={(e) => setReason(e.target.value)}
-            error={error}
+            error={errors.reason}
           />
           <div className="flex gap-2">
             <Button type="submit" disabled={flag.isPending}>

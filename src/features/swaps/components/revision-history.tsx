@@ -26,6 +26,11 @@ export function RevisionHistory({ slug, history, shown }: { slug: string; histor
               {h.status === 'approved' ? 'current' : 'replaced'} · by {h.author.name} · published{' '}
               {h.approvedAt ? new Date(h.approvedAt).toLocaleDateString('en-GB', { timeZone: 'UTC' }) : '—'}
             </span>
+            {h.changeNote && (
+              <p className="w-full whitespace-pre-line break-words pl-3 text-graphite">
+                <span className="font-bold">What changed and why:</span> {h.changeNote}
+              </p>
+            )}
           </li>
         ))}
       </ol>

@@ -35,6 +35,7 @@ import { CaliperFitSection } from './caliper-fit-section';
 import { PrintedSection, SectionCheck, type ProfiledWheel } from './section-check';
 import { RevisionHistory } from './revision-history';
 import { SheetSectionMenu } from './sheet-section-menu';
+import { OpenFlagNotice } from './open-flag-notice';
 
 // in UTC, so the page the server drew and the one the browser hydrates read the same day
 const date = (iso: string | null) =>
@@ -108,6 +109,7 @@ export function SwapSheet({ view, banner, presets, carStarts, extraSections, act
           .
         </div>
       )}
+      <OpenFlagNotice flags={view.openSafetyFlags} />
       <header className="mb-4 print:mb-3">
         <p className="hidden text-xs text-graphite-soft print:block">
           Build sheet printed from Swapyard · revision {revision.number} approved {date(revision.approvedAt)} ·{' '}
