@@ -12,6 +12,7 @@ import { createLogger } from './lib/logger';
 import { staticClient, viteClient } from './client';
 import { seedDemo, isDatabaseEmpty } from './db/seed';
 import { startDraftExpiry } from './features/submissions/draft-expiry';
+import { startFlagOutcomeMail } from './features/flags/flags.service';
 import { startDigestScheduler } from './features/following/digests';
 
 async function main() {
@@ -51,6 +52,8 @@ async function main() {
   });
 
   const requests = trackRequests(server);
+  // outcomes of flags held back by the one-message-a-day rule go out once their day has passed
+  const stopFlagOutcomeMail = startFlagOutcomeMail({ db, storage, mailer, clock, logger, appUrl: config.appUrl });
   const stopDraftExpiry = startDraftExpiry({
     db,
     storage,
@@ -85,6 +88,7 @@ async function main() {
     const cut = await requests.drain(config.stopTimeoutMs);
     if (cut) logger.warn({ cut }, 'requests still running at the stop timeout were cut off');
     stopDraftExpiry();
+    stopFlagOutcomeMail();
     stopDigests();
     await mailer.stop();
     stopOrphanSweep();

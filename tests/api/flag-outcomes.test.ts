@@ -187,6 +187,22 @@ describe('a correction that answers a flag', () => {
   });
 });
 
+describe('a correction published before the flag', () => {
+  it('when a moderator tries to link the revision the reader flagged, then it is refused and not offered', async () => {
+    const swap = addSwap(t.db, {
+      slug: `h31-outcome-${++n}`,
+      chassisId,
+      authorId: rosa.id,
+      revisions: [{ status: 'superseded' }, { status: 'approved' }],
+    });
+    const f = await raise(kai, swap.slug, 'wrong_figure');
+    expect(f.corrections).toEqual([]);
+    const res = await send(mo, `/api/review/flags/${f.id}/link`, { revisionId: swap.revisionIds[1] });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.revisionId).toMatch(/after the flag/);
+  });
+});
+
 describe('one e-mail a day per reporter about flag outcomes', () => {
   it('when several of a member’s flags are settled in a day, then they get one message now and the rest together a day later', async () => {
     now = new Date('2026-06-10T08:00:00Z');

@@ -61,20 +61,28 @@ function flagItems(db: Reader, where: SQL, page?: { limit: number; offset: numbe
     outcome: r.flag.outcome,
     resolutionNote: r.flag.resolutionNote,
     correction: r.correction?.revisionId ? r.correction : null,
-    corrections: candidates.filter((c) => c.swapId === r.flag.swapId).map(({ swapId: _, ...c }) => c),
+    corrections: candidates
+      .filter((c) => c.swapId === r.flag.swapId && answers(r.flag, c))
+      .map((c) => ({ revisionId: c.revisionId, number: c.number, status: c.status })),
   }));
 }
 
-/** Revisions that could answer a flag: corrections of its swap at the desk or published, newest first. */
+/** Corrections of the swaps (at the desk, back for rework or published), newest first; `answers` picks a flag's. */
 function correctionsOf(db: Reader, swapIds: number[]) {
   if (swapIds.length === 0) return [];
   return db
-    .select({ swapId: revisions.swapId, revisionId: revisions.id, number: revisions.number, status: revisions.status })
+    .select({
+      swapId: revisions.swapId,
+      revisionId: revisions.id,
+      number: revisions.number,
+      status: revisions.status,
+      reviewedAt: revisions.reviewedAt,
+    })
     .from(revisions)
     .where(
       and(
         inArray(revisions.swapId, [...new Set(swapIds)]),
-        inArray(revisions.status, ['in_review', 'approved', 'superseded']),
+        inArray(revisions.status, ['in_review', 'sent_back', 'approved', 'superseded']),
         sql`${revisions.number} > 1`,
       ),
     )
@@ -151,12 +159,24 @@ export function openSafetyFlags(db: Db, swapId: number): OpenSafetyFlag[] {
     });
 }
 
-/** A revision that can answer a flag: a revision of the flagged swap that went to review (not a draft). */
-function answeringRevision(db: Reader, swapId: number, revisionId: number, field: string) {
+type Answerable = { swapId: number; createdAt: Date };
+type Candidate = { status: string; reviewedAt: Date | null; number: number };
+
+/**
+ * Whether a revision can answer a flag: a correction of the flagged swap at the desk, or published after
+ * the flag was raised (the revision a reader flagged cannot be its own fix).
+ */
+const answers = (flag: Answerable, r: Candidate) =>
+  r.number > 1 &&
+  (r.status === 'in_review' ||
+    r.status === 'sent_back' ||
+    ((r.status === 'approved' || r.status === 'superseded') && r.reviewedAt !== null && r.reviewedAt >= flag.createdAt));
+
+function answeringRevision(db: Reader, flag: Answerable, revisionId: number, field: string) {
   const row = db.select().from(revisions).where(eq(revisions.id, revisionId)).get();
-  if (!row || row.swapId !== swapId || row.status === 'draft' || row.number < 2)
-    throw AppError.invalid('Link a correction of the flagged swap that went to the review desk.', {
-      [field]: 'Not a correction of this swap at the desk or published',
+  if (!row || row.swapId !== flag.swapId || !answers(flag, row))
+    throw AppError.invalid('Link a correction of the flagged swap, at the desk or published since the flag was raised.', {
+      [field]: 'Not a correction of this swap made after the flag',
     });
   return row;
 }
@@ -167,7 +187,7 @@ export function linkCorrection(deps: FlagDeps, id: number, revisionId: number | 
   const flag = db.select().from(flags).where(eq(flags.id, id)).get();
   if (!flag) throw AppError.notFound('That flag');
   if (flag.status !== 'open') throw AppError.conflict('This flag is already resolved.');
-  if (revisionId !== null) answeringRevision(db, flag.swapId, revisionId, 'revisionId');
+  if (revisionId !== null) answeringRevision(db, flag, revisionId, 'revisionId');
   db.update(flags).set({ correctionRevisionId: revisionId, updatedAt: clock.now() }).where(eq(flags.id, id)).run();
   return flagById(db, id);
 }
@@ -192,7 +212,7 @@ const outcomeNeedsCorrection = (flag: typeof flags.$inferSelect, r: Resolution, 
   const revisionId = r.correctionRevisionId ?? flag.correctionRevisionId;
   if (revisionId === null || revisionId === undefined)
     throw AppError.invalid('Name the correction that fixed it.', { correctionRevisionId: 'Pick the published correction' });
-  const revision = answeringRevision(db, flag.swapId, revisionId, field);
+  const revision = answeringRevision(db, flag, revisionId, field);
   if (revision.status !== 'approved' && revision.status !== 'superseded')
     throw new AppError(
       'correction_not_published',
