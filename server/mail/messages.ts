@@ -1,4 +1,5 @@
 import { neutraliseSingleLine } from '../../shared/schemas/text';
+import { formatDate } from '../../shared/dates';
 
 // Builders of the messages the community loop sends. Each returns plain text and HTML; every string
 // that came from a member (titles, reasons, notes, names) is HTML-escaped in the HTML part.
@@ -145,7 +146,7 @@ export function emailSignInLink(m: { link: string; minutes: number; known: boole
   return { ...message, secret: true };
 }
 
-const longDate = (d: Date) => d.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+const longDate = (d: Date) => formatDate(d, { long: true, timeZone: 'UTC' });
 
 /** An untouched draft is about to be removed; the member can keep it. */
 export function draftExpiring(m: Base & { revisionId: number; lastChanged: Date; removeOn: Date; photos: number }): BuiltMessage {

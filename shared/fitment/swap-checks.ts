@@ -226,10 +226,11 @@ export function checkWheelForSwap(data: SwapData, axle: Axle, chassis: Fastening
       ? `No spacer: the stock ${noun} apply.`
       : boltOn
         ? `A bolt-on spacer is held by its own fasteners; the wheel ${chassis.wheelFastening?.fastener === 'stud_nut' ? 'nuts run on its studs' : 'bolts screw into it'}.`
-        : `A slip-on spacer of ${wheel.spacerMm} mm needs ${noun} ${wheel.spacerMm} mm longer than stock to keep the stock thread engagement.`;
+        : // no figure in the words: the page shows the spacer and the length in the reader's own units beside them
+          `A slip-on spacer needs ${noun} longer than stock by its own thickness to keep the stock thread engagement.`;
   const spacerNote =
     wheel.spacerMm > BOLT_ON_SPACER_FROM_MM
-      ? `Spacers beyond about ${BOLT_ON_SPACER_FROM_MM} mm are usually the bolt-on kind with their own studs (common practice, no source).`
+      ? `Spacers this thick are usually the bolt-on kind with their own studs (common practice, no source).`
       : null;
 
   return {

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { WarningIcon } from './ui/icons';
 
 import type { JobTouches } from '@shared/fitment/swap-checks';
 
@@ -45,9 +46,14 @@ export function Caution({
     <aside
       role="note"
       aria-label="Safety caution"
-      className="print-break-avoid rounded-lg border-l-4 border-oxide bg-oxide-soft px-4 py-3 text-sm text-graphite"
+      // a caution, not a quotation: a full frame and a warning sign, never a bar down one side
+      className="print-break-avoid rounded-lg border-2 border-oxide bg-oxide-soft px-4 py-3 text-sm text-graphite"
+      data-caution
     >
-      <p className="font-bold text-oxide">Safety first</p>
+      <p className="flex items-center gap-2 font-extrabold text-oxide">
+        <WarningIcon className="h-5 w-5" />
+        Safety first
+      </p>
       <ul className="mt-1 list-disc space-y-1 pl-5 print:columns-2 print:gap-6 print:space-y-0">
         {topics
           .flatMap((t) => lines[t])

@@ -1,11 +1,12 @@
 import { useId, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import type { ChassisView } from '@shared/schemas/views';
 import { inputClass } from './ui/field';
+import { chassisName, codeRepeatsModel } from '@shared/chassis-label';
 
 export type ChassisOption = Pick<ChassisView, 'slug' | 'make' | 'model' | 'code' | 'yearFrom' | 'yearTo'>;
 
 const years = (c: ChassisOption) => `${c.yearFrom}–${c.yearTo ?? 'on'}`;
-export const chassisOptionLabel = (c: ChassisOption) => `${c.make} ${c.model} · ${c.code} · ${years(c)}`;
+export const chassisOptionLabel = (c: ChassisOption) => `${chassisName(c)} · ${years(c)}`;
 
 /** A typed year: 1995, 95 or ’95 (two digits read as the nearest past century's year), or a range 1995–1998 / 1995-98. */
 function typedYears(word: string, thisYear: number): [number, number] | null {
@@ -194,7 +195,8 @@ export function ChassisCombobox({
                 {o.make} {o.model}
               </span>{' '}
               <span className="tabular text-graphite-soft">
-                {o.code} · {years(o)}
+                {codeRepeatsModel(o) ? '' : `${o.code} · `}
+                {years(o)}
               </span>
             </li>
           ))

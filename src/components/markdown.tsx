@@ -41,6 +41,14 @@ export function mediaImageSrc(src: unknown): string | null {
   return m && photoIdPattern.test(m[1]) ? src : null;
 }
 
+/** The words inside a rendered element, for telling a caution from a quotation. */
+function textOf(node: unknown): string {
+  if (!node || typeof node !== 'object') return '';
+  const n = node as { type?: string; value?: string; children?: unknown[] };
+  if (n.type === 'text') return n.value ?? '';
+  return (n.children ?? []).map(textOf).join('');
+}
+
 const proseClass = 'prose prose-neutral max-w-none prose-headings:text-ink prose-a:text-ink prose-table:text-sm';
 
 /** The text as written, when formatting it could hang or crash the page. */
@@ -135,6 +143,19 @@ export function Markdown({ children, className = '' }: { children: string; class
               type === 'checkbox' ? (
                 <input type="checkbox" checked={Boolean(checked)} disabled readOnly aria-label={checked ? 'Done' : 'Not done'} />
               ) : null,
+            // a write-up's "> **Safety:** …" is a caution, framed like the sheet's own, not set as a quotation
+            blockquote: ({ node, children: quoted }) =>
+              /^\s*(safety|caution|warning)\b/i.test(textOf(node)) ? (
+                <aside
+                  role="note"
+                  data-caution
+                  className="not-prose my-4 rounded-lg border-2 border-oxide bg-oxide-soft px-4 py-2 text-sm text-graphite [&_p]:my-1"
+                >
+                  {quoted}
+                </aside>
+              ) : (
+                <blockquote>{quoted}</blockquote>
+              ),
             img: ({ src, alt }) => {
               const own = mediaImageSrc(src);
               return own ? <img src={own} alt={alt ?? ''} loading="lazy" /> : <span>{alt}</span>;

@@ -47,7 +47,7 @@ export function PhotoGrid({ photos }: { photos: PhotoView[] }) {
                   width={p.width}
                   height={p.height}
                   loading="lazy"
-                  className="aspect-[4/3] w-full object-cover transition-transform hover:scale-[1.02]"
+                  className="aspect-[4/3] w-full bg-paper-deep object-contain transition-transform hover:scale-[1.02]"
                 />
               </button>
               {p.caption && <figcaption className="mt-1 text-sm text-graphite-soft">{p.caption}</figcaption>}

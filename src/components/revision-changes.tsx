@@ -3,7 +3,7 @@ import type { SwapData } from '@shared/schemas/swap-data';
 import { compareRevisions, type ChangeValue, type FieldChange, type RowChange, type TextChange } from '@shared/revision-changes';
 import { kgToLb } from '@shared/fitment/units';
 import { round, useUnits } from '../lib/units';
-import { formatMoney } from '../lib/money';
+import { formatMoney } from '@shared/money';
 
 type Revision = { data: SwapData; body: string };
 

@@ -17,7 +17,8 @@ export function SwapCard({ swap }: { swap: SwapCardData }) {
           width={480}
           height={300}
           loading="lazy"
-          className="aspect-[16/10] w-full bg-paper-deep object-cover"
+          // the whole picture, never cropped: demo pictures and many photos carry words near their edges
+          className="aspect-[16/10] w-full bg-paper-deep object-contain"
         />
       ) : (
         <div className="aspect-[16/10] w-full bg-paper-deep" aria-hidden />

@@ -98,4 +98,32 @@ describe('drafts that keep what was typed', () => {
     await other.close();
     await context.close();
   });
+
+  it('when a draft is deleted, then the page does not ask for it again, and the add buttons draw their own icon', async () => {
+    const { context, page, errors } = await openSubmitForm(browser, server.url, 'pistonpaul');
+    // the "+" is the app's own drawing, not a character that needs an emoji font
+    const addShim = page.getByRole('button', { name: 'Add a shim' });
+    expect(await addShim.locator('svg[data-icon]').count()).toBe(1);
+    expect(await addShim.innerText()).not.toMatch(/[\uFF0B+]/);
+
+    const id = await startDraft(page);
+    const afterDelete: string[] = [];
+    let deleted = false;
+    page.on('response', (r) => deleted && afterDelete.push(`${r.status()} ${r.request().method()} ${new URL(r.url()).pathname}`));
+    page.on('console', (m) => deleted && m.type() === 'error' && afterDelete.push(`console: ${m.text()}`));
+    page.once('dialog', (d) => void d.accept());
+    const gone = page.waitForResponse((r) => r.request().method() === 'DELETE' && r.url().endsWith(`/api/submissions/${id}`));
+    await page.getByRole('button', { name: 'Delete draft' }).click();
+    expect((await gone).status()).toBe(204);
+    deleted = true;
+    await page.waitForURL((u) => u.pathname === '/me/submissions');
+    await page.waitForLoadState('networkidle');
+    expect(
+      afterDelete.filter(
+        (line) => line.includes(`/api/submissions/${id}`) || line.startsWith('404') || line.startsWith('console'),
+      ),
+    ).toEqual([]);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
 });

@@ -15,6 +15,7 @@ import { trustLevel } from '../../../shared/trust';
 import { claimsOn, tryClaim } from './review-claims.service';
 import { flagPage } from '../flags/flags.service';
 import type { ReviewDeps } from './review.service';
+import { chassisName } from '../../../shared/chassis-label';
 
 // The desk's queue: filters in SQL where they can be (status, chassis, category, age, words), then the automatic
 // checks and the authors' trust levels for what is left (both are filters too), oldest first, a page at a time.
@@ -106,7 +107,7 @@ function matching(deps: ReviewDeps, viewer: SessionUser, filters: ReviewQueueFil
       isCorrection: row.revision.number > 1,
       chassis: {
         slug: row.chassis.slug,
-        label: `${row.chassis.make} ${row.chassis.model}${row.chassis.code === row.chassis.model ? '' : ` (${row.chassis.code})`}`,
+        label: chassisName(row.chassis),
       },
       axle: row.swap.axle,
       category: row.swap.category,

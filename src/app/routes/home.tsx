@@ -6,6 +6,7 @@ import { Loading, ErrorNotice } from '../../components/ui/query-state';
 import { useRecentSwaps } from '../../features/swaps/api/get-recent-swaps';
 import { useChassisList } from '../../features/swaps/api/get-catalogue';
 import { paths } from '../../config/paths';
+import { chassisName } from '@shared/chassis-label';
 
 export default function HomePage() {
   const recent = useRecentSwaps(6);
@@ -46,8 +47,7 @@ export default function HomePage() {
                   to={paths.chassis(c.slug)}
                   className="rounded-full border border-paper/30 px-3 py-1 font-bold hover:border-paper"
                 >
-                  {c.make} {c.model}
-                  {c.code === c.model ? '' : ` ${c.code}`}
+                  {chassisName(c)}
                 </Link>
               ))}
             </p>

@@ -70,3 +70,14 @@ export function VerdictIcon({ tone, className }: IconProps & { tone: 'pass' | 'f
   if (tone === 'fail') return <CrossIcon className={className} />;
   return <OpenIcon className={className} />;
 }
+
+/** A warning triangle, for cautions. */
+export function WarningIcon(props: IconProps) {
+  return (
+    <Icon {...props}>
+      <path d="M10 3L18 17H2Z" />
+      <path d="M10 8.5v4" />
+      <path d="M10 15v.01" />
+    </Icon>
+  );
+}

@@ -13,9 +13,9 @@ import { useShops } from '../api/get-shops';
 import { useUserChanges } from '../api/get-user-changes';
 import { useUpdateUser } from '../api/update-user';
 import { useDebounced } from '../../../lib/use-debounced';
+import { formatDateTime } from '@shared/dates';
 
-const when = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : 'never';
+const when = (iso: string | null) => (iso ? formatDateTime(iso) : 'never');
 
 type Notice = { tone: 'ok' | 'error'; text: string } | null;
 

@@ -10,6 +10,7 @@ export const boltPatternKeys = ['lugs', 'studs', 'pcd'];
 
 const CHORD_RULE = 'Adjacent studs are a chord of the pitch circle: PCD = spacing / sin(180° / lugs) (plane geometry)';
 const LUG_COUNTS = [3, 4, 5, 6, 8, 10];
+const EXAMPLE_PCD_MM = 112;
 
 export function BoltPatternPanel({ params }: { params: CalcParams }) {
   const { length } = useUnits();
@@ -55,7 +56,8 @@ export function BoltPatternPanel({ params }: { params: CalcParams }) {
             name="studs"
             label="Adjacent stud spacing"
             quantity="length"
-            placeholder="66.6"
+            // the example is the stud spacing of the PCD field's example, for the lug count chosen
+            placeholder={round(adjacentStudSpacingMm(lugs, EXAMPLE_PCD_MM), 2).replace(',', '')}
             hint="Centre to centre, neighbouring studs"
             error={forward.error('studs')}
           />
@@ -64,7 +66,7 @@ export function BoltPatternPanel({ params }: { params: CalcParams }) {
             name="pcd"
             label="Or: PCD"
             quantity="length"
-            placeholder="112"
+            placeholder={String(EXAMPLE_PCD_MM)}
             hint="To find the stud spacing"
             error={inverse.error('pcd')}
           />

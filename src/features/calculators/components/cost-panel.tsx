@@ -6,7 +6,7 @@ import { Select, TextInput } from '../../../components/ui/field';
 import { Figure } from '../../../components/verdict';
 import { readable, type CalcParams } from './calc-params';
 import { Panel, Waiting } from './calc-form';
-import { formatMoney } from '../../../lib/money';
+import { formatMoney } from '@shared/money';
 
 export const costKeys = ['cost', 'cur'];
 
@@ -31,8 +31,6 @@ export function toMinor(text: string): number | null {
   if (!match) return null;
   return Number(match[1]) * 100 + Number((match[2] ?? '0').padEnd(2, '0'));
 }
-
-const money = (minor: number, currency: string) => formatMoney(minor, currency, { code: true });
 
 export function CostPanel({ params }: { params: CalcParams }) {
   const stored = params.getAll('cost').map(decode);
@@ -159,15 +157,15 @@ export function CostPanel({ params }: { params: CalcParams }) {
                 <Figure
                   key={route}
                   label={costRouteLabels[route]}
-                  value={money(total, currency)}
+                  value={formatMoney(total, currency)}
                   note={
                     route === 'new_kit'
                       ? 'the baseline'
                       : saving === null
                         ? 'add a new kit line to compare'
                         : saving.amountMinor >= 0
-                          ? `saves ${money(saving.amountMinor, currency)}${saving.percent !== null ? ` (${saving.percent.toFixed(1)} %)` : ''} against the new kit`
-                          : `costs ${money(-saving.amountMinor, currency)} more than the new kit`
+                          ? `saves ${formatMoney(saving.amountMinor, currency)}${saving.percent !== null ? ` (${saving.percent.toFixed(1)} %)` : ''} against the new kit`
+                          : `costs ${formatMoney(-saving.amountMinor, currency)} more than the new kit`
                   }
                 />
               );

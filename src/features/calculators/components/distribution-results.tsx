@@ -3,6 +3,7 @@ import type { DistributionAnalysis, LoadState, SetupAnalysis, StateAnalysis } fr
 import { AdhesionChart, type AdhesionChartSet } from '../../../components/adhesion-chart';
 import { round, useUnits } from '../../../lib/units';
 import { SubHeading } from './calc-form';
+import { WarningIcon } from '../../../components/ui/icons';
 
 const g = (z: number) => `${z.toFixed(2)} g`;
 const span = (r: { fromG: number; toG: number }) => `${r.fromG.toFixed(2)}–${r.toG.toFixed(2)} g`;
@@ -41,7 +42,11 @@ export function DistributionResults({ analysis }: { analysis: DistributionAnalys
       >
         <div className="flex items-baseline justify-between gap-3">
           <p className="text-sm font-bold text-graphite">{analysis.after ? 'What the swap does' : 'Lock order'}</p>
-          {attention && <p className="text-xs font-extrabold uppercase tracking-wide text-oxide">⚠ Rear locks first</p>}
+          {attention && (
+            <p className="flex items-center gap-1 text-xs font-extrabold uppercase tracking-wide text-oxide">
+              <WarningIcon className="h-3.5 w-3.5" /> Rear locks first
+            </p>
+          )}
         </div>
         <p className="mt-1 text-base font-bold text-graphite">{analysis.summary}</p>
         <p className="mt-1 text-xs text-graphite-soft">

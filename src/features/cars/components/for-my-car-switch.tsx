@@ -1,6 +1,7 @@
 import { useSearchParams } from 'react-router';
 import { useMyCars } from '../api/get-cars';
 import { wheelLabel } from './my-cars-page';
+import { chassisName } from '@shared/chassis-label';
 
 /**
  * "For my car" on the search page: narrows the results to a saved car's chassis and to swaps whose
@@ -62,7 +63,7 @@ export function ForMyCarSwitch({ signedIn }: { signedIn: boolean }) {
         )}
         <span className="text-graphite-soft">
           {active
-            ? `Showing swaps for ${active.nickname}: ${active.chassis.make} ${active.chassis.model} ${active.chassis.code}, minimum wheel at most ${active.wheelDiameterIn}″.`
+            ? `Showing swaps for ${active.nickname}: ${chassisName(active.chassis)}, minimum wheel at most ${active.wheelDiameterIn}″.`
             : `Narrow to ${cars.data.length === 1 ? cars.data[0]!.nickname : 'one of your cars'}: its chassis and what its wheel clears.`}
         </span>
       </div>

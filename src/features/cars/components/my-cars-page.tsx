@@ -11,6 +11,7 @@ import { useMyCars } from '../api/get-cars';
 import { useCreateCar, useDeleteCar, useUpdateCar } from '../api/save-car';
 import { CarForm } from './car-form';
 import { VehicleFiguresList } from '../../../components/vehicle-figures';
+import { chassisName } from '@shared/chassis-label';
 
 export const wheelLabel = (w: { wheelDiameterIn: number; wheelWidthIn: number; wheelOffsetMm: number }) =>
   `${w.wheelDiameterIn}×${w.wheelWidthIn} ET${w.wheelOffsetMm}`;
@@ -78,7 +79,7 @@ function CarCard({ car, actions }: { car: CarView; actions?: React.ReactNode }) 
       <h3 className="text-lg font-extrabold text-ink">{car.nickname}</h3>
       <p className="text-sm text-graphite-soft">
         <Link to={paths.chassis(car.chassis.slug)} className="font-bold text-ink underline decoration-brass underline-offset-2">
-          {car.chassis.make} {car.chassis.model} · {car.chassis.code}
+          {chassisName(car.chassis)}
         </Link>{' '}
         ({car.chassis.yearFrom}–{car.chassis.yearTo ?? 'on'})
       </p>

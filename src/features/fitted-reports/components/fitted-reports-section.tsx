@@ -20,6 +20,7 @@ import {
   type ReportFields,
 } from '../api/fitted-reports';
 import { numberKeyboard } from '../../../lib/number-text';
+import { formatDate } from '@shared/dates';
 
 type Props = {
   slug: string;
@@ -29,7 +30,7 @@ type Props = {
   onChanged?: () => void;
 };
 
-const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+const date = (iso: string) => formatDate(iso);
 
 export function useWheelText() {
   const units = useUnits();

@@ -2,9 +2,9 @@ import { Link } from 'react-router';
 import type { FitGroup } from '@shared/schemas/graph';
 import { paths } from '../../../config/paths';
 import { SwapLinks } from './swap-links';
+import { chassisName as nameOf } from '@shared/chassis-label';
 
-export const chassisName = (c: FitGroup['chassis']) =>
-  `${c.make} ${c.model}${c.code === c.model ? '' : ` · ${c.code}`} (${c.yearFrom}–${c.yearTo ?? 'on'})`;
+export const chassisName = (c: FitGroup['chassis']) => `${nameOf(c)} (${c.yearFrom}–${c.yearTo ?? 'on'})`;
 
 /** Every chassis a part reaches through approved swaps, with those swaps and the catalogue adapters they use. */
 export function FitGroups({ fits, label, totalChassis }: { fits: FitGroup[]; label: string; totalChassis: number }) {

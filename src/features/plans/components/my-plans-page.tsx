@@ -3,8 +3,9 @@ import { paths } from '../../../config/paths';
 import { Page } from '../../../components/ui/page';
 import { ErrorNotice, Loading } from '../../../components/ui/query-state';
 import { useMyPlans } from '../api/plans';
+import { formatDate } from '@shared/dates';
 
-const dateText = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+const dateText = (iso: string) => formatDate(iso);
 
 export default function MyPlansPage() {
   const plans = useMyPlans(true);

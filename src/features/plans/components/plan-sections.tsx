@@ -5,7 +5,7 @@ import { costRouteLabels, costRoutes } from '@shared/schemas/enums';
 import { axleWord, fastenerKindLabels, lubricationLabels, machiningComponentLabels } from '@shared/schemas/swap-data-labels';
 import { AdhesionChart } from '../../../components/adhesion-chart';
 import { BalanceShiftNote } from '../../../components/balance-shift-note';
-import { formatMoney } from '../../../lib/money';
+import { formatMoney } from '@shared/money';
 import { round, useUnits } from '../../../lib/units';
 
 const pct = (share: number) => `${round(share * 100, 1)} %`;

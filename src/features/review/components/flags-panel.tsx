@@ -10,8 +10,9 @@ import { ApiError } from '../../../lib/api-client';
 import { paths } from '../../../config/paths';
 import { useBulkResolveFlags, useLinkFlag, useResolveFlag } from '../api/resolve-flag';
 import { useFlags } from '../api/get-flags';
+import { formatDate } from '@shared/dates';
 
-const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+const date = (iso: string) => formatDate(iso);
 
 const correctionLabel = (c: FlagCorrection) =>
   `Revision ${c.number} (${c.status === 'in_review' ? 'at the desk' : c.status === 'approved' ? 'published' : 'replaced since'})`;

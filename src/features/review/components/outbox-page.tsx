@@ -4,8 +4,9 @@ import { Page } from '../../../components/ui/page';
 import { Badge } from '../../../components/ui/badge';
 import { ErrorNotice, Loading } from '../../../components/ui/query-state';
 import { useOutbox } from '../api/get-outbox';
+import { formatDateTime } from '@shared/dates';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+const when = (iso: string) => formatDateTime(iso);
 
 const tones: Record<MailStatus, 'ink' | 'brass' | 'oxide' | 'plain'> = {
   kept: 'plain',

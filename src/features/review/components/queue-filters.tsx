@@ -5,6 +5,7 @@ import { checkOutcomeLabels, checkOutcomes, type ReviewQueueQuery } from '@share
 import { Field, Select, inputClass } from '../../../components/ui/field';
 import { Button } from '../../../components/ui/button';
 import { useChassisFilter } from '../api/get-chassis-filter';
+import { chassisName } from '@shared/chassis-label';
 
 type Props = {
   query: ReviewQueueQuery;
@@ -62,7 +63,7 @@ export function QueueFilters({ query, onChange, onClear, searchRef }: Props) {
           <option value="">Any chassis</option>
           {(chassis.data ?? []).map((c) => (
             <option key={c.slug} value={c.slug}>
-              {c.make} {c.model} ({c.code})
+              {chassisName(c)}
             </option>
           ))}
         </Select>

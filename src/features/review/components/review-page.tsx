@@ -20,9 +20,9 @@ import { ClaimBar } from './claim-bar';
 import { ShortcutList } from './shortcut-list';
 import { TakedownPanel } from './takedown-panel';
 import { ChangeNote } from './change-note';
+import { formatDateTime } from '@shared/dates';
 
-const when = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : '—';
+const when = (iso: string | null) => (iso ? formatDateTime(iso) : '—');
 
 // the desk's own look: a tally of the three results, then one card per check with its tag
 const checkLook: Record<CheckResult['status'], { tag: string; card: string }> = {

@@ -5,8 +5,9 @@ import { Button } from '../../../components/ui/button';
 import { TextArea } from '../../../components/ui/field';
 import { ApiError } from '../../../lib/api-client';
 import { useRevertTakedown, useTakeDown } from '../api/takedowns';
+import { formatDateTime } from '@shared/dates';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+const when = (iso: string) => formatDateTime(iso);
 
 type Choice = { target: 'photo'; photoId: string } | { target: 'body' };
 

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { costBuckets, type FacetValue, type FilterKey, type SearchFacets, type SearchFilters } from '@shared/search/search-types';
 import { ChassisCombobox, type ChassisOption } from '../../../components/chassis-combobox';
-import { formatMoney } from '../../../lib/money';
+import { formatMoney } from '@shared/money';
 
 type Props = {
   facets: SearchFacets;
@@ -24,7 +24,7 @@ export function costBucketLabel(value: string, currency: string | null) {
 function Group({ title, children, hint }: { title: string; children: ReactNode; hint?: string }) {
   return (
     <fieldset className="border-t border-ink/10 pt-4">
-      <legend className="float-left mb-2 w-full text-xs font-extrabold uppercase tracking-wider text-ink">{title}</legend>
+      <legend className="float-left mb-2 w-full text-sm font-bold text-graphite">{title}</legend>
       {hint && <p className="clear-both mb-2 text-xs text-graphite-soft">{hint}</p>}
       <div className="clear-both">{children}</div>
     </fieldset>

@@ -11,6 +11,7 @@ import { SearchResult } from './search-result';
 import { costBucketLabel, SearchFacetsPanel } from './search-facets';
 import { PAGE_SIZE, readState, withFilter, writeState, type SearchState } from './search-state';
 import type { IndexInfo } from '../worker/search-protocol';
+import { chassisName } from '@shared/chassis-label';
 
 const sortLabels: Record<SearchSort, string> = { relevance: 'Best match', newest: 'Newest', fitted: 'Most fitted' };
 
@@ -31,7 +32,7 @@ function filterLabel(key: FilterKey, filters: SearchFilters, info: IndexInfo | u
       return costBucketLabel(String(v), info?.currency ?? null);
     case 'chassis': {
       const c = info?.chassis.find((x) => x.slug === v);
-      return c ? `${c.make} ${c.model} ${c.code}` : String(v);
+      return c ? chassisName(c) : String(v);
     }
     default:
       return String(v);

@@ -4,7 +4,8 @@ import { categoryLabels, machiningLevelLabels } from '@shared/schemas/enums';
 import { Badge } from '../../../components/ui/badge';
 import { chassisLabel } from '../../../components/swap-card';
 import { paths } from '../../../config/paths';
-import { formatMoney } from '../../../lib/money';
+import { formatMoney } from '@shared/money';
+import { formatDate } from '@shared/dates';
 
 const wholeMoney = (minor: number, currency: string) => formatMoney(minor, currency, { whole: true });
 
@@ -72,9 +73,7 @@ export function SearchResult({ doc }: { doc: SearchDocument }) {
         <div className="flex gap-1">
           <dt>Approved</dt>
           <dd className="font-bold text-graphite">
-            <time dateTime={doc.updatedAt}>
-              {new Date(doc.updatedAt).toLocaleDateString('en-GB', { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' })}
-            </time>
+            <time dateTime={doc.updatedAt}>{formatDate(doc.updatedAt)}</time>
           </dd>
         </div>
       </dl>

@@ -3,9 +3,10 @@ import type { PinnedSheetView } from '@shared/schemas/shops';
 import { Markdown } from '../../../components/markdown';
 import { paths } from '../../../config/paths';
 import { qrUrl } from '../api/shop-links';
+import { formatMoney } from '@shared/money';
+import { formatDate } from '@shared/dates';
 
-const date = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }) : '—';
+const date = (iso: string | null) => (iso ? formatDate(iso) : '—');
 
 /**
  * Above a sheet opened through a shop link: who sent it and whether the record moved on since. The link's
@@ -68,8 +69,7 @@ export function ShopLinkBanner({ pinned }: { pinned: PinnedSheetView }) {
   );
 }
 
-const money = (p: { amountMinor: number; currency: string }) =>
-  new Intl.NumberFormat('en-GB', { style: 'currency', currency: p.currency }).format(p.amountMinor / 100);
+const money = (p: { amountMinor: number; currency: string }) => formatMoney(p.amountMinor, p.currency);
 
 /** The shop's own record of the quote; the server sends it only to the shop's accounts. */
 function PrivatePart({ part }: { part: NonNullable<PinnedSheetView['link']['private']> }) {

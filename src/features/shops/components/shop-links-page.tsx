@@ -11,8 +11,10 @@ import { paths } from '../../../config/paths';
 import { useRetireShopLink, useShopLinks, useUpdateShopLink } from '../api/shop-links';
 import { QrDownloads } from './qr-downloads';
 import { linkBody, linkDraftFrom, ShopLinkFields } from './shop-link-fields';
+import { formatDate } from '@shared/dates';
+import { formatMoney } from '@shared/money';
 
-const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+const date = (iso: string) => formatDate(iso);
 
 export default function ShopLinksPage() {
   const query = useShopLinks();
@@ -223,8 +225,7 @@ function LinkRow({ link, canManage }: { link: ShopLinkItem; canManage: boolean }
   );
 }
 
-const money = (p: { amountMinor: number; currency: string }) =>
-  new Intl.NumberFormat('en-GB', { style: 'currency', currency: p.currency }).format(p.amountMinor / 100);
+const money = (p: { amountMinor: number; currency: string }) => formatMoney(p.amountMinor, p.currency);
 
 /** The link's public note, then the shop's private record, each labelled for who reads it. */
 function LinkNotes({ link }: { link: ShopLinkItem }) {

@@ -11,8 +11,9 @@ import { paths } from '../../../config/paths';
 import { useShopPage } from '../api/get-shop';
 import { ShopContactCard } from './shop-contact';
 import { ShopEditor } from './shop-editor';
+import { formatDate } from '@shared/dates';
 
-const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+const date = (iso: string) => formatDate(iso);
 
 export default function ShopPage() {
   const { slug = '' } = useParams();

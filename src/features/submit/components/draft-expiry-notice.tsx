@@ -1,8 +1,9 @@
 import type { SubmissionView } from '@shared/schemas/submissions';
 import { Button } from '../../../components/ui/button';
 import { useKeepDraft } from '../api/keep-draft';
+import { formatDate } from '@shared/dates';
 
-const longDate = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric' });
+const longDate = (iso: string) => formatDate(iso);
 
 /** An untouched draft its author was told about by e-mail: when it goes, and the one click that keeps it. */
 export function DraftExpiryNotice({ view }: { view: SubmissionView & { expiresAt: string } }) {

@@ -7,6 +7,7 @@ import { useUnits } from '../../../lib/units';
 import { heldListText, heldText, shownListText, shownText, unitOf, type Quantity } from '../../../lib/quantity-text';
 import { messageAt, type FormValues } from '../lib/form-values';
 import { numberKeyboard } from '../../../lib/number-text';
+import { PlusIcon } from '../../../components/ui/icons';
 
 // Inputs bound to the submission form by name; each shows its own error beside it.
 
@@ -290,7 +291,7 @@ export function MoreFields({ summary, children }: { summary: string; children: R
 export function AddButton({ onClick, children, disabled }: { onClick: () => void; children: ReactNode; disabled?: boolean }) {
   return (
     <Button variant="secondary" onClick={onClick} disabled={disabled}>
-      <span aria-hidden>＋</span> {children}
+      <PlusIcon className="mr-1.5 h-4 w-4" /> {children}
     </Button>
   );
 }

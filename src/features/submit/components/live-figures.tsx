@@ -10,7 +10,7 @@ import { wheelOutcomeLabels } from '@shared/schemas/swap-data-labels';
 import { BalanceShiftNote } from '../../../components/balance-shift-note';
 import { FitmentInputError } from '@shared/fitment/errors';
 import { Figure } from '../../../components/verdict';
-import { formatMoney } from '../../../lib/money';
+import { formatMoney } from '@shared/money';
 import { useUnits } from '../../../lib/units';
 import { liveDataOf, type FormValues } from '../lib/form-values';
 
@@ -43,7 +43,8 @@ export function LiveFigures({
   category: Category | null;
   wheelBoltThread: string | null;
   /** the chosen chassis: its stock figures say which axle locks first; its wheel fastening, when on record, is checked */
-  chassis: (Pick<ChassisView, 'make' | 'model' | 'vehicle'> & Partial<Pick<ChassisView, 'centreBoreMm' | 'wheelFastening'>>) | null;
+  chassis:
+    (Pick<ChassisView, 'make' | 'model' | 'vehicle'> & Partial<Pick<ChassisView, 'centreBoreMm' | 'wheelFastening'>>) | null;
   photoCount: number;
 }) {
   const values = useWatch<FormValues, 'data'>({ name: 'data' });

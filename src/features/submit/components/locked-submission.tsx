@@ -11,6 +11,8 @@ import { Markdown } from '../../../components/markdown';
 import { PhotoGrid } from '../../../components/photo-grid';
 import { chassisLabel } from '../../../components/swap-card';
 import { paths } from '../../../config/paths';
+import { formatDateTime } from '@shared/dates';
+import { LockIcon } from '../../../components/ui/icons';
 
 const explain: Record<RevisionStatus, string> = {
   draft: 'This draft can be edited.',
@@ -26,9 +28,7 @@ const tone = (s: RevisionStatus) =>
 
 /** A revision its author can no longer edit: in review, approved, declined or superseded. */
 export function LockedSubmission({ view }: { view: SubmissionView }) {
-  const when = view.submittedAt
-    ? new Date(view.submittedAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })
-    : null;
+  const when = view.submittedAt ? formatDateTime(view.submittedAt) : null;
   return (
     <Page
       title={view.data.title}
@@ -38,7 +38,11 @@ export function LockedSubmission({ view }: { view: SubmissionView }) {
       <div role="status" className="mb-6 rounded-xl border border-ink/15 bg-paper-card p-4 sm:p-6" data-testid="locked-status">
         <div className="flex flex-wrap items-center gap-2">
           <Badge tone={tone(view.status)}>{revisionStatusLabels[view.status]}</Badge>
-          {view.status === 'in_review' && <span className="text-sm text-graphite-soft">🔒 Locked while at the desk</span>}
+          {view.status === 'in_review' && (
+            <span className="inline-flex items-center gap-1 text-sm text-graphite-soft">
+              <LockIcon className="h-4 w-4" /> Locked while at the desk
+            </span>
+          )}
           {when && <span className="text-sm text-graphite-soft">Sent {when}</span>}
         </div>
         <p className="mt-3 text-graphite">{explain[view.status]}</p>

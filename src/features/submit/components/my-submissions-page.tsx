@@ -6,6 +6,7 @@ import { ButtonLink } from '../../../components/ui/button';
 import { ErrorNotice, Loading } from '../../../components/ui/query-state';
 import { paths } from '../../../config/paths';
 import { useMySubmissions } from '../api/get-my-submissions';
+import { formatDate } from '@shared/dates';
 
 const order: RevisionStatus[] = ['sent_back', 'draft', 'in_review', 'approved', 'declined', 'superseded'];
 const leads: Record<RevisionStatus, string> = {
@@ -17,8 +18,7 @@ const leads: Record<RevisionStatus, string> = {
   superseded: 'Replaced by a newer published revision.',
 };
 
-const date = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—';
+const date = (iso: string | null) => (iso ? formatDate(iso) : '—');
 
 function Item({ item }: { item: MySubmissionItem }) {
   const editable = item.status === 'draft' || item.status === 'sent_back';

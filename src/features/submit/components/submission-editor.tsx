@@ -35,6 +35,7 @@ import { LiveFigures } from './live-figures';
 import { PhotoUploader } from './photo-uploader';
 import { DraftExpiryNotice } from './draft-expiry-notice';
 import { FormSection } from './form-controls';
+import { formatDateTime } from '@shared/dates';
 
 export type EditorMode = { kind: 'new' } | { kind: 'correction'; swap: SwapSheetView } | { kind: 'edit'; view: SubmissionView };
 
@@ -142,7 +143,8 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
     try {
       await discard.mutateAsync(view.id);
       clearBackup(backupKey);
-      navigate(paths.mySubmissions(), { replace: true });
+      await navigate(paths.mySubmissions(), { replace: true });
+      discard.forget(view.id);
     } catch (err) {
       setSendError(err instanceof ApiError ? err.message : 'The draft was not deleted. Try again.');
     }
@@ -287,10 +289,7 @@ export function SubmissionEditor({ mode, initial }: { mode: EditorMode; initial:
           role="status"
           className="mb-6 flex flex-wrap items-center justify-between gap-3 rounded-lg border border-brass bg-paper-card p-3 text-sm"
         >
-          <span>
-            This device kept input from {new Date(backup.at).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}{' '}
-            that was never saved.
-          </span>
+          <span>This device kept input from {formatDateTime(backup.at)} that was never saved.</span>
           <span className="flex gap-2">
             <Button
               variant="secondary"

@@ -11,6 +11,7 @@ import { paths } from '../../../config/paths';
 import { Button, ButtonLink } from '../../../components/ui/button';
 import { VehicleFiguresList } from '../../../components/vehicle-figures';
 import { ChassisFiguresEditor } from './chassis-figures-editor';
+import { chassisName } from '@shared/chassis-label';
 
 type ChassisPageProps = {
   /** shown above the swap list (e.g. which of the member's cars the swaps were checked against) */
@@ -47,7 +48,7 @@ export default function ChassisPage({ intro, cardNote, donors, canEditFigures = 
   return (
     <Page
       title={chassisLabel(c)}
-      heading={c.code === c.model ? `${c.make} ${c.model}` : `${c.make} ${c.model} · ${c.code}`}
+      heading={chassisName(c)}
       lead={`${c.body} · ${c.yearFrom}–${c.yearTo ?? 'on'}${c.notes ? ` · ${c.notes}` : ''}`}
       actions={
         <div className="flex flex-wrap items-start gap-2">

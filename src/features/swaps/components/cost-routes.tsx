@@ -1,7 +1,7 @@
 import type { SwapData } from '@shared/schemas/swap-data';
 import { costRouteLabels, costRoutes } from '@shared/schemas/enums';
 import { costSummaryOf } from '@shared/fitment/swap-checks';
-import { formatMoney } from '../../../lib/money';
+import { formatMoney } from '@shared/money';
 import { SheetSection } from './sheet-section';
 
 export function CostRoutesSection({ data }: { data: SwapData }) {

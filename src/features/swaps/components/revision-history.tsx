@@ -4,6 +4,7 @@ import type { RevisionSummary } from '@shared/schemas/views';
 import { paths } from '../../../config/paths';
 import { Button } from '../../../components/ui/button';
 import { SheetSection } from './sheet-section';
+import { dateOrDash } from '@shared/dates';
 
 export function RevisionHistory({ slug, history, shown }: { slug: string; history: RevisionSummary[]; shown: number }) {
   const navigate = useNavigate();
@@ -23,8 +24,7 @@ export function RevisionHistory({ slug, history, shown }: { slug: string; histor
               Revision {h.number}
             </Link>
             <span className="text-graphite-soft">
-              {h.status === 'approved' ? 'current' : 'replaced'} · by {h.author.name} · published{' '}
-              {h.approvedAt ? new Date(h.approvedAt).toLocaleDateString('en-GB', { timeZone: 'UTC' }) : '—'}
+              {h.status === 'approved' ? 'current' : 'replaced'} · by {h.author.name} · published {dateOrDash(h.approvedAt)}
             </span>
             {h.changeNote && (
               <p className="w-full whitespace-pre-line break-words pl-3 text-graphite">

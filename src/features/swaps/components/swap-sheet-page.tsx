@@ -36,10 +36,9 @@ import { PrintedSection, SectionCheck, type ProfiledWheel } from './section-chec
 import { RevisionHistory } from './revision-history';
 import { SheetSectionMenu } from './sheet-section-menu';
 import { OpenFlagNotice } from './open-flag-notice';
+import { dateOrDash } from '@shared/dates';
 
-// in UTC, so the page the server drew and the one the browser hydrates read the same day
-const date = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }) : '—';
+const date = dateOrDash;
 
 const noSubscription = () => () => {};
 
