@@ -51,11 +51,12 @@ export function useUnits() {
   return {
     ...ctx,
     /** a length given in mm, shown in the chosen system */
-    length: (mm: number, digits = 1) => (system === 'metric' ? `${round(mm, digits)} mm` : `${round(mmToIn(mm), digits + 2)} in`),
+    length: (mm: number, digits = 1) =>
+      system === 'metric' ? `${round(mm, digits)} mm` : `${round(mmToIn(mm), inchPlaces(digits))} in`,
     /** a length rounded toward `direction` at the shown precision, for figures that must not flatter (a clearance down, a spacer up) */
     lengthToward: (mm: number, direction: 'down' | 'up', digits = 1) => {
       const metric = system === 'metric';
-      const places = metric ? digits : digits + 2;
+      const places = metric ? digits : inchPlaces(digits);
       const scale = 10 ** places;
       const shown = metric ? mm : mmToIn(mm);
       // a hair of slack so a figure that is exactly on a step is not pushed a whole step by floating-point noise
@@ -70,6 +71,15 @@ export function useUnits() {
     volume: (mm3: number) => (system === 'metric' ? `${round(mm3 / 1000, 2)} cm³` : `${round(mm3 / MM_PER_IN ** 3, 3)} in³`),
     lengthUnit: system === 'metric' ? 'mm' : 'in',
   };
+}
+
+/**
+ * Decimal places of a length in inches for one shown to `mmDigits` in millimetres, at the trade's usual
+ * precision: hundredths of an inch for sizes, lengths and clearances (whole or tenth millimetres), thousandths
+ * for shims, gaps and fits (hundredths of a millimetre); common practice, no source.
+ */
+export function inchPlaces(mmDigits: number): number {
+  return mmDigits >= 2 ? 3 : 2;
 }
 
 export function round(value: number, digits: number): string {

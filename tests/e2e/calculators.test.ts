@@ -86,11 +86,12 @@ describe('calculators page', () => {
     await expect.poll(() => figure(tyre, 'Sidewall height')).toBe('101.25 mm');
     await expect.poll(() => figure(offset, 'Effective offset')).toBe('ET30');
 
-    // Imperial: inputs and outputs in inches, the URL still in millimetres. 101.25 / 25.4 = 3.98622 in; 30 / 25.4 = 1.18110 in.
+    // Imperial: inputs and outputs in inches, the URL still in millimetres. 101.25 / 25.4 = 3.98622 in; 30 / 25.4 = 1.18110 in;
+    // shown to the trade's precision: thousandths for figures given to 0.01 mm, hundredths for those given to 0.1 mm.
     await page.getByRole('group', { name: 'Units for the calculators' }).getByRole('button', { name: 'Imperial' }).click();
-    await expect.poll(() => figure(tyre, 'Sidewall height')).toBe('3.9862 in');
-    await expect.poll(() => figure(tyre, 'Overall diameter')).toBe('24.972 in');
-    await expect.poll(() => figure(offset, 'Track change per axle')).toBe('+1.181 in');
+    await expect.poll(() => figure(tyre, 'Sidewall height')).toBe('3.986 in');
+    await expect.poll(() => figure(tyre, 'Overall diameter')).toBe('24.97 in');
+    await expect.poll(() => figure(offset, 'Track change per axle')).toBe('+1.18 in');
     expect(await offset.getByText('Spacer (in)').count()).toBe(1);
     expect(await field(offset, 'Spacer').inputValue()).toBe('0.5906');
     await expect.poll(() => figure(offset, 'Effective offset')).toBe('ET30');

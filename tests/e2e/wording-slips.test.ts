@@ -95,7 +95,7 @@ describe('wording and look slips', () => {
     await panel.getByLabel('Offset ET (mm)').fill('38');
     await panel.getByLabel('Spacer (in)').fill('0.4');
     const bolt = panel.locator('div', { hasText: /^Wheel-bolt length/ }).last();
-    await expect.poll(() => bolt.innerText()).toContain('1.424 in to keep the stock engagement');
+    await expect.poll(() => bolt.innerText()).toContain('1.42 in to keep the stock engagement');
     expect(await bolt.innerText()).toContain('A slip-on spacer needs wheel bolts longer than stock by its own thickness');
     expect(await bolt.innerText()).not.toMatch(/\d mm/);
     await page.close();
