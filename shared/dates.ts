@@ -15,11 +15,16 @@ export function formatDate(
   return toDate(value).toLocaleDateString('en-GB', { day: 'numeric', month: long ? 'long' : 'short', year: 'numeric', timeZone });
 }
 
+/** A time of day on the reader's own clock ("14:05"): a claim's end, the last save. Drawn in the browser only. */
+export function formatTime(value: DateInput): string {
+  return toDate(value).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' });
+}
+
 export function formatDateTime(value: DateInput): string {
   const d = toDate(value);
   // the reader's own clock, date and time alike: these are drawn in the browser only
   const day = d.toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
-  return `${day}, ${d.toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}`;
+  return `${day}, ${formatTime(d)}`;
 }
 
 /** `formatDate` for a value that may be missing: a dash stands in. */

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { chassisLabel, chassisName } from '../../shared/chassis-label';
-import { dateOrDash, formatDate, formatDateTime } from '../../shared/dates';
+import { dateOrDash, formatDate, formatDateTime, formatTime } from '../../shared/dates';
 import { formatMoney } from '../../shared/money';
 import { fittedByText } from '../../src/features/swaps/components/swap-sheet-page';
 
@@ -44,6 +44,14 @@ describe('the words pages share', () => {
     expect(formatDateTime(at)).toBe('6 Apr 2026, 14:05');
     expect(formatDate(new Date(Date.UTC(2026, 8, 14)), { long: true, timeZone: 'UTC' })).toBe('14 September 2026');
     expect(dateOrDash(null)).toBe('—');
+    expect(formatTime(at)).toBe('14:05');
+    // no page formats a date or a time of its own
+    const ownFormatters = [...sourceFiles('src'), ...sourceFiles('server'), ...sourceFiles('shared')].filter(
+      (f) =>
+        f !== path.join('shared', 'dates.ts') &&
+        /toLocaleDateString|toLocaleTimeString|dateStyle|DateTimeFormat/.test(fs.readFileSync(path.join(root, f), 'utf8')),
+    );
+    expect(ownFormatters).toEqual([]);
   });
 
   it('when nobody else has reported fitting a swap, then the sheet says so in words, not "0 other members"', () => {

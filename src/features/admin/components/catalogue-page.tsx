@@ -3,8 +3,8 @@ import { Loading } from '../../../components/ui/query-state';
 import { useCatalogueChanges } from '../api/catalogue';
 import { ChassisDesk } from './chassis-desk';
 import { PartsDesk } from './parts-desk';
+import { formatDateTime } from '@shared/dates';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
 const actionWords = { edit: 'corrected', merge: 'merged', approve: 'approved' } as const;
 // the record keeps field names; people read the form's words
 const fieldWords: Record<string, string> = {
@@ -39,7 +39,7 @@ function RecentChanges() {
         <ol className="space-y-2 text-sm">
           {changes.data.map((c) => (
             <li key={c.id} className="rounded-md border border-graphite/10 bg-paper-card px-3 py-2">
-              <span className="text-graphite-soft">{when(c.at)}</span> ·{' '}
+              <span className="text-graphite-soft">{formatDateTime(c.at)}</span> ·{' '}
               <strong>{c.actor ? `@${c.actor.login}` : 'the shell'}</strong> {actionWords[c.action]} {c.subjectLabel}
               {c.action === 'edit' && (
                 <>

@@ -8,8 +8,7 @@ import { ErrorNotice, Loading } from '../../../components/ui/query-state';
 import { paths } from '../../../config/paths';
 import { useModerationReports } from '../api/fitted-reports';
 import { ModerateReport, ReportEvidence, useWheelText } from './fitted-reports-section';
-
-const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+import { formatDate } from '@shared/dates';
 
 /**
  * Fitted reports for moderators: those new members wrote, waiting to go live (the longest waiting first),
@@ -88,7 +87,7 @@ function ModerationCard({ report }: { report: ModerationReportItem }) {
           <strong>{report.member.name}</strong>
           <Badge tone={report.memberTrust === 'new' ? 'brass' : 'ink'}>{trustLevelLabels[report.memberTrust]}</Badge>
           <span className="text-graphite-soft">
-            revision {report.revisionNumber} · {date(report.updatedAt)}
+            revision {report.revisionNumber} · {formatDate(report.updatedAt)}
           </span>
         </p>
         <p className="tabular mt-1 font-bold">{wheelText(report.wheel)}</p>

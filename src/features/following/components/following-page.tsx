@@ -5,9 +5,7 @@ import { Loading, ErrorNotice } from '../../../components/ui/query-state';
 import { Button } from '../../../components/ui/button';
 import { paths } from '../../../config/paths';
 import { useMyFollows, useSetFrequency, useStopFollow } from '../api/follows';
-
-const longDate = (iso: string) =>
-  new Date(iso).toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
+import { formatDate } from '@shared/dates';
 
 /** What the member follows: each chassis or car, how often its digest comes, and a way to stop it. */
 export default function FollowingPage() {
@@ -82,7 +80,7 @@ function FollowRow({ follow }: { follow: FollowItem }) {
           </p>
         )}
         <p className="tabular mt-1 text-xs text-graphite-soft">
-          Next digest due {longDate(follow.nextDigestAt)}, if anything is published
+          Next digest due {formatDate(follow.nextDigestAt)}, if anything is published
         </p>
       </div>
       <label className="flex items-center gap-2 text-sm font-bold text-graphite">

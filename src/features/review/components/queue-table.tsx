@@ -14,13 +14,14 @@ import { categoryLabels, checkStatusLabels, revisionStatusLabels } from '@shared
 import type { ReviewClaim } from '@shared/schemas/review-queue';
 import { Badge } from '../../../components/ui/badge';
 import { paths } from '../../../config/paths';
+import { formatTime } from '@shared/dates';
 
 const age = (iso: string | null) => {
   if (!iso) return '—';
   const days = Math.floor((Date.now() - Date.parse(iso)) / 86_400_000);
   return days <= 0 ? 'today' : days === 1 ? '1 day' : `${days} days`;
 };
-export const clockTime = (iso: string) => new Date(iso).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' });
+export const clockTime = (iso: string) => formatTime(iso);
 
 const trustWords = { new: 'new member', trusted: 'trusted member', established: 'established member' } as const;
 

@@ -1,7 +1,8 @@
 import type { SaveState } from '../lib/use-autosave';
 import { placeOf } from '../lib/form-values';
+import { formatTime } from '@shared/dates';
 
-const time = (d: Date) => d.toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' });
+const time = (d: Date) => formatTime(d);
 
 /** A link to the field a problem belongs to: it scrolls there and puts the cursor in it. */
 export function FieldLink({ path, onGo }: { path: string; onGo: (path: string) => void }) {

@@ -1,6 +1,5 @@
 import type { OpenSafetyFlag } from '@shared/schemas/flags';
-
-const date = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+import { formatDate } from '@shared/dates';
 
 const heading: Record<OpenSafetyFlag['kind'], string> = {
   wrong_figure: 'A reader questions a figure on this sheet',
@@ -26,7 +25,7 @@ export function OpenFlagNotice({ flags }: { flags: OpenSafetyFlag[] }) {
           <li key={f.id}>
             <p className="break-words">
               <span className="font-bold">{f.kind === 'wrong_figure' ? 'Figure questioned' : 'Safety concern'}</span> · reported{' '}
-              {date(f.raisedAt)}
+              {formatDate(f.raisedAt)}
               {f.correctionPending && ' · a correction is at the review desk'}
             </p>
             <blockquote className="mt-0.5 border-l-2 border-oxide/50 pl-2 italic">{f.gist}</blockquote>
