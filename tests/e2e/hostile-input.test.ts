@@ -180,7 +180,17 @@ function injectedMarkup(): string[] {
         found.push(`<${tag} ${name}="${a.value}">`);
       if (name === 'style' && /javascript:|expression\(/.test(value)) found.push(`<${tag} style="${a.value}">`);
     }
-    if (tag === 'script' && !(el as HTMLScriptElement).src.startsWith(`${location.origin}/assets/`))
+    // the page's own data blocks (the server's query cache, structured data) never run; one that a payload broke
+    // out of no longer parses as JSON
+    const dataBlock = ['application/json', 'application/ld+json'].includes((el as HTMLScriptElement).type);
+    let parses = false;
+    try {
+      JSON.parse(el.textContent ?? '');
+      parses = true;
+    } catch {
+      // not data: judged below like any other script
+    }
+    if (tag === 'script' && !(dataBlock && parses) && !(el as HTMLScriptElement).src.startsWith(`${location.origin}/assets/`))
       found.push(`<script> ${el.textContent?.slice(0, 60)}`);
     if (['object', 'embed', 'base', 'marquee', 'math', 'mglyph', 'template', 'noscript'].includes(tag)) found.push(`<${tag}>`);
     if (tag === 'meta' && el.hasAttribute('http-equiv')) found.push('<meta http-equiv>');
