@@ -121,7 +121,7 @@ describe('a correction behind the current revision', () => {
     );
     await expect.poll(() => page.getByRole('radio', { name: /Publish/ }).isDisabled()).toBe(true);
     expect(await page.getByRole('radio', { name: /Send back/ }).isChecked()).toBe(true);
-    await page.getByRole('button', { name: 'Send back' }).click();
+    await page.getByRole('button', { name: 'Send back for rework', exact: true }).click();
     await page.getByTestId('cannot-decide').getByText('Sent back to the author').waitFor();
     expect(errors).toEqual([]);
     await page.close();
