@@ -154,8 +154,8 @@ describe('section check calculator', () => {
       '38.1_190.5',
       '-69.85_190.5',
     ]);
-    // The barrel governs the rotor: 0.25 in − 3 mm = 3.35 mm = 0.1319 in of radius, shown rounded down.
-    expect(await figure(panel, 'Largest rotor that fits')).toBe('+0.131 in on the radius');
+    // The barrel governs the rotor: 0.25 in − 3 mm = 3.35 mm = 0.1319 in of radius, shown rounded down to hundredths.
+    expect(await figure(panel, 'Largest rotor that fits')).toBe('+0.13 in on the radius');
     expect(await figure(panel, 'Thinnest spacer that clears')).toBe('None needed');
 
     // The filled panel — rows, drawing, verdict — passes the accessibility checks.

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser } from './support/browser';
+import { hydrated, launchBrowser } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
 
 // The flagship sheet on a 390 px phone: a way around it, tables that fit, the wheel check's verdict in one line,
@@ -26,6 +26,8 @@ async function phonePage(path: string): Promise<{ page: Page; problems: string[]
   page.on('console', (m) => (m.type() === 'error' || m.type() === 'warning') && problems.push(`console: ${m.text()}`));
   await page.goto(`${server.url}${path}`);
   await page.locator('h1').first().waitFor();
+  // a server-drawn sheet answers typing once the app has taken it over
+  await hydrated(page);
   return { page, problems };
 }
 
@@ -48,7 +50,9 @@ describe('the sheet on a phone', () => {
       expect(labels).toContain(s);
     await menu.getByRole('link', { name: 'Parts', exact: true }).click();
     await expect.poll(() => menu.getByRole('link').count()).toBe(1); // the list closed; "Top" stays
-    await expect.poll(() => page.locator('#parts-h').evaluate((h) => Math.round(h.getBoundingClientRect().top))).toBeLessThan(120);
+    await expect
+      .poll(() => page.locator('#parts-h').evaluate((h) => Math.round(h.getBoundingClientRect().top)))
+      .toBeLessThan(120);
     await expect.poll(() => page.getByTestId('section-in-view').innerText()).toBe('Parts');
     expect(problems).toEqual([]);
     await page.close();
@@ -58,8 +62,8 @@ describe('the sheet on a phone', () => {
     const { page } = await phonePage(flagship);
     const tables = page.locator('table[data-reflow="phone"]');
     expect(await tables.count()).toBeGreaterThanOrEqual(5);
-    const wide = await tables.evaluateAll((ts) =>
-      ts.filter((t) => t.scrollWidth > t.clientWidth + 1 || t.getBoundingClientRect().right > window.innerWidth).length,
+    const wide = await tables.evaluateAll(
+      (ts) => ts.filter((t) => t.scrollWidth > t.clientWidth + 1 || t.getBoundingClientRect().right > window.innerWidth).length,
     );
     expect(wide).toBe(0);
     const cell = page.locator('#torque tbody tr').first().locator('td').nth(2);
@@ -109,7 +113,10 @@ describe('the sheet on a phone', () => {
     await panel.getByLabel('Diameter (in)').fill('16');
     await panel.getByLabel('Width (in)').fill('7');
     await offset.fill('−12');
-    const newOffset = panel.locator('[data-verdict], div').filter({ hasText: /^New offset/ }).last();
+    const newOffset = panel
+      .locator('[data-verdict], div')
+      .filter({ hasText: /^New offset/ })
+      .last();
     await expect.poll(() => newOffset.innerText()).toContain('ET-12');
     expect(await panel.getByText('Enter a number').count()).toBe(0);
     await page.close();
