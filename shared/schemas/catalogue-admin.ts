@@ -1,3 +1,4 @@
+import type { ChassisView } from './views';
 import { z } from 'zod';
 import { partKindSchema, type PartKind } from './enums';
 import { multiLine, singleLine } from './text';
@@ -64,20 +65,23 @@ export const mergeBodySchema = z
   .object({ intoId: z.number().int().positive('Choose the record to keep').max(Number.MAX_SAFE_INTEGER) })
   .strict();
 
-export type AdminChassis = {
-  id: number;
-  slug: string;
-  make: string;
-  model: string;
-  code: string;
-  yearFrom: number;
-  yearTo: number | null;
-  body: string;
-  lugCount: number;
-  pcdMm: number;
-  centreBoreMm: number;
-  wheelBoltThread: string;
-  notes: string;
+/** a chassis as the catalogue desk lists it: the public fields it edits, whether it is public yet, and what uses it */
+export type AdminChassis = Pick<
+  ChassisView,
+  | 'id'
+  | 'slug'
+  | 'make'
+  | 'model'
+  | 'code'
+  | 'yearFrom'
+  | 'yearTo'
+  | 'body'
+  | 'lugCount'
+  | 'pcdMm'
+  | 'centreBoreMm'
+  | 'wheelBoltThread'
+  | 'notes'
+> & {
   proposed: boolean;
   swapCount: number;
   carCount: number;

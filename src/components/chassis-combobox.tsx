@@ -1,4 +1,5 @@
-import { useId, useMemo, useRef, useState, type KeyboardEvent } from 'react';
+import { useId, useMemo, useRef, useState } from 'react';
+import { listboxKeyDown } from './listbox-keys';
 import type { ChassisView } from '@shared/schemas/views';
 import { inputClass } from './ui/field';
 import { chassisName, codeRepeatsModel } from '@shared/chassis-label';
@@ -84,34 +85,24 @@ export function ChassisCombobox({
     setOpen(false);
   };
 
-  const onKeyDown = (e: KeyboardEvent<HTMLInputElement>) => {
-    if (e.key === 'ArrowDown') {
-      e.preventDefault();
-      if (!open) setOpen(true);
-      else setActive((a) => Math.min(a + 1, matches.length - 1));
-    } else if (e.key === 'ArrowUp') {
-      e.preventDefault();
-      setActive((a) => Math.max(a - 1, 0));
-    } else if (e.key === 'Home' && open) {
-      e.preventDefault();
-      setActive(0);
-    } else if (e.key === 'End' && open) {
-      e.preventDefault();
-      setActive(matches.length - 1);
-    } else if (e.key === 'Enter' && open) {
-      e.preventDefault();
-      if (matches[active]) choose(matches[active]);
-    } else if (e.key === 'Escape') {
-      if (open) {
-        e.preventDefault();
-        setOpen(false);
-        setText(null);
-      } else if (value) {
-        e.preventDefault();
-        choose(null);
-      }
-    }
-  };
+  const onKeyDown = listboxKeyDown({
+    items: matches,
+    open,
+    active,
+    setOpen,
+    setActive,
+    onPick: choose,
+    onClose: () => {
+      setOpen(false);
+      setText(null);
+    },
+    // Escape on a closed box clears the chosen chassis
+    onEscapeClosed: () => {
+      if (!value) return false;
+      choose(null);
+      return true;
+    },
+  });
 
   const activeId = open && matches[active] ? `${listId}-${matches[active].slug}` : undefined;
 

@@ -1,4 +1,5 @@
-import { useId, useState, type KeyboardEvent, type ReactNode } from 'react';
+import { useId, useState, type ReactNode } from 'react';
+import { listboxKeyDown } from './listbox-keys';
 import { inputClass } from './ui/field';
 
 type Props<T> = {
@@ -46,22 +47,8 @@ export function SearchCombobox<T>({
     setOpen(false);
   };
 
-  const onKeyDown = (e: KeyboardEvent<HTMLInputElement>) => {
-    if (e.key === 'ArrowDown') {
-      e.preventDefault();
-      if (!open) setOpen(true);
-      else setActive((a) => Math.min(a + 1, items.length - 1));
-    } else if (e.key === 'ArrowUp') {
-      e.preventDefault();
-      setActive((a) => Math.max(a - 1, 0));
-    } else if (e.key === 'Enter' && shown) {
-      e.preventDefault();
-      if (items[active]) pick(items[active]);
-    } else if (e.key === 'Escape' && open) {
-      e.preventDefault();
-      setOpen(false);
-    }
-  };
+  // the list shows only while something is typed, so keys act on what is shown
+  const onKeyDown = listboxKeyDown({ items, open: shown, active, setOpen, setActive, onPick: pick });
 
   const optionId = (item: T) => `${listId}-${itemKey(item)}`;
   const activeId = shown && items[active] ? optionId(items[active]) : undefined;
